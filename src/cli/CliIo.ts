@@ -1,0 +1,36 @@
+import { existsSync, readFileSync, writeFileSync } from "node:fs";
+
+/** Everything the CLI does to the outside world, so commands can be tested in process. */
+export interface CliIo {
+  /** write to standard output (text is written as given; add your own newline) */
+  readonly out: (text: string) => void;
+  /** write to standard error */
+  readonly err: (text: string) => void;
+  /** read a UTF-8 text file */
+  readonly readFile: (path: string) => string;
+  /** write a UTF-8 text file */
+  readonly writeFile: (path: string, text: string) => void;
+  /** whether a path exists (commands refuse to overwrite without --force) */
+  readonly exists: (path: string) => boolean;
+  /** terminal width in columns, for charts and tables */
+  readonly columns: number;
+}
+
+/** Exit status: every limit met. */
+export const EXIT_OK = 0;
+/** Exit status: a limit is crossed (lets a team gate CI on the verdict). */
+export const EXIT_LIMIT = 1;
+/** Exit status: bad input (file, field or flag). */
+export const EXIT_INPUT = 2;
+
+/** The real process: stdout, stderr, the file system and the terminal width. */
+export function processIo(): CliIo {
+  return {
+    out: (text) => process.stdout.write(text),
+    err: (text) => process.stderr.write(text),
+    readFile: (path) => readFileSync(path, "utf8"),
+    writeFile: (path, text) => writeFileSync(path, text, "utf8"),
+    exists: (path) => existsSync(path),
+    columns: process.stdout.columns ?? 100,
+  };
+}

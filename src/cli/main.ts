@@ -1,0 +1,53 @@
+import { Command, CommanderError } from "commander";
+import { InputError, formatInputProblem } from "../errors/InputError.js";
+import { type CliIo, EXIT_INPUT, processIo } from "./CliIo.js";
+import { COMMANDS } from "./commands/registry.js";
+
+/** Shared state of one CLI run: the io and the exit status a command sets. */
+export interface CliRun {
+  readonly io: CliIo;
+  status: number;
+}
+
+/**
+ * Build the heatledger command tree (a factory, so tests run it in process). Commander's own
+ * errors are turned into exceptions (exitOverride) and its output goes through io.
+ */
+export function createProgram(run: CliRun): Command {
+  const program = new Command("heatledger")
+    .description(
+      "Thermal history of DC-link pre-charge parts under repeated power-up, fault and retry events:\n" +
+        "exact superposition on Foster/Cauer networks, peak temperatures, margins and verdicts.",
+    )
+    .version("0.1.0", "--version", "print the version")
+    .exitOverride()
+    .configureOutput({ writeOut: (t) => run.io.out(t), writeErr: (t) => run.io.err(t), outputError: (t, write) => write(t) })
+    .showHelpAfterError("(run with --help for usage)");
+  for (const register of COMMANDS) register(program, run);
+  return program;
+}
+
+/**
+ * Run the CLI with arguments (without "node heatledger") and return the exit status:
+ * 0 all limits met, 1 a limit is crossed, 2 bad input. Never throws for bad input and never
+ * prints a stack trace for it.
+ */
+export async function runCli(argv: readonly string[], io: CliIo = processIo()): Promise<number> {
+  const run: CliRun = { io, status: 0 };
+  const program = createProgram(run);
+  try {
+    await program.parseAsync(argv as string[], { from: "user" });
+    return run.status;
+  } catch (error) {
+    if (error instanceof CommanderError) {
+      return error.exitCode === 0 || error.code === "commander.helpDisplayed" || error.code === "commander.version" ? 0 : EXIT_INPUT;
+    }
+    if (error instanceof InputError) {
+      for (const problem of error.problems) io.err(`heatledger: ${formatInputProblem(problem)}\n`);
+      return EXIT_INPUT;
+    }
+    const message = error instanceof Error ? error.message : String(error);
+    io.err(`heatledger: internal error: ${message}\n(this is a bug in heatledger; please report it with the input that caused it)\n`);
+    return 3;
+  }
+}

@@ -1,0 +1,34 @@
+// heatledger public API: one export line per module, grouped by domain. test/index.test.ts pins this list.
+
+// errors
+export { InputError, inputError, formatInputProblem, withLocation, describeFound } from "./errors/InputError.js";
+export type { InputErrorCode, InputProblem } from "./errors/InputError.js";
+
+// units
+export { parseQuantity } from "./units/parseQuantity.js";
+export { DIMENSIONS, expectedWords } from "./units/dimensions.js";
+export type { Dimension } from "./units/dimensions.js";
+
+// thermal
+export { expIntegral0, expIntegral1 } from "./thermal/expIntegrals.js";
+export { constantPowerSegment, powerAt, segmentEnergy, shiftTerms, validatePowerTrace } from "./thermal/powerTrace.js";
+export type { PowerTerm, PowerSegment, PowerTrace } from "./thermal/powerTrace.js";
+export { validateModalModel, sourceIndex, observedIndex, steadyStateResistance } from "./thermal/ModalModel.js";
+export type { ModalModel } from "./thermal/ModalModel.js";
+export { fosterToModal, validateFoster } from "./thermal/fosterNetwork.js";
+export type { FosterNetwork, FosterStage } from "./thermal/fosterNetwork.js";
+export { cauerToModal, cauerToGraph, cauerNodeName } from "./thermal/cauerLadder.js";
+export type { CauerLadder, CauerStage } from "./thermal/cauerLadder.js";
+export { graphToModal, AMBIENT_NODE } from "./thermal/thermalGraph.js";
+export type { ThermalGraph, ThermalNode, ThermalLink } from "./thermal/thermalGraph.js";
+export { symmetricEigen } from "./thermal/symmetricEigen.js";
+export type { SymmetricEigen } from "./thermal/symmetricEigen.js";
+export { zth, logSpacedTimes } from "./thermal/zth.js";
+export { advanceModalState, createModalState, createModalStepper, modalRise } from "./thermal/modalStep.js";
+export type { ModalState, SourcePowers } from "./thermal/modalStep.js";
+export { interiorPeaks, PEAK_GRID_POINTS } from "./thermal/segmentPeak.js";
+export type { InteriorPeak } from "./thermal/segmentPeak.js";
+export { traceSteps } from "./thermal/traceSteps.js";
+export type { TimedStep } from "./thermal/traceSteps.js";
+export { runThermalHistory } from "./thermal/runThermalHistory.js";
+export type { HistoryOptions, HistoryPoint, HistorySummary } from "./thermal/runThermalHistory.js";

@@ -1,0 +1,53 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import type { ModalModel } from "./ModalModel.js";
+import { type ThermalGraph, graphToModal } from "./thermalGraph.js";
+
+/** One Cauer stage: heat capacity C_k [J/K] from node k to the reference, then R_k [K/W] on to node k+1. */
+export interface CauerStage {
+  readonly rKPerW: number;
+  readonly cJPerK: number;
+}
+
+/**
+ * A Cauer (ladder) network: node 1 is the junction where power enters; each stage's capacity
+ * goes from its node to the thermal reference and its resistance to the next node; the last
+ * resistance goes to ambient. Unlike Foster stages, Cauer nodes are physical, so networks can be
+ * chained and shared (see chainNetworks).
+ */
+export interface CauerLadder {
+  readonly kind: "cauer";
+  readonly stages: readonly CauerStage[];
+}
+
+/** Node name of stage k (0-based) in the graph form of a ladder: "node1", "node2", ... */
+export function cauerNodeName(k: number): string {
+  return k === 0 ? "junction" : `node${k + 1}`;
+}
+
+/**
+ * The graph form of a Cauer ladder, observed and heated at the junction (first node).
+ * @throws InputError `bad-network`
+ */
+export function cauerToGraph(ladder: CauerLadder, field = "network"): ThermalGraph {
+  if (ladder.stages.length === 0) throw inputError("bad-network", `${field}.stages`, "at least one Cauer stage", "none");
+  ladder.stages.forEach((s, i) => {
+    if (!(s.rKPerW > 0) || !Number.isFinite(s.rKPerW)) throw inputError("bad-network", `${field}.stages[${i}].r`, "a thermal resistance > 0 K/W", describeFound(s.rKPerW));
+    if (!(s.cJPerK > 0) || !Number.isFinite(s.cJPerK)) throw inputError("bad-network", `${field}.stages[${i}].c`, "a heat capacity > 0 J/K", describeFound(s.cJPerK));
+  });
+  const n = ladder.stages.length;
+  return {
+    kind: "graph",
+    nodes: ladder.stages.map((s, k) => ({ id: cauerNodeName(k), cJPerK: s.cJPerK })),
+    links: ladder.stages.map((s, k) => ({ from: cauerNodeName(k), to: k === n - 1 ? "ambient" : cauerNodeName(k + 1), rKPerW: s.rKPerW })),
+    sources: ["junction"],
+    observed: ["junction"],
+  };
+}
+
+/**
+ * The modal form of a Cauer ladder (equivalently its exact Foster form): see graphToModal.
+ * Cost O(stages³).
+ */
+export function cauerToModal(ladder: CauerLadder, field = "network"): ModalModel {
+  return graphToModal(cauerToGraph(ladder, field), field);
+}

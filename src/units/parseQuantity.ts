@@ -1,0 +1,106 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import { DIMENSIONS, type Dimension, expectedWords } from "./dimensions.js";
+import { loadMathjs } from "./loadMathjs.js";
+import type { Unit } from "mathjs";
+
+/** A number followed by a unit made only of unit characters: no expression is ever evaluated. */
+const QUANTITY_PATTERN = /^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(%|[A-Za-z_][A-Za-z0-9_ ^/*().-]*)?\s*$/;
+
+/** Spellings users type that mathjs does not know, mapped to the names it does. */
+const SPELLINGS: ReadonlyArray<readonly [RegExp, string]> = [
+  [/µ|μ/g, "u"],
+  [/Ω|Ohm\b|Ohms\b|ohms\b/g, "ohm"],
+  [/°C|℃|Celsius\b|celsius\b/g, "degC"],
+  [/°F/g, "degF"],
+];
+
+function normalise(text: string): string {
+  return SPELLINGS.reduce((t, [pattern, replacement]) => t.replace(pattern, replacement), text);
+}
+
+/** Probe unit whose base the parsed unit must share, per dimension. */
+const PROBE: Record<Exclude<Dimension, "dimensionless">, string> = {
+  time: "s",
+  frequency: "Hz",
+  capacitance: "F",
+  resistance: "ohm",
+  voltage: "V",
+  current: "A",
+  power: "W",
+  energy: "J",
+  mass: "kg",
+  temperature: "K",
+  temperatureDifference: "K",
+  thermalResistance: "K/W",
+  heatCapacity: "J/K",
+  specificHeat: "J/(kg K)",
+  voltagePerKelvin: "V/K",
+};
+
+/** Names mathjs gives to base dimensions, turned into words for "found 4.7 mV (a voltage)". */
+function dimensionOf(unit: { equalBase(other: unknown): boolean }, math: ReturnType<typeof loadMathjs>): string {
+  for (const [name, probe] of Object.entries(PROBE)) {
+    if (name === "temperatureDifference") continue;
+    if (unit.equalBase(math.unit(probe))) return DIMENSIONS[name as Dimension].words;
+  }
+  return "another dimension";
+}
+
+/**
+ * Parse a quantity from a profile or network file into a plain number in the SI unit of its
+ * dimension (degrees Celsius for absolute temperatures, kelvin for differences).
+ *
+ * Accepts a finite number (already SI) or a string "number unit" such as "4.7 mF", "350 ms",
+ * "2.5 K/W", "40 degC", "12 J/K", "10 kΩ", "2.2 µF". Strings are parsed with mathjs units only:
+ * no expression is evaluated. A temperature difference must be written in K (or mK): "10 degC"
+ * is an absolute temperature, and the message says so.
+ *
+ * Source: SI brochure, 9th edition (BIPM 2019), section 2 and table 8 (prefixes).
+ * Cost: O(length of the string); the first string parsed loads mathjs (about 1 s).
+ * @param value the raw value from the file
+ * @param dimension the dimension the field expects
+ * @param field dotted field path, used in the error message
+ * @returns the value in the dimension's SI unit
+ * @throws InputError with code `bad-quantity`, `wrong-dimension`, `unknown-unit` or `not-finite`
+ * @example parseQuantity("4.7 mF", "capacitance", "circuit.capacitance") // 0.0047
+ */
+export function parseQuantity(value: unknown, dimension: Dimension, field: string): number {
+  const expected = expectedWords(dimension);
+  if (typeof value === "number") {
+    if (!Number.isFinite(value)) throw inputError("not-finite", field, `${expected}, a finite number`, describeFound(value));
+    return value;
+  }
+  if (typeof value !== "string") throw inputError("bad-quantity", field, expected, describeFound(value));
+  const text = normalise(value);
+  const match = QUANTITY_PATTERN.exec(text);
+  if (match === null || value.trim() === "") throw inputError("bad-quantity", field, expected, describeFound(value));
+  const magnitude = Number(match[1]);
+  const unitText = (match[2] ?? "").trim();
+  if (!Number.isFinite(magnitude)) throw inputError("not-finite", field, `${expected}, a finite number`, describeFound(value));
+  if (unitText === "") return magnitude;
+  if (dimension === "dimensionless") {
+    if (unitText === "%") return magnitude / 100;
+    throw inputError("wrong-dimension", field, expected, `${describeFound(value)} (a unit where none belongs)`);
+  }
+  const math = loadMathjs();
+  let unit: Unit;
+  try {
+    unit = math.unit(`${match[1]} ${unitText}`) as Unit;
+  } catch {
+    throw inputError("unknown-unit", field, expected, `${describeFound(value)} (unknown unit "${unitText}")`);
+  }
+  if (!unit.equalBase(math.unit(PROBE[dimension]))) {
+    throw inputError("wrong-dimension", field, expected, `${describeFound(value)} (${dimensionOf(unit, math)})`);
+  }
+  if (dimension === "temperatureDifference" && /deg[CF]|degC|degF|fahrenheit/.test(unitText)) {
+    throw inputError(
+      "wrong-dimension",
+      field,
+      `${expected}; write differences in K`,
+      `${describeFound(value)} (an absolute temperature)`,
+    );
+  }
+  const si = unit.toNumber(DIMENSIONS[dimension].si);
+  if (!Number.isFinite(si)) throw inputError("not-finite", field, `${expected}, a finite number`, describeFound(value));
+  return si;
+}

@@ -1,0 +1,11 @@
+// vitest global setup: compile src/ to dist/ once, so end-to-end tests spawn the real bin.
+import { execFileSync } from "node:child_process";
+import { fileURLToPath } from "node:url";
+
+export default function setup(): void {
+  const root = fileURLToPath(new URL("../..", import.meta.url));
+  execFileSync(process.execPath, ["node_modules/typescript/bin/tsc", "-p", "tsconfig.build.json"], {
+    cwd: root,
+    stdio: "inherit",
+  });
+}
