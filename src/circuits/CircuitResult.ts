@@ -1,0 +1,73 @@
+import type { PowerTrace } from "../thermal/powerTrace.js";
+
+/** How a pre-charge attempt ended. */
+export type CircuitOutcome = "completed" | "timed-out" | "stalled";
+
+/** The conditions one charging event starts from. */
+export interface ChargeConditions {
+  /** source (battery or rectified line) voltage [V] */
+  readonly sourceVoltageV: number;
+  /** capacitor voltage at the start of the event [V] */
+  readonly initialVoltageV: number;
+  /** when the charge counts as done, and when it is aborted */
+  readonly completion: CompletionRule;
+  /** temperature of each dissipating part at the event start [°C], by role; models that
+   *  depend on temperature (a MOSFET's threshold drift) read it, others ignore it */
+  readonly partTemperatureC?: Readonly<Record<string, number>>;
+  /** also return a sampled time series of capacitor voltage and current (default false) */
+  readonly wantSamples?: boolean;
+}
+
+/**
+ * Completion and abort rule of a charge: done when Vc ≥ fraction·Vs, or when Vs − Vc ≤ withinV
+ * (whichever is given; both given: the first reached), or after a fixed dwell; aborted at the
+ * timeout.
+ */
+export interface CompletionRule {
+  /** complete at Vc ≥ fraction·Vs, 0 < fraction < 1 */
+  readonly fraction?: number;
+  /** complete at Vs − Vc ≤ withinV [V] */
+  readonly withinV?: number;
+  /** complete after this time whatever the voltage [s] (a fixed pre-charge dwell) */
+  readonly dwellS?: number;
+  /** abort after this time [s] */
+  readonly timeoutS: number;
+}
+
+/** One sample of the circuit state, for plots and CSV. */
+export interface CircuitSample {
+  readonly timeS: number;
+  readonly voltageV: number;
+  readonly currentA: number;
+}
+
+/** Energy bookkeeping of one event [J]: source = stored + Σ parts + load (+ converter losses). */
+export interface EnergyBalance {
+  /** energy delivered by the source */
+  readonly sourceJ: number;
+  /** change of the capacitor's stored energy, C(V_end² − V_0²)/2 */
+  readonly storedJ: number;
+  /** energy taken by the load on the bus */
+  readonly loadJ: number;
+  /** energy dissipated in each part, by role */
+  readonly partsJ: Readonly<Record<string, number>>;
+}
+
+/**
+ * What every circuit model returns for one event. Traces are in event-local time (the event
+ * starts at t = 0); the profile layer shifts them onto the timeline and maps roles to parts.
+ */
+export interface CircuitResult {
+  readonly outcome: CircuitOutcome;
+  /** one sentence: why the event ended ("bus reached 95 % of 48 V at 0.351 s") */
+  readonly reason: string;
+  /** how long the event lasted: until completion, dwell end or timeout [s] */
+  readonly durationS: number;
+  /** capacitor voltage at the end [V] */
+  readonly endVoltageV: number;
+  /** power per dissipating role ("resistor", "mosfet", "sourceResistor", "switch", ...) */
+  readonly traces: Readonly<Record<string, PowerTrace>>;
+  readonly energy: EnergyBalance;
+  /** present when ChargeConditions.wantSamples was true */
+  readonly samples?: readonly CircuitSample[];
+}
