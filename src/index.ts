@@ -3,6 +3,12 @@
 // errors
 export { InputError, inputError, formatInputProblem, withLocation, describeFound } from "./errors/InputError.js";
 export type { InputErrorCode, InputProblem } from "./errors/InputError.js";
+export { editDistance, nearestKey, unknownKeyExpectation } from "./errors/nearestKey.js";
+
+// structured text (YAML/JSON with line numbers) and field-by-field reading
+export { parseStructuredText, splitFieldPath } from "./format/parseStructuredText.js";
+export type { StructuredText } from "./format/parseStructuredText.js";
+export { FieldReader, join } from "./format/FieldReader.js";
 
 // units
 export { parseQuantity } from "./units/parseQuantity.js";
@@ -31,4 +37,15 @@ export type { InteriorPeak } from "./thermal/segmentPeak.js";
 export { traceSteps } from "./thermal/traceSteps.js";
 export type { TimedStep } from "./thermal/traceSteps.js";
 export { runThermalHistory } from "./thermal/runThermalHistory.js";
+export { networkToModal } from "./thermal/ThermalNetwork.js";
+export type { ThermalNetwork } from "./thermal/ThermalNetwork.js";
+export { parseNetwork, NETWORK_FORMS } from "./thermal/parseNetwork.js";
+export { formatNetworkFile, networkToDocument } from "./thermal/formatNetworkFile.js";
 export type { HistoryOptions, HistoryPoint, HistorySummary } from "./thermal/runThermalHistory.js";
+
+// report (formatters return strings)
+export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
+export type { TableColumn } from "./report/formatTable.js";
+export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
+export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
+export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
