@@ -49,3 +49,5 @@ export type { TableColumn } from "./report/formatTable.js";
 export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
 export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
 export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
+export { describeNetwork } from "./report/describeNetwork.js";
+export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";

@@ -29,7 +29,7 @@ export function formatNumber(value: number, digits = 4): string {
     const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)));
     return value.toFixed(Math.min(decimals, 12));
   }
-  return value.toPrecision(digits);
+  return value.toExponential(digits - 1);
 }
 
 /** A duration with a readable unit: 350 µs, 12.5 ms, 4.2 s, 3.1 min, 2.0 h, 5.4 d, 3.2 yr. */

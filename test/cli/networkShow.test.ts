@@ -1,0 +1,63 @@
+import { execFileSync, spawnSync } from "node:child_process";
+import { fileURLToPath } from "node:url";
+import { describe, expect, test } from "vitest";
+import type { CliIo } from "../../src/cli/CliIo.js";
+import { runCli } from "../../src/cli/main.js";
+
+const root = fileURLToPath(new URL("../..", import.meta.url));
+
+/** An in-memory CliIo: files from a map, output collected. */
+export function memoryIo(files: Record<string, string> = {}): CliIo & { stdout: string[]; stderr: string[]; files: Record<string, string> } {
+  const stdout: string[] = [];
+  const stderr: string[] = [];
+  return {
+    stdout,
+    stderr,
+    files,
+    out: (t) => stdout.push(t),
+    err: (t) => stderr.push(t),
+    readFile: (p) => {
+      const text = files[p];
+      if (text === undefined) throw Object.assign(new Error(`ENOENT: ${p}`), { code: "ENOENT" });
+      return text;
+    },
+    writeFile: (p, t) => {
+      files[p] = t;
+    },
+    exists: (p) => p in files,
+    columns: 100,
+  };
+}
+
+describe("heatledger network show", () => {
+  test("network show prints the Foster stages, total Rth and a Zth table", async () => {
+    const io = memoryIo({ "n.yaml": "form: foster\nstages:\n  - { r: 1 K/W, tau: 1 s }\n  - { r: 2 K/W, tau: 10 s }\n" });
+    expect(await runCli(["network", "show", "n.yaml"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain("total Rth = 3.000 K/W");
+    expect(text).toContain("Zth [K/W]");
+  });
+
+  test("network show --json gives Zth that approaches the total Rth", async () => {
+    const io = memoryIo({ "n.json": JSON.stringify({ form: "cauer", stages: [{ r: 1, c: 1 }, { r: 2, c: 5 }] }) });
+    expect(await runCli(["network", "show", "n.json", "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as { pairs: { totalRthKPerW: number; zth: { zthKPerW: number }[] }[] };
+    // Cauer resistances in series: total Rth = 1 + 2 K/W (steady state of the ladder, common practice).
+    expect(json.pairs[0]!.totalRthKPerW).toBeCloseTo(3, 12);
+    expect(json.pairs[0]!.zth.at(-1)!.zthKPerW).toBeGreaterThan(0.99 * 3);
+  });
+
+  test("network show on a bad file exits 2 with file, line, field, expected and found", async () => {
+    const io = memoryIo({ "b.yaml": "form: foster\nstages:\n  - { r: 0.35 K/W, tau: 40 mV }\n" });
+    expect(await runCli(["network", "show", "b.yaml"], io)).toBe(2);
+    expect(io.stderr.join("")).toBe('heatledger: b.yaml:3: stages[0].tau: expected a time such as "350 ms" (or a number in s), found "40 mV" (a voltage)\n');
+  });
+
+  test("the built bin runs network show on a bundled network and exits 2 on a missing file", () => {
+    const ok = execFileSync(process.execPath, ["bin/heatledger.js", "network", "show", "profiles/networks/wirewound-resistor-foster.yaml"], { cwd: root, encoding: "utf8" });
+    expect(ok).toContain("total Rth = 5.050 K/W");
+    const bad = spawnSync(process.execPath, ["bin/heatledger.js", "network", "show", "missing.yaml"], { cwd: root, encoding: "utf8" });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toBe("heatledger: missing.yaml: expected a readable network file, found no such file\n");
+  });
+});
