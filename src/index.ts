@@ -51,3 +51,19 @@ export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
 export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
 export { describeNetwork } from "./report/describeNetwork.js";
 export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
+
+// circuits
+export type { ChargeConditions, CompletionRule, CircuitOutcome, CircuitResult, CircuitSample, EnergyBalance } from "./circuits/CircuitResult.js";
+export { NO_BUS_LOAD, validateBusLoad, busLoadThresholds, busLoadStartsOn, busLoadTerms } from "./circuits/BusLoad.js";
+export type { BusLoad, BusLoadTerms } from "./circuits/BusLoad.js";
+export { ZERO_QUADRATIC, evalQuadratic } from "./circuits/BusRegime.js";
+export type { Quadratic, BusLevel, FeedTerms, BusRegime, ChargeModel } from "./circuits/BusRegime.js";
+export { resolveCompletion } from "./circuits/resolveCompletion.js";
+export type { ResolvedCompletion } from "./circuits/resolveCompletion.js";
+export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, MAX_REGIME_CHANGES } from "./circuits/runChargeEvent.js";
+export { integrateBusOde, NONLINEAR_ACCURACY } from "./circuits/integrateBusOde.js";
+export type { RegimeStretch } from "./circuits/integrateBusOde.js";
+export { chargeSeriesResistor } from "./circuits/chargeSeriesResistor.js";
+export type { SeriesResistorParams } from "./circuits/chargeSeriesResistor.js";
+export { dischargeVoltage } from "./circuits/dischargeVoltage.js";
+export type { DischargePath } from "./circuits/dischargeVoltage.js";
