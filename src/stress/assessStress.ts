@@ -4,7 +4,8 @@ import { type PulseEnergyCheck, type RatingStatus, checkPulseEnergy } from "./pu
 import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
 import type { StressConfig, StressPartKind } from "./resolveStressConfig.js";
 import { type OperatingPoint, type SoaCheck, checkSoa } from "./soaTable.js";
-import { LINEAR_MOSFET_CAUTION, STRESS_CAUTIONS } from "./stressCautions.js";
+import { LINEAR_MOSFET_CAUTION } from "../report/cautions.js";
+import { LIFETIME_CAUTION } from "./stressCautions.js";
 import { TurningPointFilter } from "./turningPoints.js";
 
 /** What the profile layer knows of one event of a part. */
@@ -88,7 +89,8 @@ export interface StressReport {
   readonly damage: MinerDamage | undefined;
   /** conventions used and what was not checked, in words */
   readonly notes: readonly string[];
-  /** cautions for human-readable reports (DESIGN §8) */
+  /** stress-specific cautions for human-readable reports (lifetime estimate, linear-mode MOSFET); the
+   *  general caution closes the whole report (src/report/cautions.ts) */
   readonly cautions: readonly string[];
 }
 
@@ -193,7 +195,7 @@ export class StressAssessment {
           ? "No cycling model for this resistor (none is published; give Coffin-Manson parameters of your own): temperature and energy checks only."
           : "No lifetime model given: cycles are counted but no damage is computed.",
       );
-    const cautions = [...STRESS_CAUTIONS];
+    const cautions: string[] = this.config.lifetime === undefined ? [] : [LIFETIME_CAUTION];
     if (kind === "mosfet" && this.options.linearMode === true) cautions.push(LINEAR_MOSFET_CAUTION);
     return {
       ratingStatus: checks.reduce<RatingStatus>((s, c) => worseStatus(s, c.status), "pass"),
