@@ -53,7 +53,9 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const source = parseStructuredText(text, file);
   const parsed = profileSchema.safeParse(source.data, { reportInput: true });
   if (!parsed.success) {
-    const problems = parsed.error.issues.flatMap((issue) => issueToProblems(issue, file, source.lineOf));
+    const unknownAt = new Set(parsed.error.issues.filter((i) => i.code === "unrecognized_keys").map((i) => i.path.join(".")));
+    const issues = parsed.error.issues.filter((i) => !(i.code === "custom" && i.message === "one-key" && unknownAt.has(i.path.join("."))));
+    const problems = issues.flatMap((issue) => issueToProblems(issue, file, source.lineOf));
     throw new InputError(problems);
   }
   const reader = new FieldReader();
@@ -248,12 +250,13 @@ function resolveNetwork(
         reader.fail("bad-file", at, "a readable network file", `${describeFound(part.network)} (${error instanceof Error ? error.message.split("\n")[0] : "unreadable"})`);
         return undefined;
       }
+      let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
-        const doc = parseStructuredText(text, part.network);
+        doc = parseStructuredText(text, part.network);
         model = networkToModal(parseNetwork(doc.data, ""), "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        for (const p of withLocation(error, part.network).problems) reader.fail(p.code, `${at} → ${p.field}`, p.expected, p.file === part.network && p.line > 0 ? `${p.found} (${p.file}:${p.line})` : p.found);
+        reader.absorb(withLocation(error, part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {

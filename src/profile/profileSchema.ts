@@ -1,6 +1,6 @@
 import * as z from "zod";
 import { InputError } from "../errors/InputError.js";
-import type { Dimension } from "../units/dimensions.js";
+import { type Dimension, expectedWords } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parseQuantity.js";
 
 /**
@@ -9,6 +9,10 @@ import { parseQuantity } from "../units/parseQuantity.js";
  */
 function quantity(dimension: Dimension, check?: { min?: number; above?: number; max?: number; words?: string }) {
   return z.unknown().transform((value, ctx) => {
+    if (value === undefined) {
+      ctx.addIssue({ code: "custom", message: "quantity", params: { expected: `${expectedWords(dimension)} (required)`, found: "nothing" } });
+      return z.NEVER;
+    }
     try {
       const si = parseQuantity(value, dimension, "");
       const bad =
