@@ -109,3 +109,26 @@ export { formatStressSection } from "./stress/formatStressSection.js";
 export { stressReportJson } from "./stress/stressReportJson.js";
 export type { StressJson } from "./stress/stressReportJson.js";
 export { CYCLES_CSV_COLUMNS, formatCyclesCsv } from "./stress/formatCyclesCsv.js";
+// profile (duty profiles: schema, loading, expansion, simulation)
+export { profileSchema, partSchema, circuitSchema, loadSchema, EVENT_KEYS, FAULT_TYPES, ROLE_NAMES } from "./profile/profileSchema.js";
+export type { ProfileInput, LoadInput, FaultInput, CircuitInput, PartInput, EventInput } from "./profile/profileSchema.js";
+export type { BusLoad, DischargePath, CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile } from "./profile/DutyProfile.js";
+export { loadProfile, expandedEventBound, PROFILE_DEFAULTS } from "./profile/loadProfile.js";
+export type { ReadNamedFile } from "./profile/loadProfile.js";
+export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.js";
+export type { PowerTracePoints } from "./profile/powerTracePoints.js";
+export type { CircuitModels } from "./profile/CircuitModels.js";
+export { defaultCircuitModels } from "./profile/defaultCircuitModels.js";
+export { expandTimeline } from "./profile/expandTimeline.js";
+export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOptions } from "./profile/expandTimeline.js";
+export { simulateProfile, combinedModel } from "./profile/simulateProfile.js";
+export type { PartVerdict, EventTemperatures, PartResult, SimulationResult, SimulateOptions } from "./profile/simulateProfile.js";
+
+// report: simulation
+export { EventDigest, EVENT_DIGEST_DEFAULTS } from "./report/EventDigest.js";
+export type { EventRecord } from "./report/EventDigest.js";
+export { PeakEnvelope } from "./report/PeakEnvelope.js";
+export { formatSimulationText } from "./report/formatSimulationText.js";
+export { simulationJson } from "./report/simulationJson.js";
+export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
+export { SimulationCsv } from "./report/SimulationCsv.js";
