@@ -9,6 +9,8 @@ export { editDistance, nearestKey, unknownKeyExpectation } from "./errors/neares
 export { parseStructuredText, splitFieldPath } from "./format/parseStructuredText.js";
 export type { StructuredText } from "./format/parseStructuredText.js";
 export { FieldReader, join } from "./format/FieldReader.js";
+export { parseQuantityTable } from "./format/parseQuantityTable.js";
+export type { QuantityColumn, QuantityTable } from "./format/parseQuantityTable.js";
 
 // units
 export { parseQuantity } from "./units/parseQuantity.js";
@@ -53,7 +55,7 @@ export { fitCriterion, FIT_CRITERIA } from "./thermal/fitCriterion.js";
 export type { FitCriterion } from "./thermal/fitCriterion.js";
 export { fitRelativeErrors } from "./thermal/fitRelativeErrors.js";
 export type { FitRelativeErrors } from "./thermal/fitRelativeErrors.js";
-export { fitFosterNetwork, resolveFitOptions, FIT_DEFAULTS } from "./thermal/fitFosterNetwork.js";
+export { fitFosterNetwork, resolveFitOptions, FIT_DEFAULTS, FIT_MISS_WARNING } from "./thermal/fitFosterNetwork.js";
 export type { FitOptions, ResolvedFitOptions, FitCandidate, FosterFit } from "./thermal/fitFosterNetwork.js";
 export { zthFromPulseRating, PULSE_RATING_ASSUMPTIONS } from "./thermal/zthFromPulseRating.js";
 export type { PulseRatingRow, PulseRatingConditions } from "./thermal/zthFromPulseRating.js";
@@ -70,3 +72,4 @@ export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
 export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
 export { describeNetwork } from "./report/describeNetwork.js";
 export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
+export { formatFosterFit } from "./report/formatFosterFit.js";

@@ -96,7 +96,9 @@ export interface FosterFit {
  * Validity: the network reproduces Zth over the data range; beyond the last point the total
  * resistance is an extrapolation (the result warns when the slowest stage has not settled by the
  * last point, tau > t_last/3, or the fastest is faster than the first point, tau < t_first/3).
- * Needs at least 2n + 1 points for n stages (two parameters per stage, plus one).
+ * Needs at least 2n + 1 points for n stages (two parameters per stage, plus one); the criterion
+ * tries at most (N − 1)/2 stages (BIC) or (N − 2)/2 (AICc). A fit that misses a point by more than
+ * FIT_MISS_WARNING also warns.
  * Cost O(maxStages × iterations × points × stages²); about 0.1-0.5 s for 40 points, 8 stages.
  * @param points Zth points, times strictly increasing, all values > 0
  * @param options see {@link FIT_DEFAULTS}
@@ -121,7 +123,7 @@ export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOption
   const spectrum = fitNnlsSpectrum(points, o);
   const counts = given
     ? [o.stages]
-    : Array.from({ length: Math.min(o.maxStages, Math.floor((points.length - 2) / 2)) }, (_, i) => i + 1);
+    : Array.from({ length: Math.min(o.maxStages, mostStages(points.length, o.criterion)) }, (_, i) => i + 1);
   let best: { stages: FosterStage[]; value: number } | undefined;
   const candidates: FitCandidate[] = [];
   for (const n of counts) {
@@ -146,8 +148,28 @@ export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOption
     candidates,
     spectrumStageCount: spectrum.length,
     pointCount: points.length,
-    warnings: extrapolationWarnings(network, points),
+    warnings: [...extrapolationWarnings(network, points), ...missWarnings(fitRelativeErrors(network, points), o.stages > 0)],
   };
+}
+
+/** A fit that misses a point by more than this fraction gets a warning (far above read-off error). */
+export const FIT_MISS_WARNING = 0.05;
+
+/**
+ * The most stages N points support: 2n + 1 ≤ N (two parameters per stage, plus one); AICc needs
+ * N > 2n + 1 to be finite.
+ */
+function mostStages(pointCount: number, criterion: FitCriterion): number {
+  return criterion === "aicc" ? Math.floor((pointCount - 2) / 2) : Math.floor((pointCount - 1) / 2);
+}
+
+function missWarnings(errors: FitRelativeErrors, given: boolean): string[] {
+  if (!(errors.maxRelativeError > FIT_MISS_WARNING)) return [];
+  return [
+    `the fit misses a point by ${Number((errors.maxRelativeError * 100).toPrecision(2))} % (at ${fmt(errors.worstTimeS)} s): ` +
+      (given ? "try another stage count, or " : "") +
+      "check that point and add points where the curve bends (4-8 per decade)",
+  ];
 }
 
 /**
