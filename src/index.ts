@@ -9,6 +9,8 @@ export { editDistance, nearestKey, unknownKeyExpectation } from "./errors/neares
 export { parseStructuredText, splitFieldPath } from "./format/parseStructuredText.js";
 export type { StructuredText } from "./format/parseStructuredText.js";
 export { FieldReader, join } from "./format/FieldReader.js";
+export { parseQuantityTable } from "./format/parseQuantityTable.js";
+export type { QuantityColumn, QuantityTable } from "./format/parseQuantityTable.js";
 
 // units
 export { parseQuantity } from "./units/parseQuantity.js";
@@ -42,6 +44,25 @@ export type { ThermalNetwork } from "./thermal/ThermalNetwork.js";
 export { parseNetwork, NETWORK_FORMS } from "./thermal/parseNetwork.js";
 export { formatNetworkFile, networkToDocument } from "./thermal/formatNetworkFile.js";
 export type { HistoryOptions, HistoryPoint, HistorySummary } from "./thermal/runThermalHistory.js";
+// thermal: networks from the data engineers have (fit, pulse rating, lumped)
+export { validateZthPoints } from "./thermal/fitZthPoints.js";
+export type { ZthPoint } from "./thermal/fitZthPoints.js";
+export { fitNnlsSpectrum, nonNegativeResistances } from "./thermal/fitNnlsSpectrum.js";
+export type { NnlsSpectrumSettings } from "./thermal/fitNnlsSpectrum.js";
+export { refineFosterFit } from "./thermal/fitRefineFoster.js";
+export type { RefineSettings, RefinedFoster } from "./thermal/fitRefineFoster.js";
+export { fitCriterion, FIT_CRITERIA } from "./thermal/fitCriterion.js";
+export type { FitCriterion } from "./thermal/fitCriterion.js";
+export { fitRelativeErrors } from "./thermal/fitRelativeErrors.js";
+export type { FitRelativeErrors } from "./thermal/fitRelativeErrors.js";
+export { fitFosterNetwork, resolveFitOptions, FIT_DEFAULTS, FIT_MISS_WARNING } from "./thermal/fitFosterNetwork.js";
+export type { FitOptions, ResolvedFitOptions, FitCandidate, FosterFit } from "./thermal/fitFosterNetwork.js";
+export { zthFromPulseRating, PULSE_RATING_ASSUMPTIONS } from "./thermal/zthFromPulseRating.js";
+export type { PulseRatingRow, PulseRatingConditions } from "./thermal/zthFromPulseRating.js";
+export { MATERIALS, materialPreset } from "./thermal/materials.js";
+export type { MaterialPreset } from "./thermal/materials.js";
+export { lumpedNetwork, adiabaticMass } from "./thermal/lumpedNetwork.js";
+export type { LumpedMass, LumpedDescription } from "./thermal/lumpedNetwork.js";
 
 // report (formatters return strings)
 export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
@@ -132,3 +153,4 @@ export { formatSimulationText } from "./report/formatSimulationText.js";
 export { simulationJson } from "./report/simulationJson.js";
 export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
 export { SimulationCsv } from "./report/SimulationCsv.js";
+export { formatFosterFit } from "./report/formatFosterFit.js";
