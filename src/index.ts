@@ -82,7 +82,7 @@ export { minForeverInterval } from "./plan/minForeverInterval.js";
 export type { ForeverIntervalAnswer } from "./plan/minForeverInterval.js";
 export { fastestSchedule } from "./plan/fastestSchedule.js";
 export type { FastestScheduleAnswer, FastestScheduleOptions, ScheduledAttempt } from "./plan/fastestSchedule.js";
-export { backoffRule } from "./plan/backoffRule.js";
+export { backoffRule, firstWaitCandidates } from "./plan/backoffRule.js";
 export type { BackoffRule, BackoffRuleAnswer, BackoffRuleOptions } from "./plan/backoffRule.js";
 export { lockoutAfterBurst } from "./plan/lockoutAfterBurst.js";
 export type { LockoutAnswer, LockoutOptions } from "./plan/lockoutAfterBurst.js";

@@ -6,6 +6,7 @@ import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import { runBurst } from "./runBurst.js";
 import { type FeasibleBand, scanFeasibleBands } from "./scanFeasibleBands.js";
+import type { FastestScheduleAnswer } from "./fastestSchedule.js";
 
 /** A back-off rule firmware can implement: wait_k = firstWait × growth^(k − 1) after attempt k's end. */
 export interface BackoffRule {
@@ -39,40 +40,60 @@ export interface BackoffRuleOptions {
 }
 
 /**
- * Issue 6, item 4 (the rule): the smallest growth factor g such that waiting firstWait·g^(k−1)
- * after the end of attempt k keeps a burst of N attempts safe in every corner, checked by
- * simulating the whole burst. Growth factors from 1 to maxGrowthFactor are scanned linearly and
- * each band edge bisected (the burst is not always safer with a larger factor: the capacitor's
- * charge makes peak against wait non-monotone). The first wait is usually the fastest schedule's
- * first wait, which is safe by construction.
- * Cost O((scan points + edges × log2(1/relTol)) × corners × N × cost of one attempt).
- * @throws InputError for bad corners, a negative first wait or a growth factor range below 1
+ * Issue 6, item 4 (the rule): a first wait and the smallest growth factor g such that waiting
+ * firstWait·g^(k−1) after the end of attempt k keeps a burst of N attempts safe in every corner,
+ * checked by simulating the whole burst. For each candidate first wait, growth factors from 1 to
+ * maxGrowthFactor are scanned linearly and each band edge bisected (the burst is not always safer
+ * with a larger factor: the capacitor's charge makes peak against wait non-monotone); of the
+ * candidates, the rule whose burst ends first is returned. Candidates usually come from the
+ * fastest schedule's waits (firstWaitCandidates).
+ * Cost O(candidates × (scan points + edges × log2(1/relTol)) × corners × N × cost of one attempt).
+ * @throws InputError for bad corners, no candidate, a negative first wait or a growth factor range below 1
  */
-export function backoffRule(scenarios: readonly RetryScenario[], attempts: number, firstWaitS: number, options: BackoffRuleOptions = {}): BackoffRuleAnswer {
+export function backoffRule(scenarios: readonly RetryScenario[], attempts: number, firstWaitCandidatesS: readonly number[], options: BackoffRuleOptions = {}): BackoffRuleAnswer {
   checkAttempts(attempts);
   const corners = resolveCorners(scenarios);
-  if (!(firstWaitS >= 0) || !Number.isFinite(firstWaitS)) throw inputError("out-of-range", "firstWaitS", "a finite first wait ≥ 0 s", describeFound(firstWaitS));
+  if (firstWaitCandidatesS.length === 0) throw inputError("out-of-range", "firstWaitS", "at least one candidate first wait", "none");
+  firstWaitCandidatesS.forEach((w, i) => {
+    if (!(w >= 0) || !Number.isFinite(w)) throw inputError("out-of-range", `firstWaitS[${i}]`, "a finite first wait ≥ 0 s", describeFound(w));
+  });
   const top = options.maxGrowthFactor ?? PLAN_DEFAULTS.maxGrowthFactor;
   if (!(top >= 1) || !Number.isFinite(top)) throw inputError("out-of-range", "maxGrowthFactor", "a finite growth factor ≥ 1", describeFound(top));
   const points = options.scanPoints ?? PLAN_DEFAULTS.growthScanPoints;
-  const grid = Array.from({ length: points }, (_, i) => 1 + ((top - 1) * i) / Math.max(1, points - 1));
-  const runAll = (g: number) =>
-    corners.map((c) => {
-      const gaps = Array.from({ length: attempts - 1 }, (_, k) => firstWaitS * g ** k);
-      const cursor = new AttemptCursor(c);
-      const run = runBurst(cursor, { gapsS: gaps, spacing: "end-to-start" }, 0);
-      return { c, cursor, run };
-    });
-  const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null), [...new Set(grid)]);
-  const g = bands[0]?.fromS ?? null;
-  const runs = runAll(g ?? top);
-  const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));
-  return {
-    rule: g === null ? null : { firstWaitS, growthFactor: g },
-    attempts,
-    bands,
-    burstEndS: g === null ? null : Math.max(...runs.map((r) => r.cursor.endS)),
-    governing,
-    perCorner: runs.map((r) => ({ corner: r.c.name, attempts: r.run.records })),
-  };
+  const grid = [...new Set(Array.from({ length: points }, (_, i) => 1 + ((top - 1) * i) / Math.max(1, points - 1)))];
+  let best: BackoffRuleAnswer | null = null;
+  for (const firstWaitS of firstWaitCandidatesS) {
+    const runAll = (g: number) =>
+      corners.map((c) => {
+        const gaps = Array.from({ length: attempts - 1 }, (_, k) => firstWaitS * g ** k);
+        const cursor = new AttemptCursor(c);
+        const run = runBurst(cursor, { gapsS: gaps, spacing: "end-to-start" }, 0);
+        return { c, cursor, run };
+      });
+    const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null), grid);
+    const g = bands[0]?.fromS ?? null;
+    const runs = runAll(g ?? top);
+    const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));
+    const answer: BackoffRuleAnswer = {
+      rule: g === null ? null : { firstWaitS, growthFactor: g },
+      attempts,
+      bands,
+      burstEndS: g === null ? null : Math.max(...runs.map((r) => r.cursor.endS)),
+      governing,
+      perCorner: runs.map((r) => ({ corner: r.c.name, attempts: r.run.records })),
+    };
+    if (best === null || (answer.burstEndS !== null && (best.burstEndS === null || answer.burstEndS < best.burstEndS))) best = answer;
+  }
+  return best!;
+}
+
+/**
+ * Candidate first waits for {@link backoffRule} from a fastest schedule: up to `count` of its
+ * positive waits, spread evenly over the sorted distinct values (the shortest and the longest
+ * included). Cost O(attempts log attempts).
+ */
+export function firstWaitCandidates(answer: FastestScheduleAnswer, count = 8): number[] {
+  const waits = [...new Set(answer.schedule.map((s) => s.waitS).filter((w): w is number => w !== null && w > 0))].sort((a, b) => a - b);
+  if (waits.length <= count) return waits;
+  return [...new Set(Array.from({ length: count }, (_, i) => waits[Math.round((i * (waits.length - 1)) / (count - 1))]!))];
 }

@@ -35,7 +35,7 @@ export interface FastestScheduleAnswer {
   readonly requestedAttempts: number;
   /** why the schedule stopped early, or null */
   readonly stoppedBecause: string | null;
-  /** geometric mean of the wait ratios from the 2nd to the last wait, or null with fewer than 3 waits */
+  /** geometric mean of the ratios of successive positive waits, (last/first)^(1/(n − 1)) over the n positive waits; null with fewer than 2 */
   readonly impliedBackoffRatio: number | null;
   /** end of the last attempt (latest over corners) [s] */
   readonly burstEndS: number;
@@ -111,10 +111,10 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
       governing: governingCorner(trials.map((t, i) => entry(corners[i]!, t))),
     });
   }
-  const waits = schedule.map((s) => s.waitS).filter((w): w is number => w !== null);
+  const waits = schedule.map((s) => s.waitS).filter((w): w is number => w !== null && w > 0);
   const first = waits[0];
   const last = waits[waits.length - 1];
-  const impliedBackoffRatio = waits.length >= 3 && first !== undefined && last !== undefined && first > 0 ? (last / first) ** (1 / (waits.length - 1)) : null;
+  const impliedBackoffRatio = waits.length >= 2 && first !== undefined && last !== undefined && first > 0 ? (last / first) ** (1 / (waits.length - 1)) : null;
   return {
     schedule,
     requestedAttempts: attempts,
