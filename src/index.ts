@@ -133,7 +133,7 @@ export { CYCLES_CSV_COLUMNS, formatCyclesCsv } from "./stress/formatCyclesCsv.js
 // profile (duty profiles: schema, loading, expansion, simulation)
 export { profileSchema, partSchema, circuitSchema, loadSchema, EVENT_KEYS, FAULT_TYPES, ROLE_NAMES } from "./profile/profileSchema.js";
 export type { ProfileInput, LoadInput, FaultInput, CircuitInput, PartInput, EventInput } from "./profile/profileSchema.js";
-export type { BusLoad, DischargePath, CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile } from "./profile/DutyProfile.js";
+export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile } from "./profile/DutyProfile.js";
 export { loadProfile, expandedEventBound, PROFILE_DEFAULTS } from "./profile/loadProfile.js";
 export type { ReadNamedFile } from "./profile/loadProfile.js";
 export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.js";
@@ -176,7 +176,7 @@ export { minUniformInterval } from "./plan/minUniformInterval.js";
 export type { IntervalScanOptions, UniformIntervalAnswer } from "./plan/minUniformInterval.js";
 export { maxAttempts } from "./plan/maxAttempts.js";
 export type { MaxAttemptsAnswer } from "./plan/maxAttempts.js";
-export { periodicSteadyState } from "./plan/periodicSteadyState.js";
+export { periodicSteadyState as attemptPeriodicSteadyState } from "./plan/periodicSteadyState.js";
 export type { PeriodicSteadyState } from "./plan/periodicSteadyState.js";
 export { retryForeverCheck } from "./plan/retryForeverCheck.js";
 export type { ForeverVerdict } from "./plan/retryForeverCheck.js";
