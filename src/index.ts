@@ -191,3 +191,10 @@ export type { LockoutAnswer, LockoutOptions } from "./plan/lockoutAfterBurst.js"
 export { lockoutMap } from "./plan/lockoutMap.js";
 export type { LockoutMap, LockoutMapCell } from "./plan/lockoutMap.js";
 export { lockoutMapCsv, lockoutMapHeatmap, LOCKOUT_MAP_SYMBOLS } from "./plan/formatLockoutMap.js";
+export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuits/chargeLinearMosfet.js";
+export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";
+export { chargeConverter } from "./circuits/chargeConverter.js";
+export type { ConverterParams } from "./circuits/chargeConverter.js";
+export { createOdexSolver, ODEX_OUTCOME } from "./circuits/loadOdex.js";
+export type { OdexSolver } from "./circuits/loadOdex.js";
+export { requirePositive } from "./circuits/requirePositive.js";
