@@ -1,5 +1,5 @@
 import { describeFound, inputError } from "../errors/InputError.js";
-import { CYCLE_QUANTITY_UNITS, type CycleQuantity, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
+import { CYCLE_QUANTITY_UNITS, CYCLE_QUANTITY_WORDS, type CycleQuantity, type FittedInterval, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
 import type { RainflowCycle } from "./rainflowCounter.js";
 
 /** Number of most damaging cycles a damage result lists, unless the caller asks otherwise. */
@@ -122,12 +122,12 @@ export class MinerAccumulator {
     const repetitionsToEndOfLife = d > 0 ? 1 / d : Number.POSITIVE_INFINITY;
     const warnings = [...this.model.parameterWarnings];
     for (const [quantity, tally] of this.outside) {
-      const interval = this.model.fitted[quantity]!;
+      const interval: FittedInterval = this.model.fitted[quantity]!;
       const unit = CYCLE_QUANTITY_UNITS[quantity];
       const share = d > 0 ? (100 * tally.damage) / d : 0;
       warnings.push(
-        `${this.model.name}: ${tally.count} of ${this.counted} counted cycles have a ${quantity} outside the fitted ` +
-          `${interval.min}-${interval.max} ${unit} (found ${round(tally.low)}-${round(tally.high)} ${unit}, ${(interval as { origin?: string }).origin ?? ""}); ` +
+        `${this.model.name}: ${tally.count} of ${this.counted} counted cycles have a ${CYCLE_QUANTITY_WORDS[quantity]} outside the fitted ` +
+          `${interval.min}-${interval.max} ${unit} (found ${round(tally.low)}-${round(tally.high)} ${unit}, ${interval.origin}); ` +
           `they carry ${share.toFixed(1)} % of the damage, extrapolated`,
       );
     }
