@@ -3,6 +3,7 @@ import { describe, expect, test } from "vitest";
 import {
   CYCLES_CSV_COLUMNS,
   LINEAR_MOSFET_CAUTION,
+  StressAssessment,
   assessStress,
   coffinMansonCycles,
   constantPowerSegment,
@@ -131,5 +132,18 @@ describe("stress formatters", () => {
     expect(text).toContain("10 full, 0 half");
     expect(text).toContain("Caution (lifetime)");
     expect(text).not.toMatch(/NaN|Infinity|undefined/);
+  });
+});
+
+describe("StressAssessment (push-style)", () => {
+  test("gives the same report as assessStress over the same points", () => {
+    const config = resolveStressConfig({ lifetime: { model: "coffin-manson", ...cm }, cycleHysteresis: "0.5 K" });
+    const a = new StressAssessment(config, { mode: "open" });
+    for (const p of history()) a.addTemperature(p.timeS, p.temperatureC);
+    const pushed = a.finish(events);
+    const batch = assessStress(config, events, history(), { mode: "open" });
+    expect(pushed.cycles).toEqual(batch.cycles);
+    expect(pushed.damage!.damagePerRepetition).toBe(batch.damage!.damagePerRepetition);
+    expect(pushed.cycleSummary.halfCycles).toBeGreaterThan(0); // an open record keeps its residue
   });
 });
