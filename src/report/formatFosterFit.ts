@@ -32,7 +32,7 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       ? `${stages.length} stage${stages.length === 1 ? "" : "s"} as asked`
       : fit.candidates.length === 1
         ? `1 stage (the most ${fit.pointCount} points allow)`
-        : `${stages.length} stage${stages.length === 1 ? "" : "s"} chosen by ${fit.criterion.toUpperCase()} among 1 to ${fit.candidates.length}`;
+        : `${stages.length} stage${stages.length === 1 ? "" : "s"} chosen by ${fit.criterion.toUpperCase()} among 1 to ${fit.candidates.length} tried`;
   const out: string[] = [
     `Foster network: ${how}; total Rth = ${formatNumber(total)} K/W`,
     formatTable(

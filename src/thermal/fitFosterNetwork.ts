@@ -89,7 +89,8 @@ export interface FosterFit {
  *    (a) the spectrum's clusters merged or split to n stages and (b) n log-spaced time constants
  *    over the data with NNLS resistances; each is refined by Levenberg-Marquardt on ln R, ln tau
  *    (refineFosterFit) and the better kept.
- * 3. The count with the smallest information criterion wins (fitCriterion), unless n was given.
+ * 3. The count with the smallest information criterion wins (fitCriterion), unless n was given;
+ *    the search stops once two counts in a row score worse than the best so far.
  * Residuals are relative, (Zfit − Z)/Z, so every decade of the curve counts the same.
  * Sources: see fitNnlsSpectrum, refineFosterFit, fitCriterion; the Foster form itself: JEDEC
  * JESD51-14 (2010), annex on the Foster model.
@@ -124,7 +125,7 @@ export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOption
   const counts = given
     ? [o.stages]
     : Array.from({ length: Math.min(o.maxStages, mostStages(points.length, o.criterion)) }, (_, i) => i + 1);
-  let best: { stages: FosterStage[]; value: number } | undefined;
+  let best: { stages: FosterStage[]; value: number; count: number } | undefined;
   const candidates: FitCandidate[] = [];
   for (const n of counts) {
     const starts = [resizeStages(spectrum, n), logSpacedStart(points, n)];
@@ -137,7 +138,10 @@ export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOption
     const errors = fitRelativeErrors(network, points);
     const value = fitCriterion(o.criterion, points.length, 2 * n, bestForN!.sumSquares, o.dataResolution);
     candidates.push({ stageCount: n, criterionValue: value, maxRelativeError: errors.maxRelativeError, rmsRelativeError: errors.rmsRelativeError });
-    if (best === undefined || value < best.value) best = { stages: bestForN!.stages, value };
+    if (best === undefined || value < best.value) best = { stages: bestForN!.stages, value, count: n };
+    // two counts in a row worse than the best: more stages only add parameters to an already
+    // resolved curve, and every further count costs more than all before it
+    if (n - best.count >= 2) break;
   }
   const network: FosterNetwork = { kind: "foster", stages: best!.stages };
   return {

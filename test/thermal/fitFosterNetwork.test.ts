@@ -137,9 +137,12 @@ describe("fitFosterNetwork", () => {
     }
   });
 
-  test("FIT_DEFAULTS choose the stage count by BIC up to 8 stages", () => {
-    expect(FIT_DEFAULTS.stages).toBe(0);
-    expect(FIT_DEFAULTS.criterion).toBe("bic");
+  test("fitFosterNetwork stops trying stage counts two past the best", () => {
+    // exact 4-stage data: BIC is lowest at 4; 5 and 6 score worse (penalty, no better fit), so the
+    // search ends at 6 instead of FIT_DEFAULTS.maxStages = 8
+    const points = logSpacedTimes(DATA_FROM_S, DATA_TO_S, 40).map((t) => ({ timeS: t, zthKPerW: zth(knownModel, t) }));
+    const fit = fitFosterNetwork(points);
+    expect(fit.candidates.map((c) => c.stageCount)).toEqual([1, 2, 3, 4, 5, 6]);
     expect(FIT_DEFAULTS.maxStages).toBe(8);
   });
 });
