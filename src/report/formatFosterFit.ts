@@ -49,7 +49,7 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       `Stage counts tried (smaller ${fit.criterion.toUpperCase()} is better):`,
       formatTable(
         [{ heading: "stages", align: "right" }, { heading: fit.criterion.toUpperCase(), align: "right" }, { heading: "RMS error", align: "right" }, { heading: "max error", align: "right" }, { heading: "choice" }],
-        fit.candidates.map((c) => [String(c.stageCount), formatNumber(c.criterionValue, 5), percent(c.rmsRelativeError), percent(c.maxRelativeError), c.stageCount === chosen ? "chosen" : ""]),
+        fit.candidates.map((c) => [String(c.stageCount), formatNumber(c.criterionValue, 5), percent(c.rmsRelativeError), percent(c.maxRelativeError), c.stageCount === chosen ? "chosen" : c.resolved ? "" : "not resolved (time constants too close)"]),
       ),
     );
   }
