@@ -1,0 +1,149 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import { AttemptCursor, type AttemptRecord, type AttemptTrial } from "./AttemptCursor.js";
+import { checkAttempts } from "./minUniformInterval.js";
+import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
+import { PLAN_DEFAULTS } from "./planDefaults.js";
+import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
+import { scanGrid } from "./scanFeasibleBands.js";
+
+/** Options of {@link fastestSchedule}; every field has a default (PLAN_DEFAULTS). */
+export interface FastestScheduleOptions {
+  /** longest wait searched before an attempt [s] (default PLAN_DEFAULTS.scanSpanTauMultiple × slowest time constant) */
+  readonly maxWaitS?: number;
+  /** wait scan points (default PLAN_DEFAULTS.scanPoints) */
+  readonly scanPoints?: number;
+}
+
+/** One row of the fastest schedule. */
+export interface ScheduledAttempt {
+  /** 1-based attempt number */
+  readonly attempt: number;
+  /** start [s] from the first attempt's start */
+  readonly startS: number;
+  /** wait after the previous attempt ended (latest end over the corners) [s]; null for the first */
+  readonly waitS: number | null;
+  /** this wait over the previous one; null for the first two attempts or a zero previous wait */
+  readonly ratio: number | null;
+  /** the corner with the least headroom for this attempt */
+  readonly governing: GoverningCorner;
+}
+
+/** The fastest safe schedule and what it implies. */
+export interface FastestScheduleAnswer {
+  /** attempts scheduled (fewer than asked when an attempt cannot be made safe within maxWaitS) */
+  readonly schedule: readonly ScheduledAttempt[];
+  readonly requestedAttempts: number;
+  /** why the schedule stopped early, or null */
+  readonly stoppedBecause: string | null;
+  /** geometric mean of the ratios of successive positive waits, (last/first)^(1/(n − 1)) over the n positive waits; null with fewer than 2 */
+  readonly impliedBackoffRatio: number | null;
+  /** end of the last attempt (latest over corners) [s] */
+  readonly burstEndS: number;
+  /** each corner's attempts as simulated on the schedule */
+  readonly perCorner: readonly { readonly corner: string; readonly attempts: readonly AttemptRecord[] }[];
+}
+
+/**
+ * Issue 6, item 4: the fastest safe schedule: every attempt starts at the earliest moment at which
+ * its own peak stays at or below limit − margin in every corner.
+ *
+ * Attempt 1 starts at t = 0. For each later attempt the waits after the previous attempt's end
+ * (latest over the corners) are scanned upward from 0 on the scan grid, stopping at the first
+ * wait that is safe in every corner; the edge between it and the unsafe wait before it is
+ * bisected (relative tolerance PLAN_DEFAULTS.bisectionRelTol), keeping the safe side. Scanning
+ * upward from 0 finds the earliest safe moment even when peak against wait is not monotone
+ * (a quick retry into a nearly full capacitor can be safe when a slower one is not). Because each
+ * attempt is placed at its own earliest safe moment and later attempts only add heat after it,
+ * no attempt of the finished schedule is above the limit, and starting any of them earlier makes
+ * it exceed (to within the bisection tolerance, and for waits on the unsafe side of the edge).
+ * Cost O(attempts × (scan points up to the answer + log2(1/relTol)) × corners × cost of one attempt).
+ * @throws InputError for bad corners or options
+ */
+export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: number, options: FastestScheduleOptions = {}): FastestScheduleAnswer {
+  checkAttempts(attempts);
+  const corners = resolveCorners(scenarios);
+  const maxWaitS = options.maxWaitS ?? PLAN_DEFAULTS.scanSpanTauMultiple * Math.max(...corners.map((c) => c.slowestTauS));
+  if (!(maxWaitS > 0) || !Number.isFinite(maxWaitS)) throw inputError("out-of-range", "maxWaitS", "a finite longest wait > 0 s", describeFound(maxWaitS));
+  const grid = scanGrid(0, maxWaitS, options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
+  const cursors = corners.map((c) => new AttemptCursor(c));
+  const schedule: ScheduledAttempt[] = [];
+  let stoppedBecause: string | null = null;
+  const trialsAt = (startS: number): AttemptTrial[] | null => {
+    const trials: AttemptTrial[] = [];
+    for (const cursor of cursors) {
+      const t = cursor.tryAt(startS);
+      if (t === null || !t.safe) return null;
+      trials.push(t);
+    }
+    return trials;
+  };
+  for (let k = 0; k < attempts; k++) {
+    const endS = k === 0 ? 0 : Math.max(...cursors.map((c) => c.endS));
+    let waitS: number | null = null;
+    let trials: AttemptTrial[] | null = null;
+    if (k === 0) trials = trialsAt(0);
+    else {
+      let previous = -1;
+      for (const w of grid) {
+        trials = trialsAt(endS + w);
+        if (trials !== null) {
+          waitS = previous < 0 ? w : refine(previous, w, (x) => trialsAt(endS + x) !== null);
+          if (waitS !== w) trials = trialsAt(endS + waitS);
+          break;
+        }
+        previous = w;
+      }
+    }
+    if (trials === null) {
+      stoppedBecause =
+        k === 0
+          ? `the first attempt alone exceeds limit − margin in corner "${firstUnsafeCorner(cursors, 0)}"`
+          : `attempt ${k + 1} exceeds limit − margin after every wait up to ${maxWaitS} s`;
+      break;
+    }
+    trials.forEach((t, i) => cursors[i]!.keep(t));
+    const previousWait = schedule[schedule.length - 1]?.waitS ?? null;
+    schedule.push({
+      attempt: k + 1,
+      startS: endS + (waitS ?? 0),
+      waitS,
+      ratio: waitS !== null && previousWait !== null && previousWait > 0 ? waitS / previousWait : null,
+      governing: governingCorner(trials.map((t, i) => entry(corners[i]!, t))),
+    });
+  }
+  const waits = schedule.map((s) => s.waitS).filter((w): w is number => w !== null && w > 0);
+  const first = waits[0];
+  const last = waits[waits.length - 1];
+  const impliedBackoffRatio = waits.length >= 2 && first !== undefined && last !== undefined && first > 0 ? (last / first) ** (1 / (waits.length - 1)) : null;
+  return {
+    schedule,
+    requestedAttempts: attempts,
+    stoppedBecause,
+    impliedBackoffRatio,
+    burstEndS: Math.max(...cursors.map((c) => c.endS)),
+    perCorner: cursors.map((c) => ({ corner: c.corner.name, attempts: c.history })),
+  };
+}
+
+function entry(c: ResolvedScenario, t: AttemptTrial): GoverningCorner {
+  return { corner: c.name, peakC: t.record.peakC, allowedC: c.allowedC, limitC: c.limitC, headroomK: t.headroomK };
+}
+
+function firstUnsafeCorner(cursors: readonly AttemptCursor[], startS: number): string {
+  for (const c of cursors) {
+    const t = c.tryAt(startS);
+    if (t === null || !t.safe) return c.corner.name;
+  }
+  return cursors[0]!.corner.name;
+}
+
+/** Bisect between an unsafe lo and a safe hi; returns the safe side. */
+function refine(lo: number, hi: number, safe: (x: number) => boolean): number {
+  while (hi - lo > PLAN_DEFAULTS.bisectionRelTol * hi) {
+    const mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi) break;
+    if (safe(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
+}

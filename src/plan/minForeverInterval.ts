@@ -1,0 +1,57 @@
+import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
+import { type IntervalScanOptions, lowestInterval, resolveScan } from "./minUniformInterval.js";
+import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
+import type { RetrySpacing } from "./RetrySchedule.js";
+import { type ForeverVerdict, retryForeverCheck } from "./retryForeverCheck.js";
+import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
+
+/** The answer to "how far apart must attempts be to retry for ever?". */
+export interface ForeverIntervalAnswer {
+  readonly spacing: RetrySpacing;
+  /** shortest interval at which retrying for ever is safe [s], or null when none scanned is */
+  readonly minimumIntervalS: number | null;
+  /** every band of intervals at which retrying for ever is safe */
+  readonly bands: readonly FeasibleBand[];
+  /** the corner with the least headroom at the minimum (at the top of the scan when none is safe) */
+  readonly governing: GoverningCorner;
+  /** every corner's verdict at the minimum (or at the top of the scan) */
+  readonly verdicts: readonly ForeverVerdict[];
+  /** true when every verdict at the answer is proven in closed form (see retryForeverCheck) */
+  readonly proven: boolean;
+  readonly scannedFromS: number;
+  readonly scannedToS: number;
+  readonly evaluations: number;
+}
+
+/**
+ * Issue 6, item 3: the shortest interval at which the firmware may retry for ever, from the
+ * periodic steady state in closed form (retryForeverCheck per corner), with every band of safe
+ * intervals (scan, then bisection of each edge).
+ * For one RC stage and rectangular attempts of power P and length t_on this reproduces
+ *   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max)   (start-to-start spacing).
+ * Cost O((scanPoints + edges × log2(1/relTol)) × corners × attempts to prove each verdict).
+ */
+export function minForeverInterval(scenarios: readonly RetryScenario[], options: IntervalScanOptions = {}): ForeverIntervalAnswer {
+  const corners = resolveCorners(scenarios);
+  const scan = resolveScan(corners, options);
+  const from = lowestInterval(corners, scan.spacing);
+  const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
+  const safeAt = (t: number): boolean => corners.every((c) => retryForeverCheck(c, t, scan.spacing).safe);
+  const { bands, evaluations } = scanFeasibleBands(safeAt, grid);
+  const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
+  const verdicts = corners.map((c) => retryForeverCheck(c, at, scan.spacing));
+  const governing = governingCorner(
+    verdicts.map((v) => ({ corner: v.corner, peakC: Math.max(v.transientPeakC, v.steadyPeakC ?? -Infinity), allowedC: v.allowedC, limitC: v.limitC, headroomK: v.headroomK })),
+  );
+  return {
+    spacing: scan.spacing,
+    minimumIntervalS: bands[0]?.fromS ?? null,
+    bands,
+    governing,
+    verdicts,
+    proven: verdicts.every((v) => v.method === "closed-form"),
+    scannedFromS: grid[0]!,
+    scannedToS: grid[grid.length - 1]!,
+    evaluations,
+  };
+}

@@ -1,0 +1,121 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import { AttemptCursor } from "./AttemptCursor.js";
+import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
+import { PLAN_DEFAULTS } from "./planDefaults.js";
+import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
+import { type RetrySpacing, uniformBurst } from "./RetrySchedule.js";
+import { runBurst } from "./runBurst.js";
+import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
+
+/** Scan options shared by the interval solvers; every field has a default (PLAN_DEFAULTS). */
+export interface IntervalScanOptions {
+  /** how the interval is measured (default PLAN_DEFAULTS.spacing) */
+  readonly spacing?: RetrySpacing;
+  /** top of the scan [s] (default PLAN_DEFAULTS.scanSpanTauMultiple × the slowest time constant of any corner) */
+  readonly scanToS?: number;
+  /** scan points (default PLAN_DEFAULTS.scanPoints) */
+  readonly scanPoints?: number;
+}
+
+/** The answer to "how far apart must N attempts be?". */
+export interface UniformIntervalAnswer {
+  readonly attempts: number;
+  readonly spacing: RetrySpacing;
+  /** the shortest safe interval [s], or null when no scanned interval is safe */
+  readonly minimumIntervalS: number | null;
+  /** every band of safe intervals, in increasing order */
+  readonly bands: readonly FeasibleBand[];
+  /** the corner with the least headroom at the minimum interval (at the top of the scan when none is safe) */
+  readonly governing: GoverningCorner;
+  /** the scanned range [s] */
+  readonly scannedFromS: number;
+  readonly scannedToS: number;
+  /** predicate evaluations (each one burst per corner) */
+  readonly evaluations: number;
+}
+
+/** Options resolved once; exported for the other interval solvers. */
+export interface ResolvedScan {
+  readonly spacing: RetrySpacing;
+  readonly scanToS: number;
+  readonly scanPoints: number;
+}
+
+/** Resolve scan options against a corner set. */
+export function resolveScan(corners: readonly ResolvedScenario[], options: IntervalScanOptions): ResolvedScan {
+  const slowest = Math.max(...corners.map((c) => c.slowestTauS));
+  const scanToS = options.scanToS ?? PLAN_DEFAULTS.scanSpanTauMultiple * slowest;
+  if (!(scanToS > 0) || !Number.isFinite(scanToS)) throw inputError("out-of-range", "scanToS", "a finite scan end > 0 s", describeFound(scanToS));
+  const scanPoints = options.scanPoints ?? PLAN_DEFAULTS.scanPoints;
+  if (!Number.isInteger(scanPoints) || scanPoints < 2) throw inputError("out-of-range", "scanPoints", "an integer ≥ 2", describeFound(scanPoints));
+  return { spacing: options.spacing ?? PLAN_DEFAULTS.spacing, scanToS, scanPoints };
+}
+
+/** Check an attempt count. */
+export function checkAttempts(attempts: number, field = "attempts"): void {
+  if (!Number.isInteger(attempts) || attempts < 1) throw inputError("out-of-range", field, "a whole number of attempts ≥ 1", describeFound(attempts));
+}
+
+/** Shortest interval that could work: the first attempt's own length for start-to-start spacing, else 0. */
+export function lowestInterval(corners: readonly ResolvedScenario[], spacing: RetrySpacing): number {
+  if (spacing === "end-to-start") return 0;
+  let longest = 0;
+  for (const c of corners) {
+    const trial = new AttemptCursor(c).tryAt(0);
+    if (trial !== null) longest = Math.max(longest, trial.record.durationS);
+  }
+  return longest;
+}
+
+/** Peak and headroom of a uniform burst in one corner (stopping at the first unsafe attempt when asked). */
+export function uniformBurstVerdict(c: ResolvedScenario, attempts: number, intervalS: number, spacing: RetrySpacing, stopWhenUnsafe: boolean): GoverningCorner & { safe: boolean } {
+  const run = runBurst(new AttemptCursor(c), uniformBurst(attempts, intervalS, spacing), 0, stopWhenUnsafe);
+  const overlap = run.overlapAt !== null;
+  return {
+    corner: c.name,
+    peakC: run.peakC,
+    allowedC: c.allowedC,
+    limitC: c.limitC,
+    headroomK: overlap ? -Infinity : run.worstHeadroomK,
+    safe: !overlap && run.firstUnsafe === null,
+  };
+}
+
+/**
+ * Issue 6, item 1: the shortest uniform retry interval for a burst of N attempts, for the worst
+ * corner, with every band of safe intervals.
+ *
+ * For a candidate interval T, every corner runs the burst (attempt 1 at t = 0, then every T from
+ * the previous start or end) with the capacitor discharging between attempts, and the burst is
+ * safe when every attempt's own peak stays at or below limit − margin in every corner. Intervals
+ * are scanned (scanFeasibleBands) and each band edge is bisected; the answer is the lower edge of
+ * the first band.
+ * Cost O((scanPoints + bands × 2·log2(1/relTol)) × corners × N × cost of one attempt).
+ * @throws InputError for bad corners or options
+ */
+export function minUniformInterval(scenarios: readonly RetryScenario[], attempts: number, options: IntervalScanOptions = {}): UniformIntervalAnswer {
+  checkAttempts(attempts);
+  const corners = resolveCorners(scenarios);
+  const scan = resolveScan(corners, options);
+  const from = lowestInterval(corners, scan.spacing);
+  const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
+  const safeAt = (t: number): boolean => corners.every((c) => uniformBurstVerdict(c, attempts, t, scan.spacing, true).safe);
+  const { bands, evaluations } = scanFeasibleBands(safeAt, grid);
+  const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
+  const governing = governingCorner(
+    corners.map((c) => {
+      const { safe: _safe, ...entry } = uniformBurstVerdict(c, attempts, at, scan.spacing, false);
+      return entry;
+    }),
+  );
+  return {
+    attempts,
+    spacing: scan.spacing,
+    minimumIntervalS: bands[0]?.fromS ?? null,
+    bands,
+    governing,
+    scannedFromS: grid[0]!,
+    scannedToS: grid[grid.length - 1]!,
+    evaluations,
+  };
+}

@@ -1,0 +1,66 @@
+import { describe, expect, test } from "vitest";
+import { fosterToModal, minForeverInterval, retryForeverCheck, resolveScenario } from "../../src/index.js";
+import { expectClose } from "../helpers/expectClose.js";
+import { superposedPeak, uniformPulses } from "./bruteForce.js";
+import { rectangularFault } from "./scenarios.js";
+
+// Closed form for one RC stage (R, τ) and rectangular attempts of power P and length t_on repeated
+// every T (start to start). From the lumped-capacitance solution (Incropera et al., Fundamentals
+// of Heat and Mass Transfer, 7th ed. (2011), §5.2, eq. 5.6 and its heated form), a pulse raises
+// θ0 to θ0·a + P·R·(1 − a) with a = e^(−t_on/τ), and the gap then multiplies by e^(−(T − t_on)/τ).
+// In the periodic steady state the start-of-cycle rise θs repeats:
+//   θs = (θs·a + P·R·(1 − a))·e^(−(T − t_on)/τ)  ⇒  θs = P·R·(1 − a)·e^(−(T − t_on)/τ)/(1 − e^(−T/τ)),
+// and the peak, at the pulse end, is θs·a + P·R·(1 − a) = P·R·(1 − a)/(1 − e^(−T/τ)).
+// Retrying for ever is safe exactly when that is ≤ ΔT_max, so
+//   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max).
+// The periodic-pulse-train form itself is common practice in power-semiconductor thermal design;
+// the derivation above rests only on the cited lumped-capacitance solution and a geometric series.
+describe("minForeverInterval against the one-stage closed form", () => {
+  test.each([
+    // R [K/W], τ [s], P [W], t_on [s], ambient, limit, margin: invented cases spanning short and long pulses
+    [2, 10, 50, 1, 25, 90, 5],
+    [0.5, 0.8, 400, 0.05, 40, 155, 10],
+    [8, 300, 20, 30, 25, 175, 0],
+    [1.2, 4, 100, 0.4, 60, 125, 15],
+  ])("R=%d τ=%d P=%d t_on=%d", (R, tau, P, onS, ambientC, limitC, marginK) => {
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: R, tauS: tau }] });
+    const corner = rectangularFault("one stage", model, P, onS, { ambientC, limitC, marginK });
+    const dT = limitC - marginK - ambientC;
+    const expected = -tau * Math.log(1 - (P * R * -Math.expm1(-onS / tau)) / dT);
+    const answer = minForeverInterval([corner]);
+    // The issue asks for 0.1 %; bisection stops at 1e-9 relative, so 1e-3 is a loose, honest bound.
+    expectClose(answer.minimumIntervalS!, expected, { rel: 1e-3 });
+    expect(answer.proven).toBe(true);
+    expect(answer.governing.corner).toBe("one stage");
+    // at the minimum the steady peak sits on limit − margin (to the same relative accuracy of the rise)
+    expectClose(answer.governing.peakC - ambientC, dT, { rel: 1e-3 });
+  });
+
+  test("a two-stage network: the steady peak at the answer matches a long brute-force train", () => {
+    // Two Foster stages (invented part); brute force: 400 pulses superposed from Zth, long enough
+    // that the slow stage (τ = 20 s) is within e^(−400·T/20) of steady state.
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.4, tauS: 0.5 }, { rKPerW: 1.6, tauS: 20 }] });
+    const corner = rectangularFault("two stages", model, 150, 0.2, { ambientC: 40, limitC: 150, marginK: 10 });
+    const answer = minForeverInterval([corner]);
+    const T = answer.minimumIntervalS!;
+    const bruteRise = superposedPeak(model, uniformPulses(400, T, 0.2, 150), 4);
+    // The peak is at a pulse end, which is sampled exactly; what the 400-pulse train lacks from the
+    // steady state is the slow mode's remaining transient, at most 100 K·e^(−400·T/20 s), plus rounding.
+    expect(bruteRise).toBeLessThanOrEqual(100 + 1e-9);
+    expectClose(bruteRise, 100, { abs: 100 * Math.exp((-400 * T) / 20) + 1e-9 });
+    // 0.5 % shorter and the brute-force train exceeds (the answer is the edge, not merely safe)
+    expect(superposedPeak(model, uniformPulses(400, T * 0.995, 0.2, 150), 4)).toBeGreaterThan(100);
+  });
+
+  test("retryForeverCheck proves a safe interval in closed form and rejects a short one", () => {
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 2, tauS: 10 }] });
+    const c = resolveScenario(rectangularFault("one", model, 50, 1, { ambientC: 25, limitC: 90, marginK: 5 }));
+    const safe = retryForeverCheck(c, 3, "start-to-start");
+    expect(safe.safe).toBe(true);
+    expect(safe.method).toBe("closed-form");
+    // steady peak P·R·(1 − e^(−0.1))/(1 − e^(−0.3)) + 25 °C (closed form above); rounding only
+    expectClose(safe.steadyPeakC!, 25 + (100 * -Math.expm1(-0.1)) / -Math.expm1(-0.3), { rel: 1e-12 });
+    expect(retryForeverCheck(c, 1.5, "start-to-start").safe).toBe(false);
+    expect(retryForeverCheck(c, 0.5, "start-to-start").overlap).toBe(true);
+  });
+});
