@@ -37,8 +37,12 @@ export interface CompletionRule {
 /** One sample of the circuit state, for plots and CSV. */
 export interface CircuitSample {
   readonly timeS: number;
+  /** capacitor (bus) voltage [V] */
   readonly voltageV: number;
+  /** current the charging element delivers into the bus (the inrush current) [A] */
   readonly currentA: number;
+  /** current into the capacitor itself: the element's current minus the load's [A] */
+  readonly capacitorCurrentA?: number;
 }
 
 /** Energy bookkeeping of one event [J]: source = stored + Σ parts + load (+ converter losses). */

@@ -14,10 +14,11 @@ export interface InteriorPeak {
 export const PEAK_GRID_POINTS = 32;
 
 /**
- * Slope of the rise of node o at time s into a step [K/s]:
+ * Slope of the rise of node o at time s into a step [K/s], given the modal state at that time:
  *   d(rise)/ds = Σ_s Σ_m gain[o][s][m]·(P_s(s) − y[s][m](s)) / tau_m.
+ * Source: the modal equation dy/dt = (P − y)/tau (see ModalModel). Cost O(sources × modes × terms).
  */
-function riseSlope(model: ModalModel, state: ModalState, powers: SourcePowers, s: number, o: number): number {
+export function riseSlope(model: ModalModel, state: ModalState, powers: SourcePowers, s: number, o: number): number {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
   let slope = 0;

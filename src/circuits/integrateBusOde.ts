@@ -1,0 +1,187 @@
+import type { PowerSegment } from "../thermal/powerTrace.js";
+import type { CircuitSample } from "./CircuitResult.js";
+import { type BusLevel, type BusRegime, type Quadratic, evalQuadratic } from "./BusRegime.js";
+import { ODEX_OUTCOME, createOdexSolver } from "./loadOdex.js";
+
+/**
+ * Accuracy of the nonlinear path, declared once:
+ * - `odeTolerance`: odex's relative and absolute tolerance on the scaled bus voltage V/Vscale
+ *   and on the scaled integrals ∫V dt, ∫V² dt;
+ * - `powerTolerance`: the piecewise-linear power of each part stays within this fraction of that
+ *   part's largest power over 0 ≤ V ≤ Vscale, checked at the quarter, half and three-quarter
+ *   points of every segment against the ODE's dense output (tested against the closed-form
+ *   trajectory in test/circuits/constantPowerLoad.test.ts).
+ */
+export const NONLINEAR_ACCURACY = { odeTolerance: 1e-11, powerTolerance: 1e-4 } as const;
+
+/** What one stretch of a regime produced, in stretch-local time. */
+export interface RegimeStretch {
+  readonly durationS: number;
+  readonly endVoltageV: number;
+  /** the level that ended the stretch, or undefined when the time ran out */
+  readonly level: BusLevel | undefined;
+  /** segments per part key, starting at 0 */
+  readonly segments: Readonly<Record<string, PowerSegment[]>>;
+  readonly sourceJ: number;
+  readonly loadJ: number;
+  readonly partsJ: Readonly<Record<string, number>>;
+  readonly samples: CircuitSample[];
+}
+
+/** Largest |q(V)| over 0 ≤ V ≤ vMax. */
+function quadraticScale(q: Quadratic, vMax: number): number {
+  let m = Math.max(Math.abs(q.c0), Math.abs(evalQuadratic(q, vMax)));
+  if (q.c2 !== 0) {
+    const vertex = -q.c1 / (2 * q.c2);
+    if (vertex > 0 && vertex < vMax) m = Math.max(m, Math.abs(evalQuadratic(q, vertex)));
+  }
+  return m;
+}
+
+/**
+ * Integrate one nonlinear bus regime, C·dV/dt = g0 − g1·V + h/V, from V0 for at most maxS
+ * seconds or until the bus crosses one of `levels`, with odex (adaptive extrapolation, dense
+ * output), and turn every part's power into continuous piecewise-linear segments.
+ *
+ * Scaling: u = V/Vscale and x = t/T with T = C·Vscale/Iscale, Iscale the largest current term;
+ * odex then works on a problem of unit size (it never starts below a step of 1e-4). The energies
+ * come from the integrals ∫V dt and ∫V² dt carried as two more ODE components, so the energy
+ * balance holds to the ODE tolerance, not to the power tolerance.
+ * Level crossings are located by bisection on the dense output (the solution of a scalar
+ * autonomous ODE is monotone, so a sign change over a step brackets the only crossing).
+ * Source: E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I,
+ * 2nd ed. (1993), §II.9 (ODEX) and §II.6 (dense output); monotonicity of scalar autonomous ODEs:
+ * Hirsch, Smale & Devaney, Differential Equations, Dynamical Systems, and an Introduction to
+ * Chaos, 3rd ed. (2013), §1.3 (first-order autonomous equations: phase line).
+ * Validity: V stays > 0 (constant-power terms are only present above a disable voltage > 0).
+ * Cost: O(ODE steps × parts × subdivisions).
+ * @param wantSamples also return (t, V, I) at every segment boundary
+ */
+export function integrateBusOde(
+  regime: BusRegime,
+  capacitanceF: number,
+  initialVoltageV: number,
+  maxS: number,
+  levels: readonly BusLevel[],
+  scaleV: number,
+  wantSamples: boolean,
+): RegimeStretch {
+  const { g0, g1, h } = regime;
+  const current = (v: number): number => g0 - g1 * v + h / v;
+  const iScale = Math.max(Math.abs(g0), g1 * scaleV, Math.abs(h) / scaleV, Math.abs(current(initialVoltageV)));
+  const T = (capacitanceF * scaleV) / iScale;
+  const u0 = initialVoltageV / scaleV;
+  const keys = Object.keys(regime.partPower);
+  const roleTol = keys.map((k) => NONLINEAR_ACCURACY.powerTolerance * quadraticScale(regime.partPower[k]!, scaleV));
+  const segments: Record<string, PowerSegment[]> = {};
+  for (const k of keys) segments[k] = [];
+  const samples: CircuitSample[] = [];
+  const feedCurrent = (v: number): number => regime.feed.g0 - regime.feed.g1 * v + (regime.feed.h === 0 ? 0 : regime.feed.h / v);
+  const pushSample = (x: number, u: number): void => {
+    const v = u * scaleV;
+    samples.push({ timeS: x * T, voltageV: v, currentA: feedCurrent(v), capacitorCurrentA: current(v) });
+  };
+
+  const emit = (xa: number, ua: number, xb: number, ub: number): void => {
+    const hS = (xb - xa) * T;
+    if (!(hS > 0)) return;
+    keys.forEach((k) => {
+      const q = regime.partPower[k]!;
+      const pa = evalQuadratic(q, ua * scaleV);
+      const pb = evalQuadratic(q, ub * scaleV);
+      if (pa === 0 && pb === 0) return;
+      segments[k]!.push({ startS: xa * T, durationS: hS, terms: [{ a: pa, b: (pb - pa) / hS, lambda: 0 }] });
+    });
+    if (wantSamples) pushSample(xa, ua);
+  };
+
+  // Split [xa, xb] until the chord of every part's power is within its tolerance at 1/4, 1/2, 3/4.
+  const refine = (dense: (c: number, x: number) => number, xa: number, ua: number, xb: number, ub: number, depth: number): void => {
+    const fits = (): boolean => {
+      for (const f of [0.25, 0.5, 0.75]) {
+        const u = dense(0, xa + f * (xb - xa));
+        for (let i = 0; i < keys.length; i++) {
+          const q = regime.partPower[keys[i]!]!;
+          const chord = (1 - f) * evalQuadratic(q, ua * scaleV) + f * evalQuadratic(q, ub * scaleV);
+          if (Math.abs(evalQuadratic(q, u * scaleV) - chord) > roleTol[i]!) return false;
+        }
+      }
+      return true;
+    };
+    if (depth >= 40 || fits()) {
+      emit(xa, ua, xb, ub);
+      return;
+    }
+    const xm = 0.5 * (xa + xb);
+    const um = dense(0, xm);
+    refine(dense, xa, ua, xm, um, depth + 1);
+    refine(dense, xm, um, xb, ub, depth + 1);
+  };
+
+  const solver = createOdexSolver(3);
+  solver.relativeTolerance = NONLINEAR_ACCURACY.odeTolerance;
+  solver.absoluteTolerance = NONLINEAR_ACCURACY.odeTolerance;
+  solver.denseOutput = true;
+  solver.maxSteps = 1_000_000;
+  solver.initialStepSize = 1e-4;
+  const f = (_x: number, y: number[]): number[] => {
+    const u = y[0]!;
+    return [current(u * scaleV) / iScale, u, u * u];
+  };
+
+  const xEnd = maxS / T;
+  let hit: { level: BusLevel; x: number; y: number[] } | undefined;
+  let uPrev = u0;
+  const levelsU = levels.map((l) => ({ level: l, u: l.voltageV / scaleV }));
+  const crossed = (ua: number, ub: number, l: { level: BusLevel; u: number }): boolean =>
+    l.level.rising ? ua < l.u && ub >= l.u : ua > l.u && ub <= l.u;
+
+  let result: { y: number[]; outcome: number } = { y: [u0, 0, 0], outcome: ODEX_OUTCOME.converged };
+  if (xEnd > 0) {
+    result = solver.solve(f, 0, [u0, 0, 0], xEnd, (_n, xOld, x, y, dense) => {
+      if (dense === undefined || x === xOld) return;
+      const u1 = y[0]!;
+      // the earliest level crossed in this step
+      let first: { level: BusLevel; x: number } | undefined;
+      for (const l of levelsU) {
+        if (!crossed(uPrev, u1, l)) continue;
+        let lo = xOld;
+        let hi = x;
+        for (let it = 0; it < 200 && hi - lo > 1e-15 * Math.max(1, Math.abs(hi)); it++) {
+          const mid = 0.5 * (lo + hi);
+          if (crossed(uPrev, dense(0, mid), l)) hi = mid;
+          else lo = mid;
+        }
+        if (first === undefined || hi < first.x) first = { level: l.level, x: hi };
+      }
+      if (first !== undefined) {
+        const uHit = first.level.voltageV / scaleV;
+        refine(dense, xOld, uPrev, first.x, uHit, 0);
+        hit = { level: first.level, x: first.x, y: [uHit, dense(1, first.x), dense(2, first.x)] };
+        return false;
+      }
+      refine(dense, xOld, uPrev, x, u1, 0);
+      uPrev = u1;
+    });
+    if (hit === undefined && result.outcome !== ODEX_OUTCOME.converged)
+      throw new Error(`odex stopped early (outcome ${result.outcome}) integrating the bus regime ${regime.key}`);
+  }
+  const xStop = hit?.x ?? xEnd;
+  const y = hit?.y ?? result.y;
+  const durationS = hit === undefined ? maxS : xStop * T;
+  const intV = scaleV * T * y[1]!;
+  const intV2 = scaleV * scaleV * T * y[2]!;
+  const energy = (q: Quadratic): number => q.c0 * durationS + q.c1 * intV + q.c2 * intV2;
+  const partsJ: Record<string, number> = {};
+  for (const k of keys) partsJ[k] = energy(regime.partPower[k]!);
+  return {
+    durationS,
+    endVoltageV: hit === undefined ? y[0]! * scaleV : hit.level.voltageV,
+    level: hit?.level,
+    segments,
+    sourceJ: energy(regime.sourcePower),
+    loadJ: energy(regime.loadPower),
+    partsJ,
+    samples,
+  };
+}

@@ -1,0 +1,116 @@
+import type { CompletionRule } from "../circuits/CircuitResult.js";
+import type { ModalModel } from "../thermal/ModalModel.js";
+import type { PowerSegment } from "../thermal/powerTrace.js";
+
+/**
+ * Load on the bus while the capacitor charges, as the circuit models take it (SI units):
+ * nothing, a dead short, a resistance, a constant current (optionally switched on and off at bus
+ * voltages) or a constant power switched on above enableV and off below disableV (a converter's
+ * under-voltage lockout).
+ */
+export type BusLoad =
+  | { readonly kind: "none" }
+  | { readonly kind: "short" }
+  | { readonly kind: "resistive"; readonly resistanceOhm: number }
+  | { readonly kind: "constant-current"; readonly currentA: number; readonly enableV?: number; readonly disableV?: number }
+  | { readonly kind: "constant-power"; readonly powerW: number; readonly enableV: number; readonly disableV: number };
+
+/** How the link capacitor loses charge while the bus is disconnected. */
+export type DischargePath =
+  | { readonly kind: "none" }
+  | { readonly kind: "bleeder"; readonly resistanceOhm: number }
+  | { readonly kind: "constant-current"; readonly currentA: number }
+  | { readonly kind: "active"; readonly resistanceOhm: number; readonly untilV?: number };
+
+/** The circuit role a part plays; the circuit models name their power traces by these. */
+export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
+
+/** A pre-charge circuit of a profile, in SI. */
+export type ProfileCircuit = {
+  readonly busVoltageV: number;
+  readonly capacitanceF: number;
+  readonly load: BusLoad;
+  readonly completion: CompletionRule;
+  readonly discharge: DischargePath;
+} & (
+  | { readonly topology: "series-resistor"; readonly resistanceOhm: number; readonly sourceResistanceOhm?: number }
+  | {
+      readonly topology: "linear-mosfet";
+      readonly gateVoltageV: number;
+      readonly thresholdVoltageV: number;
+      readonly sourceResistorOhm?: number;
+      readonly saturationCurrentA?: number;
+      readonly rdsOnOhm: number;
+      readonly thresholdTempcoVPerK?: number;
+    }
+  | {
+      readonly topology: "converter";
+      readonly mode: "constant-current" | "constant-power";
+      readonly currentA?: number;
+      readonly powerW?: number;
+      readonly efficiency: number;
+      readonly currentLimitA?: number;
+    }
+);
+
+/**
+ * A part whose temperature is tracked. Parts that name the same network file share one network
+ * (for example a MOSFET and its source resistor on one heatsink): each heats its own source node
+ * and is observed at its own node, and they heat each other through the network.
+ */
+export interface ProfilePart {
+  readonly id: string;
+  /** the circuit role whose dissipation heats it; undefined: heated only by power-trace events */
+  readonly role?: CircuitRole;
+  /** the network's modal model (shared by every part with the same networkKey) */
+  readonly model: ModalModel;
+  /** identifies the network: the file path as written, or the part's field for an inline network */
+  readonly networkKey: string;
+  /** the model source this part's power enters */
+  readonly sourceIndex: number;
+  /** the model node whose temperature is this part's */
+  readonly observedIndex: number;
+  readonly ambientC: number;
+  readonly limitC: number;
+  readonly marginK: number;
+}
+
+/** A fault condition met by a power-up. */
+export interface FaultSpec {
+  readonly type: "shorted-output" | "overloaded-bus" | "converter-early" | "trip-after-close";
+  /** the load the bus presents during the attempt */
+  readonly load: BusLoad;
+  /** trip-after-close: time from the contactor closing to the trip [s] */
+  readonly afterS: number;
+}
+
+/** One event of a profile, resolved to SI, with its field path for messages. */
+export type ProfileEvent = { readonly field: string; readonly label?: string } & (
+  | { readonly kind: "power-up"; readonly load?: BusLoad }
+  | { readonly kind: "fault"; readonly fault: FaultSpec }
+  | { readonly kind: "run" | "wait" | "lockout"; readonly durationS: number }
+  | { readonly kind: "power-down"; readonly offS: number }
+  | {
+      readonly kind: "retry";
+      readonly attempts: number;
+      readonly intervalS: number;
+      readonly backoff: number;
+      readonly maxIntervalS: number;
+      readonly fault?: FaultSpec;
+      /** how many of the first attempts meet the fault (the rest see the normal load) */
+      readonly faultyAttempts: number;
+      readonly lockoutS: number;
+    }
+  | { readonly kind: "repeat"; readonly count: number; readonly periodS?: number; readonly events: readonly ProfileEvent[] }
+  | { readonly kind: "power-trace"; readonly partIndex: number; readonly segments: readonly PowerSegment[]; readonly durationS: number }
+);
+
+/** A validated, fully resolved duty profile (every number SI; temperatures in °C). */
+export interface DutyProfile {
+  readonly file: string;
+  readonly name: string;
+  readonly description: string;
+  readonly parts: readonly ProfilePart[];
+  readonly circuit?: ProfileCircuit;
+  readonly events: readonly ProfileEvent[];
+}

@@ -1,0 +1,223 @@
+import type { CircuitOutcome } from "../circuits/CircuitResult.js";
+import { inputError } from "../errors/InputError.js";
+import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
+import type { CircuitModels } from "./CircuitModels.js";
+import type { BusLoad, DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
+import { PROFILE_DEFAULTS } from "./loadProfile.js";
+
+/** The kinds of events a timeline holds. */
+export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
+
+/** One event of the flat timeline, with the circuit state it leaves and the power it puts into each part. */
+export interface TimelineEvent {
+  readonly type: "event";
+  /** 0-based position in the timeline */
+  readonly index: number;
+  readonly kind: TimelineKind;
+  /** a readable description: the user's label, or e.g. "retry attempt 3 of 5" */
+  readonly label: string;
+  /** the profile field it came from */
+  readonly field: string;
+  /** start time [s] */
+  readonly startS: number;
+  /** how long the event lasts [s]; a gap may follow before the next event */
+  readonly durationS: number;
+  /** circuit outcome for charging events; "none" for the others */
+  readonly outcome: CircuitOutcome | "none";
+  /** why it ended, in words */
+  readonly reason: string;
+  /** capacitor voltage at the start and at the end [V] (0 when the profile has no circuit) */
+  readonly startVoltageV: number;
+  readonly endVoltageV: number;
+  /** power per part (profile part order) in absolute time; undefined: no power in that part */
+  readonly traces: readonly (PowerTrace | undefined)[];
+  /** energy into each part [J] */
+  readonly energyJ: readonly number[];
+}
+
+/** Time between events (a retry interval, the rest of a repeat period): no power, the bus as it was left. */
+export interface TimelineGap {
+  readonly type: "gap";
+  readonly startS: number;
+  readonly durationS: number;
+  /** capacitor voltage at the end of the gap [V] */
+  readonly endVoltageV: number;
+}
+
+/** An item of the expanded timeline. */
+export type TimelineItem = TimelineEvent | TimelineGap;
+
+/** Options of {@link expandTimeline}. */
+export interface ExpandOptions {
+  /** each part's temperature now [°C] (profile part order), read at the start of every charge; default: ambient */
+  readonly temperatureOf?: () => readonly number[];
+}
+
+/**
+ * Expand a duty profile into a flat, time-ordered stream of events and gaps, lazily: nested
+ * repeats, retry blocks with back-off and lockouts are walked as the consumer pulls, so memory
+ * does not grow with the number of events. The capacitor voltage is carried from event to event
+ * (charged by a completed power-up, left part-charged by an aborted one, drained by the discharge
+ * path whenever the bus is disconnected), and the circuit outcome decides what follows: a retry
+ * block stops at its first completed attempt; a block whose attempts are all exhausted is followed
+ * by its lockout. Retry intervals and repeat periods are start to start; the k-th retry interval
+ * is min(interval·backoff^(k−1), maxInterval).
+ * Because the stream is lazy, `temperatureOf` sees the parts' temperatures after every earlier
+ * item has been integrated, so temperature-dependent circuit models read the true state.
+ * Source: event semantics of our own (DEVELOPERS.md, "Profile format"); capacitor charge
+ * bookkeeping per DESIGN §4.
+ * Cost O(events × (circuit model + parts)); memory O(nesting depth + parts).
+ * @throws InputError when a repetition overruns its period or the profile exceeds the longest time
+ */
+export function* expandTimeline(profile: DutyProfile, models: CircuitModels, options: ExpandOptions = {}): Generator<TimelineItem> {
+  const circuit = profile.circuit;
+  const partCount = profile.parts.length;
+  const ambient = profile.parts.map((p) => p.ambientC);
+  const temperatureOf = options.temperatureOf ?? (() => ambient);
+  const state = { timeS: 0, voltageV: 0, busOn: false, index: 0 };
+
+  const advance = (durationS: number, field: string): void => {
+    if (circuit !== undefined) {
+      if (state.busOn) state.voltageV = circuit.busVoltageV;
+      else if (durationS > 0) state.voltageV = models.discharge(circuit.discharge, circuit.capacitanceF, state.voltageV, durationS);
+    }
+    state.timeS += durationS;
+    if (!(state.timeS <= PROFILE_DEFAULTS.maxProfileTimeS))
+      throw inputError("out-of-range", field, `a profile shorter than ${PROFILE_DEFAULTS.maxProfileTimeS} s`, `a time of ${state.timeS} s`);
+  };
+
+  const noPower = (): (PowerTrace | undefined)[] => new Array<PowerTrace | undefined>(partCount).fill(undefined);
+  const zeros = (): number[] => new Array<number>(partCount).fill(0);
+
+  const plain = (kind: TimelineKind, field: string, label: string, durationS: number, traces = noPower(), energyJ = zeros()): TimelineEvent => {
+    const startS = state.timeS;
+    const startVoltageV = state.voltageV;
+    advance(durationS, field);
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: "none", reason: "", startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
+  };
+
+  const gap = (durationS: number, field: string): TimelineGap => {
+    const startS = state.timeS;
+    advance(durationS, field);
+    return { type: "gap", startS, durationS, endVoltageV: state.voltageV };
+  };
+
+  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, afterS: number): TimelineEvent => {
+    const c = circuit!;
+    const temps = temperatureOf();
+    const partTemperatureC: Record<string, number> = {};
+    profile.parts.forEach((p, i) => {
+      if (p.role !== undefined) partTemperatureC[p.role] = temps[i]!;
+    });
+    const startS = state.timeS;
+    const startVoltageV = state.voltageV;
+    const result = c.topology === undefined ? undefined : models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC });
+    const traces = noPower();
+    const energyJ = zeros();
+    profile.parts.forEach((p, i) => {
+      const trace = p.role === undefined ? undefined : result!.traces[p.role];
+      if (trace === undefined || trace.length === 0) return;
+      traces[i] = trace.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
+      energyJ[i] = trace.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
+    });
+    const r = result!;
+    let reason = r.reason;
+    state.timeS += r.durationS;
+    let durationS = r.durationS;
+    if (r.outcome === "completed") {
+      state.busOn = true;
+      state.voltageV = c.busVoltageV;
+      if (afterS > 0) {
+        advance(afterS, field);
+        durationS += afterS;
+        state.busOn = false;
+        reason = `${reason}; the system tripped ${afterS} s after the contactor closed`;
+      }
+    } else {
+      state.busOn = false;
+      state.voltageV = r.endVoltageV;
+    }
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
+  };
+
+  function* walk(events: readonly ProfileEvent[]): Generator<TimelineItem, void> {
+    for (const e of events) {
+      switch (e.kind) {
+        case "power-up":
+          yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, 0);
+          break;
+        case "fault":
+          yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.afterS);
+          break;
+        case "run":
+          yield plain("run", e.field, e.label ?? "run", e.durationS);
+          break;
+        case "wait":
+          yield plain("wait", e.field, e.label ?? "wait", e.durationS);
+          break;
+        case "lockout":
+          state.busOn = false;
+          yield plain("lockout", e.field, e.label ?? "lockout", e.durationS);
+          break;
+        case "power-down":
+          state.busOn = false;
+          yield plain("power-down", e.field, e.label ?? "power-down", e.offS);
+          break;
+        case "power-trace": {
+          const traces = noPower();
+          const energyJ = zeros();
+          const startS = state.timeS;
+          traces[e.partIndex] = e.segments.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
+          energyJ[e.partIndex] = e.segments.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
+          yield plain("power-trace", e.field, e.label ?? `power trace into ${profile.parts[e.partIndex]!.id}`, e.durationS, traces, energyJ);
+          break;
+        }
+        case "retry": {
+          const name = e.label ?? "retry";
+          let interval = e.intervalS;
+          let done = false;
+          for (let k = 1; k <= e.attempts; k++) {
+            const startS = state.timeS;
+            const faulty = e.fault !== undefined && k <= e.faultyAttempts;
+            const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
+            const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.afterS) : charge("power-up", e.field, label, circuit!.load, 0);
+            yield event;
+            if (event.outcome === "completed" && !(faulty && e.fault!.type === "trip-after-close")) {
+              done = true;
+              break;
+            }
+            if (k < e.attempts) {
+              const rest = startS + interval - state.timeS;
+              if (rest > 0) yield gap(rest, e.field);
+              interval = Math.min(interval * e.backoff, e.maxIntervalS);
+            }
+          }
+          if (!done) {
+            state.busOn = false;
+            yield plain("lockout", e.field, `${name}: lockout after ${e.attempts} failed attempt${e.attempts === 1 ? "" : "s"}`, e.lockoutS);
+          }
+          break;
+        }
+        case "repeat":
+          for (let i = 0; i < e.count; i++) {
+            const startS = state.timeS;
+            yield* walk(e.events);
+            if (e.periodS !== undefined) {
+              const rest = startS + e.periodS - state.timeS;
+              if (rest < -1e-9 * Math.max(1, e.periodS))
+                throw inputError(
+                  "out-of-range",
+                  `${e.field}.period`,
+                  `a period at least as long as one repetition (repetition ${i + 1} took ${state.timeS - startS} s)`,
+                  `${e.periodS} s`,
+                );
+              if (rest > 0) yield gap(rest, e.field);
+            }
+          }
+          break;
+      }
+    }
+  }
+
+  yield* walk(profile.events);
+}

@@ -1,0 +1,242 @@
+import * as z from "zod";
+import { InputError } from "../errors/InputError.js";
+import { type Dimension, expectedWords } from "../units/dimensions.js";
+import { parseQuantity } from "../units/parseQuantity.js";
+
+/**
+ * A quantity field: a number in SI or a unit string, parsed by parseQuantity into SI. A failure
+ * becomes a zod issue carrying `expected` and `found`, so every bad field is reported at once.
+ */
+function quantity(dimension: Dimension, check?: { min?: number; above?: number; max?: number; words?: string }) {
+  return z.unknown().transform((value, ctx) => {
+    if (value === undefined) {
+      ctx.addIssue({ code: "custom", message: "quantity", params: { expected: `${expectedWords(dimension)} (required)`, found: "nothing" } });
+      return z.NEVER;
+    }
+    try {
+      const si = parseQuantity(value, dimension, "");
+      const bad =
+        (check?.min !== undefined && si < check.min) || (check?.above !== undefined && !(si > check.above)) || (check?.max !== undefined && si > check.max);
+      if (bad) {
+        ctx.addIssue({ code: "custom", message: "range", params: { expected: check?.words ?? "a value in range", found: describe(value) } });
+        return z.NEVER;
+      }
+      return si;
+    } catch (error) {
+      const problem = error instanceof InputError ? error.problems[0] : undefined;
+      ctx.addIssue({ code: "custom", message: "quantity", params: { expected: problem?.expected ?? dimension, found: problem?.found ?? describe(value) } });
+      return z.NEVER;
+    }
+  });
+}
+
+function describe(value: unknown): string {
+  return typeof value === "string" ? JSON.stringify(value) : value === undefined ? "nothing" : JSON.stringify(value) ?? String(value);
+}
+
+/** A whole count ≥ min. */
+function count(min: number, words: string) {
+  return z.unknown().transform((value, ctx) => {
+    if (typeof value !== "number" || !Number.isInteger(value) || value < min || value > Number.MAX_SAFE_INTEGER) {
+      ctx.addIssue({ code: "custom", message: "count", params: { expected: words, found: describe(value) } });
+      return z.NEVER;
+    }
+    return value;
+  });
+}
+
+const positiveTime = (what: string) => quantity("time", { above: 0, words: `${what} > 0 such as "3 s"` });
+const nonNegativeTime = (what: string) => quantity("time", { min: 0, words: `${what} ≥ 0 such as "10 s"` });
+
+/** Load on the bus while it charges. Key names are the profile's; the circuit layer gets BusLoad. */
+export const loadSchema = z.strictObject({
+  kind: z.enum(["none", "short", "resistive", "constant-current", "constant-power"]),
+  resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "2 ohm"' }).optional(),
+  current: quantity("current", { above: 0, words: 'a current > 0 such as "5 A"' }).optional(),
+  power: quantity("power", { above: 0, words: 'a power > 0 such as "300 W"' }).optional(),
+  enableAt: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "30 V"' }).optional(),
+  disableAt: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "27 V"' }).optional(),
+});
+
+/** Fault conditions a power-up can meet. */
+export const FAULT_TYPES = ["shorted-output", "overloaded-bus", "converter-early", "trip-after-close"] as const;
+
+const faultSchema = z.strictObject({
+  type: z.enum(FAULT_TYPES),
+  load: loadSchema.optional(),
+  power: quantity("power", { above: 0, words: 'a power > 0 such as "300 W"' }).optional(),
+  enableAt: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "30 V"' }).optional(),
+  disableAt: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "27 V"' }).optional(),
+  after: nonNegativeTime("a time").optional(),
+  label: z.string().optional(),
+});
+
+const powerUpSchema = z
+  .strictObject({ load: loadSchema.optional(), label: z.string().optional() })
+  .nullable()
+  .transform((v) => v ?? {});
+
+const retrySchema = z.strictObject({
+  attempts: count(1, "a whole number of attempts ≥ 1"),
+  interval: positiveTime("a start-to-start interval"),
+  backoff: quantity("dimensionless", { min: 1, words: "a back-off factor ≥ 1 such as 2" }).optional(),
+  maxInterval: positiveTime("a longest interval").optional(),
+  fault: faultSchema.optional(),
+  faultyAttempts: count(0, "a whole number of attempts ≥ 0").optional(),
+  lockout: nonNegativeTime("a lockout time"),
+  label: z.string().optional(),
+});
+
+const powerDownSchema = z
+  .strictObject({ off: nonNegativeTime("an off time").optional(), label: z.string().optional() })
+  .nullable()
+  .transform((v) => v ?? {});
+
+const pointSchema = z.tuple([quantity("time", { min: 0, words: 'a time ≥ 0 such as "0.5 s"' }), quantity("power", { min: 0, words: 'a power ≥ 0 such as "20 W"' })]);
+
+const powerTraceSchema = z.strictObject({
+  part: z.string().min(1),
+  file: z.string().min(1).optional(),
+  points: z.array(pointSchema).optional(),
+  scale: quantity("dimensionless", { min: 0, words: "a scale factor ≥ 0 such as 1" }).optional(),
+  label: z.string().optional(),
+});
+
+/** Names of the event kinds a profile's `events` list may hold (one key per list item). */
+export const EVENT_KEYS = ["power-up", "fault", "run", "wait", "power-down", "lockout", "retry", "repeat", "power-trace"] as const;
+
+/** One item of an `events` list: an object with exactly one of {@link EVENT_KEYS}. */
+export type EventInput =
+  | { "power-up": z.output<typeof powerUpSchema> }
+  | { fault: z.output<typeof faultSchema> }
+  | { run: number }
+  | { wait: number }
+  | { "power-down": z.output<typeof powerDownSchema> }
+  | { lockout: number }
+  | { retry: z.output<typeof retrySchema> }
+  | { repeat: { count: number; period?: number | undefined; events: EventInput[] } }
+  | { "power-trace": z.output<typeof powerTraceSchema> };
+
+const eventSchema: z.ZodType<EventInput> = z.lazy(() =>
+  z
+    .strictObject({
+      "power-up": powerUpSchema.optional(),
+      fault: faultSchema.optional(),
+      run: nonNegativeTime("a run time").optional(),
+      wait: nonNegativeTime("a waiting time").optional(),
+      "power-down": powerDownSchema.optional(),
+      lockout: nonNegativeTime("a lockout time").optional(),
+      retry: retrySchema.optional(),
+      repeat: z
+        .strictObject({
+          count: count(1, "a whole number of repetitions ≥ 1"),
+          period: positiveTime("a start-to-start period").optional(),
+          events: z.array(eventSchema).min(1),
+        })
+        .optional(),
+      "power-trace": powerTraceSchema.optional(),
+    })
+    .superRefine((value, ctx) => {
+      const present = Object.keys(value);
+      if (present.length !== 1) {
+        ctx.addIssue({
+          code: "custom",
+          message: "one-key",
+          params: { expected: `exactly one event key (${EVENT_KEYS.join(", ")})`, found: present.length === 0 ? "none" : present.join(", ") },
+        });
+      }
+    }),
+) as unknown as z.ZodType<EventInput>;
+
+/** The circuit roles a part can play, as written in a profile, and as the circuit models name them. */
+export const ROLE_NAMES = { resistor: "resistor", mosfet: "mosfet", "source-resistor": "sourceResistor", switch: "switch" } as const;
+
+/** A part's limits: the primary verdict compares the peak with maxTemperature and maxTemperature − margin. */
+const limitsSchema = z.strictObject({
+  maxTemperature: quantity("temperature", { above: -273.15, words: 'a temperature such as "155 degC"' }),
+  margin: quantity("temperatureDifference", { min: 0, words: 'a temperature difference ≥ 0 such as "15 K"' }).optional(),
+});
+
+/**
+ * One part. Kept as its own exported object so other domains (ratings, lifetime) can extend it
+ * with `partSchema.extend({...})` when they are wired in.
+ */
+export const partSchema = z.strictObject({
+  id: z.string().min(1),
+  role: z.enum(Object.keys(ROLE_NAMES) as [keyof typeof ROLE_NAMES, ...(keyof typeof ROLE_NAMES)[]]).optional(),
+  network: z.union([z.string().min(1), z.record(z.string(), z.unknown())]),
+  source: z.string().optional(),
+  observe: z.string().optional(),
+  ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "40 degC"' }).optional(),
+  limits: limitsSchema,
+});
+
+const mosfetSchema = z.strictObject({
+  gateVoltage: quantity("voltage", { above: 0, words: 'a gate voltage > 0 such as "10 V"' }),
+  thresholdVoltage: quantity("voltage", { above: 0, words: 'a threshold voltage > 0 such as "4 V"' }),
+  sourceResistor: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "1 ohm"' }).optional(),
+  saturationCurrent: quantity("current", { above: 0, words: 'a current > 0 such as "8 A"' }).optional(),
+  rdsOn: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 mohm"' }),
+  thresholdTempco: quantity("voltagePerKelvin", { words: 'a coefficient such as "-5 mV/K"' }).optional(),
+});
+
+const converterSchema = z.strictObject({
+  mode: z.enum(["constant-current", "constant-power"]),
+  current: quantity("current", { above: 0, words: 'a current > 0 such as "2 A"' }).optional(),
+  power: quantity("power", { above: 0, words: 'a power > 0 such as "200 W"' }).optional(),
+  efficiency: quantity("dimensionless", { above: 0, max: 1, words: "an efficiency in (0, 1] such as 0.9" }),
+  currentLimit: quantity("current", { above: 0, words: 'a current > 0 such as "5 A"' }).optional(),
+});
+
+const completionSchema = z.strictObject({
+  fraction: quantity("dimensionless", { above: 0, max: 0.999999, words: "a fraction in (0, 1) such as 0.95" }).optional(),
+  within: quantity("voltage", { above: 0, words: 'a voltage > 0 such as "2 V"' }).optional(),
+  dwell: positiveTime("a dwell").optional(),
+  timeout: positiveTime("a timeout"),
+});
+
+const dischargeSchema = z.strictObject({
+  kind: z.enum(["none", "bleeder", "constant-current", "active"]),
+  resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 kohm"' }).optional(),
+  current: quantity("current", { above: 0, words: 'a current > 0 such as "10 mA"' }).optional(),
+  until: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "5 V"' }).optional(),
+});
+
+/** The pre-charge circuit: topology, bus, capacitor, load, completion rule and discharge path. */
+export const circuitSchema = z.strictObject({
+  topology: z.enum(["series-resistor", "linear-mosfet", "converter"]),
+  busVoltage: quantity("voltage", { above: 0, words: 'a bus voltage > 0 such as "48 V"' }),
+  capacitance: quantity("capacitance", { above: 0, words: 'a capacitance > 0 such as "4.7 mF"' }),
+  resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 ohm"' }).optional(),
+  sourceResistance: quantity("resistance", { min: 0, words: 'a resistance ≥ 0 such as "20 mohm"' }).optional(),
+  mosfet: mosfetSchema.optional(),
+  converter: converterSchema.optional(),
+  load: loadSchema.optional(),
+  completion: completionSchema,
+  discharge: dischargeSchema,
+});
+
+/**
+ * The duty-profile file, validated and with every quantity converted to SI (temperatures in °C).
+ * Networks and trace files are still references here; loadProfile resolves them.
+ * Source: keys of our own (see DEVELOPERS.md, "Profile format").
+ */
+export const profileSchema = z.strictObject({
+  name: z.string().min(1),
+  description: z.string().optional(),
+  ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "40 degC"' }),
+  parts: z.array(partSchema).min(1),
+  circuit: circuitSchema.optional(),
+  events: z.array(eventSchema).min(1),
+});
+
+/** The profile as validated by {@link profileSchema}, before networks and files are resolved. */
+export type ProfileInput = z.output<typeof profileSchema>;
+/** A validated load specification. */
+export type LoadInput = z.output<typeof loadSchema>;
+/** A validated fault specification. */
+export type FaultInput = z.output<typeof faultSchema>;
+/** A validated circuit. */
+export type CircuitInput = z.output<typeof circuitSchema>;
+/** A validated part. */
+export type PartInput = z.output<typeof partSchema>;

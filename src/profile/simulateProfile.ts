@@ -1,0 +1,192 @@
+import { InputError, withLocation } from "../errors/InputError.js";
+import type { ModalModel } from "../thermal/ModalModel.js";
+import { modalRise } from "../thermal/modalStep.js";
+import { runThermalHistory } from "../thermal/runThermalHistory.js";
+import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
+import type { CircuitModels } from "./CircuitModels.js";
+import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
+import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
+
+/** A part's verdict: within the limit less its margin, inside the margin, or past the limit. */
+export type PartVerdict = "pass" | "warn" | "fail";
+
+/** Temperatures of one event's window (from its start to the next event's start). */
+export interface EventTemperatures {
+  /** highest temperature of each part in the window [°C] */
+  readonly peakTemperatureC: readonly number[];
+  /** when [s] */
+  readonly peakTimeS: readonly number[];
+}
+
+/** What a simulation found for one part. */
+export interface PartResult {
+  readonly id: string;
+  readonly peakTemperatureC: number;
+  readonly peakTimeS: number;
+  readonly limitC: number;
+  /** limit − peak [K]; negative past the limit */
+  readonly marginK: number;
+  /** the warning band below the limit the profile asked for [K] */
+  readonly requiredMarginK: number;
+  readonly verdict: PartVerdict;
+  /** first step end or interior peak found above the limit [s]; undefined if never */
+  readonly firstExceedanceS?: number;
+  /** energy put into the part over the whole profile [J] */
+  readonly energyJ: number;
+  /** temperature at the end of the profile [°C] */
+  readonly endTemperatureC: number;
+}
+
+/** The result of a whole profile. */
+export interface SimulationResult {
+  /** "fail" if any part passed its limit, else "warn" if any is inside its margin, else "pass" */
+  readonly verdict: PartVerdict;
+  readonly parts: readonly PartResult[];
+  readonly eventCount: number;
+  readonly stepCount: number;
+  readonly endTimeS: number;
+  /** charging events by outcome */
+  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "stalled", number>>;
+}
+
+/** Options of {@link simulateProfile}. */
+export interface SimulateOptions {
+  /** the electrical models (src/circuits by default in the CLI) */
+  readonly models: CircuitModels;
+  /** called once per event when its window closes, in time order */
+  readonly onEvent?: (event: TimelineEvent, temperatures: EventTemperatures) => void;
+  /** called for every step end and interior peak with each part's temperature [°C] */
+  readonly onPoint?: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => void;
+}
+
+/**
+ * One modal model for all parts: its sources and observed nodes are the parts (profile order).
+ * The modes of every distinct network are laid side by side; the gain from part s to part o is
+ * the network's gain from s's source node to o's observed node when both parts share a network,
+ * and zero otherwise (separate networks exchange no heat).
+ * Cost O(parts² × modes).
+ */
+export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
+  const offsets = new Map<string, number>();
+  const tauS: number[] = [];
+  for (const p of parts) {
+    if (offsets.has(p.networkKey)) continue;
+    offsets.set(p.networkKey, tauS.length);
+    tauS.push(...p.model.tauS);
+  }
+  const gainKPerW = parts.map((o) =>
+    parts.map((s) => {
+      const row = new Array<number>(tauS.length).fill(0);
+      if (s.networkKey === o.networkKey) {
+        const base = offsets.get(s.networkKey)!;
+        s.model.gainKPerW[o.observedIndex]![s.sourceIndex]!.forEach((g, m) => (row[base + m] = g));
+      }
+      return row;
+    }),
+  );
+  const ids = parts.map((p) => p.id);
+  return { tauS, sources: ids, observed: ids, gainKPerW };
+}
+
+/**
+ * Simulate a duty profile: expand it lazily (expandTimeline), turn every event's power into exact
+ * thermal steps (traceSteps) and integrate all parts in one streaming pass (runThermalHistory,
+ * closed-form modal updates plus interior peak search), so the thermal state of every part is
+ * carried from event to event and memory stays flat however many events the profile holds.
+ * Temperatures are ambient + rise; each part's verdict compares its peak with its limit:
+ * fail when peak > limit, warn when limit − margin < peak ≤ limit, else pass.
+ * Source: superposition of exact modal responses (DESIGN §3); verdict rule of our own (DESIGN §5).
+ * Cost O(events × steps per event × parts × modes); memory O(parts × modes).
+ * @throws InputError for a circuit value the models reject or a repeat that overruns its period
+ */
+export function simulateProfile(profile: DutyProfile, options: SimulateOptions): SimulationResult {
+  const parts = profile.parts;
+  const model = combinedModel(parts);
+  const count = parts.length;
+  const ambient = parts.map((p) => p.ambientC);
+  const now = new Float64Array(count);
+  const firstExceedance: (number | undefined)[] = new Array<number | undefined>(count).fill(undefined);
+  const energy = new Float64Array(count);
+  const eventPeak = new Float64Array(count);
+  const eventPeakTime = new Float64Array(count);
+  const outcomes = { completed: 0, "timed-out": 0, stalled: 0 };
+  let current: TimelineEvent | undefined;
+  let events = 0;
+  let lastIndex = -1;
+
+  const temperatureOf = (): number[] => Array.from(now, (rise, i) => ambient[i]! + rise);
+  const closeEvent = (): void => {
+    if (current === undefined) return;
+    lastIndex = current.index;
+    options.onEvent?.(current, {
+      peakTemperatureC: Array.from(eventPeak, (rise, i) => ambient[i]! + rise),
+      peakTimeS: Array.from(eventPeakTime),
+    });
+    current = undefined;
+  };
+  const openEvent = (event: TimelineEvent): void => {
+    closeEvent();
+    current = event;
+    events++;
+    for (let i = 0; i < count; i++) {
+      eventPeak[i] = now[i]!;
+      eventPeakTime[i] = event.startS;
+      energy[i] = energy[i]! + event.energyJ[i]!;
+    }
+    if (event.outcome !== "none") outcomes[event.outcome]++;
+  };
+
+  function* steps(): Generator<TimedStep> {
+    for (const item of expandTimeline(profile, options.models, { temperatureOf })) {
+      const until = item.startS + item.durationS;
+      if (item.type === "event") {
+        openEvent(item);
+        yield* traceSteps(item.traces, item.startS, until);
+      } else {
+        yield* traceSteps([], item.startS, until);
+      }
+    }
+    closeEvent();
+  }
+
+  const onPoint = (point: { timeS: number; riseK: readonly number[]; kind: "step-end" | "peak" }): void => {
+    for (let i = 0; i < count; i++) {
+      const rise = point.riseK[i]!;
+      if (point.kind === "step-end") now[i] = rise;
+      if (rise > eventPeak[i]!) {
+        eventPeak[i] = rise;
+        eventPeakTime[i] = point.timeS;
+      }
+      if (firstExceedance[i] === undefined && ambient[i]! + rise > parts[i]!.limitC) firstExceedance[i] = point.timeS;
+    }
+    if (options.onPoint !== undefined) options.onPoint(point.timeS, point.riseK.map((r, i) => ambient[i]! + r), point.kind, current?.index ?? lastIndex);
+  };
+
+  let summary: ReturnType<typeof runThermalHistory>;
+  try {
+    summary = runThermalHistory(model, steps(), { onPoint });
+  } catch (error) {
+    if (error instanceof InputError) throw withLocation(error, profile.file);
+    throw error;
+  }
+  const results: PartResult[] = parts.map((p, i) => {
+    const peakTemperatureC = p.ambientC + summary.peakRiseK[i]!;
+    const marginK = p.limitC - peakTemperatureC;
+    const verdict: PartVerdict = peakTemperatureC > p.limitC ? "fail" : marginK < p.marginK ? "warn" : "pass";
+    const exceed = firstExceedance[i];
+    return {
+      id: p.id,
+      peakTemperatureC,
+      peakTimeS: summary.peakTimeS[i]!,
+      limitC: p.limitC,
+      marginK,
+      requiredMarginK: p.marginK,
+      verdict,
+      ...(exceed === undefined ? {} : { firstExceedanceS: exceed }),
+      energyJ: energy[i]!,
+      endTemperatureC: p.ambientC + modalRise(model, summary.endState, i),
+    };
+  });
+  const verdict: PartVerdict = results.some((r) => r.verdict === "fail") ? "fail" : results.some((r) => r.verdict === "warn") ? "warn" : "pass";
+  return { verdict, parts: results, eventCount: events, stepCount: summary.steps, endTimeS: summary.endTimeS, outcomes };
+}

@@ -1,0 +1,100 @@
+import type { DutyProfile } from "../profile/DutyProfile.js";
+import type { SimulationResult } from "../profile/simulateProfile.js";
+import { formatCautions } from "./cautions.js";
+import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "./EventDigest.js";
+import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { lineChart } from "./lineChart.js";
+import type { PeakEnvelope } from "./PeakEnvelope.js";
+
+/** Words for a verdict, shown in the terminal. */
+const VERDICT_WORDS = {
+  pass: "PASS: every part stays below its limit less its margin",
+  warn: "WARN: a part stays below its limit but inside its margin",
+  fail: "FAIL: a part passes its temperature limit",
+} as const;
+
+/**
+ * The terminal report of a simulation: a header, one row per part (peak, when, limit, margin,
+ * verdict, first time over the limit), one row per event (all of them for a short profile, else
+ * the events closest to a limit), a chart of each part's temperature with its limit line, the
+ * verdict, and the cautions of DESIGN §8 at the end. Returns a string; the CLI prints it.
+ * Cost O(parts × (events kept + chart width)).
+ */
+export function formatSimulationText(profile: DutyProfile, result: SimulationResult, digest: EventDigest, envelope: PeakEnvelope | undefined, width = 100): string {
+  const out: string[] = [];
+  out.push(`heatledger simulate: ${profile.name}`);
+  out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
+  const charges = result.outcomes.completed + result.outcomes["timed-out"] + result.outcomes.stalled;
+  if (charges > 0) out.push(`pre-charge attempts: ${charges} (${result.outcomes.completed} completed, ${result.outcomes["timed-out"]} timed out, ${result.outcomes.stalled} stalled)`);
+  out.push("");
+  out.push("Parts");
+  out.push(
+    formatTable(
+      [
+        { heading: "part" },
+        { heading: "peak [°C]", align: "right" },
+        { heading: "at", align: "right" },
+        { heading: "limit [°C]", align: "right" },
+        { heading: "margin [K]", align: "right" },
+        { heading: "wanted [K]", align: "right" },
+        { heading: "verdict" },
+        { heading: "first over limit", align: "right" },
+        { heading: "energy [J]", align: "right" },
+      ],
+      result.parts.map((p) => [
+        p.id,
+        formatNumber(p.peakTemperatureC, 4),
+        formatDuration(p.peakTimeS),
+        formatNumber(p.limitC, 4),
+        formatNumber(p.marginK, 3),
+        formatNumber(p.requiredMarginK, 3),
+        p.verdict,
+        p.firstExceedanceS === undefined ? "never" : formatDuration(p.firstExceedanceS),
+        formatNumber(p.energyJ, 4),
+      ]),
+    ),
+  );
+  const short = digest.count <= EVENT_DIGEST_DEFAULTS.terminalAll && digest.all.length === digest.count;
+  const shown: readonly EventRecord[] = short ? digest.all : digest.hottest;
+  out.push(short ? "Events" : `Events: the ${shown.length} closest to a limit, of ${digest.count} (--json lists ${digest.all.length === digest.count ? "all" : `the first ${digest.all.length}`})`);
+  const ids = profile.parts.map((p) => p.id);
+  const multi = ids.length > 1;
+  out.push(
+    formatTable(
+      [
+        { heading: "#", align: "right" },
+        { heading: "start", align: "right" },
+        { heading: "event" },
+        { heading: "outcome" },
+        { heading: "bus [V]", align: "right" },
+        ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
+        ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
+      ],
+      shown.map((e) => [
+        String(e.index),
+        formatDuration(e.startS),
+        e.label,
+        e.outcome === "none" ? "" : e.outcome,
+        e.outcome === "none" && e.startVoltageV === e.endVoltageV ? formatNumber(e.endVoltageV, 3) : `${formatNumber(e.startVoltageV, 3)}→${formatNumber(e.endVoltageV, 3)}`,
+        ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
+        ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
+      ]),
+    ),
+  );
+  if (envelope !== undefined) {
+    profile.parts.forEach((p, i) => {
+      out.push(`Temperature of ${p.id}`);
+      out.push(
+        lineChart([{ label: `${p.id} (peak in each time slice)`, points: envelope.points(i) }], {
+          width: Math.min(width, 120),
+          lines: [{ label: "limit", y: p.limitC }],
+          yUnit: "°C",
+        }),
+      );
+    });
+  }
+  out.push(`Verdict: ${VERDICT_WORDS[result.verdict]}.`);
+  out.push("");
+  out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
+  return out.join("\n");
+}

@@ -1,0 +1,78 @@
+import type { DutyProfile } from "../profile/DutyProfile.js";
+import type { SimulationResult } from "../profile/simulateProfile.js";
+import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./cautions.js";
+import type { EventDigest } from "./EventDigest.js";
+
+/** One event of one part in the JSON report (DESIGN §6). */
+export interface JsonPartEvent {
+  readonly index: number;
+  readonly kind: string;
+  readonly startS: number;
+  readonly energyJ: number;
+  readonly peakTemperatureC: number;
+  /** circuit outcome of a charging event; "none" for events that charge nothing */
+  readonly outcome: string;
+}
+
+/** The `simulate --json` object (DESIGN §6, with additions that never rename its fields). */
+export interface SimulationJson {
+  readonly verdict: "pass" | "fail";
+  /** pass | warn | fail: warn is a pass inside a part's wanted margin */
+  readonly detailedVerdict: "pass" | "warn" | "fail";
+  readonly profile: { readonly name: string; readonly file: string };
+  readonly eventCount: number;
+  /** events not listed per part because the profile is longer than the listing limit */
+  readonly eventsOmitted: number;
+  readonly endTimeS: number;
+  readonly parts: readonly {
+    readonly id: string;
+    readonly peakTemperatureC: number;
+    readonly peakTimeS: number;
+    readonly limitC: number;
+    readonly marginK: number;
+    readonly requiredMarginK: number;
+    readonly verdict: "pass" | "warn" | "fail";
+    readonly firstExceedanceS: number | null;
+    readonly energyJ: number;
+    readonly events: readonly JsonPartEvent[];
+  }[];
+  readonly cautions: readonly string[];
+}
+
+/**
+ * The machine-readable result of a simulation, as DESIGN §6 fixes it: `verdict` ("pass" | "fail"),
+ * and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK and `events`
+ * [{index, kind, startS, energyJ, peakTemperatureC, outcome}]. A "warn" (inside the margin, not past
+ * the limit) is a pass for the exit status and `verdict`; `detailedVerdict` tells it apart.
+ * Cost O(parts × events listed).
+ */
+export function simulationJson(profile: DutyProfile, result: SimulationResult, digest: EventDigest): SimulationJson {
+  return {
+    verdict: result.verdict === "fail" ? "fail" : "pass",
+    detailedVerdict: result.verdict,
+    profile: { name: profile.name, file: profile.file },
+    eventCount: result.eventCount,
+    eventsOmitted: digest.count - digest.all.length,
+    endTimeS: result.endTimeS,
+    parts: result.parts.map((p, i) => ({
+      id: p.id,
+      peakTemperatureC: p.peakTemperatureC,
+      peakTimeS: p.peakTimeS,
+      limitC: p.limitC,
+      marginK: p.marginK,
+      requiredMarginK: p.requiredMarginK,
+      verdict: p.verdict,
+      firstExceedanceS: p.firstExceedanceS ?? null,
+      energyJ: p.energyJ,
+      events: digest.all.map((e) => ({
+        index: e.index,
+        kind: e.kind,
+        startS: e.startS,
+        energyJ: e.energyJ[i]!,
+        peakTemperatureC: e.peakTemperatureC[i]!,
+        outcome: e.outcome,
+      })),
+    })),
+    cautions: [GENERAL_CAUTION, ...(profile.circuit?.topology === "linear-mosfet" ? [LINEAR_MOSFET_CAUTION] : [])],
+  };
+}

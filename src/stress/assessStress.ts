@@ -1,0 +1,240 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import { DEFAULT_TOP_CYCLES, MinerAccumulator, type MinerDamage } from "./minerDamage.js";
+import { type PulseEnergyCheck, type RatingStatus, checkPulseEnergy } from "./pulseEnergyRating.js";
+import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
+import type { StressConfig, StressPartKind } from "./resolveStressConfig.js";
+import { type OperatingPoint, type SoaCheck, checkSoa } from "./soaTable.js";
+import { LINEAR_MOSFET_CAUTION } from "../report/cautions.js";
+import { LIFETIME_CAUTION } from "./stressCautions.js";
+import { TurningPointFilter } from "./turningPoints.js";
+
+/** What the profile layer knows of one event of a part. */
+export interface StressEvent {
+  /** index of the event in the timeline */
+  readonly index: number;
+  /** start time [s] */
+  readonly startS: number;
+  /** conduction time of the event [s] */
+  readonly durationS: number;
+  /** energy dissipated in the part [J] */
+  readonly energyJ: number;
+  /** highest instantaneous power in the part [W] */
+  readonly peakPowerW: number;
+  /** MOSFET operating points (time, Vds, Id) during the event; needed for the SOA check */
+  readonly operatingPoints?: readonly OperatingPoint[];
+}
+
+/** One point of the part's temperature history: time [s], temperature [°C]. */
+export interface TemperaturePoint {
+  readonly timeS: number;
+  readonly temperatureC: number;
+}
+
+/** Options of {@link assessStress}; every field has a default. */
+export interface StressOptions {
+  /** kind of part (default "other") */
+  readonly partKind?: StressPartKind;
+  /** a MOSFET run in linear mode: the report carries the thermal-instability caution (default false) */
+  readonly linearMode?: boolean;
+  /** "repeating" (default): the history is one repetition of a profile, closed on itself (§5.4.5); "open" for a one-off record (§5.4.4) */
+  readonly mode?: RainflowMode;
+  /** period of one repetition [s] (default: last − first history time) */
+  readonly periodS?: number;
+  /** how often the history occurs per year, for the calendar life (optional) */
+  readonly repetitionsPerYear?: number;
+  /** keep every counted cycle in the report (for `--cycles FILE`; default true) */
+  readonly keepCycles?: boolean;
+  /** how many of the most damaging cycles to list (default {@link DEFAULT_TOP_CYCLES}) */
+  readonly topCycles?: number;
+}
+
+/** Rating checks of one event. */
+export interface EventRatingCheck {
+  readonly index: number;
+  readonly startS: number;
+  /** present when the part has a pulse-energy table */
+  readonly pulseEnergy: PulseEnergyCheck | undefined;
+  /** present when the part has an SOA table and the event has operating points */
+  readonly soa: SoaCheck | undefined;
+  /** worst of the two ("pass" when neither applies) */
+  readonly status: RatingStatus;
+}
+
+/** Summary of the counted cycles. */
+export interface CycleSummary {
+  readonly mode: RainflowMode;
+  readonly hysteresisK: number;
+  readonly turningPoints: number;
+  readonly fullCycles: number;
+  readonly halfCycles: number;
+  /** largest range [K]; 0 with no cycle */
+  readonly largestRangeK: number;
+  /** highest cycle maximum [°C]; undefined with no cycle */
+  readonly highestC: number | undefined;
+  /** lowest cycle minimum [°C]; undefined with no cycle */
+  readonly lowestC: number | undefined;
+}
+
+/** Everything the stress layer says about one part. */
+export interface StressReport {
+  /** worst rating status over all events ("pass" when the part has no rating table) */
+  readonly ratingStatus: RatingStatus;
+  readonly events: readonly EventRatingCheck[];
+  readonly cycleSummary: CycleSummary;
+  /** every counted cycle (empty when keepCycles is false) */
+  readonly cycles: readonly RainflowCycle[];
+  /** damage of each kept cycle, same order as `cycles` */
+  readonly cycleDamage: readonly number[];
+  /** Miner damage; undefined when the part has no cycling model */
+  readonly damage: MinerDamage | undefined;
+  /** conventions used and what was not checked, in words */
+  readonly notes: readonly string[];
+  /** stress-specific cautions for human-readable reports (lifetime estimate, linear-mode MOSFET); the
+   *  general caution closes the whole report (src/report/cautions.ts) */
+  readonly cautions: readonly string[];
+}
+
+const STATUS_ORDER: Record<RatingStatus, number> = { pass: 0, "outside-table": 1, fail: 2 };
+
+/** The worse of two rating statuses: fail > outside-table > pass. */
+export function worseStatus(a: RatingStatus, b: RatingStatus): RatingStatus {
+  return STATUS_ORDER[a] >= STATUS_ORDER[b] ? a : b;
+}
+
+/**
+ * Push-style stress assessment of one part, for a caller that produces the temperature history
+ * point by point (the thermal visitor): `addTemperature` for each point in time order, then
+ * `finish(events)`. Points pass through the turning-point filter (hysteresis from the config)
+ * into the rainflow counter, and every cycle goes straight into Miner's sum: memory is bounded
+ * by the residue stack (plus the cycles, if kept).
+ * Cost O(points + cycles·top + events·rating work).
+ * @throws InputError for points out of order or not finite, and for bad options
+ */
+export class StressAssessment {
+  private readonly config: StressConfig;
+  private readonly options: StressOptions;
+  private readonly counter: RainflowCounter;
+  private readonly filter: TurningPointFilter;
+  private readonly miner: MinerAccumulator | undefined;
+  private readonly cycles: RainflowCycle[] = [];
+  private readonly cycleDamage: number[] = [];
+  private turningPoints = 0;
+  private full = 0;
+  private half = 0;
+  private largestRangeK = 0;
+  private highestC = Number.NEGATIVE_INFINITY;
+  private lowestC = Number.POSITIVE_INFINITY;
+  private firstTimeS = Number.NaN;
+  private lastTimeS = Number.NaN;
+
+  constructor(config: StressConfig, options: StressOptions = {}) {
+    this.config = config;
+    this.options = options;
+    if (options.periodS !== undefined && !(options.periodS > 0 && Number.isFinite(options.periodS)))
+      throw inputError("out-of-range", "periodS", "a period > 0 s", describeFound(options.periodS));
+    this.miner = config.lifetime === undefined ? undefined : new MinerAccumulator(config.lifetime, options.topCycles ?? DEFAULT_TOP_CYCLES);
+    const keep = options.keepCycles ?? true;
+    this.counter = new RainflowCounter(
+      (cycle) => {
+        const damage = this.miner?.add(cycle) ?? 0;
+        if (keep) {
+          this.cycles.push(cycle);
+          this.cycleDamage.push(damage);
+        }
+        if (cycle.count === 1) this.full++;
+        else this.half++;
+        if (cycle.rangeK > this.largestRangeK) this.largestRangeK = cycle.rangeK;
+        if (cycle.maxC > this.highestC) this.highestC = cycle.maxC;
+        if (cycle.minC < this.lowestC) this.lowestC = cycle.minC;
+      },
+      { mode: options.mode ?? "repeating" },
+    );
+    this.filter = new TurningPointFilter((p) => {
+      this.turningPoints++;
+      this.counter.push(p.timeS, p.value);
+    }, config.cycleHysteresisK);
+  }
+
+  /** Next point of the part's temperature history (time [s], temperature [°C]). */
+  addTemperature(timeS: number, temperatureC: number): void {
+    if (Number.isNaN(this.firstTimeS)) this.firstTimeS = timeS;
+    this.lastTimeS = timeS;
+    this.filter.push(timeS, temperatureC);
+  }
+
+  /** Close the history, check every event against the ratings, and report. */
+  finish(events: readonly StressEvent[]): StressReport {
+    this.filter.finish();
+    const span = this.lastTimeS - this.firstTimeS;
+    const periodS = this.options.periodS ?? (span > 0 ? span : undefined);
+    this.counter.finish(periodS);
+    const { pulseEnergy, soa } = this.config;
+    const kind = this.options.partKind ?? "other";
+    const checks: EventRatingCheck[] = events.map((e, i) => {
+      const field = `events[${i}]`;
+      const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, e.energyJ, e.peakPowerW, field);
+      const soaCheck =
+        soa === undefined || e.operatingPoints === undefined || e.operatingPoints.length === 0 || !(e.durationS > 0)
+          ? undefined
+          : checkSoa(soa, e.operatingPoints, e.durationS, field);
+      const status = worseStatus(energy?.status ?? "pass", soaCheck?.status ?? "pass");
+      return { index: e.index, startS: e.startS, pulseEnergy: energy, soa: soaCheck, status };
+    });
+    const notes: string[] = [];
+    if (pulseEnergy !== undefined)
+      notes.push("Pulse-energy check: each event is read at its equivalent rectangular duration E/P_peak (same energy, same peak power; common practice).");
+    else notes.push("No pulse-energy rating table given: events are not checked against a single-pulse rating.");
+    if (soa !== undefined)
+      notes.push("SOA check: every operating point is held to the boundary for the whole event duration (conservative; common practice).");
+    else if (kind === "mosfet") notes.push("No SOA table given: operating points are not checked against a safe operating area.");
+    if (soa !== undefined && events.some((e) => e.operatingPoints === undefined || e.operatingPoints.length === 0))
+      notes.push("Some events carry no operating points: they were not checked against the SOA.");
+    if (this.config.lifetime === undefined)
+      notes.push(
+        kind === "resistor"
+          ? "No cycling model for this resistor (none is published; give Coffin-Manson parameters of your own): temperature and energy checks only."
+          : "No lifetime model given: cycles are counted but no damage is computed.",
+      );
+    const cautions: string[] = this.config.lifetime === undefined ? [] : [LIFETIME_CAUTION];
+    if (kind === "mosfet" && this.options.linearMode === true) cautions.push(LINEAR_MOSFET_CAUTION);
+    return {
+      ratingStatus: checks.reduce<RatingStatus>((s, c) => worseStatus(s, c.status), "pass"),
+      events: checks,
+      cycleSummary: {
+        mode: this.options.mode ?? "repeating",
+        hysteresisK: this.config.cycleHysteresisK,
+        turningPoints: this.turningPoints,
+        fullCycles: this.full,
+        halfCycles: this.half,
+        largestRangeK: this.largestRangeK,
+        highestC: Number.isFinite(this.highestC) ? this.highestC : undefined,
+        lowestC: Number.isFinite(this.lowestC) ? this.lowestC : undefined,
+      },
+      cycles: this.cycles,
+      cycleDamage: this.cycleDamage,
+      damage: this.miner?.result(this.options.repetitionsPerYear),
+      notes,
+      cautions,
+    };
+  }
+}
+
+/**
+ * Assess one part's stress: rating checks per event (single-pulse energy at E/P_peak, SOA at
+ * every operating point), rainflow cycles of its temperature history and Miner damage per
+ * repetition under its lifetime model. The profile layer calls this once per part; the Zth-based
+ * temperature verdict stays the profile layer's and is primary, these checks are reported beside
+ * it. See {@link StressAssessment} for the streaming form.
+ * Cost O(history points + cycles + events × rating work); memory O(residue + kept cycles).
+ * @throws InputError for bad points, events or options, naming the field
+ */
+export function assessStress(
+  config: StressConfig,
+  events: readonly StressEvent[],
+  history: Iterable<TemperaturePoint>,
+  options: StressOptions = {},
+): StressReport {
+  const assessment = new StressAssessment(config, options);
+  for (const p of history) assessment.addTemperature(p.timeS, p.temperatureC);
+  return assessment.finish(events);
+}

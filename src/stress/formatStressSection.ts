@@ -1,0 +1,72 @@
+import type { StressReport } from "./assessStress.js";
+
+function num(x: number, digits = 3): string {
+  if (x === Number.POSITIVE_INFINITY) return "unlimited";
+  if (!Number.isFinite(x)) return "n/a";
+  if (x !== 0 && (Math.abs(x) >= 1e6 || Math.abs(x) < 1e-3)) return x.toExponential(digits - 1);
+  return String(Number(x.toPrecision(digits)));
+}
+
+const STATUS_WORDS = { pass: "pass", fail: "FAIL", "outside-table": "not covered by the table" } as const;
+
+/**
+ * The terminal "stress" section of one part: rating checks per event (only the failing or
+ * uncovered ones listed, plus a count of passes), the cycle summary, Miner damage with its
+ * projections and the most damaging cycles, warnings, notes and cautions. Plain text, lines of
+ * at most about 100 characters; returns a string, prints nothing.
+ * Cost O(events + top cycles + warnings).
+ */
+export function formatStressSection(partId: string, report: StressReport): string {
+  const lines: string[] = [`Stress — ${partId}`];
+  const checked = report.events.filter((e) => e.pulseEnergy !== undefined || e.soa !== undefined);
+  if (checked.length > 0) {
+    const passes = checked.filter((e) => e.status === "pass").length;
+    lines.push(`  ratings: ${STATUS_WORDS[report.ratingStatus]} (${passes} of ${checked.length} events within ratings)`);
+    for (const e of checked) {
+      const pe = e.pulseEnergy;
+      if (pe !== undefined && pe.status !== "pass")
+        lines.push(
+          `    event ${e.index} at ${num(e.startS)} s: pulse energy ${num(pe.energyJ)} J at t_eq ${num(pe.equivalentDurationS)} s: ` +
+            (pe.ratedEnergyJ === undefined ? `${STATUS_WORDS[pe.status]} (${pe.position})` : `${num((pe.utilisation ?? 0) * 100)} % of ${num(pe.ratedEnergyJ)} J, ${STATUS_WORDS[pe.status]}`),
+        );
+      const soa = e.soa;
+      if (soa !== undefined && soa.status !== "pass") {
+        const w = soa.worst;
+        lines.push(
+          `    event ${e.index} at ${num(e.startS)} s: SOA ${STATUS_WORDS[soa.status]}: ${soa.pointsOutside} of ${soa.pointsChecked} points past the boundary, ` +
+            `${soa.pointsNotCovered} not covered` +
+            (w === undefined ? "" : `; worst ${num(w.idA)} A at ${num(w.vdsV)} V (allowed ${num(w.allowedA)} A for ${num(soa.durationS)} s)`),
+        );
+      }
+    }
+    const worstEnergy = Math.max(0, ...checked.map((e) => e.pulseEnergy?.utilisation ?? 0));
+    if (worstEnergy > 0) lines.push(`    highest pulse-energy use: ${num(worstEnergy * 100)} % of the rating`);
+    const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
+    if (worstSoa > 0) lines.push(`    highest SOA use: ${num(worstSoa * 100)} % of the allowed current`);
+  } else lines.push("  ratings: no rating table applies");
+  const c = report.cycleSummary;
+  lines.push(
+    `  cycles (${c.mode === "repeating" ? "repeating history, ASTM E1049 §5.4.5" : "open history, ASTM E1049 §5.4.4"}, hysteresis ${num(c.hysteresisK)} K): ` +
+      `${c.fullCycles} full, ${c.halfCycles} half from ${c.turningPoints} turning points; largest range ${num(c.largestRangeK)} K` +
+      (c.lowestC === undefined || c.highestC === undefined ? "" : `, ${num(c.lowestC)} to ${num(c.highestC)} °C`),
+  );
+  const d = report.damage;
+  if (d !== undefined) {
+    lines.push(`  damage (${d.model}, Miner's rule): ${num(d.damagePerRepetition)} per repetition of the profile`);
+    lines.push(
+      `    end of life after ${num(d.repetitionsToEndOfLife)} repetitions` + (d.yearsToEndOfLife === undefined ? "" : ` (${num(d.yearsToEndOfLife)} years at the stated rate)`),
+    );
+    if (d.topCycles.length > 0) {
+      lines.push("    most damaging cycles:");
+      for (const t of d.topCycles)
+        lines.push(
+          `      ${num(t.cycle.rangeK)} K (${num(t.cycle.minC)} to ${num(t.cycle.maxC)} °C, heating ${num(t.cycle.heatingTimeS)} s) ×${t.cycle.count}: ` +
+            `N_f ${num(t.cyclesToFailure)}, ${num(t.share * 100)} % of the damage`,
+        );
+    }
+    for (const w of d.warnings) lines.push(`  warning: ${w}`);
+  }
+  for (const n of report.notes) lines.push(`  note: ${n}`);
+  for (const caution of report.cautions) lines.push(`  ${caution}`);
+  return `${lines.join("\n")}\n`;
+}

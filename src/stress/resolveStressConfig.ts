@@ -1,0 +1,234 @@
+import type { Unit } from "mathjs";
+import { InputError, type InputProblem, describeFound, inputError } from "../errors/InputError.js";
+import { type Dimension } from "../units/dimensions.js";
+import { loadMathjs } from "../units/loadMathjs.js";
+import { parseQuantity } from "../units/parseQuantity.js";
+import { type Cips2008Coefficients, CIPS2008_PUBLISHED, cips2008Model } from "./cips2008.js";
+import { coffinMansonModel } from "./coffinManson.js";
+import { LESIT_PUBLISHED, lesitModel } from "./lesit.js";
+import type { CycleQuantity, FittedInterval, FittedRange, LifetimeModel } from "./LifetimeModel.js";
+import { NORRIS_LANDZBERG_SNPB, norrisLandzbergModel } from "./norrisLandzberg.js";
+import { type PulseEnergyPoint, validatePulseEnergyTable } from "./pulseEnergyRating.js";
+import { type SoaTable, validateSoaTable } from "./soaTable.js";
+import { type StressKeysInput, stressKeysSchema } from "./stressKeysSchema.js";
+import { DEFAULT_CYCLE_HYSTERESIS_K } from "./turningPoints.js";
+
+/** What kind of part the stress keys belong to: resistors may only use Coffin-Manson. */
+export type StressPartKind = "resistor" | "mosfet" | "other";
+
+/** The stress keys of a part, parsed to SI and checked. */
+export interface StressConfig {
+  /** single-pulse energy rating, rows in increasing duration; undefined: none given */
+  readonly pulseEnergy: readonly PulseEnergyPoint[] | undefined;
+  /** SOA boundaries (MOSFETs); undefined: none given */
+  readonly soa: SoaTable | undefined;
+  /** the cycling-life model, built and checked; undefined: no cycling model */
+  readonly lifetime: LifetimeModel | undefined;
+  /** turning-point hysteresis [K] */
+  readonly cycleHysteresisK: number;
+}
+
+const FITTED_DIMENSION: Record<CycleQuantity, Dimension> = {
+  range: "temperatureDifference",
+  mean: "temperature",
+  min: "temperature",
+  max: "temperature",
+  heatingTime: "time",
+  frequency: "frequency",
+};
+
+/** Parse a length (bond wire diameter) to metres: a number in m or a string such as "300 um". */
+function parseLength(value: unknown, field: string): number {
+  const expected = 'a length such as "300 um" (or a number in m)';
+  if (typeof value === "number") {
+    if (!Number.isFinite(value)) throw inputError("not-finite", field, expected, describeFound(value));
+    return value;
+  }
+  if (typeof value !== "string" || !/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*[A-Za-zµμ]+\s*$/.test(value))
+    throw inputError("bad-quantity", field, expected, describeFound(value));
+  const math = loadMathjs();
+  let unit: Unit;
+  try {
+    unit = math.unit(value.replace(/[µμ]/g, "u")) as Unit;
+  } catch {
+    throw inputError("unknown-unit", field, expected, describeFound(value));
+  }
+  if (!unit.equalBase(math.unit("m"))) throw inputError("wrong-dimension", field, expected, describeFound(value));
+  return unit.toNumber("m");
+}
+
+function at(prefix: string, path: string): string {
+  return prefix === "" ? path : `${prefix}.${path}`;
+}
+
+function valueAt(raw: unknown, path: readonly PropertyKey[]): unknown {
+  let v: unknown = raw;
+  for (const key of path) {
+    if (v === null || typeof v !== "object") return undefined;
+    v = (v as Record<PropertyKey, unknown>)[key];
+  }
+  return v;
+}
+
+function pathText(path: readonly PropertyKey[]): string {
+  return path.reduce<string>((s, k) => (typeof k === "number" ? `${s}[${k}]` : s === "" ? String(k) : `${s}.${String(k)}`), "");
+}
+
+function fitted(raw: StressKeysInput["lifetime"], field: string): FittedRange | undefined {
+  const ranges = raw?.fittedRange;
+  if (ranges === undefined) return undefined;
+  const out: Partial<Record<CycleQuantity, FittedInterval>> = {};
+  for (const [key, pair] of Object.entries(ranges) as [CycleQuantity, [unknown, unknown] | undefined][]) {
+    if (pair === undefined) continue;
+    const f = `${field}.fittedRange.${key}`;
+    const min = parseQuantity(pair[0], FITTED_DIMENSION[key], `${f}[0]`);
+    const max = parseQuantity(pair[1], FITTED_DIMENSION[key], `${f}[1]`);
+    if (!(max >= min)) throw inputError("out-of-range", `${f}[1]`, `a highest value ≥ the lowest (${min})`, describeFound(pair[1]));
+    out[key] = { min, max, origin: "given in the profile" };
+  }
+  return out;
+}
+
+function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: string): LifetimeModel {
+  switch (raw.model) {
+    case "coffin-manson": {
+      const fit = fitted(raw, field);
+      return coffinMansonModel(
+        {
+          referenceCycles: raw.referenceCycles,
+          referenceRangeK: parseQuantity(raw.referenceRange, "temperatureDifference", `${field}.referenceRange`),
+          exponent: raw.exponent,
+          ...(fit === undefined ? {} : { fitted: fit }),
+        },
+        field,
+      );
+    }
+    case "norris-landzberg": {
+      const fit = fitted(raw, field);
+      return norrisLandzbergModel(
+        {
+          referenceCycles: raw.referenceCycles,
+          referenceRangeK: parseQuantity(raw.referenceRange, "temperatureDifference", `${field}.referenceRange`),
+          referenceFrequencyHz: parseQuantity(raw.referenceFrequency, "frequency", `${field}.referenceFrequency`),
+          referenceMaxC: parseQuantity(raw.referenceMaxTemperature, "temperature", `${field}.referenceMaxTemperature`),
+          exponent: raw.exponent ?? NORRIS_LANDZBERG_SNPB.exponent,
+          frequencyExponent: raw.frequencyExponent ?? NORRIS_LANDZBERG_SNPB.frequencyExponent,
+          activationTemperatureK:
+            raw.activationTemperature === undefined
+              ? NORRIS_LANDZBERG_SNPB.activationTemperatureK
+              : parseQuantity(raw.activationTemperature, "temperatureDifference", `${field}.activationTemperature`),
+          ...(fit === undefined ? {} : { fitted: fit }),
+        },
+        field,
+      );
+    }
+    case "lesit": {
+      const fit = fitted(raw, field);
+      return lesitModel(
+        {
+          coefficient: raw.coefficient ?? LESIT_PUBLISHED.coefficient,
+          rangeExponent: raw.rangeExponent ?? LESIT_PUBLISHED.rangeExponent,
+          activationEnergyJPerMol: raw.activationEnergy ?? LESIT_PUBLISHED.activationEnergyJPerMol,
+          ...(fit === undefined ? {} : { fitted: fit }),
+        },
+        field,
+      );
+    }
+    case "cips2008": {
+      const fit = fitted(raw, field);
+      const coefficients: Cips2008Coefficients = {
+        k: raw.k ?? CIPS2008_PUBLISHED.k,
+        beta1: raw.beta1 ?? CIPS2008_PUBLISHED.beta1,
+        beta2: raw.beta2 ?? CIPS2008_PUBLISHED.beta2,
+        beta3: raw.beta3 ?? CIPS2008_PUBLISHED.beta3,
+        beta4: raw.beta4 ?? CIPS2008_PUBLISHED.beta4,
+        beta5: raw.beta5 ?? CIPS2008_PUBLISHED.beta5,
+        beta6: raw.beta6 ?? CIPS2008_PUBLISHED.beta6,
+      };
+      return cips2008Model(
+        {
+          currentPerWireA: parseQuantity(raw.currentPerWire, "current", `${field}.currentPerWire`),
+          voltageClassV: parseQuantity(raw.voltageClass, "voltage", `${field}.voltageClass`),
+          wireDiameterM: parseLength(raw.wireDiameter, `${field}.wireDiameter`),
+          coefficients,
+          ...(fit === undefined ? {} : { fitted: fit }),
+        },
+        field,
+      );
+    }
+  }
+}
+
+/**
+ * Validate a part's stress keys (see {@link stressKeysSchema}) and resolve them: every quantity
+ * parsed to SI by parseQuantity ("dc" accepted as an SOA duration), tables checked for order and
+ * monotonicity, the lifetime model built with published defaults filled in where the source is
+ * named (LESIT, CIPS 2008 coefficients, Norris-Landzberg exponents). Resistors may only use
+ * Coffin-Manson with the user's parameters: no cycling model is published for them.
+ * Cost O(table sizes).
+ * @param raw the part object (or just its stress keys) as read from the profile
+ * @param options field prefix for messages (such as `parts[1]`) and the part's kind
+ * @throws InputError with the field path, what was expected and what was found, for every
+ *   schema problem (all at once) or the first value problem
+ */
+export function resolveStressConfig(raw: unknown, options: { field?: string; partKind?: StressPartKind } = {}): StressConfig {
+  const prefix = options.field ?? "";
+  const parsed = stressKeysSchema.safeParse(raw);
+  if (!parsed.success) {
+    const problems: InputProblem[] = parsed.error.issues.map((issue) => {
+      const found = valueAt(raw, issue.path);
+      let expected = issue.message;
+      let foundText = describeFound(found);
+      if (issue.code === "unrecognized_keys") {
+        expected = "only the keys this object knows";
+        foundText = issue.keys.map((k) => `"${k}"`).join(", ");
+      } else if (expected.startsWith("Invalid input")) {
+        expected = issue.code === "invalid_type" ? `a value of type ${issue.expected}` : expected.replace(/^Invalid input: /, "");
+      }
+      return { code: "bad-profile", file: "", line: 0, field: at(prefix, pathText(issue.path)), expected, found: foundText };
+    });
+    throw new InputError(problems);
+  }
+  const keys = parsed.data;
+  let pulseEnergy: PulseEnergyPoint[] | undefined;
+  let soa: SoaTable | undefined;
+  const ratingsField = at(prefix, "ratings");
+  if (keys.ratings?.pulseEnergy !== undefined) {
+    const f = `${ratingsField}.pulseEnergy`;
+    pulseEnergy = keys.ratings.pulseEnergy.map((row, i) => ({
+      durationS: parseQuantity(row.duration, "time", `${f}[${i}].duration`),
+      energyJ: parseQuantity(row.energy, "energy", `${f}[${i}].energy`),
+    }));
+    validatePulseEnergyTable(pulseEnergy, f);
+  }
+  if (keys.ratings?.soa !== undefined) {
+    const f = `${ratingsField}.soa`;
+    soa = keys.ratings.soa.map((curve, k) => ({
+      durationS:
+        typeof curve.duration === "string" && curve.duration.trim().toLowerCase() === "dc"
+          ? Number.POSITIVE_INFINITY
+          : parseQuantity(curve.duration, "time", `${f}[${k}].duration`),
+      points: curve.points.map((p, i) => ({
+        vdsV: parseQuantity(p.vds, "voltage", `${f}[${k}].points[${i}].vds`),
+        idA: parseQuantity(p.id, "current", `${f}[${k}].points[${i}].id`),
+      })),
+    }));
+    validateSoaTable(soa, f);
+  }
+  const lifetimeField = at(prefix, "lifetime");
+  if (options.partKind === "resistor" && keys.lifetime !== undefined && keys.lifetime.model !== "coffin-manson")
+    throw inputError(
+      "bad-profile",
+      `${lifetimeField}.model`,
+      '"coffin-manson" with your own parameters, or no lifetime key (no cycling model is published for resistors)',
+      describeFound(keys.lifetime.model),
+    );
+  const lifetime = keys.lifetime === undefined ? undefined : buildLifetime(keys.lifetime, lifetimeField);
+  const cycleHysteresisK =
+    keys.cycleHysteresis === undefined
+      ? DEFAULT_CYCLE_HYSTERESIS_K
+      : parseQuantity(keys.cycleHysteresis, "temperatureDifference", at(prefix, "cycleHysteresis"));
+  if (!(cycleHysteresisK >= 0))
+    throw inputError("out-of-range", at(prefix, "cycleHysteresis"), "a temperature difference ≥ 0 K", describeFound(keys.cycleHysteresis));
+  return { pulseEnergy, soa, lifetime, cycleHysteresisK };
+}

@@ -1,0 +1,103 @@
+import { describe, expect, test } from "vitest";
+import { InputError, checkPulseEnergy, equivalentPulseDurationS, interpolatePulseEnergy, validatePulseEnergyTable } from "../../src/index.js";
+import { expectClose } from "../helpers/expectClose.js";
+
+// An invented rating table (demo data, not any maker's part).
+const table = [
+  { durationS: 1e-3, energyJ: 5 },
+  { durationS: 1e-2, energyJ: 20 },
+  { durationS: 1, energyJ: 400 },
+];
+
+describe("interpolatePulseEnergy", () => {
+  test.each(table)("is exact at the table row %o", (row) => {
+    expect(interpolatePulseEnergy(table, row.durationS)).toEqual({ energyJ: row.energyJ, position: "in-table" });
+  });
+
+  test.each([
+    // [duration, expected energy]: log-log linear between rows, so at the geometric mean of two
+    // durations the energy is the geometric mean of their energies: sqrt(5·20) = 10,
+    // sqrt(20·400) = 89.44...; at 10^(-2 + 2/4) s (a quarter of the way in log t) E = 20·20^(1/4).
+    [Math.sqrt(1e-3 * 1e-2), Math.sqrt(5 * 20)],
+    [Math.sqrt(1e-2 * 1), Math.sqrt(20 * 400)],
+    [10 ** -1.5, 20 * 20 ** 0.25],
+  ])("at %d s is %d J (log-log linear)", (t, e) => {
+    // closed forms in double precision; the interpolation goes through log/exp: 1e-13 relative.
+    expectClose(interpolatePulseEnergy(table, t).energyJ!, e, { rel: 1e-13 });
+  });
+
+  test("log E is linear in log t between rows (three collinear points on log-log axes)", () => {
+    const ts = [0.02, 0.05, 0.2];
+    const le = ts.map((t) => Math.log(interpolatePulseEnergy(table, t).energyJ!));
+    const lt = ts.map(Math.log);
+    const slope1 = (le[1]! - le[0]!) / (lt[1]! - lt[0]!);
+    const slope2 = (le[2]! - le[1]!) / (lt[2]! - lt[1]!);
+    expectClose(slope1, Math.log(20) / Math.log(100), { rel: 1e-12 }); // ln(400/20)/ln(1/0.01)
+    expectClose(slope2, slope1, { rel: 1e-12 });
+  });
+
+  test.each([
+    [1e-4, "below-table"],
+    [10, "above-table"],
+  ] as const)("outside the table (%d s) gives no rating: %s", (t, position) => {
+    expect(interpolatePulseEnergy(table, t)).toEqual({ energyJ: undefined, position });
+  });
+});
+
+describe("equivalentPulseDurationS", () => {
+  test("a rectangular pulse keeps its own duration", () => {
+    expect(equivalentPulseDurationS(300 * 0.02, 300)).toBeCloseTo(0.02, 15);
+  });
+
+  test("a resistor charging a capacitor gives RC/2", () => {
+    // P(t) = V²/R·e^(−2t/RC): peak V²/R, energy C·V²/2 (energy in the resistor for a full charge,
+    // Horowitz & Hill, The Art of Electronics, 3rd ed. (2015), §1.4.1 RC charging, common result).
+    const V = 400;
+    const R = 47;
+    const C = 2e-3;
+    expectClose(equivalentPulseDurationS((C * V * V) / 2, (V * V) / R), (R * C) / 2, { rel: 1e-15 });
+  });
+});
+
+describe("checkPulseEnergy", () => {
+  test("passes within the rating and fails past it, at t_eq = E/P_peak", () => {
+    const ok = checkPulseEnergy(table, 15, 1500); // t_eq = 10 ms: rated 20 J
+    expect(ok.status).toBe("pass");
+    expect(ok.utilisation).toBeCloseTo(0.75, 15);
+    const bad = checkPulseEnergy(table, 25, 2500); // t_eq = 10 ms: 125 %
+    expect(bad.status).toBe("fail");
+    expect(bad.ratedEnergyJ).toBe(20);
+  });
+
+  test("outside the table the status says so", () => {
+    expect(checkPulseEnergy(table, 1, 1e5).status).toBe("outside-table");
+  });
+
+  test("an event with no energy passes", () => {
+    expect(checkPulseEnergy(table, 0, 0).status).toBe("pass");
+  });
+});
+
+describe("validatePulseEnergyTable: bad tables get clear messages", () => {
+  test.each([
+    [[], "ratings.pulseEnergy: expected at least one row { duration, energy }, found an empty table"],
+    [
+      [
+        { durationS: 1e-2, energyJ: 5 },
+        { durationS: 1e-3, energyJ: 20 },
+      ],
+      "ratings.pulseEnergy[1].duration: expected durations in increasing order (greater than 0.01 s of row 0), found 0.001 s",
+    ],
+    [
+      [
+        { durationS: 1e-3, energyJ: 20 },
+        { durationS: 1e-2, energyJ: 5 },
+      ],
+      "ratings.pulseEnergy[1].energy: expected energies that do not fall as the duration grows (at least 20 J of row 0), found 5 J",
+    ],
+    [[{ durationS: 1e-3, energyJ: -1 }], "ratings.pulseEnergy[0].energy: expected an energy > 0 J, found -1"],
+  ])("%j", (rows, message) => {
+    expect(() => validatePulseEnergyTable(rows)).toThrow(InputError);
+    expect(() => validatePulseEnergyTable(rows)).toThrow(message);
+  });
+});

@@ -1,0 +1,191 @@
+import fc from "fast-check";
+import { describe, expect, test } from "vitest";
+import { type RainflowCycle, RainflowCounter, TurningPointFilter, rainflow } from "../../src/index.js";
+import { expectClose } from "../helpers/expectClose.js";
+
+/** Counts per range, summed: { range: count }. */
+function histogram(cycles: readonly RainflowCycle[]): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const c of cycles) out[String(c.rangeK)] = (out[String(c.rangeK)] ?? 0) + c.count;
+  return out;
+}
+
+const points = (values: readonly number[]) => values.map((value, i) => ({ timeS: i, value }));
+
+/** Sorted "range@mean×count" keys, to compare cycle multisets. */
+function keys(cycles: readonly RainflowCycle[]): string[] {
+  return cycles.map((c) => `${c.rangeK.toFixed(9)}@${c.meanC.toFixed(9)}x${c.count}`).sort();
+}
+
+/** Drop repeated values and points that do not reverse the direction (turning points only). */
+function turning(values: readonly number[]): number[] {
+  const out: number[] = [];
+  for (const v of values) {
+    if (out.length > 0 && out[out.length - 1] === v) continue;
+    if (out.length >= 2 && (out[out.length - 1]! - out[out.length - 2]!) * (v - out[out.length - 1]!) > 0) out.pop();
+    out.push(v);
+  }
+  return out;
+}
+
+/**
+ * Literal ASTM E1049-85 (2017) §5.4.5 on a whole history, written independently of the
+ * streaming class: rotate the turning points to start at the largest peak, close on it, then
+ * repeat "read the next point; while X ≥ Y count Y as one cycle and drop its two points".
+ * Returns [range, mean] pairs.
+ */
+function literalRepeating(values: readonly number[]): [number, number][] {
+  const tp = turning(values);
+  if (tp.length < 2) return [];
+  const top = tp.indexOf(Math.max(...tp));
+  const seq = turning([...tp.slice(top), ...tp.slice(0, top + 1)]);
+  const stack: number[] = [];
+  const out: [number, number][] = [];
+  for (const v of seq) {
+    stack.push(v);
+    while (stack.length >= 3) {
+      const n = stack.length;
+      const x = Math.abs(stack[n - 1]! - stack[n - 2]!);
+      const y = Math.abs(stack[n - 2]! - stack[n - 3]!);
+      if (x < y) break;
+      out.push([y, (stack[n - 2]! + stack[n - 3]!) / 2]);
+      stack.splice(n - 3, 2);
+    }
+  }
+  return out;
+}
+
+describe("rainflow: ASTM E1049-85 (reapproved 2017) example history", () => {
+  // The standard's example load history, peaks and valleys A..I = -2, 1, -3, 5, -1, 3, -4, 4, -2
+  // (ASTM E1049-85 (2017), Fig. 6(a) for §5.4.4 and its repeating form in §5.4.5); the counts
+  // below are the standard's tabulated results as recalled (from memory) and were re-derived by
+  // stepping §5.4.4 by hand: A-B half (3), B-C half (4), E-F full (4), C-D half (8), D-G half (9),
+  // G-H half (8), H-I half (6). Exact: integer ranges, so toEqual.
+  const history = [-2, 1, -3, 5, -1, 3, -4, 4, -2];
+
+  test("rainflow(open) gives the §5.4.4 ranges and counts, half cycles included", () => {
+    expect(histogram(rainflow(points(history), { mode: "open" }))).toEqual({ "3": 0.5, "4": 1.5, "6": 0.5, "8": 1, "9": 0.5 });
+  });
+
+  test("rainflow(repeating) closes the history at its largest peak: §5.4.5 counts, full cycles only", () => {
+    // §5.4.5 by hand: start at D = 5: 5,-1,3,-4,4,-2,1,-3,5 -> E-F 4, I/A-B 3, H-C 7, D-G 9, one each.
+    expect(histogram(rainflow(points(history), { mode: "repeating" }))).toEqual({ "3": 1, "4": 1, "7": 1, "9": 1 });
+  });
+
+  test("each cycle carries its min, max, mean and start", () => {
+    const cycles = rainflow(points(history), { mode: "open" });
+    const full = cycles.find((c) => c.count === 1)!;
+    // E-F: E = -1 at t = 4, F = 3 at t = 5, closed by G = -4.
+    expect([full.minC, full.maxC, full.meanC, full.rangeK, full.startS]).toEqual([-1, 3, 1, 4, 4]);
+    // it rises first, so it heats from E to F: 1 s; it regains E's level 4/7 of the way down F-G.
+    expect(full.heatingTimeS).toBe(1);
+    expectClose(full.durationS, 1 + 4 / 7, { rel: 1e-15 }); // one rounding of a division
+  });
+});
+
+describe("rainflow invariants (fast-check)", () => {
+  const history = fc.array(fc.integer({ min: -50, max: 50 }), { minLength: 2, maxLength: 60 });
+
+  test("adding a constant shifts the means and nothing else", () => {
+    fc.assert(
+      fc.property(history, fc.integer({ min: -100, max: 100 }), fc.constantFrom("open" as const, "repeating" as const), (h, shift, mode) => {
+        const a = rainflow(points(h), { mode });
+        const b = rainflow(points(h.map((v) => v + shift)), { mode });
+        expect(b.map((c) => [c.rangeK, c.count, c.heatingTimeS])).toEqual(a.map((c) => [c.rangeK, c.count, c.heatingTimeS]));
+        b.forEach((c, i) => expect(c.meanC).toBe(a[i]!.meanC + shift)); // integers: exact
+      }),
+    );
+  });
+
+  test("scaling by a positive factor scales the ranges", () => {
+    fc.assert(
+      fc.property(history, fc.integer({ min: 1, max: 9 }), (h, k) => {
+        const a = rainflow(points(h));
+        const b = rainflow(points(h.map((v) => v * k)));
+        expect(b.map((c) => [c.rangeK, c.count])).toEqual(a.map((c) => [c.rangeK * k, c.count]));
+      }),
+    );
+  });
+
+  test("open mode: every range of the turning points is used once, 2·full + half = turning points − 1", () => {
+    // §5.4.4: a full cycle removes two ranges, a half cycle one, the residue's ranges are halves.
+    fc.assert(
+      fc.property(history, (h) => {
+        const cycles = rainflow(points(h), { mode: "open" });
+        const full = cycles.filter((c) => c.count === 1).length;
+        const half = cycles.filter((c) => c.count === 0.5).length;
+        expect(2 * full + half).toBe(Math.max(0, turning(h).length - 1));
+      }),
+    );
+  });
+
+  test("repeating mode equals the literal rotated §5.4.5 count, with no half cycles", () => {
+    fc.assert(
+      fc.property(history, (h) => {
+        const cycles = rainflow(points(h), { mode: "repeating" });
+        expect(cycles.every((c) => c.count === 1)).toBe(true);
+        const literal = literalRepeating(h).map(([r, m]) => `${r.toFixed(9)}@${m.toFixed(9)}x1`).sort();
+        expect(keys(cycles)).toEqual(literal);
+      }),
+    );
+  });
+
+  test("repeating mode: any rotation of the history gives the same cycles", () => {
+    fc.assert(
+      fc.property(history, fc.nat(), (h, r) => {
+        const k = r % h.length;
+        const rotated = [...h.slice(k), ...h.slice(0, k)];
+        expect(keys(rainflow(points(rotated), { mode: "repeating" }))).toEqual(keys(rainflow(points(h), { mode: "repeating" })));
+      }),
+    );
+  });
+
+  test("repeating mode: a history run twice back to back has every cycle twice", () => {
+    fc.assert(
+      fc.property(history, (h) => {
+        const once = keys(rainflow(points(h), { mode: "repeating" }));
+        const twice = keys(rainflow(points([...h, ...h]), { mode: "repeating" }));
+        expect(twice).toEqual([...once, ...once].sort());
+      }),
+    );
+  });
+
+  test("the stack stays small on a long random history (memory bounded by the residue)", () => {
+    let seed = 12345;
+    const next = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) * 100;
+    const counter = new RainflowCounter(() => {}, { mode: "repeating" });
+    for (let i = 0; i < 200_000; i++) counter.push(i, next());
+    counter.finish();
+    // values bounded in [0, 100): the residue of a bounded random walk of peaks is tens of points.
+    expect(counter.peakStackSize).toBeLessThan(200);
+  });
+});
+
+describe("TurningPointFilter", () => {
+  const run = (values: readonly number[], h: number) => {
+    const out: [number, number][] = [];
+    const f = new TurningPointFilter((p) => out.push([p.timeS, p.value]), h);
+    values.forEach((v, i) => f.push(i, v));
+    f.finish();
+    return out;
+  };
+
+  test.each([
+    // [history, hysteresis, turning points (time, value)]
+    [[0, 5, 4.5, 10, 2], 1, [[0, 0], [3, 10], [4, 2]]], // the 0.5 K dip is inside the band
+    [[0, 5, 4.5, 10, 2], 0, [[0, 0], [1, 5], [2, 4.5], [3, 10], [4, 2]]],
+    [[20, 30, 30, 30, 25], 1, [[0, 20], [1, 30], [4, 25]]], // plateau: earliest time of the peak
+    [[20, 20.5, 20.2], 1, [[0, 20]]], // never leaves the band: only the start
+    [[3, 2, 1, 0, 4], 0.5, [[0, 3], [3, 0], [4, 4]]],
+  ] as const)("filter(%j, %d K) gives %j", (values, h, expected) => {
+    expect(run(values, h)).toEqual(expected);
+  });
+
+  test("bad input names the field", () => {
+    expect(() => new TurningPointFilter(() => {}, -1)).toThrow("cycleHysteresis: expected a temperature difference ≥ 0 K, found -1");
+    const f = new TurningPointFilter(() => {});
+    f.push(1, 20);
+    expect(() => f.push(0.5, 21)).toThrow("history: expected points in time order, found 0.5 s after 1 s");
+    expect(() => f.push(2, Number.NaN)).toThrow("history: expected finite times and temperatures, found (2, NaN)");
+  });
+});
