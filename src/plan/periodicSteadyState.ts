@@ -1,3 +1,4 @@
+import { sourceIndex } from "../thermal/ModalModel.js";
 import { createModalState, modalRise } from "../thermal/modalStep.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
 import { runThermalHistory } from "../thermal/runThermalHistory.js";
@@ -42,6 +43,7 @@ export interface PeriodicSteadyState {
 export function periodicSteadyState(corner: ResolvedScenario, outcome: AttemptOutcome, waitS: number): PeriodicSteadyState {
   const model = corner.model;
   const traces: (PowerTrace | undefined)[] = model.sources.map((_, i) => (i === corner.sourceIndex ? outcome.trace : undefined));
+  for (const [name, trace] of Object.entries(outcome.otherTraces ?? {})) traces[sourceIndex(model, name)] = trace;
   const single = runThermalHistory(model, traceSteps(traces, 0, outcome.durationS), { initialState: createModalState(model), findPeaks: false });
   const periodS = outcome.durationS + waitS;
   const modes = model.tauS.length;
