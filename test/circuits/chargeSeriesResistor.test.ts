@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, powerAt, segmentEnergy } from "../../src/index.js";
+import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, powerAt, segmentEnergy, validatePowerTrace } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 const sumParts = (r: CircuitResult): number => Object.values(r.energy.partsJ).reduce((a, b) => a + b, 0);
@@ -216,6 +216,10 @@ describe("chargeSeriesResistor: energy balance", () => {
           const scale = Math.abs(e.sourceJ) + Math.abs(e.storedJ) + Math.abs(e.loadJ) + sumParts(r);
           expectClose(e.sourceJ, e.storedJ + sumParts(r) + e.loadJ, { abs: (load.kind === "constant-power" ? 1e-7 : 1e-9) * scale });
           expect(Number.isFinite(r.endVoltageV)).toBe(true);
+          // the trace is a valid engine input: ordered, not overlapping, finite terms
+          validatePowerTrace(r.traces.resistor!, "resistor");
+          const last = r.traces.resistor!.at(-1);
+          if (last !== undefined) expect(last.startS + last.durationS).toBeLessThanOrEqual(r.durationS * (1 + 1e-12));
         },
       ),
       { numRuns: 150 },
