@@ -56,7 +56,8 @@ function quadraticScale(q: Quadratic, vMax: number): number {
  * Source: E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I,
  * 2nd ed. (1993), §II.9 (ODEX) and §II.6 (dense output); monotonicity of scalar autonomous ODEs:
  * Hirsch, Smale & Devaney, Differential Equations, Dynamical Systems, and an Introduction to
- * Chaos, 3rd ed. (2013), §1.3 (first-order autonomous equations: phase line).
+ * Chaos, 3rd ed. (2013), ch. 1 (first-order autonomous equations: phase line) (section numbers
+ * from memory).
  * Validity: V stays > 0 (constant-power terms are only present above a disable voltage > 0).
  * Cost: O(ODE steps × parts × subdivisions).
  * @param wantSamples also return (t, V, I) at every segment boundary

@@ -84,7 +84,7 @@ function quadraticTerms(q: Quadratic, base: number, d: number, rate: number, k: 
  * V(s) = Vf + (V0 − Vf)·e^(−s/τ) with Vf = g0/g1, τ = C/g1 (g1 > 0), or V(s) = V0 + (g0/C)·s
  * (g1 = 0); the time to a level L is τ·ln((V0 − Vf)/(L − Vf)) or (L − V0)·C/g0.
  * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 (the
- * source-free RC circuit) and §8.7 (driven RC circuits).
+ * source-free RC circuit) and §8.7 (driven RC circuits) (section numbers from memory).
  */
 function linearStretch(r: BusRegime, c: number, v0: number, maxS: number, levels: readonly BusLevel[], wantSamples: boolean): RegimeStretch {
   const exp = r.g1 > 0;
@@ -141,7 +141,8 @@ type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | 
  * Follow the bus on its phase line, without time, from regime r at V: it moves in the direction
  * of i(V) to the nearest level unless an equilibrium (a root of −g1·V² + g0·V + h = 0) comes
  * first; a repeated (regime, level) means a limit cycle.
- * Source: Hirsch, Smale & Devaney (2013), §1.3 (phase line of a first-order autonomous equation).
+ * Source: Hirsch, Smale & Devaney (2013), ch. 1 (phase line of a first-order autonomous equation,
+ * from memory).
  */
 function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
   let r = r0;
@@ -207,7 +208,7 @@ function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusL
  * dumps C·V0²/2 into the load at t = 0.
  * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 and §8.7
  * (first-order RC responses); the energy identity is Tellegen's theorem, Desoer & Kuh, Basic
- * Circuit Theory (1969), §9.5.
+ * Circuit Theory (1969), §9.5 (section numbers from memory).
  * Cost: O(regime changes × parts) for linear regimes, plus the ODE work for nonlinear ones
  * (a repeated nonlinear stretch, as in load cycling, is integrated once and reused).
  * @throws InputError for bad conditions (see {@link resolveCompletion}) or too many regime changes
