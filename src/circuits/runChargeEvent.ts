@@ -1,4 +1,4 @@
-import { inputError } from "../errors/InputError.js";
+import { describeFound, inputError } from "../errors/InputError.js";
 import { type PowerSegment, type PowerTerm, segmentEnergy } from "../thermal/powerTrace.js";
 import { type BusLoad, busLoadStartsOn, busLoadTerms, busLoadThresholds } from "./BusLoad.js";
 import { type BusLevel, type BusRegime, type ChargeModel, type Quadratic, evalQuadratic } from "./BusRegime.js";
@@ -9,8 +9,14 @@ import { type ResolvedCompletion, reasonNumber, resolveCompletion } from "./reso
 /** Samples per exact (analytic) stretch when samples are requested. */
 export const SAMPLES_PER_STRETCH = 16;
 
-/** At most this many regime changes (load switching, mode changes) in one event. */
-export const MAX_REGIME_CHANGES = 1_000_000;
+/**
+ * Limits that keep one event's memory bounded (a load cycling on and off for a long timeout adds
+ * segments every cycle): at most this many regime changes (load switching, mode changes) and this
+ * many power-trace segments in all roles together. Past either, the event is refused with an
+ * InputError on `completion.timeoutS` that states the cycle period. About 200,000 segments take
+ * some 30 MB.
+ */
+export const EVENT_LIMITS = { regimeChanges: 100_000, traceSegments: 200_000 } as const;
 
 /**
  * Build the regime for a feed mode and a load state: capacitor current
@@ -252,6 +258,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     reason = `bus already at ${reasonNumber(v)} V, at or above ${rule.thresholdWords}`;
   }
   let changes = 0;
+  let segmentCount = 0;
   while (outcome === undefined) {
     const remaining = limitS - t;
     const levels = levelsOf(regime);
@@ -267,7 +274,9 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
       }
     }
     for (const [key, segs] of Object.entries(stretch.segments)) {
-      if (traces[key] !== undefined) for (const s of segs) traces[key]!.push({ ...s, startS: s.startS + t });
+      if (traces[key] === undefined) continue;
+      for (const s of segs) traces[key]!.push({ ...s, startS: s.startS + t });
+      segmentCount += segs.length;
     }
     for (const [key, e] of Object.entries(stretch.partsJ)) partsJ[key] = (partsJ[key] ?? 0) + e;
     sourceJ += stretch.sourceJ;
@@ -305,8 +314,14 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
       reason = `bus reached ${rule.thresholdWords} at ${reasonNumber(t)} s`;
       break;
     }
-    if (++changes > MAX_REGIME_CHANGES)
-      throw inputError("out-of-range", "completion.timeoutS", `a timeout that allows at most ${MAX_REGIME_CHANGES} load or mode changes`, String(rule.timeoutS));
+    if (++changes > EVENT_LIMITS.regimeChanges || segmentCount > EVENT_LIMITS.traceSegments)
+      throw inputError(
+        "out-of-range",
+        "completion.timeoutS",
+        `a timeout short enough for at most ${EVENT_LIMITS.regimeChanges} load or mode changes and ${EVENT_LIMITS.traceSegments} power segments ` +
+          `(the bus switched ${changes} times in the first ${reasonNumber(t)} s)`,
+        describeFound(rule.timeoutS),
+      );
     regime = nextRegime(model, load, regime, level);
     v = level.voltageV;
     if (v === 0 && regime.h === 0 && regime.g0 < 0 && !regime.clamped) regime = buildRegime(model, load, regime.mode, regime.loadOn, true);
