@@ -79,10 +79,10 @@ export { NO_BUS_LOAD, validateBusLoad, busLoadThresholds, busLoadStartsOn, busLo
 export type { BusLoad, BusLoadTerms } from "./circuits/BusLoad.js";
 export { ZERO_QUADRATIC, evalQuadratic } from "./circuits/BusRegime.js";
 export type { Quadratic, BusLevel, FeedTerms, BusRegime, ChargeModel } from "./circuits/BusRegime.js";
-export { resolveCompletion } from "./circuits/resolveCompletion.js";
+export { resolveCompletion, COMMON_COMPLETION_FRACTIONS } from "./circuits/resolveCompletion.js";
 export type { ResolvedCompletion } from "./circuits/resolveCompletion.js";
-export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, MAX_REGIME_CHANGES } from "./circuits/runChargeEvent.js";
-export { integrateBusOde, NONLINEAR_ACCURACY } from "./circuits/integrateBusOde.js";
+export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, EVENT_LIMITS } from "./circuits/runChargeEvent.js";
+export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP } from "./circuits/integrateBusOde.js";
 export type { RegimeStretch } from "./circuits/integrateBusOde.js";
 export { chargeSeriesResistor } from "./circuits/chargeSeriesResistor.js";
 export type { SeriesResistorParams } from "./circuits/chargeSeriesResistor.js";
