@@ -90,11 +90,11 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
  * is an exponential sum S(s) = C + Σ_m k_m·e^(−s/tau_m) with C = Σ_src b·Σ_m gain and
  * k_m = Σ_src gain·(u_m(0) − b·tau_m)/tau_m. By the rule of signs for exponential sums, S has no
  * more zeros than its coefficients, ordered by rate (C first, then slower to faster modes), have
- * sign changes. Returns true when there is at most one change: then at most one turn, bracketed
- * by the step ends. Source: generalised Descartes rule of signs for exponential sums (Laguerre),
+ * sign changes. Returns C and k when there is at most one change (then at most one turn,
+ * bracketed by the step ends), else undefined. Source: generalised Descartes rule of signs for exponential sums (Laguerre),
  * as in Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
  */
-function atMostOneTurn(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): boolean {
+function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { constant: number; k: Float64Array } | undefined {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
   let constant = 0;
@@ -105,7 +105,7 @@ function atMostOneTurn(model: ModalModel, state: ModalState, powers: SourcePower
     let b = 0;
     if (terms !== undefined) {
       for (const t of terms) {
-        if (t.lambda !== 0) return false;
+        if (t.lambda !== 0) return undefined;
         a += t.a;
         b += t.b;
       }
@@ -126,21 +126,22 @@ function atMostOneTurn(model: ModalModel, state: ModalState, powers: SourcePower
     if (last !== 0 && sign !== last) changes++;
     last = sign;
   }
-  return changes <= 1;
+  return changes <= 1 ? { constant, k } : undefined;
 }
 
 /**
  * Interior maxima of the rise of node o inside a step of length h starting from `state`.
  *
  * Steps whose rise is provably monotone skip the search. Steps with linear power and at most one
- * turn (see atMostOneTurn) are bracketed by their ends. Otherwise the slope d(rise)/ds is evaluated
+ * turn (see linearSlopeSum) are bracketed by their ends and solved by safeguarded Newton on the
+ * closed-form slope. Otherwise the slope d(rise)/ds is evaluated
  * on a grid of {@link PEAK_GRID_POINTS} points (linear plus log-spaced near the start, where fast
  * modes turn) and each change of sign from + to − brackets a maximum. Each bracket is refined by
  * the Illinois variant of regula falsi on the sign of the slope until it is below 1e-12·h (far
  * finer than the 0.01 K the reports need). Endpoints are not returned: the caller sees them as
  * step ends.
  * Source: bracketing a maximum with derivative information, Press et al., Numerical Recipes, 3rd
- * ed. (2007), §9.1–9.2 and §10.3; the Illinois method, Dowell & Jarratt, BIT 11 (1971) 168–174.
+ * ed. (2007), §9.1–9.2, §9.4 (Newton with bracketing) and §10.3; the Illinois method, Dowell & Jarratt, BIT 11 (1971) 168–174.
  * Cost O(grid × sources × modes × terms), or O(sources × modes) when provably monotone.
  * @returns the interior peaks in time order (usually none or one)
  */
@@ -173,12 +174,44 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
     // A turn in the very last bracket at the step end belongs to the caller (it sees step ends).
     if (at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
   };
-  const first = slopeAt(0);
-  if (atMostOneTurn(model, state, powers, o)) {
-    const last = slopeAt(h);
-    if (first > 0 && last <= 0) refine(0, h, first, last);
+  const single = linearSlopeSum(model, state, powers, o);
+  if (single !== undefined) {
+    // Closed-form slope S(s) = C + Σ k_m·e^(−s/tau_m) and its derivative: safeguarded Newton.
+    const { constant, k } = single;
+    const taus = model.tauS;
+    const slope = (x: number): [number, number] => {
+      let f = constant;
+      let df = 0;
+      for (let m = 0; m < k.length; m++) {
+        const term = k[m]! * Math.exp(-x / taus[m]!);
+        f += term;
+        df -= term / taus[m]!;
+      }
+      return [f, df];
+    };
+    const [f0] = slope(0);
+    const [fh] = slope(h);
+    if (!(f0 > 0 && fh <= 0)) return peaks;
+    let lo = 0;
+    let hi = h;
+    let x = 0.5 * h;
+    for (let i = 0; i < 100; i++) {
+      const [f, df] = slope(x);
+      if (f > 0) lo = x;
+      else hi = x;
+      if (f === 0 || hi - lo <= 1e-12 * h) break;
+      let next = x - f / df;
+      if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+      if (Math.abs(next - x) <= 1e-12 * h) {
+        x = next;
+        break;
+      }
+      x = next;
+    }
+    if (x < h * (1 - 1e-9)) peaks.push({ atS: x, riseK: modalRise(model, advanceModalState(model, state, x, powers, scratch), o) });
     return peaks;
   }
+  const first = slopeAt(0);
   let previousS = 0;
   let previousSlope = first;
   for (const s of peakGrid(model, h)) {
