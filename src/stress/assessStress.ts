@@ -149,9 +149,9 @@ export class StressAssessment {
       },
       { mode: options.mode ?? "repeating" },
     );
-    this.filter = new TurningPointFilter((p) => {
+    this.filter = new TurningPointFilter((timeS, value) => {
       this.turningPoints++;
-      this.counter.push(p.timeS, p.value);
+      this.counter.push(timeS, value);
     }, config.cycleHysteresisK);
   }
 

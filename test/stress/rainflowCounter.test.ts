@@ -164,7 +164,7 @@ describe("rainflow invariants (fast-check)", () => {
 describe("TurningPointFilter", () => {
   const run = (values: readonly number[], h: number) => {
     const out: [number, number][] = [];
-    const f = new TurningPointFilter((p) => out.push([p.timeS, p.value]), h);
+    const f = new TurningPointFilter((t, v) => out.push([t, v]), h);
     values.forEach((v, i) => f.push(i, v));
     f.finish();
     return out;
