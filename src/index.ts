@@ -105,8 +105,8 @@ export type { RainflowCycle, RainflowMode, RainflowOptions } from "./stress/rain
 export { equivalentPulseDurationS } from "./stress/equivalentPulseDuration.js";
 export { validatePulseEnergyTable, interpolatePulseEnergy, checkPulseEnergy } from "./stress/pulseEnergyRating.js";
 export type { PulseEnergyPoint, PulseEnergyLookup, PulseEnergyCheck, RatingStatus, TablePosition } from "./stress/pulseEnergyRating.js";
-export { allowedDrainCurrentA, validateSoaTable, checkSoa } from "./stress/soaTable.js";
-export type { SoaPoint, SoaCurve, SoaTable, OperatingPoint, SoaCheck, SoaWorstPoint } from "./stress/soaTable.js";
+export { allowedDrainCurrentA, validateSoaTable, checkSoa, soaDeratingFactor } from "./stress/soaTable.js";
+export type { SoaPoint, SoaCurve, SoaTable, OperatingPoint, SoaCheck, SoaWorstPoint, SoaDerating } from "./stress/soaTable.js";
 export { CELSIUS_TO_KELVIN, CYCLE_QUANTITY_UNITS, CYCLE_QUANTITY_WORDS, cycleQuantity, mergeFittedRange } from "./stress/LifetimeModel.js";
 export type { CycleLoad, CycleQuantity, FittedInterval, FittedRange, LifetimeModel } from "./stress/LifetimeModel.js";
 export { coffinMansonCycles, coffinMansonAccelerationFactor, coffinMansonModel } from "./stress/coffinManson.js";

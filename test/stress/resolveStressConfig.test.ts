@@ -42,6 +42,14 @@ describe("resolveStressConfig", () => {
     expect(resolveStressConfig({})).toEqual({ pulseEnergy: undefined, soa: undefined, lifetime: undefined, cycleHysteresisK: DEFAULT_CYCLE_HYSTERESIS_K });
   });
 
+  test("SOA derating temperatures are read in °C and must leave headroom", () => {
+    const soa = [{ duration: "dc", points: [{ vds: 10, id: 10 }] }];
+    expect(resolveStressConfig({ ratings: { soa, soaDerating: { reference: "25 degC", maxJunction: "448.15 K" } } }).soaDerating!.maxJunctionC).toBeCloseTo(175, 12);
+    expect(message({ ratings: { soa, soaDerating: { reference: "25 degC", maxJunction: "20 degC" } } })).toBe(
+      'parts[0].ratings.soaDerating.maxJunction: expected a temperature above the reference 25 °C, found "20 degC"',
+    );
+  });
+
   test("CIPS 2008 reads a wire diameter with a unit", () => {
     const c = resolveStressConfig({ lifetime: { model: "cips2008", currentPerWire: "10 A", voltageClass: "600 V", wireDiameter: "300 um" } });
     expect(c.lifetime!.parameterWarnings.some((w) => w.includes("from memory"))).toBe(true);
