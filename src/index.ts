@@ -103,6 +103,8 @@ export type { TurningPoint } from "./stress/turningPoints.js";
 export { RainflowCounter, rainflow } from "./stress/rainflowCounter.js";
 export type { RainflowCycle, RainflowMode, RainflowOptions } from "./stress/rainflowCounter.js";
 export { equivalentPulseDurationS } from "./stress/equivalentPulseDuration.js";
+export { pulseFromTrace, PEAK_POWER_GRID_POINTS } from "./stress/pulseFromTrace.js";
+export type { PulseSummary } from "./stress/pulseFromTrace.js";
 export { validatePulseEnergyTable, interpolatePulseEnergy, checkPulseEnergy } from "./stress/pulseEnergyRating.js";
 export type { PulseEnergyPoint, PulseEnergyLookup, PulseEnergyCheck, RatingStatus, TablePosition } from "./stress/pulseEnergyRating.js";
 export { allowedDrainCurrentA, validateSoaTable, checkSoa, soaDeratingFactor } from "./stress/soaTable.js";
