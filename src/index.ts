@@ -142,6 +142,7 @@ export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.j
 export type { PowerTracePoints } from "./profile/powerTracePoints.js";
 export type { CircuitModels } from "./profile/CircuitModels.js";
 export { defaultCircuitModels } from "./profile/defaultCircuitModels.js";
+export { memoizeCircuitModels, CIRCUIT_MEMO_SIZE } from "./profile/memoizeCircuitModels.js";
 export { expandTimeline } from "./profile/expandTimeline.js";
 export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOptions } from "./profile/expandTimeline.js";
 export { simulateProfile, combinedModel } from "./profile/simulateProfile.js";
