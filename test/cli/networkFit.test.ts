@@ -122,6 +122,20 @@ describe("heatledger network from-rating", () => {
     for (const t of logSpacedTimes(1e-3, 500, 50)) expectClose(zth(fitted, t), zth(model, t), { rel: 1e-7 });
   });
 
+  test("network from-rating on the bundled example table gives back the bundled wirewound network it was made from", async () => {
+    // profiles/networks/example-pulse-rating.csv was generated from
+    // profiles/networks/wirewound-resistor-foster.yaml (E_max = 325 K·t_p/Zth(t_p)) and rounded to
+    // 3 significant digits: a read-off error up to 0.5 % per row, which bounds the Zth gap
+    // (measured 0.15 %).
+    const r = await run(["network", "from-rating", "rating.csv", "--start-temperature", "25 degC", "--max-temperature", "350 degC", "--json"], {
+      "rating.csv": readFileSync(`${root}profiles/networks/example-pulse-rating.csv`, "utf8"),
+    });
+    expect(r.status).toBe(0);
+    const fitted = networkToModal(parseNetwork((JSON.parse(r.out) as { network: unknown }).network));
+    const bundled = networkToModal(parseNetwork(parseStructuredText(readFileSync(`${root}profiles/networks/wirewound-resistor-foster.yaml`, "utf8"), "w.yaml").data));
+    for (const t of logSpacedTimes(1e-3, 1000, 60)) expectClose(zth(fitted, t), zth(bundled, t), { rel: 0.005 });
+  });
+
   test("network from-rating text report states the conversion and its assumptions", async () => {
     const r = await run(["network", "from-rating", "rating.csv", "--start-temperature", "25 degC", "--max-temperature", "350 degC"], { "rating.csv": table });
     expect(r.status).toBe(0);
