@@ -15,7 +15,7 @@ export interface MaterialPreset {
   /** the handbook table the values belong to */
   readonly source: string;
   /**
-   * "from memory": transcribed from recollection of the named table, not checked against a printed
+   * "from memory": written down from recollection of the named table, not checked against a printed
    * copy while writing; verify before relying on the last digit.
    */
   readonly provenance: "from memory";
