@@ -158,7 +158,7 @@ export { formatFosterFit } from "./report/formatFosterFit.js";
 export { PLAN_DEFAULTS } from "./plan/planDefaults.js";
 export { resolveScenario, resolveCorners } from "./plan/RetryScenario.js";
 export type { AttemptContext, AttemptOutcome, AttemptModel, DischargeModel, RetryScenario, ResolvedScenario } from "./plan/RetryScenario.js";
-export { uniformBurst } from "./plan/RetrySchedule.js";
+export { uniformBurst, backoffBurst } from "./plan/RetrySchedule.js";
 export type { RetrySpacing, BurstPlan } from "./plan/RetrySchedule.js";
 export { AttemptCursor } from "./plan/AttemptCursor.js";
 export type { AttemptRecord, AttemptTrial } from "./plan/AttemptCursor.js";
@@ -191,3 +191,6 @@ export type { LockoutAnswer, LockoutOptions } from "./plan/lockoutAfterBurst.js"
 export { lockoutMap } from "./plan/lockoutMap.js";
 export type { LockoutMap, LockoutMapCell } from "./plan/lockoutMap.js";
 export { lockoutMapCsv, lockoutMapHeatmap, LOCKOUT_MAP_SYMBOLS } from "./plan/formatLockoutMap.js";
+export { burstAsAttempt } from "./plan/burstAsAttempt.js";
+export { retryPolicyVerdict } from "./plan/retryPolicyVerdict.js";
+export type { RetryPolicyVerdict } from "./plan/retryPolicyVerdict.js";
