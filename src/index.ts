@@ -194,3 +194,9 @@ export { lockoutMapCsv, lockoutMapHeatmap, LOCKOUT_MAP_SYMBOLS } from "./plan/fo
 export { burstAsAttempt } from "./plan/burstAsAttempt.js";
 export { retryPolicyVerdict } from "./plan/retryPolicyVerdict.js";
 export type { RetryPolicyVerdict } from "./plan/retryPolicyVerdict.js";
+export { profileRetrySetup, RETRY_PLAN_DEFAULTS } from "./plan/profileRetrySetup.js";
+export type { ProfileRetrySetup, RetryBlock } from "./plan/profileRetrySetup.js";
+export { planRetries } from "./plan/planRetries.js";
+export type { RetryPlanReport } from "./plan/planRetries.js";
+export { formatRetryPlanText, formatPlanDuration } from "./plan/formatRetryPlanText.js";
+export { retryPlanJson } from "./plan/retryPlanJson.js";

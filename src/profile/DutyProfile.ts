@@ -1,6 +1,7 @@
 import type { CompletionRule } from "../circuits/CircuitResult.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
+import type { RetryPlanInput } from "./profileSchema.js";
 
 /**
  * Load on the bus while the capacitor charges, as the circuit models take it (SI units):
@@ -113,4 +114,6 @@ export interface DutyProfile {
   readonly parts: readonly ProfilePart[];
   readonly circuit?: ProfileCircuit;
   readonly events: readonly ProfileEvent[];
+  /** the retry plan section (questions and corners for `heatledger retries`), when given */
+  readonly retryPlan?: RetryPlanInput;
 }
