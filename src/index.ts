@@ -107,7 +107,7 @@ export { validatePulseEnergyTable, interpolatePulseEnergy, checkPulseEnergy } fr
 export type { PulseEnergyPoint, PulseEnergyLookup, PulseEnergyCheck, RatingStatus, TablePosition } from "./stress/pulseEnergyRating.js";
 export { allowedDrainCurrentA, validateSoaTable, checkSoa } from "./stress/soaTable.js";
 export type { SoaPoint, SoaCurve, SoaTable, OperatingPoint, SoaCheck, SoaWorstPoint } from "./stress/soaTable.js";
-export { CELSIUS_TO_KELVIN, CYCLE_QUANTITY_UNITS, cycleQuantity, mergeFittedRange } from "./stress/LifetimeModel.js";
+export { CELSIUS_TO_KELVIN, CYCLE_QUANTITY_UNITS, CYCLE_QUANTITY_WORDS, cycleQuantity, mergeFittedRange } from "./stress/LifetimeModel.js";
 export type { CycleLoad, CycleQuantity, FittedInterval, FittedRange, LifetimeModel } from "./stress/LifetimeModel.js";
 export { coffinMansonCycles, coffinMansonAccelerationFactor, coffinMansonModel } from "./stress/coffinManson.js";
 export type { CoffinMansonParameters } from "./stress/coffinManson.js";
@@ -126,7 +126,7 @@ export type { StressConfig, StressPartKind } from "./stress/resolveStressConfig.
 export { LIFETIME_CAUTION } from "./stress/stressCautions.js";
 export { StressAssessment, assessStress, worseStatus } from "./stress/assessStress.js";
 export type { StressEvent, TemperaturePoint, StressOptions, EventRatingCheck, CycleSummary, StressReport } from "./stress/assessStress.js";
-export { formatStressSection } from "./stress/formatStressSection.js";
+export { formatStressSection, STRESS_SECTION_MAX_EVENTS, STRESS_SECTION_WIDTH } from "./stress/formatStressSection.js";
 export { stressReportJson } from "./stress/stressReportJson.js";
 export type { StressJson } from "./stress/stressReportJson.js";
 export { CYCLES_CSV_COLUMNS, formatCyclesCsv } from "./stress/formatCyclesCsv.js";
@@ -200,3 +200,10 @@ export { planRetries } from "./plan/planRetries.js";
 export type { RetryPlanReport } from "./plan/planRetries.js";
 export { formatRetryPlanText, formatPlanDuration } from "./plan/formatRetryPlanText.js";
 export { retryPlanJson } from "./plan/retryPlanJson.js";
+export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuits/chargeLinearMosfet.js";
+export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";
+export { chargeConverter } from "./circuits/chargeConverter.js";
+export type { ConverterParams } from "./circuits/chargeConverter.js";
+export { createOdexSolver, ODEX_OUTCOME } from "./circuits/loadOdex.js";
+export type { OdexSolver } from "./circuits/loadOdex.js";
+export { requirePositive } from "./circuits/requirePositive.js";

@@ -90,7 +90,15 @@ export function integrateBusOde(
       const pa = evalQuadratic(q, ua * scaleV);
       const pb = evalQuadratic(q, ub * scaleV);
       if (pa === 0 && pb === 0) return;
-      segments[k]!.push({ startS: xa * T, durationS: hS, terms: [{ a: pa, b: (pb - pa) / hS, lambda: 0 }] });
+      const list = segments[k]!;
+      const prev = list[list.length - 1];
+      // a constant power (a converter's loss in constant-power mode) stays one segment
+      const joins = prev !== undefined && Math.abs(prev.startS + prev.durationS - xa * T) <= 1e-12 * xb * T;
+      if (pa === pb && joins && prev.terms[0]!.b === 0 && prev.terms[0]!.a === pa) {
+        list[list.length - 1] = { ...prev, durationS: xb * T - prev.startS };
+        return;
+      }
+      list.push({ startS: xa * T, durationS: hS, terms: [{ a: pa, b: (pb - pa) / hS, lambda: 0 }] });
     });
     if (wantSamples) pushSample(xa, ua);
   };

@@ -19,7 +19,7 @@ export const MAX_REGIME_CHANGES = 1_000_000;
  * V = 0 and nothing moves.
  */
 export function buildRegime(model: ChargeModel, load: BusLoad, mode: string, loadOn: boolean, clamped: boolean): BusRegime {
-  const feed = model.feed(mode);
+  const feed = model.feed(mode, loadOn);
   const key = `${mode}|${loadOn ? "on" : "off"}${clamped ? "|clamped" : ""}`;
   if (clamped) {
     if (feed.h !== 0) throw new Error(`feed mode ${mode} has a constant-power term and cannot hold the bus at 0 V`);

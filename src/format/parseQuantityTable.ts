@@ -93,7 +93,7 @@ export function parseQuantityTable(text: string, columns: readonly QuantityColum
     line: info.lines,
     values: columns.map((column, j) => {
       const cell = record[indices[j]!];
-      if (cell === undefined || !isNumber(cell)) return fail(info.lines, column.key, `a number (in ${units[j]!})`, describeFound(cell ?? "nothing"));
+      if (cell === undefined || !isNumber(cell)) return fail(info.lines, column.key, `a number (in ${units[j]!})`, cell === undefined ? "nothing" : describeFound(cell));
       return Number(cell) * scales[j]!;
     }),
   }));

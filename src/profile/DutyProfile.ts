@@ -1,27 +1,9 @@
+import type { BusLoad } from "../circuits/BusLoad.js";
 import type { CompletionRule } from "../circuits/CircuitResult.js";
+import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
-
-/**
- * Load on the bus while the capacitor charges, as the circuit models take it (SI units):
- * nothing, a dead short, a resistance, a constant current (optionally switched on and off at bus
- * voltages) or a constant power switched on above enableV and off below disableV (a converter's
- * under-voltage lockout).
- */
-export type BusLoad =
-  | { readonly kind: "none" }
-  | { readonly kind: "short" }
-  | { readonly kind: "resistive"; readonly resistanceOhm: number }
-  | { readonly kind: "constant-current"; readonly currentA: number; readonly enableV?: number; readonly disableV?: number }
-  | { readonly kind: "constant-power"; readonly powerW: number; readonly enableV: number; readonly disableV: number };
-
-/** How the link capacitor loses charge while the bus is disconnected. */
-export type DischargePath =
-  | { readonly kind: "none" }
-  | { readonly kind: "bleeder"; readonly resistanceOhm: number }
-  | { readonly kind: "constant-current"; readonly currentA: number }
-  | { readonly kind: "active"; readonly resistanceOhm: number; readonly untilV?: number };
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";

@@ -2,7 +2,8 @@ import type { CircuitOutcome } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
-import type { BusLoad, DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
 import { PROFILE_DEFAULTS } from "./loadProfile.js";
 
 /** The kinds of events a timeline holds. */

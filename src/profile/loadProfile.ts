@@ -7,7 +7,9 @@ import type { ModalModel } from "../thermal/ModalModel.js";
 import { observedIndex, sourceIndex } from "../thermal/ModalModel.js";
 import { networkToModal } from "../thermal/ThermalNetwork.js";
 import { parseNetwork } from "../thermal/parseNetwork.js";
-import type { BusLoad, CircuitRole, DischargePath, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent, ProfilePart } from "./DutyProfile.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { DischargePath } from "../circuits/dischargeVoltage.js";
+import type { CircuitRole, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent, ProfilePart } from "./DutyProfile.js";
 import { type CircuitInput, type EventInput, type FaultInput, type LoadInput, type PartInput, ROLE_NAMES, profileSchema } from "./profileSchema.js";
 import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
 
@@ -402,10 +404,10 @@ function resolveLoad(reader: FieldReader, l: LoadInput, field: string, busVoltag
 }
 
 function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], field: string): DischargePath | undefined {
-  const allowed: Record<typeof d.kind, readonly string[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current"], active: ["resistance", "until"] };
+  const allowed: Record<typeof d.kind, readonly string[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current", "bleeder"], active: ["resistance", "until", "bleeder"] };
   const required: Record<typeof d.kind, readonly ("resistance" | "current")[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current"], active: ["resistance"] };
   let ok = true;
-  for (const key of ["resistance", "current", "until"] as const) {
+  for (const key of ["resistance", "current", "until", "bleeder"] as const) {
     if (d[key] !== undefined && !allowed[d.kind].includes(key)) {
       reader.fail("bad-profile", join(field, key), `no "${key}" for a ${d.kind} discharge`, "a value");
       ok = false;
@@ -424,9 +426,9 @@ function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], fie
     case "bleeder":
       return { kind: "bleeder", resistanceOhm: d.resistance! };
     case "constant-current":
-      return { kind: "constant-current", currentA: d.current! };
+      return { kind: "constant-current", currentA: d.current!, ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
     case "active":
-      return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }) };
+      return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }), ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
   }
 }
 

@@ -200,6 +200,7 @@ const dischargeSchema = z.strictObject({
   resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 kohm"' }).optional(),
   current: quantity("current", { above: 0, words: 'a current > 0 such as "10 mA"' }).optional(),
   until: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "5 V"' }).optional(),
+  bleeder: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "47 kohm"' }).optional(),
 });
 
 /** The pre-charge circuit: topology, bus, capacitor, load, completion rule and discharge path. */

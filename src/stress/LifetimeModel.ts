@@ -16,6 +16,16 @@ export const CYCLE_QUANTITY_UNITS: Readonly<Record<CycleQuantity, string>> = {
   frequency: "Hz",
 };
 
+/** Words for each {@link CycleQuantity}, for messages. */
+export const CYCLE_QUANTITY_WORDS: Readonly<Record<CycleQuantity, string>> = {
+  range: "range",
+  mean: "mean temperature",
+  min: "minimum temperature",
+  max: "maximum temperature",
+  heatingTime: "heating time",
+  frequency: "cycle frequency",
+};
+
 /** Read a {@link CycleQuantity} off a cycle: range [K], mean/min/max [°C], heating time [s], frequency 1/duration [Hz]. */
 export function cycleQuantity(load: CycleLoad, quantity: CycleQuantity): number {
   switch (quantity) {

@@ -103,16 +103,18 @@ export function cips2008Model(p: Cips2008Parameters, field = "lifetime"): Lifeti
   for (const name of ["beta2", "beta3", "beta4", "beta5", "beta6"] as const)
     if (!Number.isFinite(p.coefficients[name])) throw inputError("not-finite", `${field}.${name}`, "a finite number", describeFound(p.coefficients[name]));
   const warnings: string[] = [];
-  const words: Record<keyof Cips2008Part, [string, number]> = {
-    currentPerWireA: ["current per bond wire", 1],
-    voltageClassV: ["voltage class", 1],
-    wireDiameterM: ["bond wire diameter (µm)", 1e6],
+  const words: Record<keyof Cips2008Part, [string, number, string]> = {
+    currentPerWireA: ["current per bond wire", 1, "A"],
+    voltageClassV: ["voltage class", 1, "V"],
+    wireDiameterM: ["bond wire diameter", 1e6, "µm"],
   };
   for (const key of Object.keys(CIPS2008_PART_FITTED) as (keyof Cips2008Part)[]) {
     const range = CIPS2008_PART_FITTED[key];
-    const [label, scale] = words[key];
+    const [label, scale, unit] = words[key];
     if (p[key] < range.min || p[key] > range.max)
-      warnings.push(`CIPS 2008: ${label} ${p[key] * scale} is outside the fitted ${range.min * scale}-${range.max * scale} (${range.origin})`);
+      warnings.push(
+        `CIPS 2008: ${label} ${Number((p[key] * scale).toPrecision(6))} ${unit} is outside the fitted ${Number((range.min * scale).toPrecision(6))}-${Number((range.max * scale).toPrecision(6))} ${unit} (${range.origin})`,
+      );
   }
   if (Object.entries(CIPS2008_PUBLISHED).every(([k, v]) => p.coefficients[k as keyof Cips2008Coefficients] === v))
     warnings.push("CIPS 2008: the published coefficients (recalled, from memory) were fitted on IGBT power modules with aluminium bond wires; check they fit this part");

@@ -1,4 +1,19 @@
+import { wrapText } from "../report/cautions.js";
 import type { StressReport } from "./assessStress.js";
+
+/** Most events with a failing or uncovered rating check the terminal section lists one by one. */
+export const STRESS_SECTION_MAX_EVENTS = 8;
+
+/** Width the section's prose (warnings, notes, cautions) is wrapped to. */
+export const STRESS_SECTION_WIDTH = 100;
+
+/** Wrap a paragraph to the section width, the first line after `lead`, the rest indented to match. */
+function paragraph(lead: string, text: string): string[] {
+  const pad = " ".repeat(lead.length);
+  return wrapText(text, STRESS_SECTION_WIDTH - lead.length)
+    .split("\n")
+    .map((line, i) => (i === 0 ? lead : pad) + line);
+}
 
 function num(x: number, digits = 3): string {
   if (x === Number.POSITIVE_INFINITY) return "unlimited";
@@ -22,7 +37,8 @@ export function formatStressSection(partId: string, report: StressReport): strin
   if (checked.length > 0) {
     const passes = checked.filter((e) => e.status === "pass").length;
     lines.push(`  ratings: ${STATUS_WORDS[report.ratingStatus]} (${passes} of ${checked.length} events within ratings)`);
-    for (const e of checked) {
+    const flagged = checked.filter((e) => e.status !== "pass");
+    for (const e of flagged.slice(0, STRESS_SECTION_MAX_EVENTS)) {
       const pe = e.pulseEnergy;
       if (pe !== undefined && pe.status !== "pass")
         lines.push(
@@ -39,6 +55,8 @@ export function formatStressSection(partId: string, report: StressReport): strin
         );
       }
     }
+    if (flagged.length > STRESS_SECTION_MAX_EVENTS)
+      lines.push(`    ... and ${flagged.length - STRESS_SECTION_MAX_EVENTS} more events outside their ratings (all of them in the JSON report)`);
     const worstEnergy = Math.max(0, ...checked.map((e) => e.pulseEnergy?.utilisation ?? 0));
     if (worstEnergy > 0) lines.push(`    highest pulse-energy use: ${num(worstEnergy * 100)} % of the rating`);
     const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
@@ -64,9 +82,9 @@ export function formatStressSection(partId: string, report: StressReport): strin
             `N_f ${num(t.cyclesToFailure)}, ${num(t.share * 100)} % of the damage`,
         );
     }
-    for (const w of d.warnings) lines.push(`  warning: ${w}`);
+    for (const w of d.warnings) lines.push(...paragraph("  warning: ", w));
   }
-  for (const n of report.notes) lines.push(`  note: ${n}`);
-  for (const caution of report.cautions) lines.push(`  ${caution}`);
+  for (const n of report.notes) lines.push(...paragraph("  note: ", n));
+  for (const caution of report.cautions) lines.push(...paragraph("  ", caution));
   return `${lines.join("\n")}\n`;
 }

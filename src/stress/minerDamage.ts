@@ -1,5 +1,5 @@
 import { describeFound, inputError } from "../errors/InputError.js";
-import { CYCLE_QUANTITY_UNITS, type CycleQuantity, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
+import { CYCLE_QUANTITY_UNITS, CYCLE_QUANTITY_WORDS, type CycleQuantity, type FittedInterval, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
 import type { RainflowCycle } from "./rainflowCounter.js";
 
 /** Number of most damaging cycles a damage result lists, unless the caller asks otherwise. */
@@ -64,6 +64,7 @@ export class MinerAccumulator {
   private counted = 0;
   private readonly worst: DamagingCycle[] = [];
   private readonly outside = new Map<CycleQuantity, OutsideTally>();
+  private readonly checks: readonly { quantity: CycleQuantity; min: number; max: number }[];
 
   /**
    * @param model the lifetime model
@@ -73,6 +74,7 @@ export class MinerAccumulator {
     if (!(Number.isInteger(topCycles) && topCycles >= 0)) throw inputError("out-of-range", "topCycles", "a whole number ≥ 0", describeFound(topCycles));
     this.model = model;
     this.top = topCycles;
+    this.checks = (Object.entries(model.fitted) as [CycleQuantity, FittedInterval][]).map(([quantity, i]) => ({ quantity, min: i.min, max: i.max }));
   }
 
   /** Add one counted cycle; returns its damage c/N_f. */
@@ -83,9 +85,9 @@ export class MinerAccumulator {
     this.compensation += Math.abs(this.sum) >= Math.abs(damage) ? this.sum - t + damage : damage - t + this.sum;
     this.sum = t;
     this.counted += cycle.count;
-    for (const [quantity, interval] of Object.entries(this.model.fitted) as [CycleQuantity, { min: number; max: number }][]) {
+    for (const { quantity, min, max } of this.checks) {
       const value = cycleQuantity(cycle, quantity);
-      if (value >= interval.min && value <= interval.max) continue;
+      if (value >= min && value <= max) continue;
       const tally = this.outside.get(quantity) ?? { count: 0, damage: 0, low: value, high: value };
       tally.count += cycle.count;
       tally.damage += damage;
@@ -122,12 +124,12 @@ export class MinerAccumulator {
     const repetitionsToEndOfLife = d > 0 ? 1 / d : Number.POSITIVE_INFINITY;
     const warnings = [...this.model.parameterWarnings];
     for (const [quantity, tally] of this.outside) {
-      const interval = this.model.fitted[quantity]!;
+      const interval: FittedInterval = this.model.fitted[quantity]!;
       const unit = CYCLE_QUANTITY_UNITS[quantity];
       const share = d > 0 ? (100 * tally.damage) / d : 0;
       warnings.push(
-        `${this.model.name}: ${tally.count} of ${this.counted} counted cycles have a ${quantity} outside the fitted ` +
-          `${interval.min}-${interval.max} ${unit} (found ${round(tally.low)}-${round(tally.high)} ${unit}, ${(interval as { origin?: string }).origin ?? ""}); ` +
+        `${this.model.name}: ${tally.count} of ${this.counted} counted cycles have a ${CYCLE_QUANTITY_WORDS[quantity]} outside the fitted ` +
+          `${interval.min}-${interval.max} ${unit} (found ${round(tally.low)}-${round(tally.high)} ${unit}, ${interval.origin}); ` +
           `they carry ${share.toFixed(1)} % of the damage, extrapolated`,
       );
     }

@@ -65,7 +65,7 @@ export interface RainflowOptions {
  *
  * Cost O(1) amortised per point; memory O(stack).
  * @throws InputError `not-finite` for non-finite points, `bad-trace` for points out of time order,
- *   `out-of-range` for a non-positive period
+ *   `out-of-range` for a non-positive period or one shorter than the history
  */
 export class RainflowCounter {
   private readonly onCycle: (cycle: RainflowCycle) => void;
@@ -233,8 +233,12 @@ export class RainflowCounter {
     if (this.finished) return;
     if (periodS !== undefined && !(periodS > 0 && Number.isFinite(periodS)))
       throw inputError("out-of-range", "periodS", "a period > 0 s", describeFound(periodS));
+    const period = periodS ?? this.periodS ?? this.lastTimeS - this.firstTimeS;
+    const spanS = Number.isNaN(this.firstTimeS) ? 0 : this.lastTimeS - this.firstTimeS;
+    if (this.mode === "repeating" && period < spanS)
+      throw inputError("out-of-range", "periodS", `a period at least as long as the history (${spanS} s)`, `${period} s`);
     this.finished = true;
-    if (this.mode === "repeating" && this.size >= 2) this.close(periodS ?? this.periodS ?? this.lastTimeS - this.firstTimeS);
+    if (this.mode === "repeating" && this.size >= 2) this.close(period);
     for (let i = 0; i + 1 < this.size; i++) this.half(i);
     this.size = Math.min(this.size, 1);
   }

@@ -127,7 +127,7 @@ describe("CIPS 2008 (Bayerer et al., 2008)", () => {
 
   test("a part outside the fitted range is evaluated with a warning, not silently", () => {
     const model = cips2008Model({ ...part, currentPerWireA: 40 });
-    expect(model.parameterWarnings.some((w) => w.includes("current per bond wire 40 is outside the fitted 3-23"))).toBe(true);
+    expect(model.parameterWarnings.some((w) => w.includes("current per bond wire 40 A is outside the fitted 3-23 A"))).toBe(true);
     expect(model.cyclesToFailure(load(80, 40, 2))).toBeGreaterThan(0);
   });
 

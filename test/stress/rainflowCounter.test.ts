@@ -189,3 +189,29 @@ describe("TurningPointFilter", () => {
     expect(() => f.push(2, Number.NaN)).toThrow("history: expected finite times and temperatures, found (2, NaN)");
   });
 });
+
+describe("rainflow timing", () => {
+  const timed = fc
+    .array(fc.tuple(fc.double({ min: 0.001, max: 10, noNaN: true }), fc.integer({ min: 0, max: 100 })), { minLength: 2, maxLength: 50 })
+    .map((steps) => {
+      let t = 0;
+      return steps.map(([dt, value]) => ({ timeS: (t += dt), value }));
+    });
+
+  test("every cycle heats for a time ≥ 0 and no longer than the cycle lasts", () => {
+    fc.assert(
+      fc.property(timed, fc.constantFrom("open" as const, "repeating" as const), (pts, mode) => {
+        for (const c of rainflow(pts, { mode })) {
+          expect(c.heatingTimeS).toBeGreaterThanOrEqual(0);
+          expect(c.heatingTimeS).toBeLessThanOrEqual(c.durationS * (1 + 1e-12));
+        }
+      }),
+    );
+  });
+
+  test("a repeating history cannot be closed with a period shorter than itself", () => {
+    const counter = new RainflowCounter(() => {}, { mode: "repeating" });
+    [0, 10, 0].forEach((v, i) => counter.push(i * 2, v));
+    expect(() => counter.finish(3)).toThrow("periodS: expected a period at least as long as the history (4 s), found 3 s");
+  });
+});

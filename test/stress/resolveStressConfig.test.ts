@@ -1,0 +1,105 @@
+import { describe, expect, test } from "vitest";
+import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/index.js";
+
+function message(raw: unknown, options: Parameters<typeof resolveStressConfig>[1] = { field: "parts[0]" }): string {
+  try {
+    resolveStressConfig(raw, options);
+  } catch (error) {
+    expect(error).toBeInstanceOf(InputError);
+    return (error as Error).message;
+  }
+  throw new Error("expected an InputError");
+}
+
+describe("resolveStressConfig", () => {
+  test("parses every quantity to SI and fills published defaults where the source is named", () => {
+    const c = resolveStressConfig({
+      id: "R1", // other part keys pass through untouched
+      ratings: {
+        pulseEnergy: [
+          { duration: "1 ms", energy: "5 J" },
+          { duration: "100 ms", energy: 40 },
+        ],
+        soa: [
+          { duration: "100 us", points: [{ vds: "10 V", id: "100 A" }, { vds: "100 V", id: "20 A" }] },
+          { duration: "dc", points: [{ vds: 10, id: 10 }] },
+        ],
+      },
+      lifetime: { model: "lesit" },
+      cycleHysteresis: "500 mK",
+    });
+    expect(c.pulseEnergy).toEqual([
+      { durationS: 1e-3, energyJ: 5 },
+      { durationS: 0.1, energyJ: 40 },
+    ]);
+    expect(c.soa![0]!.durationS).toBeCloseTo(1e-4, 15);
+    expect(c.soa![1]!.durationS).toBe(Number.POSITIVE_INFINITY);
+    expect(c.lifetime!.name).toBe("LESIT (Held et al., 1997)");
+    expect(c.cycleHysteresisK).toBeCloseTo(0.5, 15);
+  });
+
+  test("defaults: no tables, no model, the default hysteresis", () => {
+    expect(resolveStressConfig({})).toEqual({ pulseEnergy: undefined, soa: undefined, lifetime: undefined, cycleHysteresisK: DEFAULT_CYCLE_HYSTERESIS_K });
+  });
+
+  test("CIPS 2008 reads a wire diameter with a unit", () => {
+    const c = resolveStressConfig({ lifetime: { model: "cips2008", currentPerWire: "10 A", voltageClass: "600 V", wireDiameter: "300 um" } });
+    expect(c.lifetime!.parameterWarnings.some((w) => w.includes("from memory"))).toBe(true);
+  });
+
+  test.each([
+    [
+      "a non-monotonic energy table",
+      { ratings: { pulseEnergy: [{ duration: "10 ms", energy: "5 J" }, { duration: "1 ms", energy: "8 J" }] } },
+      "parts[0].ratings.pulseEnergy[1].duration: expected durations in increasing order (greater than 0.01 s of row 0), found 0.001 s",
+    ],
+    [
+      "a wrong unit",
+      { ratings: { pulseEnergy: [{ duration: "10 mJ", energy: "5 J" }] } },
+      'parts[0].ratings.pulseEnergy[0].duration: expected a time such as "350 ms" (or a number in s), found "10 mJ" (an energy)',
+    ],
+    [
+      "a negative Coffin-Manson exponent",
+      { lifetime: { model: "coffin-manson", referenceCycles: 1e4, referenceRange: "100 K", exponent: -4 } },
+      "parts[0].lifetime.exponent: expected an exponent n > 0 (life falls as the range grows), found -4",
+    ],
+    [
+      "a missing parameter",
+      { lifetime: { model: "coffin-manson", referenceCycles: 1e4, exponent: 4 } },
+      'parts[0].lifetime.referenceRange: expected a number in SI units or a string with a unit (such as "10 ms"), found nothing',
+    ],
+    [
+      "a missing CIPS part quantity",
+      { lifetime: { model: "cips2008", currentPerWire: "10 A", voltageClass: "600 V" } },
+      "parts[0].lifetime.wireDiameter: expected a number in SI units or a string with a unit",
+    ],
+    [
+      "an unknown model",
+      { lifetime: { model: "arrhenius" } },
+      'parts[0].lifetime.model: expected a lifetime model: one of "coffin-manson", "norris-landzberg", "lesit", "cips2008" with its parameters, found "arrhenius"',
+    ],
+    [
+      "an unknown key",
+      { lifetime: { model: "lesit", coefficent: 640 } },
+      'parts[0].lifetime: expected only the keys this object knows, found "coefficent"',
+    ],
+    [
+      "a fitted range upside down",
+      { lifetime: { model: "lesit", fittedRange: { range: ["80 K", "30 K"] } } },
+      'parts[0].lifetime.fittedRange.range[1]: expected a highest value ≥ the lowest (80), found "30 K"',
+    ],
+    [
+      "a negative hysteresis",
+      { cycleHysteresis: "-1 K" },
+      'parts[0].cycleHysteresis: expected a temperature difference ≥ 0 K, found "-1 K"',
+    ],
+  ])("%s gets a clear message", (_what, raw, expected) => {
+    expect(message(raw)).toContain(expected);
+  });
+
+  test("a resistor may only use Coffin-Manson: no cycling model is published for resistors", () => {
+    expect(message({ lifetime: { model: "lesit" } }, { field: "parts[2]", partKind: "resistor" })).toBe(
+      'parts[2].lifetime.model: expected "coffin-manson" with your own parameters, or no lifetime key (no cycling model is published for resistors), found "lesit"',
+    );
+  });
+});
