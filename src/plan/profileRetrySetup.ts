@@ -49,6 +49,9 @@ export const RETRY_PLAN_DEFAULTS = {
   mapToTauMultiple: 5,
 } as const;
 
+/** Attempt outcomes remembered per corner and part. */
+const ATTEMPT_MEMO_SIZE = 512;
+
 function findRetry(events: readonly ProfileEvent[]): RetryBlock | undefined {
   for (const e of events) {
     if (e.kind === "retry" && e.fault !== undefined) return e;
@@ -100,7 +103,21 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
     } as ProfileCircuit;
     for (const part of watched) {
       const sameNetwork = heated.filter((h) => h.networkKey === part.networkKey);
+      // The circuit model is the costly step of an attempt and solvers ask for the same start
+      // again and again (a shorted bus always starts at 0 V): remember recent outcomes, keyed by
+      // the start voltage, and by the part temperature when the model reads it (MOSFET threshold drift).
+      const memo = new Map<string, AttemptOutcome>();
+      const readsTemperature = c.topology === "linear-mosfet" && (c.thresholdTempcoVPerK ?? 0) !== 0;
       const attempt = (context: { capacitorVoltageV: number; partTemperatureC: number }): AttemptOutcome => {
+        const key = readsTemperature ? `${context.capacitorVoltageV}|${context.partTemperatureC}` : `${context.capacitorVoltageV}`;
+        const known = memo.get(key);
+        if (known !== undefined) return known;
+        const outcome = freshAttempt(context);
+        if (memo.size >= ATTEMPT_MEMO_SIZE) memo.delete(memo.keys().next().value!);
+        memo.set(key, outcome);
+        return outcome;
+      };
+      const freshAttempt = (context: { capacitorVoltageV: number; partTemperatureC: number }): AttemptOutcome => {
         const partTemperatureC: Record<string, number> = {};
         for (const h of heated) partTemperatureC[h.role!] = context.partTemperatureC;
         const conditions: ChargeConditions = { sourceVoltageV: c.busVoltageV, initialVoltageV: context.capacitorVoltageV, completion: c.completion, partTemperatureC };
