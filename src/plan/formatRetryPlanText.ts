@@ -77,6 +77,8 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
     );
   }
   if (s.stoppedBecause !== null) out.push(`   Stopped: ${s.stoppedBecause}.`);
+  if (s.schedule.length === s.requestedAttempts && s.schedule.every((a) => a.waitS === null || a.waitS === 0))
+    out.push("   Every attempt may start as soon as the previous one ends: no wait or back-off is needed for this many attempts.");
   if (s.impliedBackoffRatio !== null) out.push(`   Implied back-off: the positive waits grow by ×${s.impliedBackoffRatio.toFixed(3)} per attempt on average.`);
   const b = report.backoff;
   if (b?.rule != null) {
