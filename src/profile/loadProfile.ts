@@ -91,7 +91,15 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     if (!(error instanceof InputError)) throw error;
     throw withLocation(error, file, "", source.lineOf);
   }
-  return { file, name: input.name, description: input.description ?? "", parts: parts as ProfilePart[], ...(circuit === undefined ? {} : { circuit }), events };
+  return {
+    file,
+    name: input.name,
+    description: input.description ?? "",
+    parts: parts as ProfilePart[],
+    ...(circuit === undefined ? {} : { circuit }),
+    events,
+    ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
+  };
 }
 
 /** Most events a list can expand to (retries counted at their maximum, plus one lockout). */

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { registerNetwork } from "./network.js";
+import { registerRetries } from "./retries.js";
 import { registerSimulate } from "./simulate.js";
 import type { CliRun } from "../main.js";
 
@@ -7,4 +8,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerNetwork];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerRetries, registerNetwork];
