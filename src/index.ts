@@ -131,9 +131,10 @@ export { stressReportJson } from "./stress/stressReportJson.js";
 export type { StressJson } from "./stress/stressReportJson.js";
 export { CYCLES_CSV_COLUMNS, formatCyclesCsv } from "./stress/formatCyclesCsv.js";
 // profile (duty profiles: schema, loading, expansion, simulation)
-export { profileSchema, partSchema, circuitSchema, loadSchema, EVENT_KEYS, FAULT_TYPES, ROLE_NAMES } from "./profile/profileSchema.js";
-export type { ProfileInput, LoadInput, FaultInput, CircuitInput, PartInput, EventInput } from "./profile/profileSchema.js";
-export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile } from "./profile/DutyProfile.js";
+export { profileSchema, partSchema, circuitSchema, loadSchema, supervisionSchema, EVENT_KEYS, FAULT_TYPES, ROLE_NAMES } from "./profile/profileSchema.js";
+export type { ProfileInput, LoadInput, FaultInput, CircuitInput, PartInput, EventInput, SupervisionInput } from "./profile/profileSchema.js";
+export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile, QuantityRange, SupervisionSpec } from "./profile/DutyProfile.js";
+export { resolveSupervision } from "./profile/resolveSupervision.js";
 export { loadProfile, expandedEventBound, PROFILE_DEFAULTS } from "./profile/loadProfile.js";
 export type { ReadNamedFile } from "./profile/loadProfile.js";
 export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.js";
@@ -191,6 +192,23 @@ export type { LockoutAnswer, LockoutOptions } from "./plan/lockoutAfterBurst.js"
 export { lockoutMap } from "./plan/lockoutMap.js";
 export type { LockoutMap, LockoutMapCell } from "./plan/lockoutMap.js";
 export { lockoutMapCsv, lockoutMapHeatmap, LOCKOUT_MAP_SYMBOLS } from "./plan/formatLockoutMap.js";
+// plan: supervision (timeout window, early-abort checks, retry storms)
+export { SUPERVISE_DEFAULTS } from "./plan/superviseDefaults.js";
+export { healthyCorners, describeLoad } from "./plan/superviseCorners.js";
+export type { HealthyCorner } from "./plan/superviseCorners.js";
+export { healthyBus } from "./plan/superviseHealthyBus.js";
+export type { HealthyBus } from "./plan/superviseHealthyBus.js";
+export { shortedScenario } from "./plan/superviseShortScenario.js";
+export { profileRetryPolicy } from "./plan/superviseRetryPolicy.js";
+export type { SupervisedRetryPolicy } from "./plan/superviseRetryPolicy.js";
+export { longestShortFromState, longestShortUnderPolicy } from "./plan/superviseEndurance.js";
+export type { ShortEndurance } from "./plan/superviseEndurance.js";
+export { abortChecks, riseChecks, traceEnergyUntil } from "./plan/superviseChecks.js";
+export type { AbortCheck, RiseCheck } from "./plan/superviseChecks.js";
+export { supervisePrecharge } from "./plan/supervisePrecharge.js";
+export type { HealthyCornerResult, TimeoutWindow, SupervisionEnvelope, RetryStorm, SupervisionReport } from "./plan/supervisePrecharge.js";
+export { formatSupervisionText, supervisionSummaryTable } from "./report/formatSupervisionText.js";
+export { supervisionJson } from "./report/supervisionJson.js";
 export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuits/chargeLinearMosfet.js";
 export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";
 export { chargeConverter } from "./circuits/chargeConverter.js";
