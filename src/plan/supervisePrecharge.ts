@@ -70,6 +70,8 @@ export interface RetryStorm {
 /** Everything `heatledger supervise` reports. */
 export interface SupervisionReport {
   readonly profile: string;
+  /** the circuit is a linear-mode MOSFET (its report carries the MOSFET caution) */
+  readonly linearMosfet: boolean;
   /** the part the energy and the checks are reported for (the first part heated by the circuit) */
   readonly part: string;
   /** highest bus voltage of the corner set: the short-circuit answers use it [V] */
@@ -199,6 +201,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
 
   return {
     profile: profile.name,
+    linearMosfet: circuit.topology === "linear-mosfet",
     part: primary.id,
     shortBusVoltageV: spec.busVoltageV.high,
     corners: buses.map((b) => ({

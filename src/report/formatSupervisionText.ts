@@ -119,7 +119,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   for (const p of report.problems) out.push(`Problem: ${p}`);
   out.push(report.verdict === "pass" ? "Verdict: pass" : "Verdict: FAIL");
   out.push("");
-  out.push(formatCautions(false, Math.min(width, 100)));
+  out.push(formatCautions(report.linearMosfet, Math.min(width, 100)));
   return out.join("\n");
 }
 
