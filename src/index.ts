@@ -82,7 +82,7 @@ export type { Quadratic, BusLevel, FeedTerms, BusRegime, ChargeModel } from "./c
 export { resolveCompletion, COMMON_COMPLETION_FRACTIONS } from "./circuits/resolveCompletion.js";
 export type { ResolvedCompletion } from "./circuits/resolveCompletion.js";
 export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, EVENT_LIMITS } from "./circuits/runChargeEvent.js";
-export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP } from "./circuits/integrateBusOde.js";
+export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP, SETTLE_TOLERANCE } from "./circuits/integrateBusOde.js";
 export type { RegimeStretch } from "./circuits/integrateBusOde.js";
 export { chargeSeriesResistor } from "./circuits/chargeSeriesResistor.js";
 export type { SeriesResistorParams } from "./circuits/chargeSeriesResistor.js";
