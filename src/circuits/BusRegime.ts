@@ -84,8 +84,9 @@ export interface ChargeModel {
   readonly capacitanceF: number;
   /** part keys that get a power trace (roles) */
   readonly traceRoles: readonly string[];
-  /** the feed's terms in a mode */
-  feed(mode: string): FeedTerms;
+  /** the feed's terms in a mode, with the bus load on or off (a feed that regulates the bus
+   *  voltage mirrors the load it supplies) */
+  feed(mode: string, loadOn: boolean): FeedTerms;
   /** the feed's mode at the start of an event with the bus at V */
   initialMode(voltageV: number): string;
   /** the feed's mode after crossing one of its own levels */

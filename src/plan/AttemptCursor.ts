@@ -2,6 +2,9 @@ import { describeFound, inputError } from "../errors/InputError.js";
 import { type ModalState, advanceModalState, createModalState, modalRise } from "../thermal/modalStep.js";
 import { type PowerTerm, type PowerTrace, segmentEnergy, validatePowerTrace } from "../thermal/powerTrace.js";
 import { interiorPeaks } from "../thermal/segmentPeak.js";
+import { runThermalHistory } from "../thermal/runThermalHistory.js";
+import { traceSteps } from "../thermal/traceSteps.js";
+import { sourceIndex } from "../thermal/ModalModel.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import type { AttemptOutcome, ResolvedScenario } from "./RetryScenario.js";
 
@@ -154,9 +157,11 @@ export class AttemptCursor {
     if (!Number.isFinite(voltage)) throw inputError("not-finite", `${field}.discharge`, "a finite capacitor voltage after the wait", describeFound(voltage));
     const outcome = c.attempt({ attemptIndex: this.count, waitS, capacitorVoltageV: voltage, partTemperatureC: c.ambientC + startRise });
     checkOutcome(outcome.trace, outcome.durationS, outcome.endVoltageV, `${field}.attempt[${this.count}]`);
-    const { peakRise, peakAt, endState } = this.integrate(start, startRise, outcome.trace, outcome.durationS);
+    const others = this.otherTraces(outcome, `${field}.attempt[${this.count}]`);
+    const { peakRise, peakAt, endState } = others === null ? this.integrate(start, startRise, outcome.trace, outcome.durationS) : this.integrateMany(start, startRise, others, outcome.durationS);
     let energyJ = 0;
     for (const seg of outcome.trace) energyJ += segmentEnergy(seg.terms, seg.durationS);
+    // energyJ counts the scenario's own source only; other sources heat it through the network
     const record: AttemptRecord = {
       attemptIndex: this.count,
       startS,
@@ -251,6 +256,48 @@ export class AttemptCursor {
       }
     }
     return { peakRise, peakAt, endState: state };
+  }
+
+  /** One trace per model source when the attempt heats more than the scenario's source, else null. */
+  private otherTraces(outcome: AttemptOutcome, field: string): (PowerTrace | undefined)[] | null {
+    if (outcome.otherTraces === undefined) return null;
+    const model = this.corner.model;
+    const traces: (PowerTrace | undefined)[] = model.sources.map(() => undefined);
+    traces[this.corner.sourceIndex] = outcome.trace;
+    let any = false;
+    for (const [name, trace] of Object.entries(outcome.otherTraces)) {
+      const i = sourceIndex(model, name, `${field}.otherTraces`);
+      if (i === this.corner.sourceIndex) throw inputError("bad-trace", `${field}.otherTraces.${name}`, "a source other than the scenario's own", describeFound(name));
+      checkOutcome(trace, outcome.durationS, outcome.endVoltageV, `${field}.otherTraces.${name}`);
+      traces[i] = trace;
+      any = true;
+    }
+    return any ? traces : null;
+  }
+
+  /**
+   * The general path for attempts that heat several sources: runThermalHistory over traceSteps
+   * (which merges the traces into common steps), then the same free-cooling tail.
+   */
+  private integrateMany(state: ModalState, startRise: number, traces: readonly (PowerTrace | undefined)[], durationS: number): { peakRise: number; peakAt: number; endState: ModalState } {
+    const c = this.corner;
+    const o = c.observedIndex;
+    const during = runThermalHistory(c.model, traceSteps(traces, 0, durationS), { initialState: state });
+    let peakRise = startRise;
+    let peakAt = 0;
+    if (during.peakRiseK[o]! > peakRise) {
+      peakRise = during.peakRiseK[o]!;
+      peakAt = during.peakTimeS[o]!;
+    }
+    const endState = during.endState;
+    const powers = this.powers.map(() => undefined);
+    for (const p of interiorPeaks(c.model, endState, this.tailS, powers, o)) {
+      if (p.riseK > peakRise) {
+        peakRise = p.riseK;
+        peakAt = durationS + p.atS;
+      }
+    }
+    return { peakRise, peakAt, endState };
   }
 
   /** Start of the current state: the modal state after cooling w seconds from the last kept end. */

@@ -22,6 +22,11 @@ export interface AttemptOutcome {
   readonly durationS: number;
   /** capacitor voltage when the attempt ends [V] */
   readonly endVoltageV: number;
+  /**
+   * power into other sources of the same thermal model, by model source name, in attempt-local
+   * time (for example the source resistor beside a MOSFET on one heatsink); default none
+   */
+  readonly otherTraces?: Readonly<Record<string, PowerTrace>>;
 }
 
 /** One pre-charge attempt into the fault: the circuit model seen by the planner. */

@@ -1,5 +1,5 @@
 import { AttemptCursor } from "./AttemptCursor.js";
-import { periodicSteadyState } from "./periodicSteadyState.js";
+import { attemptPeriodicSteadyState } from "./attemptPeriodicSteadyState.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import type { ResolvedScenario } from "./RetryScenario.js";
 import type { RetrySpacing } from "./RetrySchedule.js";
@@ -34,7 +34,7 @@ export interface ForeverVerdict {
  *    capacitor's start voltage settles (changes by less than PLAN_DEFAULTS.voltageSettleRelTol);
  *    any unsafe attempt on the way answers "no".
  * 2. The settled attempt's periodic steady state is computed in closed form
- *    (periodicSteadyState); if its peak is above limit − margin, the answer is "no" (the peaks
+ *    (attemptPeriodicSteadyState); if its peak is above limit − margin, the answer is "no" (the peaks
  *    converge to it, so some finite attempt exceeds).
  * 3. What remains of the start is the excess x = y(now) − y(steady) of the modal state at an
  *    attempt's end; it decays by e^(−t/tau_m) from then on and adds at most Σ max(gain·x, 0) to
@@ -57,7 +57,7 @@ export function retryForeverCheck(corner: ResolvedScenario, intervalS: number, s
   let transientPeakC = -Infinity;
   let previousV: number | null = null;
   let largestV = 0;
-  let steady: ReturnType<typeof periodicSteadyState> | null = null;
+  let steady: ReturnType<typeof attemptPeriodicSteadyState> | null = null;
   const verdict = (safe: boolean, overlap: boolean, method: "closed-form" | "simulated"): ForeverVerdict => {
     const steadyPeakC = steady === null ? null : steady.attempt.record.peakC;
     const worst = Math.max(transientPeakC, steadyPeakC ?? -Infinity);
@@ -81,7 +81,7 @@ export function retryForeverCheck(corner: ResolvedScenario, intervalS: number, s
       }
       const waitS = spacing === "start-to-start" ? intervalS - trial.outcome.durationS : intervalS;
       if (waitS < 0) return verdict(false, true, "closed-form");
-      steady = periodicSteadyState(corner, trial.outcome, waitS);
+      steady = attemptPeriodicSteadyState(corner, trial.outcome, waitS);
       if (!steady.attempt.safe) return verdict(false, false, "closed-form");
     }
     const now = cursor.endState;

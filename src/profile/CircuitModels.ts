@@ -1,5 +1,7 @@
 import type { ChargeConditions, CircuitResult } from "../circuits/CircuitResult.js";
-import type { BusLoad, DischargePath, ProfileCircuit } from "./DutyProfile.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { DischargePath } from "../circuits/dischargeVoltage.js";
+import type { ProfileCircuit } from "./DutyProfile.js";
 
 /**
  * The electrical side the expansion calls: one pre-charge attempt of the profile's circuit with a

@@ -1,17 +1,67 @@
-import { inputError } from "../errors/InputError.js";
+import { chargeConverter } from "../circuits/chargeConverter.js";
+import { chargeLinearMosfet } from "../circuits/chargeLinearMosfet.js";
+import { chargeSeriesResistor } from "../circuits/chargeSeriesResistor.js";
+import { dischargeVoltage } from "../circuits/dischargeVoltage.js";
+import { InputError } from "../errors/InputError.js";
 import type { CircuitModels } from "./CircuitModels.js";
 
+/** Prefix circuit-model problems with the profile section their values came from. */
+function inCircuit<T>(compute: () => T): T {
+  try {
+    return compute();
+  } catch (error) {
+    if (error instanceof InputError) throw new InputError(error.problems.map((p) => ({ ...p, field: p.field === "" ? "circuit" : `circuit (model field ${p.field})` })));
+    throw error;
+  }
+}
+
 /**
- * The circuit models the CLI uses. The pre-charge and discharge models of src/circuits are wired
- * in here as they land; until then a profile with charging events is refused with a clear
- * message (power-trace profiles need no circuit model).
+ * The circuit models the CLI uses, from src/circuits: the profile's topology picks the pre-charge
+ * model (chargeSeriesResistor, ...), and dischargeVoltage drains the capacitor between events.
+ * A topology whose model is not yet part of this build is refused with a clear message.
  */
 export const defaultCircuitModels: CircuitModels = {
-  charge: (circuit) => {
-    throw inputError("bad-profile", "circuit.topology", "a topology whose circuit model is part of this build", JSON.stringify(circuit.topology));
-  },
-  discharge: (path, _c, v) => {
-    if (path.kind === "none") return v;
-    throw inputError("bad-profile", "circuit.discharge.kind", "a discharge path whose model is part of this build", JSON.stringify(path.kind));
-  },
+  charge: (circuit, load, conditions) =>
+    inCircuit(() => {
+      switch (circuit.topology) {
+        case "series-resistor":
+          return chargeSeriesResistor(
+            {
+              resistanceOhm: circuit.resistanceOhm,
+              capacitanceF: circuit.capacitanceF,
+              load,
+              ...(circuit.sourceResistanceOhm === undefined ? {} : { sourceResistanceOhm: circuit.sourceResistanceOhm }),
+            },
+            conditions,
+          );
+        case "linear-mosfet":
+          return chargeLinearMosfet(
+            {
+              capacitanceF: circuit.capacitanceF,
+              gateVoltageV: circuit.gateVoltageV,
+              thresholdVoltageV: circuit.thresholdVoltageV,
+              rdsOnOhm: circuit.rdsOnOhm,
+              load,
+              ...(circuit.sourceResistorOhm === undefined ? {} : { sourceResistorOhm: circuit.sourceResistorOhm }),
+              ...(circuit.saturationCurrentA === undefined ? {} : { saturationCurrentA: circuit.saturationCurrentA }),
+              ...(circuit.thresholdTempcoVPerK === undefined ? {} : { thresholdTempcoVPerK: circuit.thresholdTempcoVPerK }),
+            },
+            conditions,
+          );
+        case "converter":
+          return chargeConverter(
+            {
+              capacitanceF: circuit.capacitanceF,
+              mode: circuit.mode,
+              efficiency: circuit.efficiency,
+              load,
+              ...(circuit.currentA === undefined ? {} : { currentA: circuit.currentA }),
+              ...(circuit.powerW === undefined ? {} : { powerW: circuit.powerW }),
+              ...(circuit.currentLimitA === undefined ? {} : { currentLimitA: circuit.currentLimitA }),
+            },
+            conditions,
+          );
+      }
+    }),
+  discharge: (path, capacitanceF, initialVoltageV, durationS) => inCircuit(() => dischargeVoltage(path, capacitanceF, initialVoltageV, durationS)),
 };

@@ -7,9 +7,12 @@ import type { ModalModel } from "../thermal/ModalModel.js";
 import { observedIndex, sourceIndex } from "../thermal/ModalModel.js";
 import { networkToModal } from "../thermal/ThermalNetwork.js";
 import { parseNetwork } from "../thermal/parseNetwork.js";
-import type { BusLoad, CircuitRole, DischargePath, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent, ProfilePart } from "./DutyProfile.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { DischargePath } from "../circuits/dischargeVoltage.js";
+import type { CircuitRole, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent, ProfilePart } from "./DutyProfile.js";
 import { type CircuitInput, type EventInput, type FaultInput, type LoadInput, type PartInput, ROLE_NAMES, profileSchema } from "./profileSchema.js";
 import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
+import { resolveSupervision } from "./resolveSupervision.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -78,6 +81,8 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   });
   const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile };
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));
+  const supervision =
+    input.supervision === undefined ? undefined : resolveSupervision(reader, input.supervision, "supervision", circuit, (l, f, busV) => resolveLoad(reader, l, f, busV));
   if (!reader.failed) {
     const bound = expandedEventBound(events);
     if (bound > PROFILE_DEFAULTS.maxExpandedEvents)
@@ -89,7 +94,16 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     if (!(error instanceof InputError)) throw error;
     throw withLocation(error, file, "", source.lineOf);
   }
-  return { file, name: input.name, description: input.description ?? "", parts: parts as ProfilePart[], ...(circuit === undefined ? {} : { circuit }), events };
+  return {
+    file,
+    name: input.name,
+    description: input.description ?? "",
+    parts: parts as ProfilePart[],
+    ...(circuit === undefined ? {} : { circuit }),
+    events,
+    ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
+    ...(supervision === undefined ? {} : { supervision }),
+  };
 }
 
 /** Most events a list can expand to (retries counted at their maximum, plus one lockout). */
@@ -394,10 +408,10 @@ function resolveLoad(reader: FieldReader, l: LoadInput, field: string, busVoltag
 }
 
 function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], field: string): DischargePath | undefined {
-  const allowed: Record<typeof d.kind, readonly string[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current"], active: ["resistance", "until"] };
+  const allowed: Record<typeof d.kind, readonly string[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current", "bleeder"], active: ["resistance", "until", "bleeder"] };
   const required: Record<typeof d.kind, readonly ("resistance" | "current")[]> = { none: [], bleeder: ["resistance"], "constant-current": ["current"], active: ["resistance"] };
   let ok = true;
-  for (const key of ["resistance", "current", "until"] as const) {
+  for (const key of ["resistance", "current", "until", "bleeder"] as const) {
     if (d[key] !== undefined && !allowed[d.kind].includes(key)) {
       reader.fail("bad-profile", join(field, key), `no "${key}" for a ${d.kind} discharge`, "a value");
       ok = false;
@@ -416,9 +430,9 @@ function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], fie
     case "bleeder":
       return { kind: "bleeder", resistanceOhm: d.resistance! };
     case "constant-current":
-      return { kind: "constant-current", currentA: d.current! };
+      return { kind: "constant-current", currentA: d.current!, ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
     case "active":
-      return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }) };
+      return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }), ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
   }
 }
 

@@ -32,7 +32,7 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       ? `${stages.length} stage${stages.length === 1 ? "" : "s"} as asked`
       : fit.candidates.length === 1
         ? `1 stage (the most ${fit.pointCount} points allow)`
-        : `${stages.length} stage${stages.length === 1 ? "" : "s"} chosen by ${fit.criterion.toUpperCase()} among 1 to ${fit.candidates.length}`;
+        : `${stages.length} stage${stages.length === 1 ? "" : "s"} chosen by ${fit.criterion.toUpperCase()} among 1 to ${fit.candidates.length} tried`;
   const out: string[] = [
     `Foster network: ${how}; total Rth = ${formatNumber(total)} K/W`,
     formatTable(
@@ -49,7 +49,7 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       `Stage counts tried (smaller ${fit.criterion.toUpperCase()} is better):`,
       formatTable(
         [{ heading: "stages", align: "right" }, { heading: fit.criterion.toUpperCase(), align: "right" }, { heading: "RMS error", align: "right" }, { heading: "max error", align: "right" }, { heading: "choice" }],
-        fit.candidates.map((c) => [String(c.stageCount), formatNumber(c.criterionValue, 5), percent(c.rmsRelativeError), percent(c.maxRelativeError), c.stageCount === chosen ? "chosen" : ""]),
+        fit.candidates.map((c) => [String(c.stageCount), formatNumber(c.criterionValue, 5), percent(c.rmsRelativeError), percent(c.maxRelativeError), c.stageCount === chosen ? "chosen" : c.resolved ? "" : "not resolved (time constants too close)"]),
       ),
     );
   }

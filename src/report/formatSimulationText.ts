@@ -6,6 +6,25 @@ import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
 import { lineChart } from "./lineChart.js";
 import type { PeakEnvelope } from "./PeakEnvelope.js";
 
+/** A time on the profile's clock: "3 d 04:05:06.250" (milliseconds shown when not whole). */
+function clock(seconds: number): string {
+  if (!Number.isFinite(seconds)) return "n/a";
+  const days = Math.floor(seconds / 86400);
+  let rest = seconds - days * 86400;
+  const h = Math.floor(rest / 3600);
+  rest -= h * 3600;
+  const m = Math.floor(rest / 60);
+  const sec = rest - m * 60;
+  const secText = Math.abs(sec - Math.round(sec)) < 5e-4 ? String(Math.round(sec)).padStart(2, "0") : sec.toFixed(3).padStart(6, "0");
+  const text = `${String(h).padStart(2, "0")}:${String(m).padStart(2, "0")}:${secText}`;
+  return days > 0 ? `${days} d ${text}` : text;
+}
+
+/** A bus voltage for the table: below 1 mV it prints as 0. */
+function volts(v: number): string {
+  return Math.abs(v) < 1e-3 ? "0" : formatNumber(v, 3);
+}
+
 /** Words for a verdict, shown in the terminal. */
 const VERDICT_WORDS = {
   pass: "PASS: every part stays below its limit less its margin",
@@ -55,27 +74,28 @@ export function formatSimulationText(profile: DutyProfile, result: SimulationRes
     ),
   );
   const short = digest.count <= EVENT_DIGEST_DEFAULTS.terminalAll && digest.all.length === digest.count;
-  const shown: readonly EventRecord[] = short ? digest.all : digest.hottest;
+  const shown: readonly EventRecord[] = short ? digest.all : [...digest.hottest].sort((a, b) => a.index - b.index);
   out.push(short ? "Events" : `Events: the ${shown.length} closest to a limit, of ${digest.count} (--json lists ${digest.all.length === digest.count ? "all" : `the first ${digest.all.length}`})`);
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;
+  const hasCircuit = profile.circuit !== undefined;
   out.push(
     formatTable(
       [
         { heading: "#", align: "right" },
-        { heading: "start", align: "right" },
+        { heading: "start [d h:m:s]", align: "right" },
         { heading: "event" },
         { heading: "outcome" },
-        { heading: "bus [V]", align: "right" },
+        ...(hasCircuit ? [{ heading: "bus [V]", align: "right" as const }] : []),
         ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
         ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
       ],
       shown.map((e) => [
         String(e.index),
-        formatDuration(e.startS),
+        clock(e.startS),
         e.label,
         e.outcome === "none" ? "" : e.outcome,
-        e.outcome === "none" && e.startVoltageV === e.endVoltageV ? formatNumber(e.endVoltageV, 3) : `${formatNumber(e.startVoltageV, 3)}→${formatNumber(e.endVoltageV, 3)}`,
+        ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
       ]),

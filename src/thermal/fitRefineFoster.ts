@@ -21,9 +21,9 @@ export interface RefinedFoster {
 /** Time constants may wander this many decades beyond the data (loose bounds: a guard, not a constraint). */
 const TAU_BOUND_DECADES = 3;
 /** Iterations per Levenberg-Marquardt run between restarts from the best point. */
-const REFINE_CHUNK = 40;
-/** A run that lowers the residual sum by less than this fraction ends the refinement. */
-const REFINE_STALL = 1e-9;
+const REFINE_CHUNK = 10;
+/** A run that lowers the residual sum by less than this fraction ends the refinement (it would change N·ln S, the criterion's fit term, by under N·1e-6). */
+const REFINE_STALL = 1e-6;
 
 /**
  * Refine Foster stages by Levenberg-Marquardt on the parameters ln R_k and ln tau_k, minimising the

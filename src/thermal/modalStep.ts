@@ -73,37 +73,60 @@ function forcedResponse(A: number, decay: number, h: number, terms: readonly Pow
   return sum;
 }
 
+/** Number of step lengths whose decay factors {@link createModalStepper} keeps. */
+export const STEPPER_CACHE_SIZE = 8;
+
+/**
+ * Below this h/tau the stepper takes 1 − e^(−h/tau) from expm1; above it, 1 − e^(−h/tau) is
+ * formed by subtraction, whose relative error is at most 2^-53·e^(−0.7)/(1 − e^(−0.7)) ≈ 1.1·2^-53,
+ * i.e. rounding, while saving one transcendental call per mode.
+ */
+const SUBTRACTION_SAFE_RATIO = 0.7;
+
 /**
  * A stepper for long runs: the same arithmetic as {@link advanceModalState}, but the decay
- * factors e^(−h/tau) and 1 − e^(−h/tau) are cached for the most recent step lengths, so a pulse
- * train whose segments repeat a few durations costs one multiply-add per mode for constant power.
- * Cost O(sources × modes × terms) per call; O(modes) memory per cached length.
+ * factors e^(−h/tau) and 1 − e^(−h/tau) are cached for the {@link STEPPER_CACHE_SIZE} most recent
+ * step lengths (tables allocated once, reused), so a pulse train whose segments repeat a few
+ * durations costs one multiply-add per mode for constant power, and a step of a new length costs
+ * one exp per mode and no allocation.
+ * Cost O(sources × modes × terms) per call; O(modes × STEPPER_CACHE_SIZE) memory.
  */
 export function createModalStepper(model: ModalModel): (state: ModalState, h: number, powers: SourcePowers) => ModalState {
   const modes = model.tauS.length;
   const sources = model.sources.length;
-  const cacheSize = 8;
-  const keys: number[] = [];
-  const decays: Float64Array[] = [];
-  const rises: Float64Array[] = [];
+  const taus = Float64Array.from(model.tauS);
+  const keys = new Float64Array(STEPPER_CACHE_SIZE).fill(Number.NaN);
+  const decays = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
+  const rises = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
   let next = 0;
-  const tables = (h: number): [Float64Array, Float64Array] => {
-    for (let i = 0; i < keys.length; i++) if (keys[i] === h) return [decays[i]!, rises[i]!];
-    const decay = new Float64Array(modes);
-    const rise = new Float64Array(modes);
-    for (let m = 0; m < modes; m++) {
-      const A = h / model.tauS[m]!;
-      rise[m] = -Math.expm1(-A);
-      decay[m] = Math.exp(-A);
+  let last = 0;
+  const slot = (h: number): number => {
+    if (keys[last] === h) return last;
+    for (let i = 0; i < STEPPER_CACHE_SIZE; i++) {
+      if (keys[i] === h) {
+        last = i;
+        return i;
+      }
     }
-    keys[next] = h;
-    decays[next] = decay;
-    rises[next] = rise;
-    next = (next + 1) % cacheSize;
-    return [decay, rise];
+    const i = next;
+    next = (next + 1) % STEPPER_CACHE_SIZE;
+    const decay = decays[i]!;
+    const rise = rises[i]!;
+    for (let m = 0; m < modes; m++) {
+      // h/tau as a division, exactly as advanceModalState, so both paths agree to the bit
+      const A = h / taus[m]!;
+      const d = Math.exp(-A);
+      decay[m] = d;
+      rise[m] = A < SUBTRACTION_SAFE_RATIO ? -Math.expm1(-A) : 1 - d;
+    }
+    keys[i] = h;
+    last = i;
+    return i;
   };
   return (state, h, powers) => {
-    const [decay, rise] = tables(h);
+    const i = slot(h);
+    const decay = decays[i]!;
+    const rise = rises[i]!;
     for (let s = 0; s < sources; s++) {
       const terms = powers[s];
       const base = s * modes;
@@ -114,7 +137,7 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
         for (let m = 0; m < modes; m++) state[base + m] = state[base + m]! * decay[m]! + a * rise[m]!;
       } else {
         for (let m = 0; m < modes; m++) {
-          const A = h / model.tauS[m]!;
+          const A = h / taus[m]!;
           state[base + m] = state[base + m]! * decay[m]! + forcedResponse(A, decay[m]!, h, terms);
         }
       }

@@ -62,36 +62,44 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
   let count = 0;
   for (const s of steps) {
     if (findPeaks) {
-      const found: { atS: number; riseK: number; o: number }[] = [];
-      for (let o = 0; o < observed; o++) for (const p of interiorPeaks(model, state, s.durationS, s.powers, o)) found.push({ ...p, o });
-      found.sort((a, b) => a.atS - b.atS);
-      for (const p of found) {
-        if (p.riseK > peakRiseK[p.o]!) {
-          peakRiseK[p.o] = p.riseK;
-          peakTimeS[p.o] = s.startS + p.atS;
-        }
+      let found: { atS: number; riseK: number; o: number }[] | undefined;
+      for (let o = 0; o < observed; o++) {
+        const peaks = interiorPeaks(model, state, s.durationS, s.powers, o);
+        if (peaks.length === 0) continue;
+        found ??= [];
+        for (const p of peaks) found.push({ atS: p.atS, riseK: p.riseK, o });
       }
-      if (visit !== undefined) {
+      if (found !== undefined) {
+        found.sort((a, b) => a.atS - b.atS);
         for (const p of found) {
-          advanceModalState(model, state, p.atS, s.powers, scratch);
-          const riseK = Array.from({ length: observed }, (_, o) => modalRise(model, scratch, o));
-          visit({ timeS: s.startS + p.atS, riseK, kind: "peak" });
+          if (p.riseK > peakRiseK[p.o]!) {
+            peakRiseK[p.o] = p.riseK;
+            peakTimeS[p.o] = s.startS + p.atS;
+          }
+        }
+        if (visit !== undefined) {
+          for (const p of found) {
+            advanceModalState(model, state, p.atS, s.powers, scratch);
+            const riseK = Array.from({ length: observed }, (_, o) => modalRise(model, scratch, o));
+            visit({ timeS: s.startS + p.atS, riseK, kind: "peak" });
+          }
         }
       }
     }
     step(state, s.durationS, s.powers);
     endTimeS = s.startS + s.durationS;
     count++;
-    const riseK: number[] = new Array<number>(observed);
+    // The visitor gets a fresh array; without one nothing is allocated per step.
+    const riseK: number[] | undefined = visit === undefined ? undefined : new Array<number>(observed);
     for (let o = 0; o < observed; o++) {
       const r = modalRise(model, state, o);
-      riseK[o] = r;
+      if (riseK !== undefined) riseK[o] = r;
       if (r > peakRiseK[o]!) {
         peakRiseK[o] = r;
         peakTimeS[o] = endTimeS;
       }
     }
-    visit?.({ timeS: endTimeS, riseK, kind: "step-end" });
+    if (visit !== undefined) visit({ timeS: endTimeS, riseK: riseK!, kind: "step-end" });
   }
   return {
     peakRiseK,

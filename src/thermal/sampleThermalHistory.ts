@@ -73,18 +73,31 @@ export function* sampleThermalHistory(
     previous = t;
     return t;
   };
-  const risesOf = (y: ModalState): number[] => Array.from({ length: observed }, (_, o) => modalRise(model, y, o));
+  const risesOf = (y: ModalState): number[] => {
+    const out = new Array<number>(observed);
+    for (let o = 0; o < observed; o++) out[o] = modalRise(model, y, o);
+    return out;
+  };
   let pending: number | undefined = nextTime();
   let first = true;
   let endS = 0;
   // The last boundary, not yet judged as a maximum: its time, rises and left slopes.
   let boundary: { timeS: number; riseK: number[]; leftSlope: number[] } | undefined;
-  const judgeBoundary = function* (powers: SourcePowers): Generator<SampledPoint> {
-    if (boundary === undefined || !findPeaks) return;
-    for (let o = 0; o < observed; o++) {
-      if (boundary.leftSlope[o]! > 0 && riseSlope(model, state, powers, 0, o) <= 0) yield { timeS: boundary.timeS, riseK: boundary.riseK, kind: "peak", node: o };
-    }
+  const slopesAt = (powers: SourcePowers, at: number): number[] => {
+    const out = new Array<number>(observed);
+    for (let o = 0; o < observed; o++) out[o] = riseSlope(model, state, powers, at, o);
+    return out;
+  };
+  // Plain function (not a nested generator) so the per-step cost stays a few comparisons.
+  const judgeBoundary = (powers: SourcePowers): SampledPoint[] | undefined => {
+    const b = boundary;
     boundary = undefined;
+    if (b === undefined || !findPeaks) return undefined;
+    let out: SampledPoint[] | undefined;
+    for (let o = 0; o < observed; o++) {
+      if (b.leftSlope[o]! > 0 && riseSlope(model, state, powers, 0, o) <= 0) (out ??= []).push({ timeS: b.timeS, riseK: b.riseK, kind: "peak", node: o });
+    }
+    return out;
   };
   for (const s of steps) {
     if (first) {
@@ -97,28 +110,34 @@ export function* sampleThermalHistory(
       }
     }
     if (!(s.durationS > 0)) continue;
-    yield* judgeBoundary(s.powers);
+    const boundaryPeaks = judgeBoundary(s.powers);
+    if (boundaryPeaks !== undefined) yield* boundaryPeaks;
     const end = s.startS + s.durationS;
-    const events: { atS: number; node: number }[] = [];
-    if (findPeaks) for (let o = 0; o < observed; o++) for (const p of interiorPeaks(model, state, s.durationS, s.powers, o)) events.push({ atS: p.atS, node: o });
+    let events: { atS: number; node: number }[] | undefined;
+    if (findPeaks) for (let o = 0; o < observed; o++) for (const p of interiorPeaks(model, state, s.durationS, s.powers, o)) (events ??= []).push({ atS: p.atS, node: o });
     while (pending !== undefined && pending <= end) {
-      events.push({ atS: Math.max(0, pending - s.startS), node: -1 });
+      (events ??= []).push({ atS: Math.max(0, pending - s.startS), node: -1 });
       pending = nextTime();
     }
-    events.sort((a, b) => a.atS - b.atS);
-    for (const e of events) {
-      const riseK = risesOf(advanceModalState(model, state, e.atS, s.powers, scratch));
-      yield { timeS: s.startS + e.atS, riseK, kind: e.node < 0 ? "sample" : "peak", node: e.node };
+    if (events !== undefined) {
+      events.sort((a, b) => a.atS - b.atS);
+      for (const e of events) {
+        const riseK = risesOf(advanceModalState(model, state, e.atS, s.powers, scratch));
+        yield { timeS: s.startS + e.atS, riseK, kind: e.node < 0 ? "sample" : "peak", node: e.node };
+      }
     }
     step(state, s.durationS, s.powers);
     endS = end;
-    boundary = {
-      timeS: end,
-      riseK: risesOf(state),
-      leftSlope: Array.from({ length: observed }, (_, o) => riseSlope(model, state, s.powers, s.durationS, o)),
-    };
+    if (findPeaks) {
+      boundary = {
+        timeS: end,
+        riseK: risesOf(state),
+        leftSlope: slopesAt(s.powers, s.durationS),
+      };
+    }
   }
-  yield* judgeBoundary(NO_POWER);
+  const lastPeaks = judgeBoundary(NO_POWER);
+  if (lastPeaks !== undefined) yield* lastPeaks;
   while (pending !== undefined) {
     const riseK = risesOf(advanceModalState(model, state, Math.max(0, pending - endS), NO_POWER, scratch));
     yield { timeS: pending, riseK, kind: "sample", node: -1 };

@@ -64,3 +64,46 @@ describe("minForeverInterval against the one-stage closed form", () => {
     expect(retryForeverCheck(c, 0.5, "start-to-start").overlap).toBe(true);
   });
 });
+
+describe("attempts that heat two sources of one network", () => {
+  test("a shared heatsink: the second source's heat counts, in the history and in the steady state", async () => {
+    const { graphToModal, superposedRiseGraph } = await import("./sharedSink.js");
+    // Two parts on one heatsink (invented values); part A is limited, part B dissipates beside it.
+    const model = graphToModal({
+      kind: "graph",
+      nodes: [
+        { id: "a", cJPerK: 2 },
+        { id: "b", cJPerK: 2 },
+        { id: "sink", cJPerK: 60 },
+      ],
+      links: [
+        { from: "a", to: "sink", rKPerW: 0.5 },
+        { from: "b", to: "sink", rKPerW: 0.5 },
+        { from: "sink", to: "ambient", rKPerW: 1 },
+      ],
+      sources: ["a", "b"],
+      observed: ["a"],
+    });
+    const corner = {
+      name: "shared",
+      model,
+      source: "a",
+      observe: "a",
+      ambientC: 25,
+      limitC: 125,
+      marginK: 0,
+      initialVoltageV: 0,
+      attempt: () => ({ trace: [{ startS: 0, durationS: 1, terms: [{ a: 40, b: 0, lambda: 0 }] }], durationS: 1, endVoltageV: 0, otherTraces: { b: [{ startS: 0, durationS: 1, terms: [{ a: 60, b: 0, lambda: 0 }] }] } }),
+      discharge: (v: number) => v,
+    };
+    const answer = minForeverInterval([corner]);
+    const T = answer.minimumIntervalS!;
+    // brute force: Zth superposition of both sources' pulse trains over 600 periods; what it lacks
+    // from the steady peak (100 K at part A) is the slowest mode's remaining transient, at most
+    // 100 K·e^(−600·T/τ_slowest), plus rounding
+    const slowest = Math.max(...model.tauS);
+    const rise = superposedRiseGraph(model, 600, T, 1, [40, 60]);
+    expect(rise).toBeLessThanOrEqual(100 + 1e-6);
+    expectClose(rise, 100, { abs: 100 * Math.exp((-600 * T) / slowest) + 1e-6 });
+  });
+});

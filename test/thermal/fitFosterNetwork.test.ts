@@ -34,10 +34,10 @@ function worstRelativeGap(a: FosterNetwork, b: FosterNetwork): number {
 
 describe("fitFosterNetwork", () => {
   // The recovery check of issue 7: 40 log-spaced points of a known 4-stage network with 1 % normal
-  // noise; the fitted Zth stays within 2 % of the known Zth over the data range. Measured worst
-  // gaps for these seeds: 0.6 %-1.5 % (seed 1 picks 5 stages, still within 1.6 %); 2 % is the
-  // issue's bound, about 2 σ of the per-point noise.
-  test.each([1, 2, 3, 4, 5])("fitFosterNetwork recovers a known 4-stage network from 40 points with 1 per cent noise, seed %i", (seed) => {
+  // noise (σ = 1 % of Zth, so single points stray up to ~3 %); the fitted Zth stays within 2 % of
+  // the known Zth over the data range. Measured over seeds 1-30: worst gap 1.4 % (seed 30), 1.3 %
+  // for seeds 1-10; 2 % is the issue's bound.
+  test.each([1, 2, 3, 4, 5, 6, 7, 8, 9, 10])("fitFosterNetwork recovers a known 4-stage network from 40 points with 1 per cent noise, seed %i", (seed) => {
     const fit = fitFosterNetwork(noisyPoints(seed, 0.01));
     expect(worstRelativeGap(fit.network, KNOWN)).toBeLessThan(0.02);
     // the residuals are the noise: RMS near 1 % (0.7-1.3 % covers 40-sample scatter of a 1 % σ)
@@ -46,6 +46,19 @@ describe("fitFosterNetwork", () => {
     expect(fit.chosenBy).toBe("criterion");
     expect(fit.network.stages.length).toBeGreaterThanOrEqual(4);
     expect(fit.network.stages.length).toBeLessThanOrEqual(5);
+  });
+
+  test("fitFosterNetwork does not choose a count whose time constants are closer than minTauRatio", () => {
+    // seed 6: five stages score a lower BIC than four, by splitting the 0.1 ms stage into two at
+    // 76 µs and 158 µs (a factor 2.1); that count is marked unresolved and four are chosen
+    const fit = fitFosterNetwork(noisyPoints(6, 0.01));
+    const five = fit.candidates.find((c) => c.stageCount === 5)!;
+    const four = fit.candidates.find((c) => c.stageCount === 4)!;
+    expect(five.criterionValue).toBeLessThan(four.criterionValue);
+    expect(five.resolved).toBe(false);
+    expect(fit.network.stages.length).toBe(4);
+    // with the rule switched off the split count wins
+    expect(fitFosterNetwork(noisyPoints(6, 0.01), { minTauRatio: 1 }).network.stages.length).toBe(5);
   });
 
   test("fitFosterNetwork on exact points returns the known network itself", () => {
@@ -100,6 +113,38 @@ describe("fitFosterNetwork", () => {
     );
   });
 
+  test("fitFosterNetwork on random networks, ranges and noise returns positive finite stages that follow the points (property)", () => {
+    // 1-5 random stages (R 1e-3..100 K/W, tau 1 µs..10 ks), 5-40 points over 1-6 decades, uniform
+    // noise of total width up to 3 %: the fit never yields NaN or a non-positive stage, and its
+    // worst relative error exceeds the noise width by at most 1 % (measured in a 60-run trial with
+    // uniform noise: at most 0.03 %; 1 % keeps the check about fit quality, not noise luck).
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ r: fc.double({ min: 1e-3, max: 100, noNaN: true }), logTau: fc.double({ min: -6, max: 4, noNaN: true }) }), { minLength: 1, maxLength: 5 }),
+        fc.integer({ min: 5, max: 40 }),
+        fc.double({ min: -6, max: 0, noNaN: true }),
+        fc.double({ min: 1, max: 6, noNaN: true }),
+        fc.double({ min: 0, max: 0.03, noNaN: true }),
+        fc.integer({ min: 1, max: 1000 }),
+        (stages, count, logFrom, decades, noise, seed) => {
+          const model = fosterToModal({ kind: "foster", stages: stages.map((s) => ({ rKPerW: s.r, tauS: 10 ** s.logTau })) });
+          const normal = seededNormal(seed);
+          const points = logSpacedTimes(10 ** logFrom, 10 ** (logFrom + decades), count).map((t) => ({
+            timeS: t,
+            zthKPerW: zth(model, t) * (1 + noise * Math.max(-0.5, Math.min(0.5, normal() / 4))),
+          }));
+          const fit = fitFosterNetwork(points);
+          for (const s of fit.network.stages) {
+            expect(Number.isFinite(s.rKPerW) && s.rKPerW > 0).toBe(true);
+            expect(Number.isFinite(s.tauS) && s.tauS > 0).toBe(true);
+          }
+          expect(fit.errors.maxRelativeError).toBeLessThanOrEqual(noise + 0.01);
+        },
+      ),
+      { numRuns: 15, seed: 7 },
+    );
+  });
+
   test.each([
     [
       "times not increasing",
@@ -137,9 +182,12 @@ describe("fitFosterNetwork", () => {
     }
   });
 
-  test("FIT_DEFAULTS choose the stage count by BIC up to 8 stages", () => {
-    expect(FIT_DEFAULTS.stages).toBe(0);
-    expect(FIT_DEFAULTS.criterion).toBe("bic");
+  test("fitFosterNetwork stops trying stage counts two past the best", () => {
+    // exact 4-stage data: BIC is lowest at 4; 5 and 6 score worse (penalty, no better fit), so the
+    // search ends at 6 instead of FIT_DEFAULTS.maxStages = 8
+    const points = logSpacedTimes(DATA_FROM_S, DATA_TO_S, 40).map((t) => ({ timeS: t, zthKPerW: zth(knownModel, t) }));
+    const fit = fitFosterNetwork(points);
+    expect(fit.candidates.map((c) => c.stageCount)).toEqual([1, 2, 3, 4, 5, 6]);
     expect(FIT_DEFAULTS.maxStages).toBe(8);
   });
 });

@@ -1,3 +1,4 @@
+import { sourceIndex } from "../thermal/ModalModel.js";
 import { createModalState, modalRise } from "../thermal/modalStep.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
 import { runThermalHistory } from "../thermal/runThermalHistory.js";
@@ -6,7 +7,7 @@ import { AttemptCursor, type AttemptTrial } from "./AttemptCursor.js";
 import type { AttemptOutcome, ResolvedScenario } from "./RetryScenario.js";
 
 /** The periodic steady state of identical attempts repeated for ever. */
-export interface PeriodicSteadyState {
+export interface AttemptPeriodicState {
   /** cycle length, start to start [s] */
   readonly periodS: number;
   /** wait from an attempt's end to the next start [s] */
@@ -39,9 +40,10 @@ export interface PeriodicSteadyState {
  * @param outcome the repeated attempt (as the attempt model returned it)
  * @param waitS wait from the attempt's end to the next start [s], ≥ 0
  */
-export function periodicSteadyState(corner: ResolvedScenario, outcome: AttemptOutcome, waitS: number): PeriodicSteadyState {
+export function attemptPeriodicSteadyState(corner: ResolvedScenario, outcome: AttemptOutcome, waitS: number): AttemptPeriodicState {
   const model = corner.model;
   const traces: (PowerTrace | undefined)[] = model.sources.map((_, i) => (i === corner.sourceIndex ? outcome.trace : undefined));
+  for (const [name, trace] of Object.entries(outcome.otherTraces ?? {})) traces[sourceIndex(model, name)] = trace;
   const single = runThermalHistory(model, traceSteps(traces, 0, outcome.durationS), { initialState: createModalState(model), findPeaks: false });
   const periodS = outcome.durationS + waitS;
   const modes = model.tauS.length;

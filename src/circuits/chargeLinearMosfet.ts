@@ -1,0 +1,114 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import { type BusLoad, NO_BUS_LOAD, validateBusLoad } from "./BusLoad.js";
+import type { ChargeModel, FeedTerms } from "./BusRegime.js";
+import type { ChargeConditions, CircuitResult } from "./CircuitResult.js";
+import { requirePositive } from "./requirePositive.js";
+import { runChargeEvent } from "./runChargeEvent.js";
+
+/** Temperature at which `thresholdVoltageV` is given [°C] (the usual datasheet reference). */
+export const THRESHOLD_REFERENCE_TEMPERATURE_C = 25;
+
+/** Parameters of a linear-mode MOSFET pre-charge (a current source). */
+export interface LinearMosfetParams {
+  /** link capacitance C [F] */
+  readonly capacitanceF: number;
+  /** gate drive voltage (gate to the bottom of the source resistor) [V] */
+  readonly gateVoltageV: number;
+  /** gate threshold voltage at {@link THRESHOLD_REFERENCE_TEMPERATURE_C} [V] */
+  readonly thresholdVoltageV: number;
+  /** source resistor Rs that sets the current I = (Vgate − Vth)/Rs [Ω] */
+  readonly sourceResistorOhm?: number;
+  /** a fixed saturation current instead of (or, with Rs, as a cap on) the source-resistor current [A] */
+  readonly saturationCurrentA?: number;
+  /** on-resistance once the MOSFET is fully on [Ω] */
+  readonly rdsOnOhm: number;
+  /** threshold temperature coefficient [V/K] (negative for silicon MOSFETs); default 0 */
+  readonly thresholdTempcoVPerK?: number;
+  /** what else hangs on the bus (default none) */
+  readonly load?: BusLoad;
+}
+
+/**
+ * Linear-mode MOSFET pre-charge: the MOSFET with a source resistor Rs is a current source,
+ * I = (Vgate − Vth)/Rs (or a given saturation current, for a gate-driven switch; with both, the
+ * smaller). The MOSFET dissipates (Vs − Vc − I·Rs)·I (role "mosfet"), Rs dissipates I²·Rs (role
+ * "sourceResistor"). Once the MOSFET runs out of headroom, at Vc = Vs − I·(Rs + Rds(on)), it is
+ * fully on and the circuit is a series resistance Rs + Rds(on); if a load pulls the bus back below
+ * that voltage the current source takes over again.
+ *
+ * With no load the current-source stretch is an exact ramp Vc = V0 + I·t/C with MOSFET power
+ * falling linearly; a resistive load gives exponentials, a constant-power load an ODE (odex).
+ *
+ * Threshold drift (an option that couples the circuit to the thermal engine): Vth(T) =
+ * Vth + k·(T − 25 °C). This first version takes T as the MOSFET's temperature at the event start
+ * (conditions.partTemperatureC.mosfet; 25 °C when absent) and holds it for the whole event; the
+ * self-heating during the pulse (which raises the current when k < 0) is not followed.
+ * Caution for users: at high drain-source voltage a MOSFET in linear mode can fail by thermal
+ * instability inside its thermal rating; check the maker's SOA for DC/linear operation.
+ *
+ * Source: Sedra & Smith, Microelectronic Circuits, 7th ed. (2015), §5.2 (MOSFET saturation
+ * region; a current source with source degeneration, from memory); series RC response: Hayt,
+ * Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), ch. 8; charging by a constant
+ * current dV/dt = I/C: ch. 7 (capacitor v–i relation).
+ * Validity: the gate-source voltage across the MOSFET is taken as Vth (square-law overdrive
+ * neglected: a large-transconductance part); ideal source.
+ * Cost: see {@link runChargeEvent}; O(1) for no or resistive loads.
+ * @throws InputError naming the field: `capacitanceF`, `rdsOnOhm`, `sourceResistorOhm`,
+ *   `saturationCurrentA` (> 0; at least one of the two), `gateVoltageV` (above the threshold at the
+ *   part's temperature), `thresholdVoltageV` (≥ 0), `thresholdTempcoVPerK` (finite),
+ *   `partTemperatureC.mosfet` (finite), `load.*`, and the conditions' fields
+ */
+export function chargeLinearMosfet(params: LinearMosfetParams, conditions: ChargeConditions): CircuitResult {
+  requirePositive(params.capacitanceF, "capacitanceF", "a capacitance > 0 F");
+  requirePositive(params.rdsOnOhm, "rdsOnOhm", "an on-resistance > 0 Ω");
+  requirePositive(params.thresholdVoltageV, "thresholdVoltageV", "a threshold voltage ≥ 0 V", true);
+  if (params.sourceResistorOhm !== undefined) requirePositive(params.sourceResistorOhm, "sourceResistorOhm", "a source resistor > 0 Ω");
+  if (params.saturationCurrentA !== undefined) requirePositive(params.saturationCurrentA, "saturationCurrentA", "a saturation current > 0 A");
+  if (params.sourceResistorOhm === undefined && params.saturationCurrentA === undefined)
+    throw inputError("out-of-range", "sourceResistorOhm", "a source resistor > 0 Ω or a saturationCurrentA", "neither");
+  const tempco = params.thresholdTempcoVPerK ?? 0;
+  if (!Number.isFinite(tempco)) throw inputError("not-finite", "thresholdTempcoVPerK", "a temperature coefficient in V/K", describeFound(tempco));
+  const partC = conditions.partTemperatureC?.mosfet ?? THRESHOLD_REFERENCE_TEMPERATURE_C;
+  if (!Number.isFinite(partC)) throw inputError("not-finite", "partTemperatureC.mosfet", "a temperature in °C", describeFound(partC));
+  const vth = params.thresholdVoltageV + tempco * (partC - THRESHOLD_REFERENCE_TEMPERATURE_C);
+  if (!Number.isFinite(params.gateVoltageV) || !(params.gateVoltageV > vth))
+    throw inputError("out-of-range", "gateVoltageV", `a gate voltage above the threshold (${Number(vth.toPrecision(4))} V at ${Number(partC.toPrecision(4))} °C)`, describeFound(params.gateVoltageV));
+  const load = params.load ?? NO_BUS_LOAD;
+  validateBusLoad(load);
+
+  const rs = params.sourceResistorOhm ?? 0;
+  const rds = params.rdsOnOhm;
+  const byResistor = rs > 0 ? (params.gateVoltageV - vth) / rs : Infinity;
+  const current = Math.min(byResistor, params.saturationCurrentA ?? Infinity);
+  const vs = conditions.sourceVoltageV;
+  const kneeV = vs - current * (rs + rds);
+  const rt = rs + rds;
+
+  const linear: FeedTerms = {
+    g0: current,
+    g1: 0,
+    h: 0,
+    sourcePower: { c0: vs * current, c1: 0, c2: 0 },
+    partPower: { mosfet: { c0: (vs - current * rs) * current, c1: -current, c2: 0 }, sourceResistor: { c0: current * current * rs, c1: 0, c2: 0 } },
+    levels: [{ voltageV: kneeV, rising: true, key: "mosfet-on" }],
+    description: "current-source (linear) mode",
+  };
+  const loss = (rk: number) => ({ c0: (vs * vs * rk) / (rt * rt), c1: (-2 * vs * rk) / (rt * rt), c2: rk / (rt * rt) });
+  const fullyOn: FeedTerms = {
+    g0: vs / rt,
+    g1: 1 / rt,
+    h: 0,
+    sourcePower: { c0: (vs * vs) / rt, c1: -vs / rt, c2: 0 },
+    partPower: { mosfet: loss(rds), sourceResistor: loss(rs) },
+    levels: kneeV > 0 ? [{ voltageV: kneeV, rising: false, key: "mosfet-linear" }] : [],
+    description: "fully-on mode",
+  };
+  const model: ChargeModel = {
+    capacitanceF: params.capacitanceF,
+    traceRoles: ["mosfet", "sourceResistor"],
+    feed: (mode) => (mode === "on" ? fullyOn : linear),
+    initialMode: (v) => (v >= kneeV ? "on" : "linear"),
+    nextMode: (_mode, key) => (key === "mosfet-on" ? "on" : "linear"),
+  };
+  return runChargeEvent(model, load, conditions);
+}

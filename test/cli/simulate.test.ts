@@ -1,0 +1,72 @@
+import { describe, expect, test } from "vitest";
+import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION } from "../../src/index.js";
+import { memoryIo } from "./simulateMemoryIo.js";
+
+// In-process runs of `heatledger simulate` through the CLI factory, on invented profiles.
+const PULSES = (powerW: number) => `name: pulses
+ambient: 25 degC
+parts:
+  - id: r
+    network: net.yaml
+    limits: { maxTemperature: 100 degC, margin: 10 K }
+events:
+  - repeat:
+      count: 4
+      period: 5 s
+      events:
+        - power-trace: { part: r, file: pulse.csv }
+`;
+const FILES = (powerW: number): Record<string, string> => ({
+  "dir/p.yaml": PULSES(powerW),
+  "dir/net.yaml": "form: foster\nstages:\n  - { r: 1 K/W, tau: 0.5 s }\n",
+  "dir/pulse.csv": `time_s,power_W\n0,${powerW}\n1,${powerW}\n1.000001,0\n`,
+});
+
+describe("heatledger simulate (in process)", () => {
+  // One RC stage (R = 1 K/W, tau = 0.5 s), 1 s pulses every 5 s: each pulse ends at
+  // P·R·(1 − e^(−2))/(1 − e^(−10)) ≈ 0.8647·P·R above ambient, within 5e-5 of the first pulse's
+  // rise (lumped capacitance, Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed.,
+  // §5.2). 40 W → 59.6 °C (pass), 80 W → 94.2 °C (inside the 10 K margin below 100 °C: warn,
+  // exit 0), 100 W → 111.5 °C (fail, exit 1). Each case is more than 4 K from a boundary.
+  test.each([
+    [40, 0, "pass"],
+    [80, 0, "warn"],
+    [100, 1, "fail"],
+  ])("%d W pulses: exit %d, verdict %s", async (powerW, status, verdict) => {
+    const io = memoryIo(FILES(powerW));
+    expect(await runCli(["simulate", "dir/p.yaml", "--json"], io)).toBe(status);
+    const json = JSON.parse(io.stdout.join("")) as { verdict: string; detailedVerdict: string; parts: { events: unknown[] }[] };
+    expect(json.detailedVerdict).toBe(verdict);
+    expect(json.verdict).toBe(verdict === "fail" ? "fail" : "pass");
+    expect(json.parts[0]!.events.length).toBe(4);
+  });
+
+  test("the text report ends with the cautions", async () => {
+    const io = memoryIo(FILES(40));
+    expect(await runCli(["simulate", "dir/p.yaml"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain("Verdict: PASS");
+    expect(text.trimEnd().endsWith(GENERAL_CAUTION.slice(-30))).toBe(true);
+    expect(text).not.toMatch(/NaN/);
+  });
+
+  test("--csv refuses to overwrite without --force, then writes with it", async () => {
+    const io = memoryIo({ ...FILES(40), "out.csv": "old" });
+    expect(await runCli(["simulate", "dir/p.yaml", "--csv", "out.csv"], io)).toBe(2);
+    expect(io.stderr.join("")).toContain("out.csv: --csv: expected a path that does not exist yet (or add --force to overwrite), found an existing file");
+    expect(io.files["out.csv"]).toBe("old");
+    expect(await runCli(["simulate", "dir/p.yaml", "--csv", "out.csv", "--force"], io)).toBe(0);
+    const lines = io.files["out.csv"]!.trim().split("\n");
+    expect(lines[0]).toBe("time_s,event,point,r_C");
+    expect(lines.length).toBeGreaterThan(8);
+  });
+
+  test("bad input: exit 2 and one line per problem, no stack trace", async () => {
+    const io = memoryIo({ ...FILES(40), "dir/p.yaml": PULSES(40).replace("ambient: 25 degC", "ambiant: 25 degC") });
+    expect(await runCli(["simulate", "dir/p.yaml"], io)).toBe(2);
+    const err = io.stderr.join("");
+    expect(err).toContain('dir/p.yaml:2: ambiant: expected one of the keys name, description, ambient, parts, circuit, events (did you mean "ambient"?), found an unknown key');
+    expect(err).not.toMatch(/\n\s+at /);
+  });
+});

@@ -1,0 +1,39 @@
+import { describe, expect, test } from "vitest";
+import { LOCKOUT_MAP_SYMBOLS, fosterToModal, lockoutMap, lockoutMapCsv, lockoutMapHeatmap, maxAttempts } from "../../src/index.js";
+import { rectangularFault } from "./scenarios.js";
+
+describe("lockoutMap", () => {
+  const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }, { rKPerW: 3, tauS: 60 }] });
+  const corners = [
+    rectangularFault("25 °C", model, 200, 0.2, { ambientC: 25, limitC: 155, marginK: 10 }),
+    rectangularFault("60 °C", model, 200, 0.2, { ambientC: 60, limitC: 155, marginK: 10 }),
+  ];
+  const intervals = [0.1, 0.3, 0.5, 1, 2, 5];
+  const map = lockoutMap(corners, 30, intervals);
+
+  test("each column passes exactly as many attempts as maxAttempts allows, governed by the hot corner", () => {
+    intervals.forEach((T, i) => {
+      const passing = map.cells.filter((row) => row[i]!.status === "pass").length;
+      if (T < 0.2) {
+        // shorter than an attempt: only a single attempt is possible
+        expect(map.cells[1]![i]!.status).toBe("overlap");
+        return;
+      }
+      const answer = maxAttempts(corners, T);
+      expect(passing).toBe(answer.unlimited ? 30 : Math.min(30, answer.attempts!));
+      expect(map.cells[29]![i]!.corner).toBe("60 °C");
+    });
+  });
+
+  test("CSV has a header and one row per cell; the heat map has a row per burst length and a legend", () => {
+    const csv = lockoutMapCsv(map).trim().split("\n");
+    expect(csv[0]).toBe("attempts,interval_s,spacing,worst_peak_c,allowed_c,limit_c,used_fraction,status,governing_corner");
+    expect(csv).toHaveLength(1 + 30 * intervals.length);
+    expect(csv[1]!.startsWith("1,0.1,start-to-start,")).toBe(true);
+    const text = lockoutMapHeatmap(map);
+    const rows = text.split("\n").filter((l) => /^\s*\d+ \| /.test(l));
+    expect(rows).toHaveLength(30);
+    for (const s of LOCKOUT_MAP_SYMBOLS) expect(text).toContain(`${s.symbol.repeat(2)}  ${s.meaning}`);
+    expect(text).not.toContain("NaN");
+  });
+});
