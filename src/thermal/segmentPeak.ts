@@ -224,12 +224,11 @@ function refineTurn(model: ModalModel, state: ModalState, powers: SourcePowers, 
  */
 function singleTurn(taus: readonly number[], constant: number, k: Float64Array, h: number): number | undefined {
   let f0 = constant;
+  for (let m = 0; m < k.length; m++) f0 += k[m]!;
+  if (!(f0 > 0)) return undefined;
   let fh = constant;
-  for (let m = 0; m < k.length; m++) {
-    f0 += k[m]!;
-    fh += k[m]! * Math.exp(-h / taus[m]!);
-  }
-  if (!(f0 > 0 && fh <= 0)) return undefined;
+  for (let m = 0; m < k.length; m++) fh += k[m]! * Math.exp(-h / taus[m]!);
+  if (!(fh <= 0)) return undefined;
   let lo = 0;
   let hi = h;
   let x = 0.5 * h;
