@@ -30,7 +30,7 @@ export type { ThermalGraph, ThermalNode, ThermalLink } from "./thermal/thermalGr
 export { symmetricEigen } from "./thermal/symmetricEigen.js";
 export type { SymmetricEigen } from "./thermal/symmetricEigen.js";
 export { zth, logSpacedTimes } from "./thermal/zth.js";
-export { advanceModalState, createModalState, createModalStepper, modalRise } from "./thermal/modalStep.js";
+export { advanceModalState, createModalState, createModalStepper, modalRise, STEPPER_CACHE_SIZE } from "./thermal/modalStep.js";
 export type { ModalState, SourcePowers } from "./thermal/modalStep.js";
 export { interiorPeaks, riseSlope, PEAK_GRID_POINTS } from "./thermal/segmentPeak.js";
 export type { InteriorPeak } from "./thermal/segmentPeak.js";
@@ -42,15 +42,6 @@ export type { ThermalNetwork } from "./thermal/ThermalNetwork.js";
 export { parseNetwork, NETWORK_FORMS } from "./thermal/parseNetwork.js";
 export { formatNetworkFile, networkToDocument } from "./thermal/formatNetworkFile.js";
 export type { HistoryOptions, HistoryPoint, HistorySummary } from "./thermal/runThermalHistory.js";
-
-// report (formatters return strings)
-export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
-export type { TableColumn } from "./report/formatTable.js";
-export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
-export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
-export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
-export { describeNetwork } from "./report/describeNetwork.js";
-export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
 export { fosterToCauer, FOSTER_TO_CAUER_ROUND_TRIP_TOLERANCE, FOSTER_TO_CAUER_CHECK_TIMES } from "./thermal/fosterToCauer.js";
 export { modalToFoster, UNOBSERVABLE_GAIN_FRACTION } from "./thermal/modalToFoster.js";
 export { chainNetworks, HEATSINK_PREFIX } from "./thermal/chainNetworks.js";
@@ -60,3 +51,12 @@ export type { PeriodicCycle, PeriodicOptions, PeriodicResult } from "./thermal/p
 export { referenceSuperposition } from "./thermal/referenceSuperposition.js";
 export { sampleThermalHistory, SAMPLE_DEFAULTS } from "./thermal/sampleThermalHistory.js";
 export type { SampledPoint, SampleOptions } from "./thermal/sampleThermalHistory.js";
+
+// report (formatters return strings)
+export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
+export type { TableColumn } from "./report/formatTable.js";
+export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
+export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
+export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
+export { describeNetwork } from "./report/describeNetwork.js";
+export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
