@@ -32,7 +32,7 @@ export type { ThermalGraph, ThermalNode, ThermalLink } from "./thermal/thermalGr
 export { symmetricEigen } from "./thermal/symmetricEigen.js";
 export type { SymmetricEigen } from "./thermal/symmetricEigen.js";
 export { zth, logSpacedTimes } from "./thermal/zth.js";
-export { advanceModalState, createModalState, createModalStepper, modalRise } from "./thermal/modalStep.js";
+export { advanceModalState, createModalState, createModalStepper, modalRise, STEPPER_CACHE_SIZE } from "./thermal/modalStep.js";
 export type { ModalState, SourcePowers } from "./thermal/modalStep.js";
 export { interiorPeaks, riseSlope, PEAK_GRID_POINTS } from "./thermal/segmentPeak.js";
 export type { InteriorPeak } from "./thermal/segmentPeak.js";
@@ -228,3 +228,11 @@ export type { ConverterParams } from "./circuits/chargeConverter.js";
 export { createOdexSolver, ODEX_OUTCOME } from "./circuits/loadOdex.js";
 export type { OdexSolver } from "./circuits/loadOdex.js";
 export { requirePositive } from "./circuits/requirePositive.js";
+// report (formatters return strings)
+export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
+export type { TableColumn } from "./report/formatTable.js";
+export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
+export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
+export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
+export { describeNetwork } from "./report/describeNetwork.js";
+export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
