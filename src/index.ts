@@ -228,11 +228,3 @@ export type { ConverterParams } from "./circuits/chargeConverter.js";
 export { createOdexSolver, ODEX_OUTCOME } from "./circuits/loadOdex.js";
 export type { OdexSolver } from "./circuits/loadOdex.js";
 export { requirePositive } from "./circuits/requirePositive.js";
-// report (formatters return strings)
-export { formatTable, formatNumber, formatDuration } from "./report/formatTable.js";
-export type { TableColumn } from "./report/formatTable.js";
-export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
-export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
-export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
-export { describeNetwork } from "./report/describeNetwork.js";
-export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
