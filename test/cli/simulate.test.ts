@@ -1,7 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/index.js";
-import { memoryIo } from "./simulateMemoryIo.js";
+import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger simulate` through the CLI factory, on invented profiles.
 const PULSES = (powerW: number) => `name: pulses

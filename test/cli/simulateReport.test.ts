@@ -1,7 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { EventDigest, PeakEnvelope, type TimelineEvent } from "../../src/index.js";
-import { memoryIo } from "./simulateMemoryIo.js";
+import { memoryIo } from "../helpers/memoryIo.js";
 
 // The report pieces behind `simulate`: the CSV holds every local peak, the chart envelope never
 // drops a maximum however many points it folds, and the event digest keeps the hottest events.
