@@ -98,4 +98,38 @@ export interface DutyProfile {
   readonly events: readonly ProfileEvent[];
   /** the retry plan section (questions and corners for `heatledger retries`), when given */
   readonly retryPlan?: RetryPlanInput;
+  /** the supervision section, when the profile has one (read by `heatledger supervise`) */
+  readonly supervision?: SupervisionSpec;
+}
+
+/** A closed range of one quantity [SI]; low = high for a single value. */
+export interface QuantityRange {
+  readonly low: number;
+  readonly high: number;
+}
+
+/**
+ * The supervision section of a profile, resolved to SI: the healthy corner set the pre-charge
+ * supervisor must let through, and the check times and margins of its early-abort checks.
+ * Ranges left out of the profile default to the circuit's own value (a range of one value).
+ */
+export interface SupervisionSpec {
+  /** link capacitance over units and life [F] */
+  readonly capacitanceF: QuantityRange;
+  /** source (bus) voltage [V] */
+  readonly busVoltageV: QuantityRange;
+  /** completion fraction of the bus voltage; undefined: the circuit's completion rule */
+  readonly completionFraction?: QuantityRange;
+  /** legitimate loads on the bus while it charges (default: the circuit's load) */
+  readonly loads: readonly BusLoad[];
+  /** capacitor voltage at the start of a healthy charge [V] (default 0) */
+  readonly startVoltageV: number;
+  /** early-abort check times [s], ascending; undefined: chosen automatically */
+  readonly checkTimesS?: readonly number[];
+  /** rise-too-fast check times [s], ascending; undefined: the early-abort check times */
+  readonly riseCheckTimesS?: readonly number[];
+  /** margin kept between a check threshold and the healthy envelope, fraction of the voltage; undefined: the default */
+  readonly checkMarginFraction?: number;
+  /** the lowest threshold a check may use (measurement floor) [V]; undefined: the default */
+  readonly minCheckVoltageV?: number;
 }

@@ -12,6 +12,7 @@ import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { CircuitRole, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent, ProfilePart } from "./DutyProfile.js";
 import { type CircuitInput, type EventInput, type FaultInput, type LoadInput, type PartInput, ROLE_NAMES, profileSchema } from "./profileSchema.js";
 import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
+import { resolveSupervision } from "./resolveSupervision.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -80,6 +81,8 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   });
   const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile };
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));
+  const supervision =
+    input.supervision === undefined ? undefined : resolveSupervision(reader, input.supervision, "supervision", circuit, (l, f, busV) => resolveLoad(reader, l, f, busV));
   if (!reader.failed) {
     const bound = expandedEventBound(events);
     if (bound > PROFILE_DEFAULTS.maxExpandedEvents)
@@ -99,6 +102,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     ...(circuit === undefined ? {} : { circuit }),
     events,
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
+    ...(supervision === undefined ? {} : { supervision }),
   };
 }
 

@@ -249,6 +249,67 @@ export const retryPlanSchema = z.strictObject({
 export type RetryPlanInput = z.output<typeof retryPlanSchema>;
 
 // ---- end of retry plan ----
+// ---------------------------------------------------------------------------------------------
+// supervision (read by `heatledger supervise`; resolved by resolveSupervision.ts)
+
+/**
+ * A range of a quantity: one value, or a [low, high] pair; parsed to { low, high } in SI.
+ * Each item is checked by the same rules as a single quantity.
+ */
+function quantityRange(dimension: Dimension, check?: { min?: number; above?: number; max?: number; below?: number; words?: string }) {
+  const one = quantity(dimension, check);
+  return z.unknown().transform((value, ctx) => {
+    const items = Array.isArray(value) ? value : [value];
+    if (items.length < 1 || items.length > 2) {
+      ctx.addIssue({ code: "custom", message: "range", params: { expected: `one value or a [low, high] pair (${check?.words ?? expectedWords(dimension)})`, found: describe(value) } });
+      return z.NEVER;
+    }
+    const out: number[] = [];
+    for (const [i, item] of items.entries()) {
+      const parsed = one.safeParse(item);
+      if (!parsed.success) {
+        for (const issue of parsed.error.issues) {
+          const params = (issue as { params?: { expected?: string; found?: string } }).params;
+          ctx.addIssue({ code: "custom", message: issue.message, params: params ?? {}, path: Array.isArray(value) ? [i] : [] });
+        }
+        return z.NEVER;
+      }
+      if (check?.below !== undefined && !(parsed.data < check.below)) {
+        ctx.addIssue({ code: "custom", message: "range", params: { expected: check.words ?? "a value in range", found: describe(item) }, path: Array.isArray(value) ? [i] : [] });
+        return z.NEVER;
+      }
+      out.push(parsed.data);
+    }
+    const low = out[0]!;
+    const high = out[out.length - 1]!;
+    if (low > high) {
+      ctx.addIssue({ code: "custom", message: "range", params: { expected: "a [low, high] pair with low ≤ high", found: describe(value) } });
+      return z.NEVER;
+    }
+    return { low, high };
+  });
+}
+
+/** The healthy systems a supervisor must let through: ranges of what varies between units and over life. */
+const supervisionCornersSchema = z.strictObject({
+  capacitance: quantityRange("capacitance", { above: 0, words: 'a capacitance > 0 such as "4.7 mF"' }),
+  busVoltage: quantityRange("voltage", { above: 0, words: 'a bus voltage > 0 such as "48 V"' }).optional(),
+  completionFraction: quantityRange("dimensionless", { above: 0, below: 1, words: "a completion fraction of the bus voltage, above 0 and below 1, such as 0.95" }).optional(),
+  loads: z.array(loadSchema).min(1).optional(),
+});
+
+/** The supervision section: corner set, check times and margins for the timeout window and early-abort checks. */
+export const supervisionSchema = z.strictObject({
+  corners: supervisionCornersSchema,
+  startVoltage: quantity("voltage", { min: 0, words: 'a capacitor voltage ≥ 0 such as "0 V"' }).optional(),
+  checkTimes: z.array(positiveTime("a check time")).min(1).optional(),
+  riseCheckTimes: z.array(positiveTime("a check time")).min(1).optional(),
+  checkMargin: quantity("dimensionless", { min: 0, max: 0.9, words: "a margin as a fraction of the voltage, from 0 to 0.9, such as 0.2" }).optional(),
+  minCheckVoltage: quantity("voltage", { above: 0, words: 'a voltage > 0 such as "2 V"' }).optional(),
+});
+
+/** A validated supervision section (SI numbers). */
+export type SupervisionInput = z.output<typeof supervisionSchema>;
 
 /**
  * The duty-profile file, validated and with every quantity converted to SI (temperatures in °C).
@@ -263,6 +324,7 @@ export const profileSchema = z.strictObject({
   circuit: circuitSchema.optional(),
   events: z.array(eventSchema).min(1),
   retryPlan: retryPlanSchema.optional(),
+  supervision: supervisionSchema.optional(),
 });
 
 /** The profile as validated by {@link profileSchema}, before networks and files are resolved. */
