@@ -32,7 +32,7 @@ export interface SeriesResistorParams {
  * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 and §8.7
  * (RC responses), §5.5 (Thévenin equivalent of source and load); the energy C·V²/2 lost in
  * charging through any resistance: Irwin & Nelms, Basic Engineering Circuit Analysis, 10th ed.
- * (2011), §6.1 and §7.2.
+ * (2011), §6.1 and §7.2 (section numbers from memory).
  * Validity: ideal source, resistor and capacitor (no ESR, no temperature dependence of R).
  * Cost: see {@link runChargeEvent}; O(1) for no, resistive or shorted loads.
  * @throws InputError naming the field: `resistanceOhm` (> 0), `sourceResistanceOhm` (≥ 0),

@@ -8,11 +8,15 @@ import { ODEX_OUTCOME, createOdexSolver } from "./loadOdex.js";
  * - `odeTolerance`: odex's relative and absolute tolerance on the scaled bus voltage V/Vscale
  *   and on the scaled integrals ∫V dt, ∫V² dt;
  * - `powerTolerance`: the piecewise-linear power of each part stays within this fraction of that
- *   part's largest power over 0 ≤ V ≤ Vscale, checked at the quarter, half and three-quarter
+ *   part's largest power over 0 ≤ V ≤ Vscale (or of 1e-9 of the largest part's, for a part
+ *   whose power is negligible), checked at the quarter, half and three-quarter
  *   points of every segment against the ODE's dense output (tested against the closed-form
  *   trajectory in test/circuits/constantPowerLoad.test.ts).
  */
 export const NONLINEAR_ACCURACY = { odeTolerance: 1e-11, powerTolerance: 1e-4 } as const;
+
+/** At most this many segment splits per ODE step (a guard; smooth powers need a handful). */
+export const MAX_SPLITS_PER_STEP = 256;
 
 /** What one stretch of a regime produced, in stretch-local time. */
 export interface RegimeStretch {
@@ -52,7 +56,8 @@ function quadraticScale(q: Quadratic, vMax: number): number {
  * Source: E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I,
  * 2nd ed. (1993), §II.9 (ODEX) and §II.6 (dense output); monotonicity of scalar autonomous ODEs:
  * Hirsch, Smale & Devaney, Differential Equations, Dynamical Systems, and an Introduction to
- * Chaos, 3rd ed. (2013), §1.3 (first-order autonomous equations: phase line).
+ * Chaos, 3rd ed. (2013), ch. 1 (first-order autonomous equations: phase line) (section numbers
+ * from memory).
  * Validity: V stays > 0 (constant-power terms are only present above a disable voltage > 0).
  * Cost: O(ODE steps × parts × subdivisions).
  * @param wantSamples also return (t, V, I) at every segment boundary
@@ -72,7 +77,11 @@ export function integrateBusOde(
   const T = (capacitanceF * scaleV) / iScale;
   const u0 = initialVoltageV / scaleV;
   const keys = Object.keys(regime.partPower);
-  const roleTol = keys.map((k) => NONLINEAR_ACCURACY.powerTolerance * quadraticScale(regime.partPower[k]!, scaleV));
+  // a part whose power is negligible beside the others (a source resistance of 1e-300 Ω) is held
+  // to 1e-9 of the largest part's power instead of its own, which may underflow to 0
+  const scales = keys.map((k) => quadraticScale(regime.partPower[k]!, scaleV));
+  const largest = Math.max(0, ...scales);
+  const roleTol = scales.map((sc) => NONLINEAR_ACCURACY.powerTolerance * Math.max(sc, 1e-9 * largest));
   const segments: Record<string, PowerSegment[]> = {};
   for (const k of keys) segments[k] = [];
   const samples: CircuitSample[] = [];
@@ -103,7 +112,10 @@ export function integrateBusOde(
     if (wantSamples) pushSample(xa, ua);
   };
 
-  // Split [xa, xb] until the chord of every part's power is within its tolerance at 1/4, 1/2, 3/4.
+  // Split [xa, xb] until the chord of every part's power is within its tolerance at 1/4, 1/2, 3/4;
+  // at most MAX_SPLITS_PER_STEP splits per ODE step, so a tolerance that rounding cannot meet
+  // costs a bounded number of segments, never an exponential search.
+  let splitsLeft = 0;
   const refine = (dense: (c: number, x: number) => number, xa: number, ua: number, xb: number, ub: number, depth: number): void => {
     const fits = (): boolean => {
       for (const f of [0.25, 0.5, 0.75]) {
@@ -116,10 +128,11 @@ export function integrateBusOde(
       }
       return true;
     };
-    if (depth >= 40 || fits()) {
+    if (depth >= 40 || splitsLeft <= 0 || fits()) {
       emit(xa, ua, xb, ub);
       return;
     }
+    splitsLeft--;
     const xm = 0.5 * (xa + xb);
     const um = dense(0, xm);
     refine(dense, xa, ua, xm, um, depth + 1);
@@ -148,6 +161,7 @@ export function integrateBusOde(
   if (xEnd > 0) {
     result = solver.solve(f, 0, [u0, 0, 0], xEnd, (_n, xOld, x, y, dense) => {
       if (dense === undefined || x === xOld) return;
+      splitsLeft = MAX_SPLITS_PER_STEP;
       const u1 = y[0]!;
       // the earliest level crossed in this step
       let first: { level: BusLevel; x: number } | undefined;

@@ -28,7 +28,8 @@ let odexModule: { Solver: new (n: number) => OdexSolver } | undefined;
  * Note: odex never starts with a step below 1e-4 of the independent variable; callers scale time
  * so that the problem's time scale is about 1.
  * Source: E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I, 2nd ed.
- * (Springer 1993), §II.9 (extrapolation methods, code ODEX) and §II.6 (dense output).
+ * (Springer 1993), §II.9 (extrapolation methods, code ODEX) and §II.6 (dense output) (section numbers from
+ * memory).
  * Cost: one module load per process.
  */
 export function createOdexSolver(n: number): OdexSolver {

@@ -1,6 +1,13 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import type { ChargeConditions } from "./CircuitResult.js";
 
+/**
+ * The range of completion fractions seen in practice: a pre-charge is usually called done at
+ * 90 % to 95 % of the source voltage (common practice, no published source). For help texts and
+ * examples; it is not a default, the profile states its own rule.
+ */
+export const COMMON_COMPLETION_FRACTIONS = { low: 0.9, high: 0.95 } as const;
+
 /** A validated completion rule with no optional fields. */
 export interface ResolvedCompletion {
   /** bus voltage at which the charge completes [V], or undefined for a dwell-only rule */

@@ -1,4 +1,4 @@
-import { inputError } from "../errors/InputError.js";
+import { describeFound, inputError } from "../errors/InputError.js";
 import { type PowerSegment, type PowerTerm, segmentEnergy } from "../thermal/powerTrace.js";
 import { type BusLoad, busLoadStartsOn, busLoadTerms, busLoadThresholds } from "./BusLoad.js";
 import { type BusLevel, type BusRegime, type ChargeModel, type Quadratic, evalQuadratic } from "./BusRegime.js";
@@ -9,8 +9,14 @@ import { type ResolvedCompletion, reasonNumber, resolveCompletion } from "./reso
 /** Samples per exact (analytic) stretch when samples are requested. */
 export const SAMPLES_PER_STRETCH = 16;
 
-/** At most this many regime changes (load switching, mode changes) in one event. */
-export const MAX_REGIME_CHANGES = 1_000_000;
+/**
+ * Limits that keep one event's memory bounded (a load cycling on and off for a long timeout adds
+ * segments every cycle): at most this many regime changes (load switching, mode changes) and this
+ * many power-trace segments in all roles together. Past either, the event is refused with an
+ * InputError on `completion.timeoutS` that states the cycle period. About 200,000 segments take
+ * some 30 MB.
+ */
+export const EVENT_LIMITS = { regimeChanges: 100_000, traceSegments: 200_000 } as const;
 
 /**
  * Build the regime for a feed mode and a load state: capacitor current
@@ -84,7 +90,7 @@ function quadraticTerms(q: Quadratic, base: number, d: number, rate: number, k: 
  * V(s) = Vf + (V0 − Vf)·e^(−s/τ) with Vf = g0/g1, τ = C/g1 (g1 > 0), or V(s) = V0 + (g0/C)·s
  * (g1 = 0); the time to a level L is τ·ln((V0 − Vf)/(L − Vf)) or (L − V0)·C/g0.
  * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 (the
- * source-free RC circuit) and §8.7 (driven RC circuits).
+ * source-free RC circuit) and §8.7 (driven RC circuits) (section numbers from memory).
  */
 function linearStretch(r: BusRegime, c: number, v0: number, maxS: number, levels: readonly BusLevel[], wantSamples: boolean): RegimeStretch {
   const exp = r.g1 > 0;
@@ -141,7 +147,8 @@ type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | 
  * Follow the bus on its phase line, without time, from regime r at V: it moves in the direction
  * of i(V) to the nearest level unless an equilibrium (a root of −g1·V² + g0·V + h = 0) comes
  * first; a repeated (regime, level) means a limit cycle.
- * Source: Hirsch, Smale & Devaney (2013), §1.3 (phase line of a first-order autonomous equation).
+ * Source: Hirsch, Smale & Devaney (2013), ch. 1 (phase line of a first-order autonomous equation,
+ * from memory).
  */
 function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
   let r = r0;
@@ -207,7 +214,7 @@ function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusL
  * dumps C·V0²/2 into the load at t = 0.
  * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 and §8.7
  * (first-order RC responses); the energy identity is Tellegen's theorem, Desoer & Kuh, Basic
- * Circuit Theory (1969), §9.5.
+ * Circuit Theory (1969), §9.5 (section numbers from memory).
  * Cost: O(regime changes × parts) for linear regimes, plus the ODE work for nonlinear ones
  * (a repeated nonlinear stretch, as in load cycling, is integrated once and reused).
  * @throws InputError for bad conditions (see {@link resolveCompletion}) or too many regime changes
@@ -251,6 +258,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     reason = `bus already at ${reasonNumber(v)} V, at or above ${rule.thresholdWords}`;
   }
   let changes = 0;
+  let segmentCount = 0;
   while (outcome === undefined) {
     const remaining = limitS - t;
     const levels = levelsOf(regime);
@@ -266,7 +274,9 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
       }
     }
     for (const [key, segs] of Object.entries(stretch.segments)) {
-      if (traces[key] !== undefined) for (const s of segs) traces[key]!.push({ ...s, startS: s.startS + t });
+      if (traces[key] === undefined) continue;
+      for (const s of segs) traces[key]!.push({ ...s, startS: s.startS + t });
+      segmentCount += segs.length;
     }
     for (const [key, e] of Object.entries(stretch.partsJ)) partsJ[key] = (partsJ[key] ?? 0) + e;
     sourceJ += stretch.sourceJ;
@@ -304,8 +314,14 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
       reason = `bus reached ${rule.thresholdWords} at ${reasonNumber(t)} s`;
       break;
     }
-    if (++changes > MAX_REGIME_CHANGES)
-      throw inputError("out-of-range", "completion.timeoutS", `a timeout that allows at most ${MAX_REGIME_CHANGES} load or mode changes`, String(rule.timeoutS));
+    if (++changes > EVENT_LIMITS.regimeChanges || segmentCount > EVENT_LIMITS.traceSegments)
+      throw inputError(
+        "out-of-range",
+        "completion.timeoutS",
+        `a timeout short enough for at most ${EVENT_LIMITS.regimeChanges} load or mode changes and ${EVENT_LIMITS.traceSegments} power segments ` +
+          `(the bus switched ${changes} times in the first ${reasonNumber(t)} s)`,
+        describeFound(rule.timeoutS),
+      );
     regime = nextRegime(model, load, regime, level);
     v = level.voltageV;
     if (v === 0 && regime.h === 0 && regime.g0 < 0 && !regime.clamped) regime = buildRegime(model, load, regime.mode, regime.loadOn, true);

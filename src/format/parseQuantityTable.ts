@@ -35,7 +35,8 @@ const HEADER_CELL = /^(.*?)\s*(?:\[([^\]]*)\]|\(([^)]*)\)|\s\/\s*(.+))?\s*$/;
  * optional unit, `time [ms]`, `Zth (K/W)`, `t / s`. Columns are found by name (headerPattern) or,
  * without a match or a header, by position. A column's unit comes from its option (QuantityColumn.unit)
  * or else the header; a column with neither is an error (a unit is never guessed: datasheets mix
- * ms and s). Every value is scaled to SI by its unit (units/parseQuantity).
+ * ms and s). Every value is scaled to SI by its unit (units/parseQuantity). Every data row must
+ * have as many cells as the header: a decimal comma would otherwise shift the columns silently.
  * Source: RFC 4180 (CSV); SI brochure, 9th ed. (BIPM 2019), §2 and table 8 for unit prefixes.
  * Cost O(cells); the first unit parsed loads mathjs (about 1 s).
  * @param text the file's text
@@ -89,8 +90,9 @@ export function parseQuantityTable(text: string, columns: readonly QuantityColum
   });
   const data = hasHeader ? records.slice(1) : records;
   if (data.length === 0) return fail(first.info.lines, "", "data rows below the header", "none");
+  const width = hasHeader ? first.record.length : columns.length;
   const rows = data.map(({ record, info }) => ({
-    line: info.lines,
+    line: checkWidth(record, info.lines, width, hasHeader, fail),
     values: columns.map((column, j) => {
       const cell = record[indices[j]!];
       if (cell === undefined || !isNumber(cell)) return fail(info.lines, column.key, `a number (in ${units[j]!})`, cell === undefined ? "nothing" : describeFound(cell));
@@ -98,6 +100,20 @@ export function parseQuantityTable(text: string, columns: readonly QuantityColum
     }),
   }));
   return { rows, units };
+}
+
+/**
+ * Every data row has as many cells as the header (or as the columns wanted, without a header):
+ * a decimal comma ("1,5;0,2") would otherwise split one number into two and shift the columns.
+ */
+function checkWidth(record: readonly string[], line: number, width: number, hasHeader: boolean, fail: (line: number, field: string, expected: string, found: string) => never): number {
+  if (record.length === width) return line;
+  return fail(
+    line,
+    "",
+    `${width} cells like the ${hasHeader ? "header" : "columns wanted"} (numbers use a decimal point; cells are separated by commas, semicolons or tabs)`,
+    `${record.length} cells: ${describeFound(record.join(" | "))}`,
+  );
 }
 
 function parseHeaderCell(cell: string): { name: string; unit: string } {

@@ -13,6 +13,27 @@ export interface BurstPlan {
   /** gaps before attempts 2..N [s], each ≥ 0 */
   readonly gapsS: readonly number[];
   readonly spacing: RetrySpacing;
+  /**
+   * start-to-start only: what happens when an attempt outlasts its gap. "forbid" (default): the
+   * burst is impossible (solvers treat it as unsafe); "start-at-end": the next attempt starts as
+   * soon as the previous one ends (how a firmware timer that is checked after the attempt behaves,
+   * and how duty profiles expand retry blocks).
+   */
+  readonly overrun?: "forbid" | "start-at-end";
+}
+
+/**
+ * The gaps of a retry block with back-off, start to start: the k-th gap is
+ * min(interval·backoff^(k−1), maxInterval). Cost O(attempts).
+ */
+export function backoffBurst(attempts: number, intervalS: number, backoff: number, maxIntervalS: number): BurstPlan {
+  const gapsS: number[] = [];
+  let gap = intervalS;
+  for (let k = 1; k < attempts; k++) {
+    gapsS.push(gap);
+    gap = Math.min(gap * backoff, maxIntervalS);
+  }
+  return { gapsS, spacing: "start-to-start", overrun: "start-at-end" };
 }
 
 /** A burst of `attempts` attempts at a uniform interval. */

@@ -18,9 +18,9 @@ export interface FastestScheduleOptions {
 export interface ScheduledAttempt {
   /** 1-based attempt number */
   readonly attempt: number;
-  /** start [s] from the first attempt's start */
+  /** start [s] from the first attempt's start (the latest over the corners) */
   readonly startS: number;
-  /** wait after the previous attempt ended (latest end over the corners) [s]; null for the first */
+  /** wait after the previous attempt ended, the same in every corner [s]; null for the first */
   readonly waitS: number | null;
   /** this wait over the previous one; null for the first two attempts or a zero previous wait */
   readonly ratio: number | null;
@@ -48,7 +48,8 @@ export interface FastestScheduleAnswer {
  * its own peak stays at or below limit − margin in every corner.
  *
  * Attempt 1 starts at t = 0. For each later attempt the waits after the previous attempt's end
- * (latest over the corners) are scanned upward from 0 on the scan grid, stopping at the first
+ * (each corner from its own end, as a firmware timer started at the end or trip would) are
+ * scanned upward from 0 on the scan grid, stopping at the first
  * wait that is safe in every corner; the edge between it and the unsafe wait before it is
  * bisected (relative tolerance PLAN_DEFAULTS.bisectionRelTol), keeping the safe side. Scanning
  * upward from 0 finds the earliest safe moment even when peak against wait is not monotone
@@ -68,27 +69,29 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
   const cursors = corners.map((c) => new AttemptCursor(c));
   const schedule: ScheduledAttempt[] = [];
   let stoppedBecause: string | null = null;
-  const trialsAt = (startS: number): AttemptTrial[] | null => {
+  const trialsAt = (startOf: (cursor: AttemptCursor) => number): AttemptTrial[] | null => {
     const trials: AttemptTrial[] = [];
     for (const cursor of cursors) {
-      const t = cursor.tryAt(startS);
+      const t = cursor.tryAt(startOf(cursor));
       if (t === null || !t.safe) return null;
       trials.push(t);
     }
     return trials;
   };
   for (let k = 0; k < attempts; k++) {
-    const endS = k === 0 ? 0 : Math.max(...cursors.map((c) => c.endS));
     let waitS: number | null = null;
     let trials: AttemptTrial[] | null = null;
-    if (k === 0) trials = trialsAt(0);
+    if (k === 0) trials = trialsAt(() => 0);
     else {
+      // Each corner waits from its own attempt's end (a firmware timer started when the attempt
+      // ends or trips), so the wait is common and the start times may differ between corners.
+      const after = (w: number) => (cursor: AttemptCursor) => cursor.endS + w;
       let previous = -1;
       for (const w of grid) {
-        trials = trialsAt(endS + w);
+        trials = trialsAt(after(w));
         if (trials !== null) {
-          waitS = previous < 0 ? w : refine(previous, w, (x) => trialsAt(endS + x) !== null);
-          if (waitS !== w) trials = trialsAt(endS + waitS);
+          waitS = previous < 0 ? w : refine(previous, w, (x) => trialsAt(after(x)) !== null);
+          if (waitS !== w) trials = trialsAt(after(waitS));
           break;
         }
         previous = w;
@@ -105,7 +108,7 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
     const previousWait = schedule[schedule.length - 1]?.waitS ?? null;
     schedule.push({
       attempt: k + 1,
-      startS: endS + (waitS ?? 0),
+      startS: Math.max(...trials.map((t) => t.record.startS)),
       waitS,
       ratio: waitS !== null && previousWait !== null && previousWait > 0 ? waitS / previousWait : null,
       governing: governingCorner(trials.map((t, i) => entry(corners[i]!, t))),

@@ -27,7 +27,8 @@ export function runBurst(cursor: AttemptCursor, plan: BurstPlan, firstStartS: nu
   let worstHeadroomK = Infinity;
   let peakC = -Infinity;
   for (let i = 0; i <= plan.gapsS.length; i++) {
-    const startS = i === 0 ? firstStartS : (plan.spacing === "start-to-start" ? cursor.lastStartS : cursor.endS) + plan.gapsS[i - 1]!;
+    let startS = i === 0 ? firstStartS : (plan.spacing === "start-to-start" ? cursor.lastStartS : cursor.endS) + plan.gapsS[i - 1]!;
+    if (i > 0 && plan.overrun === "start-at-end" && startS < cursor.endS) startS = cursor.endS;
     const trial = cursor.tryAt(startS);
     if (trial === null) return { records, firstUnsafe, overlapAt: i, worstHeadroomK, peakC };
     records.push(cursor.keep(trial));

@@ -3,6 +3,7 @@ import type { CompletionRule } from "../circuits/CircuitResult.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
+import type { RetryPlanInput } from "./profileSchema.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -95,6 +96,8 @@ export interface DutyProfile {
   readonly parts: readonly ProfilePart[];
   readonly circuit?: ProfileCircuit;
   readonly events: readonly ProfileEvent[];
+  /** the retry plan section (questions and corners for `heatledger retries`), when given */
+  readonly retryPlan?: RetryPlanInput;
   /** the supervision section, when the profile has one (read by `heatledger supervise`) */
   readonly supervision?: SupervisionSpec;
 }

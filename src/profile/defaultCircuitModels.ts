@@ -1,6 +1,8 @@
+import { chargeConverter } from "../circuits/chargeConverter.js";
+import { chargeLinearMosfet } from "../circuits/chargeLinearMosfet.js";
 import { chargeSeriesResistor } from "../circuits/chargeSeriesResistor.js";
 import { dischargeVoltage } from "../circuits/dischargeVoltage.js";
-import { InputError, inputError } from "../errors/InputError.js";
+import { InputError } from "../errors/InputError.js";
 import type { CircuitModels } from "./CircuitModels.js";
 
 /** Prefix circuit-model problems with the profile section their values came from. */
@@ -32,8 +34,33 @@ export const defaultCircuitModels: CircuitModels = {
             },
             conditions,
           );
-        default:
-          throw inputError("bad-profile", "circuit.topology", "a topology whose circuit model is part of this build (series-resistor)", JSON.stringify(circuit.topology));
+        case "linear-mosfet":
+          return chargeLinearMosfet(
+            {
+              capacitanceF: circuit.capacitanceF,
+              gateVoltageV: circuit.gateVoltageV,
+              thresholdVoltageV: circuit.thresholdVoltageV,
+              rdsOnOhm: circuit.rdsOnOhm,
+              load,
+              ...(circuit.sourceResistorOhm === undefined ? {} : { sourceResistorOhm: circuit.sourceResistorOhm }),
+              ...(circuit.saturationCurrentA === undefined ? {} : { saturationCurrentA: circuit.saturationCurrentA }),
+              ...(circuit.thresholdTempcoVPerK === undefined ? {} : { thresholdTempcoVPerK: circuit.thresholdTempcoVPerK }),
+            },
+            conditions,
+          );
+        case "converter":
+          return chargeConverter(
+            {
+              capacitanceF: circuit.capacitanceF,
+              mode: circuit.mode,
+              efficiency: circuit.efficiency,
+              load,
+              ...(circuit.currentA === undefined ? {} : { currentA: circuit.currentA }),
+              ...(circuit.powerW === undefined ? {} : { powerW: circuit.powerW }),
+              ...(circuit.currentLimitA === undefined ? {} : { currentLimitA: circuit.currentLimitA }),
+            },
+            conditions,
+          );
       }
     }),
   discharge: (path, capacitanceF, initialVoltageV, durationS) => inCircuit(() => dischargeVoltage(path, capacitanceF, initialVoltageV, durationS)),

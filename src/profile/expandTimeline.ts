@@ -89,8 +89,18 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
 
   const noPower = (): (PowerTrace | undefined)[] => new Array<PowerTrace | undefined>(partCount).fill(undefined);
   const zeros = (): number[] => new Array<number>(partCount).fill(0);
+  // shared by every event without power (never modified), so long idle stretches allocate nothing
+  const NO_POWER: readonly (PowerTrace | undefined)[] = Object.freeze(noPower());
+  const NO_ENERGY: readonly number[] = Object.freeze(zeros());
 
-  const plain = (kind: TimelineKind, field: string, label: string, durationS: number, traces = noPower(), energyJ = zeros()): TimelineEvent => {
+  const plain = (
+    kind: TimelineKind,
+    field: string,
+    label: string,
+    durationS: number,
+    traces: readonly (PowerTrace | undefined)[] = NO_POWER,
+    energyJ: readonly number[] = NO_ENERGY,
+  ): TimelineEvent => {
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     advance(durationS, field);
@@ -112,16 +122,16 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     });
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
-    const result = c.topology === undefined ? undefined : models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC });
+    const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC });
     const traces = noPower();
     const energyJ = zeros();
     profile.parts.forEach((p, i) => {
-      const trace = p.role === undefined ? undefined : result!.traces[p.role];
+      const trace = p.role === undefined ? undefined : result.traces[p.role];
       if (trace === undefined || trace.length === 0) return;
       traces[i] = trace.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
       energyJ[i] = trace.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
     });
-    const r = result!;
+    const r = result;
     let reason = r.reason;
     state.timeS += r.durationS;
     let durationS = r.durationS;

@@ -94,7 +94,16 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     if (!(error instanceof InputError)) throw error;
     throw withLocation(error, file, "", source.lineOf);
   }
-  return { file, name: input.name, description: input.description ?? "", parts: parts as ProfilePart[], ...(circuit === undefined ? {} : { circuit }), events, ...(supervision === undefined ? {} : { supervision }) };
+  return {
+    file,
+    name: input.name,
+    description: input.description ?? "",
+    parts: parts as ProfilePart[],
+    ...(circuit === undefined ? {} : { circuit }),
+    events,
+    ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
+    ...(supervision === undefined ? {} : { supervision }),
+  };
 }
 
 /** Most events a list can expand to (retries counted at their maximum, plus one lockout). */

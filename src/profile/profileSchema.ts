@@ -217,6 +217,38 @@ export const circuitSchema = z.strictObject({
   discharge: dischargeSchema,
 });
 
+// ---- retry plan (issue 6, read by src/plan for `heatledger retries`; nothing else uses it) ----
+
+/** One corner of the retry plan's corner set: the circuit and ambient values it changes. */
+const retryCornerSchema = z.strictObject({
+  name: z.string().min(1),
+  busVoltage: quantity("voltage", { above: 0, words: 'a bus voltage > 0 such as "58 V"' }).optional(),
+  ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "55 degC"' }).optional(),
+  capacitance: quantity("capacitance", { above: 0, words: 'a capacitance > 0 such as "5.2 mF"' }).optional(),
+  resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "9 ohm"' }).optional(),
+});
+
+/** The retry plan: which questions to answer for the profile's fault and over which corners. */
+export const retryPlanSchema = z.strictObject({
+  attempts: count(1, "a whole number of attempts ≥ 1").optional(),
+  interval: positiveTime("a retry interval").optional(),
+  spacing: z.enum(["start-to-start", "end-to-start"]).optional(),
+  nearAmbient: quantity("temperatureDifference", { above: 0, words: 'a temperature difference > 0 such as "2 K"' }).optional(),
+  map: z
+    .strictObject({
+      attempts: count(1, "a whole number of attempts ≥ 1").optional(),
+      from: positiveTime("a shortest interval").optional(),
+      to: positiveTime("a longest interval").optional(),
+      points: count(2, "a whole number of intervals ≥ 2").optional(),
+    })
+    .optional(),
+  corners: z.array(retryCornerSchema).min(1).optional(),
+});
+
+/** The retry plan as validated (SI numbers). */
+export type RetryPlanInput = z.output<typeof retryPlanSchema>;
+
+// ---- end of retry plan ----
 // ---------------------------------------------------------------------------------------------
 // supervision (read by `heatledger supervise`; resolved by resolveSupervision.ts)
 
@@ -291,6 +323,7 @@ export const profileSchema = z.strictObject({
   parts: z.array(partSchema).min(1),
   circuit: circuitSchema.optional(),
   events: z.array(eventSchema).min(1),
+  retryPlan: retryPlanSchema.optional(),
   supervision: supervisionSchema.optional(),
 });
 

@@ -6,6 +6,7 @@ import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
 import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
+import { memoizeCircuitModels } from "./memoizeCircuitModels.js";
 
 /** A part's verdict: within the limit less its margin, inside the margin, or past the limit. */
 export type PartVerdict = "pass" | "warn" | "fail";
@@ -118,7 +119,8 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const closeEvent = (): void => {
     if (current === undefined) return;
     lastIndex = current.index;
-    options.onEvent?.(current, {
+    if (options.onEvent !== undefined)
+      options.onEvent(current, {
       peakTemperatureC: Array.from(eventPeak, (rise, i) => ambient[i]! + rise),
       peakTimeS: Array.from(eventPeakTime),
     });
@@ -137,7 +139,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   };
 
   function* steps(): Generator<TimedStep> {
-    for (const item of expandTimeline(profile, options.models, { temperatureOf })) {
+    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf })) {
       const until = item.startS + item.durationS;
       if (item.type === "event") {
         openEvent(item);

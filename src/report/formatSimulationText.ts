@@ -74,7 +74,7 @@ export function formatSimulationText(profile: DutyProfile, result: SimulationRes
     ),
   );
   const short = digest.count <= EVENT_DIGEST_DEFAULTS.terminalAll && digest.all.length === digest.count;
-  const shown: readonly EventRecord[] = short ? digest.all : digest.hottest;
+  const shown: readonly EventRecord[] = short ? digest.all : [...digest.hottest].sort((a, b) => a.index - b.index);
   out.push(short ? "Events" : `Events: the ${shown.length} closest to a limit, of ${digest.count} (--json lists ${digest.all.length === digest.count ? "all" : `the first ${digest.all.length}`})`);
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;

@@ -14,7 +14,7 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
     ["pre-charge timeout, highest (cold part)", dur(w.cold.longestS), `short at ${volts(report.shortBusVoltageV)}`],
   ];
   if (w.underRetry !== null)
-    rows.push(["pre-charge timeout, highest (retry burst)", dur(w.underRetry.longestS), `hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C`]);
+    rows.push(["pre-charge timeout, highest (retry policy)", dur(w.underRetry.longestS), `${w.underRetry.binding ?? "policy"} bind; first burst's hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C`]);
   rows.push(["timeout window", w.exists ? `${dur(w.lowerS)} to ${dur(w.upperS)}` : "none", w.exists ? `margin ${dur(w.marginS)}` : w.reason]);
   rows.push(["profile's timeout", dur(report.configuredTimeoutS), report.configuredInside ? "inside the window" : "OUTSIDE the window"]);
   const a = report.recommendedAbort;
@@ -49,7 +49,8 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   out.push(`  longest timeout the part survives into a short, from cold: ${dur(w.cold.longestS)}  (${w.cold.corner})`);
   if (w.underRetry !== null && report.policy !== null)
     out.push(
-      `  longest timeout through the retry burst (${report.policy.attempts} attempts, ${report.policy.field}): ${dur(w.underRetry.longestS)}  (hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C)`,
+      `  longest timeout through the retry policy (${report.policy.attempts} attempts, then ${dur(report.policy.lockoutS)} lockout, repeated; ${report.policy.field}): ${dur(w.underRetry.longestS)}` +
+        `  (hottest attempt of the first burst starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C${w.underRetry.binding === null ? "" : `; ${w.underRetry.binding} bind`})`,
     );
   else out.push("  the profile has no retry block: the upper end is the cold one");
   if (w.exists) out.push(`  window: ${dur(w.lowerS)} to ${dur(w.upperS)}; margin ${dur(w.marginS)}${Number.isFinite(w.marginRatio) ? ` (upper/lower ${formatNumber(w.marginRatio, 3)})` : ""}`);

@@ -3,7 +3,7 @@ import { DEFAULT_TOP_CYCLES, MinerAccumulator, type MinerDamage } from "./minerD
 import { type PulseEnergyCheck, type RatingStatus, checkPulseEnergy } from "./pulseEnergyRating.js";
 import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
 import type { StressConfig, StressPartKind } from "./resolveStressConfig.js";
-import { type OperatingPoint, type SoaCheck, checkSoa } from "./soaTable.js";
+import { type OperatingPoint, type SoaCheck, checkSoa, soaDeratingFactor } from "./soaTable.js";
 import { LINEAR_MOSFET_CAUTION } from "../report/cautions.js";
 import { LIFETIME_CAUTION } from "./stressCautions.js";
 import { TurningPointFilter } from "./turningPoints.js";
@@ -22,6 +22,8 @@ export interface StressEvent {
   readonly peakPowerW: number;
   /** MOSFET operating points (time, Vds, Id) during the event; needed for the SOA check */
   readonly operatingPoints?: readonly OperatingPoint[];
+  /** the part's temperature at the event start [°C]; used to derate the SOA when the config says how */
+  readonly startTemperatureC?: number;
 }
 
 /** One point of the part's temperature history: time [s], temperature [°C]. */
@@ -149,9 +151,9 @@ export class StressAssessment {
       },
       { mode: options.mode ?? "repeating" },
     );
-    this.filter = new TurningPointFilter((p) => {
+    this.filter = new TurningPointFilter((timeS, value) => {
       this.turningPoints++;
-      this.counter.push(p.timeS, p.value);
+      this.counter.push(timeS, value);
     }, config.cycleHysteresisK);
   }
 
@@ -168,7 +170,7 @@ export class StressAssessment {
     const span = this.lastTimeS - this.firstTimeS;
     const periodS = this.options.periodS ?? (span > 0 ? span : undefined);
     this.counter.finish(periodS);
-    const { pulseEnergy, soa } = this.config;
+    const { pulseEnergy, soa, soaDerating } = this.config;
     const kind = this.options.partKind ?? "other";
     const checks: EventRatingCheck[] = events.map((e, i) => {
       const field = `events[${i}]`;
@@ -176,7 +178,13 @@ export class StressAssessment {
       const soaCheck =
         soa === undefined || e.operatingPoints === undefined || e.operatingPoints.length === 0 || !(e.durationS > 0)
           ? undefined
-          : checkSoa(soa, e.operatingPoints, e.durationS, field);
+          : checkSoa(
+              soa,
+              e.operatingPoints,
+              e.durationS,
+              field,
+              soaDerating === undefined || e.startTemperatureC === undefined ? 1 : soaDeratingFactor(soaDerating, e.startTemperatureC),
+            );
       const status = worseStatus(energy?.status ?? "pass", soaCheck?.status ?? "pass");
       return { index: e.index, startS: e.startS, pulseEnergy: energy, soa: soaCheck, status };
     });
@@ -187,6 +195,12 @@ export class StressAssessment {
     if (soa !== undefined)
       notes.push("SOA check: every operating point is held to the boundary for the whole event duration (conservative; common practice).");
     else if (kind === "mosfet") notes.push("No SOA table given: operating points are not checked against a safe operating area.");
+    if (soa !== undefined && soaDerating === undefined)
+      notes.push("SOA not derated for temperature: the boundaries hold as drawn; give ratings.soaDerating to scale them for a hot part.");
+    else if (soa !== undefined && soaDerating !== undefined)
+      notes.push(
+        `SOA derated linearly from ${soaDerating.referenceC} °C to zero at ${soaDerating.maxJunctionC} °C, at the part's temperature at each event start (common practice).`,
+      );
     if (soa !== undefined && events.some((e) => e.operatingPoints === undefined || e.operatingPoints.length === 0))
       notes.push("Some events carry no operating points: they were not checked against the SOA.");
     if (this.config.lifetime === undefined)

@@ -51,7 +51,8 @@ export function formatStressSection(partId: string, report: StressReport): strin
         lines.push(
           `    event ${e.index} at ${num(e.startS)} s: SOA ${STATUS_WORDS[soa.status]}: ${soa.pointsOutside} of ${soa.pointsChecked} points past the boundary, ` +
             `${soa.pointsNotCovered} not covered` +
-            (w === undefined ? "" : `; worst ${num(w.idA)} A at ${num(w.vdsV)} V (allowed ${num(w.allowedA)} A for ${num(soa.durationS)} s)`),
+            (w === undefined ? "" : `; worst ${num(w.idA)} A at ${num(w.vdsV)} V (allowed ${num(w.allowedA)} A for ${num(soa.durationS)} s)`) +
+            (soa.deratingFactor < 1 ? `, boundaries derated to ${num(soa.deratingFactor * 100)} %` : ""),
         );
       }
     }
@@ -60,7 +61,8 @@ export function formatStressSection(partId: string, report: StressReport): strin
     const worstEnergy = Math.max(0, ...checked.map((e) => e.pulseEnergy?.utilisation ?? 0));
     if (worstEnergy > 0) lines.push(`    highest pulse-energy use: ${num(worstEnergy * 100)} % of the rating`);
     const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
-    if (worstSoa > 0) lines.push(`    highest SOA use: ${num(worstSoa * 100)} % of the allowed current`);
+    if (worstSoa === Number.POSITIVE_INFINITY) lines.push("    highest SOA use: no current allowed (an event starts at or above the maximum junction temperature)");
+    else if (worstSoa > 0) lines.push(`    highest SOA use: ${num(worstSoa * 100)} % of the allowed current`);
   } else lines.push("  ratings: no rating table applies");
   const c = report.cycleSummary;
   lines.push(

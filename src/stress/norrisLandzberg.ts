@@ -31,13 +31,15 @@ export const NORRIS_LANDZBERG_SNPB = { exponent: 1.9, frequencyExponent: 1 / 3, 
 /**
  * Norris-Landzberg cycles to failure of a temperature cycle, relative to a reference cycle:
  *   N_f = N_ref·(ΔT_ref/ΔT)^n·(f/f_ref)^m·exp(Ea/k·(1/T_max − 1/T_max,ref))
- * with f = 1/(cycle duration) [Hz], T_max in K. Source: Norris and Landzberg (1969), as
+ * with f = 1/(cycle duration) [Hz] (f_ref for a cycle of zero duration: no frequency credit),
+ * T_max in K. Source: Norris and Landzberg (1969), as
  * {@link NORRIS_LANDZBERG_SNPB} (the acceleration-factor equation, from memory).
  * Validity: the user's fitted ranges, if given. Cost O(1).
  */
 export function norrisLandzbergCycles(p: NorrisLandzbergParameters, load: CycleLoad): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;
-  const f = cycleQuantity(load, "frequency");
+  // a cycle of zero duration (two turning points at one instant) gets no frequency credit
+  const f = load.durationS > 0 ? cycleQuantity(load, "frequency") : p.referenceFrequencyHz;
   const tMaxK = load.maxC + CELSIUS_TO_KELVIN;
   const tRefK = p.referenceMaxC + CELSIUS_TO_KELVIN;
   return (

@@ -9,7 +9,7 @@ import { LESIT_PUBLISHED, lesitModel } from "./lesit.js";
 import type { CycleQuantity, FittedInterval, FittedRange, LifetimeModel } from "./LifetimeModel.js";
 import { NORRIS_LANDZBERG_SNPB, norrisLandzbergModel } from "./norrisLandzberg.js";
 import { type PulseEnergyPoint, validatePulseEnergyTable } from "./pulseEnergyRating.js";
-import { type SoaTable, validateSoaTable } from "./soaTable.js";
+import { type SoaDerating, type SoaTable, validateSoaTable } from "./soaTable.js";
 import { type StressKeysInput, stressKeysSchema } from "./stressKeysSchema.js";
 import { DEFAULT_CYCLE_HYSTERESIS_K } from "./turningPoints.js";
 
@@ -22,6 +22,8 @@ export interface StressConfig {
   readonly pulseEnergy: readonly PulseEnergyPoint[] | undefined;
   /** SOA boundaries (MOSFETs); undefined: none given */
   readonly soa: SoaTable | undefined;
+  /** how to derate the SOA for temperature; undefined: not derated */
+  readonly soaDerating: SoaDerating | undefined;
   /** the cycling-life model, built and checked; undefined: no cycling model */
   readonly lifetime: LifetimeModel | undefined;
   /** turning-point hysteresis [K] */
@@ -215,6 +217,15 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
     }));
     validateSoaTable(soa, f);
   }
+  let soaDerating: SoaDerating | undefined;
+  if (keys.ratings?.soaDerating !== undefined) {
+    const f = `${ratingsField}.soaDerating`;
+    const referenceC = parseQuantity(keys.ratings.soaDerating.reference, "temperature", `${f}.reference`);
+    const maxJunctionC = parseQuantity(keys.ratings.soaDerating.maxJunction, "temperature", `${f}.maxJunction`);
+    if (!(maxJunctionC > referenceC))
+      throw inputError("out-of-range", `${f}.maxJunction`, `a temperature above the reference ${referenceC} °C`, describeFound(keys.ratings.soaDerating.maxJunction));
+    soaDerating = { referenceC, maxJunctionC };
+  }
   const lifetimeField = at(prefix, "lifetime");
   if (options.partKind === "resistor" && keys.lifetime !== undefined && keys.lifetime.model !== "coffin-manson")
     throw inputError(
@@ -230,5 +241,5 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
       : parseQuantity(keys.cycleHysteresis, "temperatureDifference", at(prefix, "cycleHysteresis"));
   if (!(cycleHysteresisK >= 0))
     throw inputError("out-of-range", at(prefix, "cycleHysteresis"), "a temperature difference ≥ 0 K", describeFound(keys.cycleHysteresis));
-  return { pulseEnergy, soa, lifetime, cycleHysteresisK };
+  return { pulseEnergy, soa, soaDerating, lifetime, cycleHysteresisK };
 }

@@ -122,6 +122,29 @@ export function validateSoaTable(table: SoaTable, field = "ratings.soa"): void {
   });
 }
 
+/** Temperatures an SOA table was drawn at, for derating it to a hotter part. */
+export interface SoaDerating {
+  /** case temperature the boundaries were drawn for [°C] (commonly 25 °C) */
+  readonly referenceC: number;
+  /** the part's maximum junction temperature [°C] */
+  readonly maxJunctionC: number;
+}
+
+/**
+ * Derating factor of an SOA table for a part that starts an event at temperature T [°C]:
+ *   k = (T_j,max − T) / (T_j,max − T_ref), capped to [0, 1]
+ * (the power a boundary allows scales with the temperature headroom; no credit is taken below
+ * T_ref). Applied to the allowed current at every voltage, which is conservative in the
+ * current-limited corner. Using the junction (or observed-node) temperature at the event start
+ * in place of the case temperature is conservative too, since the junction is the hotter.
+ * Source: linear derating of power-limited SOA with case temperature is common practice.
+ * Cost O(1).
+ */
+export function soaDeratingFactor(derating: SoaDerating, temperatureC: number): number {
+  const k = (derating.maxJunctionC - temperatureC) / (derating.maxJunctionC - derating.referenceC);
+  return Math.min(1, Math.max(0, k));
+}
+
 /** The worst operating point of an event against the SOA. */
 export interface SoaWorstPoint extends OperatingPoint {
   /** allowed current at that voltage and the event's pulse duration [A] */
@@ -143,6 +166,8 @@ export interface SoaCheck {
   readonly pointsNotCovered: number;
   /** highest utilisation among covered points; undefined if none was covered */
   readonly worst: SoaWorstPoint | undefined;
+  /** factor the boundaries were multiplied by (1: not derated) */
+  readonly deratingFactor: number;
 }
 
 /**
@@ -152,11 +177,11 @@ export interface SoaCheck {
  * practice). Fails when any point lies above the allowed current; "outside-table" when none
  * fails but some point is not covered (a voltage above the table's last corner, or a pulse longer
  * than the longest boundary of a table without DC). Points with Id ≤ 0 or Vds ≤ 0 carry no SOA
- * stress and are skipped.
+ * stress and are skipped. `deratingFactor` (from {@link soaDeratingFactor}) scales every boundary.
  * Cost O(points × (curves + corners)).
  * @throws InputError `not-finite` for a non-finite sample, `out-of-range` for a duration ≤ 0
  */
-export function checkSoa(table: SoaTable, points: readonly OperatingPoint[], durationS: number, field = "event"): SoaCheck {
+export function checkSoa(table: SoaTable, points: readonly OperatingPoint[], durationS: number, field = "event", deratingFactor = 1): SoaCheck {
   if (!(durationS > 0) || !Number.isFinite(durationS))
     throw inputError("out-of-range", `${field}.durationS`, "an event duration > 0 s", describeFound(durationS));
   let worst: SoaWorstPoint | undefined;
@@ -168,15 +193,16 @@ export function checkSoa(table: SoaTable, points: readonly OperatingPoint[], dur
       throw inputError("not-finite", `${field}.operatingPoints[${i}]`, "finite time, Vds and Id", describeFound(p));
     if (!(p.idA > 0) || !(p.vdsV > 0)) return;
     pointsChecked++;
-    const allowedA = allowedDrainCurrentA(table, p.vdsV, durationS);
-    if (allowedA === undefined) {
+    const tableA = allowedDrainCurrentA(table, p.vdsV, durationS);
+    if (tableA === undefined) {
       pointsNotCovered++;
       return;
     }
-    const utilisation = p.idA / allowedA;
+    const allowedA = tableA * deratingFactor;
+    const utilisation = allowedA > 0 ? p.idA / allowedA : Number.POSITIVE_INFINITY;
     if (utilisation > 1) pointsOutside++;
     if (worst === undefined || utilisation > worst.utilisation) worst = { ...p, allowedA, utilisation };
   });
   const status: RatingStatus = pointsOutside > 0 ? "fail" : pointsNotCovered > 0 ? "outside-table" : "pass";
-  return { status, durationS, pointsChecked, pointsOutside, pointsNotCovered, worst };
+  return { status, durationS, pointsChecked, pointsOutside, pointsNotCovered, worst, deratingFactor };
 }

@@ -93,6 +93,7 @@ export const stressKeysSchema = z.object({
             .strict(),
         )
         .optional(),
+      soaDerating: z.object({ reference: quantity, maxJunction: quantity }).strict().optional(),
     })
     .strict()
     .optional(),

@@ -19,7 +19,8 @@ export interface StressJson {
       pointsChecked: number;
       pointsOutside: number;
       pointsNotCovered: number;
-      worst: { timeS: number; vdsV: number; idA: number; allowedA: number; utilisation: number } | null;
+      deratingFactor: number;
+      worst: { timeS: number; vdsV: number; idA: number; allowedA: number; utilisation: number | null } | null;
     } | null;
   }[];
   readonly cycles: {
@@ -75,7 +76,8 @@ export function stressReportJson(report: StressReport): StressJson {
               pointsChecked: e.soa.pointsChecked,
               pointsOutside: e.soa.pointsOutside,
               pointsNotCovered: e.soa.pointsNotCovered,
-              worst: e.soa.worst === undefined ? null : { ...e.soa.worst },
+              deratingFactor: e.soa.deratingFactor,
+              worst: e.soa.worst === undefined ? null : { ...e.soa.worst, utilisation: safe(e.soa.worst.utilisation) },
             },
     })),
     cycles: {

@@ -31,7 +31,7 @@ export interface TurningPoint {
  */
 export class TurningPointFilter {
   private readonly hysteresisK: number;
-  private readonly emit: (point: TurningPoint) => void;
+  private readonly emit: (timeS: number, value: number) => void;
   private started = false;
   private direction = 0;
   private firstValue = 0;
@@ -40,10 +40,10 @@ export class TurningPointFilter {
   private lastTimeS = Number.NEGATIVE_INFINITY;
 
   /**
-   * @param emit receives each confirmed turning point, in time order
+   * @param emit receives each confirmed turning point (time [s], value), in time order
    * @param hysteresisK reversal threshold [K] (default {@link DEFAULT_CYCLE_HYSTERESIS_K})
    */
-  constructor(emit: (point: TurningPoint) => void, hysteresisK: number = DEFAULT_CYCLE_HYSTERESIS_K) {
+  constructor(emit: (timeS: number, value: number) => void, hysteresisK: number = DEFAULT_CYCLE_HYSTERESIS_K) {
     if (!(hysteresisK >= 0) || !Number.isFinite(hysteresisK))
       throw inputError("out-of-range", "cycleHysteresis", "a temperature difference ≥ 0 K", describeFound(hysteresisK));
     this.hysteresisK = hysteresisK;
@@ -60,7 +60,7 @@ export class TurningPointFilter {
     if (!this.started) {
       this.started = true;
       this.firstValue = value;
-      this.emit({ timeS, value });
+      this.emit(timeS, value);
       return;
     }
     const h = this.hysteresisK;
@@ -77,7 +77,7 @@ export class TurningPointFilter {
         this.candidateValue = value;
         this.candidateTimeS = timeS;
       } else if (this.candidateValue - value > h) {
-        this.emit({ timeS: this.candidateTimeS, value: this.candidateValue });
+        this.emit(this.candidateTimeS, this.candidateValue);
         this.direction = -1;
         this.candidateValue = value;
         this.candidateTimeS = timeS;
@@ -86,7 +86,7 @@ export class TurningPointFilter {
       this.candidateValue = value;
       this.candidateTimeS = timeS;
     } else if (value - this.candidateValue > h) {
-      this.emit({ timeS: this.candidateTimeS, value: this.candidateValue });
+      this.emit(this.candidateTimeS, this.candidateValue);
       this.direction = 1;
       this.candidateValue = value;
       this.candidateTimeS = timeS;
@@ -95,7 +95,7 @@ export class TurningPointFilter {
 
   /** End of the history: emit the pending extreme, if the history ever moved beyond the band. */
   finish(): void {
-    if (this.direction !== 0) this.emit({ timeS: this.candidateTimeS, value: this.candidateValue });
+    if (this.direction !== 0) this.emit(this.candidateTimeS, this.candidateValue);
     this.direction = 0;
   }
 }

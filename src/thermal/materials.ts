@@ -15,7 +15,7 @@ export interface MaterialPreset {
   /** the handbook table the values belong to */
   readonly source: string;
   /**
-   * "from memory": transcribed from recollection of the named table, not checked against a printed
+   * "from memory": written down from recollection of the named table, not checked against a printed
    * copy while writing; verify before relying on the last digit.
    */
   readonly provenance: "from memory";
@@ -27,7 +27,7 @@ const INCROPERA_A2 = "Incropera, DeWitt, Bergman & Lavine, Fundamentals of Heat 
 /**
  * Material presets for lumped networks, declared once: every value with its source table beside it.
  * All values are at 300 K; specific heat of metals rises by roughly 5-15 % from 300 K to 600 K
- * (same tables, higher-temperature columns), so a hot element stores somewhat more heat than the
+ * (same tables, higher-temperature columns; from memory: copper about +8 %, aluminium about +14 %), so a hot element stores somewhat more heat than the
  * preset says, and a sizing from the preset errs on the safe side for metals.
  * Source: per entry (`source`); every entry is marked "from memory" (see MaterialPreset.provenance).
  */

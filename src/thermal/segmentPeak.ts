@@ -1,6 +1,6 @@
 import type { ModalModel } from "./ModalModel.js";
 import { type ModalState, type SourcePowers, advanceModalState, modalRise } from "./modalStep.js";
-import { powerAt } from "./powerTrace.js";
+import { type PowerTerm, powerAt } from "./powerTrace.js";
 
 /** An interior maximum of a node's rise inside one step. */
 export interface InteriorPeak {
@@ -31,10 +31,37 @@ export function riseSlope(model: ModalModel, state: ModalState, powers: SourcePo
 }
 
 /**
- * True when the rise of node o is provably monotone over the step: every power is constant and
- * every mode's contribution gain·(P − y) moves in the same direction (each mode relaxes
- * monotonically toward its constant input, so the sum cannot turn). This covers pulses from a
- * cool state and cooling gaps on Foster networks, the bulk of any long history.
+ * Sign of dP/ds over the whole step for one source: 0 for constant power, ±1 when the derivative
+ * keeps one sign (a ramp: dP/ds = Σb; a pure exponential a·e^(−lambda·s): sign of −lambda·a), or
+ * undefined when it cannot be told cheaply (a·s·e^(−lambda·s) terms, or contributions of both signs).
+ */
+function powerTrend(terms: readonly PowerTerm[] | undefined): number | undefined {
+  if (terms === undefined) return 0;
+  let trend = 0;
+  let ramp = 0;
+  for (const t of terms) {
+    if (t.lambda === 0) {
+      ramp += t.b;
+      continue;
+    }
+    if (t.b !== 0) return undefined;
+    const sign = Math.sign(-t.lambda * t.a);
+    if (sign === 0) continue;
+    if (trend !== 0 && sign !== trend) return undefined;
+    trend = sign;
+  }
+  const rampSign = Math.sign(ramp);
+  if (rampSign !== 0 && trend !== 0 && rampSign !== trend) return undefined;
+  return trend !== 0 ? trend : rampSign;
+}
+
+/**
+ * True when the rise of node o is provably monotone over the step. Each mode's drive
+ * u = P − y obeys du/ds = dP/ds − u/tau, so u keeps its starting sign when dP/ds has that same sign
+ * (or is zero) over the step: a constant or rising power starting above a mode's state, or a
+ * constant or falling power starting below it. When every mode's contribution gain·u/tau is thus of
+ * one fixed sign, and all agree, the slope of the rise never changes sign. This covers pulses from
+ * a cool state, rising edges, and cooling gaps, the bulk of any long history.
  */
 function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): boolean {
   const modes = model.tauS.length;
@@ -42,17 +69,15 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
   let direction = 0;
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
-    let p = 0;
-    if (terms !== undefined) {
-      for (const t of terms) {
-        if (t.b !== 0 || t.lambda !== 0) return false;
-        p += t.a;
-      }
-    }
+    const trend = powerTrend(terms);
+    if (trend === undefined) return false;
+    const p = terms === undefined ? 0 : powerAt(terms, 0);
     for (let m = 0; m < modes; m++) {
-      const v = row[src]![m]! * (p - state[src * modes + m]!);
-      if (v === 0) continue;
-      const sign = v > 0 ? 1 : -1;
+      const u = p - state[src * modes + m]!;
+      const side = Math.sign(u);
+      if (trend !== 0 && side !== 0 && side !== trend) return false;
+      const sign = Math.sign(row[src]![m]!) * (side !== 0 ? side : trend);
+      if (sign === 0) continue;
       if (direction === 0) direction = sign;
       else if (sign !== direction) return false;
     }
@@ -61,15 +86,62 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
 }
 
 /**
+ * For steps where every source's power is linear (a + b·s, no exponentials), the slope of the rise
+ * is an exponential sum S(s) = C + Σ_m k_m·e^(−s/tau_m) with C = Σ_src b·Σ_m gain and
+ * k_m = Σ_src gain·(u_m(0) − b·tau_m)/tau_m. By the rule of signs for exponential sums, S has no
+ * more zeros than its coefficients, ordered by rate (C first, then slower to faster modes), have
+ * sign changes. Returns C and k when there is at most one change (then at most one turn,
+ * bracketed by the step ends), else undefined. Source: generalised Descartes rule of signs for exponential sums (Laguerre),
+ * as in Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
+ */
+function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { constant: number; k: Float64Array } | undefined {
+  const modes = model.tauS.length;
+  const row = model.gainKPerW[o]!;
+  let constant = 0;
+  const k = new Float64Array(modes);
+  for (let src = 0; src < row.length; src++) {
+    const terms = powers[src];
+    let a = 0;
+    let b = 0;
+    if (terms !== undefined) {
+      for (const t of terms) {
+        if (t.lambda !== 0) return undefined;
+        a += t.a;
+        b += t.b;
+      }
+    }
+    for (let m = 0; m < modes; m++) {
+      const g = row[src]![m]!;
+      const tau = model.tauS[m]!;
+      constant += g * b;
+      k[m]! += (g * (a - state[src * modes + m]! - b * tau)) / tau;
+    }
+  }
+  const order = Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
+  let changes = 0;
+  let last = Math.sign(constant);
+  for (const m of order) {
+    const sign = Math.sign(k[m]!);
+    if (sign === 0) continue;
+    if (last !== 0 && sign !== last) changes++;
+    last = sign;
+  }
+  return changes <= 1 ? { constant, k } : undefined;
+}
+
+/**
  * Interior maxima of the rise of node o inside a step of length h starting from `state`.
  *
- * The slope d(rise)/ds is evaluated on a grid of {@link PEAK_GRID_POINTS} points (linear plus
- * log-spaced near the start, where fast modes turn); each change of sign from + to − brackets a
- * maximum, refined by bisection on the sign of the slope until the bracket is below 1e-12·h
- * (far finer than the 0.01 K the reports need). Steps whose rise is provably monotone skip the
- * search. Endpoints are not returned: the caller sees them as step ends.
- * Source: bisection on the derivative, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1 and
- * §10.3 (bracketing a maximum with derivative information).
+ * Steps whose rise is provably monotone skip the search. Steps with linear power and at most one
+ * turn (see linearSlopeSum) are bracketed by their ends and solved by safeguarded Newton on the
+ * closed-form slope. Otherwise the slope d(rise)/ds is evaluated
+ * on a grid of {@link PEAK_GRID_POINTS} points (linear plus log-spaced near the start, where fast
+ * modes turn) and each change of sign from + to − brackets a maximum. Each bracket is refined by
+ * the Illinois variant of regula falsi on the sign of the slope until it is below 1e-12·h (far
+ * finer than the 0.01 K the reports need). Endpoints are not returned: the caller sees them as
+ * step ends.
+ * Source: bracketing a maximum with derivative information, Press et al., Numerical Recipes, 3rd
+ * ed. (2007), §9.1–9.2, §9.4 (Newton with bracketing) and §10.3; the Illinois method, Dowell & Jarratt, BIT 11 (1971) 168–174.
  * Cost O(grid × sources × modes × terms), or O(sources × modes) when provably monotone.
  * @returns the interior peaks in time order (usually none or one)
  */
@@ -77,25 +149,74 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
   if (!(h > 0) || provablyMonotone(model, state, powers, o)) return [];
   const scratch = new Float64Array(state.length);
   const slopeAt = (s: number): number => riseSlope(model, advanceModalState(model, state, s, powers, scratch), powers, s, o);
-  const grid = peakGrid(model, h);
   const peaks: InteriorPeak[] = [];
-  let previousS = 0;
-  let previousSlope = slopeAt(0);
-  for (const s of grid) {
-    const slope = slopeAt(s);
-    if (previousSlope > 0 && slope <= 0) {
-      let lo = previousS;
-      let hi = s;
-      while (hi - lo > 1e-12 * h) {
-        const mid = 0.5 * (lo + hi);
-        if (mid <= lo || mid >= hi) break;
-        if (slopeAt(mid) > 0) lo = mid;
-        else hi = mid;
+  const refine = (lo: number, hi: number, fLo: number, fHi: number): void => {
+    let side = 0;
+    for (let i = 0; i < 200 && hi - lo > 1e-12 * h; i++) {
+      let mid = (lo * fHi - hi * fLo) / (fHi - fLo);
+      if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
+      if (mid <= lo || mid >= hi) break;
+      const f = slopeAt(mid);
+      if (f > 0) {
+        lo = mid;
+        fLo = f;
+        if (side === 1) fHi *= 0.5;
+        side = 1;
+      } else {
+        hi = mid;
+        fHi = f;
+        if (side === -1) fLo *= 0.5;
+        side = -1;
+        if (f === 0) lo = hi;
       }
-      const at = 0.5 * (lo + hi);
-      // A turn in the very last bracket at the step end belongs to the caller (it sees step ends).
-      if (at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
     }
+    const at = lo === hi ? lo : 0.5 * (lo + hi);
+    // A turn in the very last bracket at the step end belongs to the caller (it sees step ends).
+    if (at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
+  };
+  const single = linearSlopeSum(model, state, powers, o);
+  if (single !== undefined) {
+    // Closed-form slope S(s) = C + Σ k_m·e^(−s/tau_m) and its derivative: safeguarded Newton.
+    const { constant, k } = single;
+    const taus = model.tauS;
+    const slope = (x: number): [number, number] => {
+      let f = constant;
+      let df = 0;
+      for (let m = 0; m < k.length; m++) {
+        const term = k[m]! * Math.exp(-x / taus[m]!);
+        f += term;
+        df -= term / taus[m]!;
+      }
+      return [f, df];
+    };
+    const [f0] = slope(0);
+    const [fh] = slope(h);
+    if (!(f0 > 0 && fh <= 0)) return peaks;
+    let lo = 0;
+    let hi = h;
+    let x = 0.5 * h;
+    for (let i = 0; i < 100; i++) {
+      const [f, df] = slope(x);
+      if (f > 0) lo = x;
+      else hi = x;
+      if (f === 0 || hi - lo <= 1e-12 * h) break;
+      let next = x - f / df;
+      if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+      if (Math.abs(next - x) <= 1e-12 * h) {
+        x = next;
+        break;
+      }
+      x = next;
+    }
+    if (x < h * (1 - 1e-9)) peaks.push({ atS: x, riseK: modalRise(model, advanceModalState(model, state, x, powers, scratch), o) });
+    return peaks;
+  }
+  const first = slopeAt(0);
+  let previousS = 0;
+  let previousSlope = first;
+  for (const s of peakGrid(model, h)) {
+    const slope = slopeAt(s);
+    if (previousSlope > 0 && slope <= 0) refine(previousS, s, previousSlope, slope);
     previousS = s;
     previousSlope = slope;
   }

@@ -30,6 +30,7 @@ export async function run(print: (line: string) => void): Promise<void> {
     let cycles = 0;
     let counted = 0;
     const heapBefore = process.memoryUsage().heapUsed;
+    const cpuBefore = process.cpuUsage();
     const counter = new RainflowCounter(
       (c) => {
         cycles++;
@@ -41,21 +42,25 @@ export async function run(print: (line: string) => void): Promise<void> {
     for (let i = 0; i < POINTS; i++) counter.push(i, values[i]!);
     counter.finish();
     const seconds = (performance.now() - t0) / 1000;
+    const cpu = process.cpuUsage(cpuBefore);
+    const cpuSeconds = (cpu.user + cpu.system) / 1e6;
     const heapAfter = process.memoryUsage().heapUsed;
     print(
-      `rainflow ${mode}: ${seconds.toFixed(2)} s (target < 2 s), ${cycles.toLocaleString("en")} cycles (${counted.toLocaleString("en")} counted), ` +
+      `rainflow ${mode}: ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU (target < 2 s), ${cycles.toLocaleString("en")} cycles (${counted.toLocaleString("en")} counted), ` +
         `peak stack ${counter.peakStackSize} points, heap change ${((heapAfter - heapBefore) / 1048576).toFixed(1)} MiB`,
     );
   }
 
   const miner = new MinerAccumulator(lesitModel(LESIT_PUBLISHED));
+  const cpuBefore = process.cpuUsage();
   const counter = new RainflowCounter((c) => miner.add(c), { mode: "repeating" });
-  const filter = new TurningPointFilter((p) => counter.push(p.timeS, p.value), 1);
+  const filter = new TurningPointFilter((t, v) => counter.push(t, v), 1);
   t0 = performance.now();
   for (let i = 0; i < POINTS; i++) filter.push(i, values[i]!);
   filter.finish();
   counter.finish();
   const seconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpuBefore);
   const d = miner.result();
-  print(`filter (1 K) + rainflow + LESIT Miner sum: ${seconds.toFixed(2)} s, damage ${d.damagePerRepetition.toExponential(3)} per repetition`);
+  print(`filter (1 K) + rainflow + LESIT Miner sum: ${seconds.toFixed(2)} s wall, ${((cpu.user + cpu.system) / 1e6).toFixed(2)} s CPU, damage ${d.damagePerRepetition.toExponential(3)} per repetition`);
 }

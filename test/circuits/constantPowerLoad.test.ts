@@ -13,7 +13,7 @@ import { expectClose } from "../helpers/expectClose.js";
 // Analysis, 8th ed. (2012), ch. 5, maximum power transfer, §5.5 from memory). Between the roots
 // dV/dt > 0 and above the upper root dV/dt < 0, so the upper root r1 is the stable one and a bus
 // started between the roots settles there (phase-line argument: Hirsch, Smale & Devaney,
-// Differential Equations, Dynamical Systems, and an Introduction to Chaos, 3rd ed. (2013), §1.3).
+// Differential Equations, Dynamical Systems, and an Introduction to Chaos, 3rd ed. (2013), ch. 1, from memory).
 // The equation separates, dt = −R·C·V·dV/(V² − Vs·V + P·R), and partial fractions give the time
 // from V0 to V in closed form (integral tables: Abramowitz & Stegun (1964), 3.3.16 and 3.3.21,
 // from memory):

@@ -47,7 +47,7 @@ describe("heatledger network fit", () => {
     expect(json.errors.maxRelativeError).toBeLessThan(0.005);
     const fitted = networkToModal(parseNetwork(json.network));
     const known = fosterToModal(EXAMPLE_NETWORK);
-    // against the unrounded generating network: the same 0.5 % read-off bound (measured ≈ 0.2 %)
+    // against the unrounded generating network: the same 0.5 % read-off bound (measured 0.11 %)
     for (const t of logSpacedTimes(1e-5, 1, 60)) expectClose(zth(fitted, t), zth(known, t), { rel: 0.005 });
   });
 
@@ -120,6 +120,20 @@ describe("heatledger network from-rating", () => {
     const fitted = networkToModal(parseNetwork(json.network));
     // exact data: the fitted Zth matches to the 10 digits the network file keeps (measured 1e-10); 1e-7
     for (const t of logSpacedTimes(1e-3, 500, 50)) expectClose(zth(fitted, t), zth(model, t), { rel: 1e-7 });
+  });
+
+  test("network from-rating on the bundled example table gives back the bundled wirewound network it was made from", async () => {
+    // profiles/networks/example-pulse-rating.csv was generated from
+    // profiles/networks/wirewound-resistor-foster.yaml (E_max = 325 K·t_p/Zth(t_p)) and rounded to
+    // 3 significant digits: a read-off error up to 0.5 % per row, which bounds the Zth gap
+    // (measured 0.15 %).
+    const r = await run(["network", "from-rating", "rating.csv", "--start-temperature", "25 degC", "--max-temperature", "350 degC", "--json"], {
+      "rating.csv": readFileSync(`${root}profiles/networks/example-pulse-rating.csv`, "utf8"),
+    });
+    expect(r.status).toBe(0);
+    const fitted = networkToModal(parseNetwork((JSON.parse(r.out) as { network: unknown }).network));
+    const bundled = networkToModal(parseNetwork(parseStructuredText(readFileSync(`${root}profiles/networks/wirewound-resistor-foster.yaml`, "utf8"), "w.yaml").data));
+    for (const t of logSpacedTimes(1e-3, 1000, 60)) expectClose(zth(fitted, t), zth(bundled, t), { rel: 0.005 });
   });
 
   test("network from-rating text report states the conversion and its assumptions", async () => {

@@ -1,33 +1,10 @@
 import { execFileSync, spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { describe, expect, test } from "vitest";
-import type { CliIo } from "../../src/cli/CliIo.js";
 import { runCli } from "../../src/cli/main.js";
+import { memoryIo } from "../helpers/memoryIo.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
-
-/** An in-memory CliIo: files from a map, output collected. */
-export function memoryIo(files: Record<string, string> = {}): CliIo & { stdout: string[]; stderr: string[]; files: Record<string, string> } {
-  const stdout: string[] = [];
-  const stderr: string[] = [];
-  return {
-    stdout,
-    stderr,
-    files,
-    out: (t) => stdout.push(t),
-    err: (t) => stderr.push(t),
-    readFile: (p) => {
-      const text = files[p];
-      if (text === undefined) throw Object.assign(new Error(`ENOENT: ${p}`), { code: "ENOENT" });
-      return text;
-    },
-    writeFile: (p, t) => {
-      files[p] = t;
-    },
-    exists: (p) => p in files,
-    columns: 100,
-  };
-}
 
 describe("heatledger network show", () => {
   test("network show prints the Foster stages, total Rth and a Zth table", async () => {

@@ -25,7 +25,7 @@ describe("heatledger simulate, the built bin", () => {
     expect(bundled).toContain("warehouse-robot-48v.yaml");
   });
 
-  test.each(bundled)("profiles/%s: --json meets the contract, --csv has its columns", (file) => {
+  test.each(bundled)("profiles/%s: --json meets the contract, --csv has its columns", { timeout: 300_000 }, (file) => {
     const csv = join(temp, `${file}.csv`);
     const run = heatledger("simulate", `profiles/${file}`, "--json", "--csv", csv);
     expect(run.stderr).toBe("");

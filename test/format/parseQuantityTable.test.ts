@@ -39,7 +39,9 @@ describe("parseQuantityTable", () => {
     ["", "f.csv: expected a table with the columns time, zth, found no rows"],
     ["time [s], Zth [K/W]\n", "f.csv:1: expected data rows below the header, found none"],
     ["1, 0.5\n", "f.csv: time: expected a unit for the time column, in the header (\"time [ms]\") or as --time-unit, found no header"],
-    ["time [s], Zth [K/W]\n1\n", "f.csv:2: zth: expected a number (in K/W), found nothing"],
+    ["time [s], Zth [K/W]\n1\n", 'f.csv:2: expected 2 cells like the header (numbers use a decimal point; cells are separated by commas, semicolons or tabs), found 1 cells: "1"'],
+    ["time [s]; Zth [K/W]\n1,5; 0,2\n", 'f.csv:2: expected 2 cells like the header (numbers use a decimal point; cells are separated by commas, semicolons or tabs), found 4 cells: "1 | 5 | 0 | 2"'],
+    ["time [s], Zth [K/W]\n1, \n", 'f.csv:2: zth: expected a number (in K/W), found ""'],
   ])("parseQuantityTable rejects %j with file and line", (text, message) => {
     expect(() => parseQuantityTable(text, COLUMNS, "f.csv")).toThrow(InputError);
     expect(() => parseQuantityTable(text, COLUMNS, "f.csv")).toThrow(message);

@@ -1,6 +1,6 @@
 import type { CliIo } from "../../src/cli/CliIo.js";
 
-/** An in-memory CliIo for in-process CLI tests: files from a map, output collected. */
+/** An in-memory CliIo: files from a map, output collected. */
 export function memoryIo(files: Record<string, string> = {}): CliIo & { stdout: string[]; stderr: string[]; files: Record<string, string> } {
   const stdout: string[] = [];
   const stderr: string[] = [];

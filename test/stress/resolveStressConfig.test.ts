@@ -1,4 +1,6 @@
+import { readFileSync } from "node:fs";
 import { describe, expect, test } from "vitest";
+import { parse } from "yaml";
 import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/index.js";
 
 function message(raw: unknown, options: Parameters<typeof resolveStressConfig>[1] = { field: "parts[0]" }): string {
@@ -40,6 +42,14 @@ describe("resolveStressConfig", () => {
 
   test("defaults: no tables, no model, the default hysteresis", () => {
     expect(resolveStressConfig({})).toEqual({ pulseEnergy: undefined, soa: undefined, lifetime: undefined, cycleHysteresisK: DEFAULT_CYCLE_HYSTERESIS_K });
+  });
+
+  test("SOA derating temperatures are read in °C and must leave headroom", () => {
+    const soa = [{ duration: "dc", points: [{ vds: 10, id: 10 }] }];
+    expect(resolveStressConfig({ ratings: { soa, soaDerating: { reference: "25 degC", maxJunction: "448.15 K" } } }).soaDerating!.maxJunctionC).toBeCloseTo(175, 12);
+    expect(message({ ratings: { soa, soaDerating: { reference: "25 degC", maxJunction: "20 degC" } } })).toBe(
+      'parts[0].ratings.soaDerating.maxJunction: expected a temperature above the reference 25 °C, found "20 degC"',
+    );
   });
 
   test("CIPS 2008 reads a wire diameter with a unit", () => {
@@ -101,5 +111,19 @@ describe("resolveStressConfig", () => {
     expect(message({ lifetime: { model: "lesit" } }, { field: "parts[2]", partKind: "resistor" })).toBe(
       'parts[2].lifetime.model: expected "coffin-manson" with your own parameters, or no lifetime key (no cycling model is published for resistors), found "lesit"',
     );
+  });
+});
+
+describe("the stress keys example in DEVELOPERS.md", () => {
+  test("resolves without error, so the guide cannot rot", () => {
+    const guide = readFileSync(new URL("../../DEVELOPERS.md", import.meta.url), "utf8");
+    const block = /```yaml\n(parts:[\s\S]*?)```/.exec(guide);
+    expect(block).not.toBeNull();
+    const doc = parse(block![1]!) as { parts: { id: string }[] };
+    const kinds = { Q1: "mosfet", R1: "resistor" } as const;
+    for (const part of doc.parts) {
+      const config = resolveStressConfig(part, { field: part.id, partKind: kinds[part.id as keyof typeof kinds] });
+      expect(config.lifetime).toBeDefined();
+    }
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, allowedDrainCurrentA, checkSoa, validateSoaTable } from "../../src/index.js";
+import { InputError, allowedDrainCurrentA, checkSoa, soaDeratingFactor, validateSoaTable } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented SOA table (demo data): a current limit, then power-limited lines on log-log axes.
@@ -94,5 +94,29 @@ describe("validateSoaTable: bad tables get clear messages", () => {
   ])("%j", (table, message) => {
     expect(() => validateSoaTable(table)).toThrow(InputError);
     expect(() => validateSoaTable(table)).toThrow(message);
+  });
+});
+
+describe("soaDeratingFactor (linear derating with temperature, common practice)", () => {
+  const derating = { referenceC: 25, maxJunctionC: 175 };
+  test.each([
+    // (175 − T)/(175 − 25), capped to [0, 1]: exact binary fractions where possible
+    [25, 1],
+    [100, 0.5],
+    [137.5, 0.25],
+    [0, 1], // no credit below the reference
+    [175, 0],
+    [200, 0],
+  ])("at %d °C the boundaries are scaled by %d", (t, k) => {
+    expect(soaDeratingFactor(derating, t)).toBe(k);
+  });
+
+  test("a derated boundary fails a point the drawn one passes", () => {
+    const point = [{ timeS: 0, vdsV: 10, idA: 60 }];
+    expect(checkSoa(soa, point, 1e-4).status).toBe("pass"); // 60 of 100 A
+    const hot = checkSoa(soa, point, 1e-4, "event", soaDeratingFactor(derating, 100)); // 60 of 50 A
+    expect(hot.status).toBe("fail");
+    expect(hot.worst!.allowedA).toBe(50);
+    expect(hot.deratingFactor).toBe(0.5);
   });
 });

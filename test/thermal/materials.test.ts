@@ -5,7 +5,7 @@ import { InputError, MATERIALS, materialPreset } from "../../src/index.js";
 // digit in src/ fails here. All from Incropera, DeWitt, Bergman & Lavine, Fundamentals of Heat and
 // Mass Transfer, 7th ed. (2011), at 300 K; recalled, not re-read ("from memory"): check them
 // against a printed copy when one is at hand. FR-4 has no handbook row: typical laminate values,
-// common practice, from memory. Exact equality: these are transcriptions, not computations.
+// common practice, from memory. Exact equality: these are copied values, not computations.
 describe("MATERIALS", () => {
   test.each([
     // id,               table,  rho [kg/m³], c_p [J/(kg K)], k [W/(m K)]

@@ -40,6 +40,8 @@ export interface NgspiceRun {
   readonly timeS: number[];
   readonly riseK: number[];
   readonly wallS: number;
+  /** ngspice's own CPU time (user + system) [s] */
+  readonly cpuS: number;
 }
 
 /**
@@ -70,10 +72,15 @@ export function runNgspice(elements: readonly string[], node: string, stopS: num
     ].join("\n");
     writeFileSync(join(dir, "net.cir"), netlist);
     const started = process.hrtime.bigint();
-    const result = spawnSync("ngspice", ["-b", "net.cir"], { cwd: dir, encoding: "utf8", maxBuffer: 1 << 26 });
-    if (result.error !== undefined) throw new Error(`ngspice could not be run (install the Debian package ngspice): ${result.error.message}`);
-    const log = `${result.stdout}\n${result.stderr}`;
+    // Through bash so that its `times` builtin reports ngspice's own CPU time (the machine may be shared).
+    const result = spawnSync("bash", ["-c", "ngspice -b net.cir; status=$?; echo '@@times'; times; exit $status"], { cwd: dir, encoding: "utf8", maxBuffer: 1 << 26 });
     const wallS = Number(process.hrtime.bigint() - started) / 1e9;
+    if (result.error !== undefined) throw new Error(`ngspice could not be run: ${result.error.message}`);
+    if (result.status === 127) throw new Error("ngspice is not installed (Debian package ngspice): the outside-reference checks cannot run");
+    const [output, timesText] = result.stdout.split("@@times");
+    const log = `${output}\n${result.stderr}`;
+    const childLine = (timesText ?? "").trim().split("\n")[1] ?? "";
+    const cpuS = [...childLine.matchAll(/(\d+)m([\d.]+)s/g)].reduce((sum, m) => sum + Number(m[1]) * 60 + Number(m[2]), 0);
     // ngspice exits with status 0 even when the run aborts: read the log.
     if (/error|abort|too small|singular/i.test(log)) throw new Error(`ngspice run failed:\n${log}`);
     const rows = readFileSync(join(dir, "out.dat"), "utf8").trim().split("\n").slice(1);
@@ -86,7 +93,7 @@ export function runNgspice(elements: readonly string[], node: string, stopS: num
       riseK.push(v!);
     }
     if (timeS.length < 2 || timeS[timeS.length - 1]! < stopS * (1 - 1e-9)) throw new Error(`ngspice output stops at ${timeS[timeS.length - 1]} s before ${stopS} s`);
-    return { timeS, riseK, wallS };
+    return { timeS, riseK, wallS, cpuS };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -66,3 +66,23 @@ describe("interiorPeaks skips monotone steps", () => {
     expect(interiorPeaks(foster, start, 1, [terms as PowerTerm[]])).toEqual([]);
   });
 });
+
+describe("interiorPeaks with step ends covers the whole step (linear and decaying power, cold and warm)", () => {
+  // The highest of {start, end, interior peaks} must match dense brute-force sampling within 0.01 K,
+  // whichever path (monotone proof, single-turn bracket, grid) the search takes.
+  const table: [string, ModalModel, boolean, number, PowerTerm[]][] = [
+    ["rising ramp from cold", foster, false, 0.05, [{ a: 0, b: 4000, lambda: 0 }]],
+    ["rising ramp from warm", foster, true, 0.05, [{ a: 0, b: 4000, lambda: 0 }]],
+    ["falling ramp from warm", cauer, true, 0.3, [{ a: 200, b: -600, lambda: 0 }]],
+    ["falling ramp ending below zero power", foster, true, 0.02, [{ a: 50, b: -2000, lambda: 0 }]],
+    ["constant power below the warm state", foster, true, 0.4, [{ a: 5, b: 0, lambda: 0 }]],
+    ["decay below the state", cauer, true, 0.2, [{ a: 5, b: 0, lambda: 10 }]],
+    ["ramp times decay", cauer, false, 0.2, [{ a: 0, b: 5000, lambda: 25 }]],
+  ];
+  test.each(table)("%s", (_, model, isWarm, h, terms) => {
+    const start = isWarm ? warm(model) : createModalState(model);
+    const endRise = modalRise(model, advanceModalState(model, start, h, [terms], new Float64Array(start.length)));
+    const found = Math.max(modalRise(model, start), endRise, ...interiorPeaks(model, start, h, [terms]).map((p) => p.riseK));
+    expectClose(found, bruteForcePeak(model, start, h, terms).riseK, { abs: 0.01 });
+  });
+});

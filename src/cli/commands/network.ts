@@ -1,12 +1,13 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
+import { registerNetworkConvert } from "./networkConvert.js";
 import { registerNetworkFit } from "./networkFit.js";
 import { registerNetworkFromRating } from "./networkFromRating.js";
 import { registerNetworkLumped } from "./networkLumped.js";
 import { registerNetworkShow } from "./networkShow.js";
 
 /** Subcommands of `heatledger network`, in help order. Add new ones here. */
-const SUBCOMMANDS: readonly ((network: Command, run: CliRun) => void)[] = [registerNetworkShow, registerNetworkFit, registerNetworkFromRating, registerNetworkLumped];
+const SUBCOMMANDS: readonly ((network: Command, run: CliRun) => void)[] = [registerNetworkShow, registerNetworkConvert, registerNetworkFit, registerNetworkFromRating, registerNetworkLumped];
 
 /** `heatledger network ...`: look at, convert and build thermal networks. */
 export function registerNetwork(program: Command, run: CliRun): void {

@@ -36,11 +36,11 @@ export function fitTablePoints(points: readonly ZthPoint[], table: QuantityTable
 }
 
 /** The JSON object of a fit, shared by `network fit` and `network from-rating`. */
-export function fitJson(fit: FosterFit, source: string, written: string | null, extra: Record<string, unknown> = {}): Record<string, unknown> {
+export function fitJson(fit: FosterFit, source: string, written: string | null, extra: Record<string, unknown> = {}, name?: string): Record<string, unknown> {
   return {
     source,
     ...extra,
-    network: networkToDocument(fit.network),
+    network: networkToDocument(fit.network, name),
     stages: fit.network.stages.map((s) => ({ rKPerW: s.rKPerW, tauS: s.tauS, cJPerK: s.tauS / s.rKPerW })),
     totalRthKPerW: fit.network.stages.reduce((a, s) => a + s.rKPerW, 0),
     pointCount: fit.pointCount,
@@ -81,7 +81,8 @@ How the fit works: a non-negative least-squares spectrum on a grid of ${FIT_DEFA
 decade gives a first network; Levenberg-Marquardt then refines ln R and ln tau of every stage,
 minimising relative errors (each decade counts the same). Without --stages, counts 1 to
 ${FIT_DEFAULTS.maxStages} are tried and the smallest information criterion (BIC by default) wins: more stages
-only when the data really need them. The report gives the max and RMS relative error, every
+only when the data really need them; a count whose time constants crowd within a factor of
+${FIT_DEFAULTS.minTauRatio} is skipped, as no Zth curve can tell such stages apart. The report gives the max and RMS relative error, every
 count tried, a chart of the points against the fit, and warnings where the network extrapolates.
 
 Examples:
@@ -102,7 +103,7 @@ Examples:
     const fit = fitTablePoints(points, table, file, options);
     const emitted = emitNetwork(run, fit.network, options);
     if (options.json) {
-      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written), null, 2)}\n`);
+      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, {}, options.name), null, 2)}\n`);
       return;
     }
     run.io.out(`Fit of ${file} (${table.units[0]}, ${table.units[1]})\n${formatFosterFit(fit, points, Math.min(run.io.columns, 100))}\n${emitted.text}\n${formatCautions(false)}`);

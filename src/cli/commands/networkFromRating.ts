@@ -83,7 +83,7 @@ Example:
     const riseK = maxC - startC;
     if (options.json) {
       const extra = { startTemperatureC: startC, maxTemperatureC: maxC, allowedRiseK: riseK, assumptions: PULSE_RATING_ASSUMPTIONS, zthPoints: points };
-      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, extra), null, 2)}\n`);
+      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, extra, options.name), null, 2)}\n`);
       return;
     }
     const head = [

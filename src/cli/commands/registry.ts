@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { registerNetwork } from "./network.js";
+import { registerRetries } from "./retries.js";
 import { registerSimulate } from "./simulate.js";
 import { registerSupervise } from "./supervise.js";
 import type { CliRun } from "../main.js";
@@ -8,4 +9,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerNetwork, registerSupervise];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerRetries, registerSupervise, registerNetwork];

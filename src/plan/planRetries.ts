@@ -1,0 +1,63 @@
+import type { CircuitModels } from "../profile/CircuitModels.js";
+import type { DutyProfile } from "../profile/DutyProfile.js";
+import { type BackoffRuleAnswer, backoffRule, firstWaitCandidates } from "./backoffRule.js";
+import { type FastestScheduleAnswer, fastestSchedule } from "./fastestSchedule.js";
+import { type LockoutAnswer, lockoutAfterBurst } from "./lockoutAfterBurst.js";
+import { type LockoutMap, lockoutMap } from "./lockoutMap.js";
+import { type MaxAttemptsAnswer, maxAttempts } from "./maxAttempts.js";
+import { type ForeverIntervalAnswer, minForeverInterval } from "./minForeverInterval.js";
+import { type UniformIntervalAnswer, minUniformInterval } from "./minUniformInterval.js";
+import { type ProfileRetrySetup, profileRetrySetup } from "./profileRetrySetup.js";
+import { type RetryPolicyVerdict, retryPolicyVerdict } from "./retryPolicyVerdict.js";
+import { scanGrid } from "./scanFeasibleBands.js";
+import { InputError, inputError } from "../errors/InputError.js";
+
+/** Every answer of the retry plan for one profile. */
+export interface RetryPlanReport {
+  readonly setup: ProfileRetrySetup;
+  /** the profile's own retry policy, checked */
+  readonly policy: RetryPolicyVerdict;
+  /** item 1: shortest uniform interval for setup.attempts attempts */
+  readonly uniformInterval: UniformIntervalAnswer;
+  /** item 2: most attempts at setup.intervalS, or null when that interval is shorter than an attempt */
+  readonly maxAttempts: MaxAttemptsAnswer | null;
+  /** item 3: shortest interval for retrying for ever */
+  readonly forever: ForeverIntervalAnswer;
+  /** item 4: fastest safe schedule of setup.attempts attempts, and a back-off rule */
+  readonly fastest: FastestScheduleAnswer;
+  readonly backoff: BackoffRuleAnswer | null;
+  /** item 5: lockout after the profile's own burst, and the return near ambient */
+  readonly lockout: LockoutAnswer;
+  /** item 6: the lockout map */
+  readonly map: LockoutMap;
+}
+
+/**
+ * Answer every retry-planning question for a profile's fault (issue 6, items 1-6) over its
+ * corner set, and check the profile's own policy. See profileRetrySetup for how the profile
+ * becomes corners. Cost: the sum of the solvers' costs (seconds at most for typical profiles).
+ * @throws InputError for a profile the planner cannot work on (see profileRetrySetup)
+ */
+export function planRetries(profile: DutyProfile, models: CircuitModels): RetryPlanReport {
+  const setup = profileRetrySetup(profile, models);
+  const corners = setup.scenarios;
+  const policy = retryPolicyVerdict(corners, setup.policy, setup.lockoutS);
+  const uniformInterval = minUniformInterval(corners, setup.attempts, { spacing: setup.spacing });
+  let max: MaxAttemptsAnswer | null = null;
+  try {
+    max = maxAttempts(corners, setup.intervalS, setup.spacing);
+  } catch (error) {
+    // an interval shorter than an attempt has no attempt count; the report says so
+    if (!(error instanceof InputError)) throw error;
+    max = null;
+  }
+  const forever = minForeverInterval(corners, { spacing: setup.spacing });
+  const fastest = fastestSchedule(corners, setup.attempts);
+  const candidates = firstWaitCandidates(fastest);
+  const backoff = setup.attempts >= 2 && candidates.length > 0 ? backoffRule(corners, setup.attempts, candidates) : null;
+  const lockout = lockoutAfterBurst(corners, setup.policy, { ambientReturnK: setup.nearAmbientK });
+  if (!(setup.map.toS > setup.map.fromS)) throw inputError("out-of-range", "retryPlan.map.to", `a longest interval above the shortest (${setup.map.fromS} s)`, `${setup.map.toS} s`);
+  const intervals = scanGrid(setup.map.fromS, setup.map.toS, setup.map.points, Math.log10(setup.map.toS / setup.map.fromS)).slice(-setup.map.points);
+  const map = lockoutMap(corners, setup.map.attempts, intervals, setup.spacing);
+  return { setup, policy, uniformInterval, maxAttempts: max, forever, fastest, backoff, lockout, map };
+}

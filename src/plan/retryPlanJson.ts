@@ -1,0 +1,31 @@
+import type { RetryPlanReport } from "./planRetries.js";
+
+/**
+ * The machine form of `heatledger retries --json`: every answer as plain data (the corners'
+ * attempt models are left out; numbers that are not finite become null). Cost O(report size).
+ */
+export function retryPlanJson(report: RetryPlanReport): unknown {
+  const { setup } = report;
+  const plain = {
+    verdict: report.policy.verdict,
+    fault: { type: setup.fault.type, field: setup.retry.field },
+    corners: setup.corners,
+    parts: setup.parts,
+    policy: {
+      attempts: setup.retry.attempts,
+      intervalS: setup.retry.intervalS,
+      backoff: setup.retry.backoff,
+      maxIntervalS: setup.retry.maxIntervalS,
+      lockoutS: setup.lockoutS,
+      ...report.policy,
+    },
+    uniformInterval: report.uniformInterval,
+    maxAttempts: report.maxAttempts,
+    forever: report.forever,
+    fastest: { ...report.fastest, perCorner: undefined },
+    backoff: report.backoff === null ? null : { ...report.backoff, perCorner: undefined },
+    lockout: report.lockout,
+    map: report.map,
+  };
+  return JSON.parse(JSON.stringify(plain, (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? null : value)));
+}

@@ -1,0 +1,37 @@
+import type { CircuitResult } from "../circuits/CircuitResult.js";
+import type { CircuitModels } from "./CircuitModels.js";
+
+/** How many distinct charge events a memo keeps, declared once. */
+export const CIRCUIT_MEMO_SIZE = 64;
+
+/**
+ * Wrap circuit models so that a charge repeated with exactly the same inputs (same circuit, load,
+ * initial voltage to the last bit, completion rule and, for temperature-dependent models, the same
+ * part temperatures) reuses the first result instead of solving the circuit again. Long profiles
+ * repeat the same power-up from an empty capacitor thousands of times; the results are immutable,
+ * so sharing them is exact. Discharges are cheap closed forms and pass through.
+ * Cost O(1) per hit (a string key of the inputs); memory O(CIRCUIT_MEMO_SIZE) results.
+ */
+export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_SIZE): CircuitModels {
+  const memo = new Map<string, CircuitResult>();
+  let lastCircuit: unknown;
+  return {
+    discharge: models.discharge,
+    charge: (circuit, load, conditions) => {
+      if (circuit !== lastCircuit) {
+        memo.clear();
+        lastCircuit = circuit;
+      }
+      const readsTemperature = circuit.topology === "linear-mosfet" && circuit.thresholdTempcoVPerK !== undefined && circuit.thresholdTempcoVPerK !== 0;
+      const key = `${JSON.stringify(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${JSON.stringify(conditions.completion)}|${
+        readsTemperature ? JSON.stringify(conditions.partTemperatureC ?? {}) : ""
+      }|${conditions.wantSamples === true}`;
+      const hit = memo.get(key);
+      if (hit !== undefined) return hit;
+      const result = models.charge(circuit, load, conditions);
+      if (memo.size >= size) memo.delete(memo.keys().next().value!);
+      memo.set(key, result);
+      return result;
+    },
+  };
+}

@@ -1,0 +1,83 @@
+import { describe, expect, test } from "vitest";
+import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION } from "../../src/index.js";
+import { expectClose } from "../helpers/expectClose.js";
+import { memoryIo } from "./simulateMemoryIo.js";
+
+// In-process runs of `heatledger retries` on an invented profile: a 48 Ω pre-charge resistor
+// into a shorted bus at 48 V dissipates Vs²/R = 48 W until the 0.5 s timeout (series-resistor
+// model with the bus held at 0 V), on one Foster stage R = 2 K/W, τ = 5 s; limit 100 °C, margin
+// 10 K, ambient 25 °C, so ΔT_max = 65 K. One-stage closed form (lumped capacitance, Incropera
+// et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, summed as a geometric
+// series; derivation in test/plan/minForeverInterval.test.ts): retrying for ever is safe from
+// T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max) ≈ 0.757 s.
+const PROFILE = (retry: string, plan = "") => `name: shorted bus retries
+ambient: 25 degC
+parts:
+  - id: r
+    role: resistor
+    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
+    limits: { maxTemperature: 100 degC, margin: 10 K }
+circuit:
+  topology: series-resistor
+  busVoltage: 48 V
+  capacitance: 1 mF
+  resistance: 48 ohm
+  completion: { fraction: 0.95, timeout: 500 ms }
+  discharge: { kind: bleeder, resistance: 10 kohm }
+events:
+  - retry:
+${retry}
+      fault: { type: shorted-output }
+${plan}`;
+
+const SAFE = "      attempts: 3\n      interval: 2 s\n      lockout: 60 s";
+const UNSAFE = "      attempts: 20\n      interval: 0.6 s\n      lockout: 1 s";
+
+describe("heatledger retries (in process)", () => {
+  test("a safe policy exits 0 and --json carries every answer, the retry-forever interval matching the closed form", async () => {
+    const io = memoryIo({ "p.yaml": PROFILE(SAFE) });
+    expect(await runCli(["retries", "p.yaml", "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as Record<string, any>;
+    expect(json["verdict"]).toBe("safe");
+    const expected = -5 * Math.log(1 - (48 * 2 * -Math.expm1(-0.5 / 5)) / 65);
+    // the issue's 0.1 %; the solver bisects to 1e-9
+    expectClose(json["forever"].minimumIntervalS, expected, { rel: 1e-3 });
+    expect(json["forever"].governing.corner).toBe("nominal");
+    for (const key of ["uniformInterval", "maxAttempts", "fastest", "backoff", "lockout", "map"]) expect(json[key]).toBeDefined();
+    expect(json["fastest"].schedule).toHaveLength(3);
+    expect(JSON.stringify(json)).not.toContain("NaN");
+  });
+
+  test("an unsafe policy exits 1 and the text report names the reason, each answer and the cautions", async () => {
+    const io = memoryIo({ "p.yaml": PROFILE(UNSAFE) });
+    expect(await runCli(["retries", "p.yaml"], io)).toBe(1);
+    const text = io.stdout.join("");
+    expect(text).toContain("Verdict: UNSAFE.");
+    expect(text).toMatch(/corner "nominal": attempt \d+ of the burst reaches [\d.]+ °C, above limit − margin 90\.0 °C/);
+    for (const heading of ["1. Shortest uniform retry interval", "2. Most attempts", "3. Shortest interval for retrying for ever", "4. Fastest safe schedule", "5. Lockout after", "6. Lockout map"])
+      expect(text).toContain(heading);
+    expect(text.replace(/\s+/g, " ")).toContain(GENERAL_CAUTION);
+  });
+
+  test("corners: the hot corner governs, and a corner with an unknown parameter is bad input naming it", async () => {
+    const corners = "retryPlan:\n  corners:\n    - { name: cool, ambient: 0 degC }\n    - { name: hot, ambient: 45 degC, busVoltage: 52 V }\n";
+    const io = memoryIo({ "p.yaml": PROFILE(SAFE, corners) });
+    await runCli(["retries", "p.yaml", "--json"], io);
+    const json = JSON.parse(io.stdout.join("")) as Record<string, any>;
+    expect(json["corners"]).toEqual(["cool", "hot"]);
+    expect(json["forever"].governing.corner).toBe("hot");
+    const bad = memoryIo({ "p.yaml": PROFILE(SAFE, "retryPlan:\n  corners:\n    - { name: damp, humidity: 90 }\n") });
+    expect(await runCli(["retries", "p.yaml"], bad)).toBe(2);
+    expect(bad.stderr.join("")).toContain("retryPlan.corners[0]");
+    expect(bad.stderr.join("")).toContain("humidity");
+  });
+
+  test("--csv writes the lockout map", async () => {
+    const io = memoryIo({ "p.yaml": PROFILE(SAFE, "retryPlan:\n  map: { attempts: 5, from: 0.5 s, to: 50 s, points: 4 }\n") });
+    await runCli(["retries", "p.yaml", "--csv", "map.csv"], io);
+    const rows = io.files["map.csv"]!.trim().split("\n");
+    expect(rows[0]).toBe("attempts,interval_s,spacing,worst_peak_c,allowed_c,limit_c,used_fraction,status,governing_corner");
+    expect(rows).toHaveLength(1 + 5 * 4);
+  });
+});
