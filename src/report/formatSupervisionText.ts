@@ -15,7 +15,7 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
   ];
   if (w.underRetry !== null)
     rows.push(["pre-charge timeout, highest (retry policy)", dur(w.underRetry.longestS), `${w.underRetry.binding ?? "policy"} bind; first burst's hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C`]);
-  rows.push(["timeout window", w.exists ? `${dur(w.lowerS)} to ${dur(w.upperS)}` : "none", w.exists ? `margin ${dur(w.marginS)}` : w.reason]);
+  rows.push(["timeout window", w.exists ? `${dur(w.lowerS)} to ${dur(w.upperS)}` : "none", w.exists ? `margin ${dur(w.marginS)}` : "NO SAFE TIMEOUT: the ends cross (see the report)"]);
   rows.push(["profile's timeout", dur(report.configuredTimeoutS), report.configuredInside ? "inside the window" : "OUTSIDE the window"]);
   const a = report.recommendedAbort;
   rows.push(["early abort", a === null ? "none usable" : `bus < ${volts(a.thresholdV)} at ${dur(a.timeS)}`, a === null ? "" : `short energy ${formatNumber(a.shortEnergyJ, 3)} J (${formatNumber(a.shareOfTimeoutEnergy * 100, 3)} % of a full timeout)`]);
