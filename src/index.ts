@@ -32,7 +32,7 @@ export type { ThermalGraph, ThermalNode, ThermalLink } from "./thermal/thermalGr
 export { symmetricEigen } from "./thermal/symmetricEigen.js";
 export type { SymmetricEigen } from "./thermal/symmetricEigen.js";
 export { zth, logSpacedTimes } from "./thermal/zth.js";
-export { advanceModalState, createModalState, createModalStepper, modalRise } from "./thermal/modalStep.js";
+export { advanceModalState, createModalState, createModalStepper, modalRise, STEPPER_CACHE_SIZE } from "./thermal/modalStep.js";
 export type { ModalState, SourcePowers } from "./thermal/modalStep.js";
 export { interiorPeaks, riseSlope, PEAK_GRID_POINTS } from "./thermal/segmentPeak.js";
 export type { InteriorPeak } from "./thermal/segmentPeak.js";
@@ -82,7 +82,7 @@ export type { Quadratic, BusLevel, FeedTerms, BusRegime, ChargeModel } from "./c
 export { resolveCompletion, COMMON_COMPLETION_FRACTIONS } from "./circuits/resolveCompletion.js";
 export type { ResolvedCompletion } from "./circuits/resolveCompletion.js";
 export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, EVENT_LIMITS } from "./circuits/runChargeEvent.js";
-export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP } from "./circuits/integrateBusOde.js";
+export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP, SETTLE_TOLERANCE } from "./circuits/integrateBusOde.js";
 export type { RegimeStretch } from "./circuits/integrateBusOde.js";
 export { chargeSeriesResistor } from "./circuits/chargeSeriesResistor.js";
 export type { SeriesResistorParams } from "./circuits/chargeSeriesResistor.js";

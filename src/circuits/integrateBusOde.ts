@@ -15,6 +15,13 @@ import { ODEX_OUTCOME, createOdexSolver } from "./loadOdex.js";
  */
 export const NONLINEAR_ACCURACY = { odeTolerance: 1e-11, powerTolerance: 1e-4 } as const;
 
+/**
+ * A nonlinear stretch that comes within this distance of its equilibrium (in units of the
+ * voltage scale, about 1e-9 × the source voltage) is taken as settled there for the rest of the
+ * stretch. The ODE itself runs at 1e-11, so the snap moves the bus by at most this much.
+ */
+export const SETTLE_TOLERANCE = 1e-9;
+
 /** At most this many segment splits per ODE step (a guard; smooth powers need a handful). */
 export const MAX_SPLITS_PER_STEP = 256;
 
@@ -151,6 +158,18 @@ export function integrateBusOde(
   };
 
   const xEnd = maxS / T;
+  // The equilibrium ahead, if any: a root of −g1·V² + g0·V + h = 0 in the direction of motion.
+  // Once the bus is within SETTLE_TOLERANCE of it the rest of the stretch is that constant state,
+  // so a long stall costs a bounded number of ODE steps.
+  const rising = current(initialVoltageV) > 0;
+  const roots: number[] = [];
+  if (g1 > 0) {
+    const disc = g0 * g0 + 4 * g1 * h;
+    if (disc >= 0) roots.push((g0 + Math.sqrt(disc)) / (2 * g1), (g0 - Math.sqrt(disc)) / (2 * g1));
+  } else if (g0 !== 0) roots.push(-h / g0);
+  const ahead = roots.filter((v) => v > 0 && (rising ? v > initialVoltageV : v < initialVoltageV)).sort((a, b) => (rising ? a - b : b - a));
+  const uEq = ahead.length > 0 ? ahead[0]! / scaleV : undefined;
+  let settled: { x: number; y: number[] } | undefined;
   let hit: { level: BusLevel; x: number; y: number[] } | undefined;
   let uPrev = u0;
   const levelsU = levels.map((l) => ({ level: l, u: l.voltageV / scaleV }));
@@ -184,13 +203,22 @@ export function integrateBusOde(
       }
       refine(dense, xOld, uPrev, x, u1, 0);
       uPrev = u1;
+      if (uEq !== undefined && x < xEnd && Math.abs(u1 - uEq) <= SETTLE_TOLERANCE) {
+        settled = { x, y: [uEq, y[1]!, y[2]!] };
+        return false;
+      }
     });
-    if (hit === undefined && result.outcome !== ODEX_OUTCOME.converged)
+    if (hit === undefined && settled === undefined && result.outcome !== ODEX_OUTCOME.converged)
       throw new Error(`odex stopped early (outcome ${result.outcome}) integrating the bus regime ${regime.key}`);
   }
-  const xStop = hit?.x ?? xEnd;
+  if (settled !== undefined) {
+    // the settled tail: V = V*, every power constant, ∫V dt and ∫V² dt grow linearly
+    const rest = xEnd - settled.x;
+    emit(settled.x, settled.y[0]!, xEnd, settled.y[0]!);
+    result = { y: [settled.y[0]!, settled.y[1]! + settled.y[0]! * rest, settled.y[2]! + settled.y[0]! * settled.y[0]! * rest], outcome: ODEX_OUTCOME.converged };
+  }
   const y = hit?.y ?? result.y;
-  const durationS = hit === undefined ? maxS : xStop * T;
+  const durationS = hit === undefined ? maxS : hit.x * T;
   const intV = scaleV * T * y[1]!;
   const intV2 = scaleV * scaleV * T * y[2]!;
   const energy = (q: Quadratic): number => q.c0 * durationS + q.c1 * intV + q.c2 * intV2;

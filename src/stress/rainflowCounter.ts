@@ -250,7 +250,8 @@ export class RainflowCounter {
     this.size = 0;
     this.closed = true;
     for (let i = top; i < residue.length; i++) this.add(residue[i]!.timeS, residue[i]!.value);
-    for (let i = 0; i <= top; i++) this.add(residue[i]!.timeS + periodS, residue[i]!.value);
+    // shifted into the next period; never before the history's end (first + (last − first) can round below last)
+    for (let i = 0; i <= top; i++) this.add(Math.max(residue[i]!.timeS + periodS, this.lastTimeS), residue[i]!.value);
   }
 }
 

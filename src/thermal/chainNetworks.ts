@@ -58,7 +58,7 @@ export function chainNetworks(assembly: HeatsinkAssembly, field = "assembly"): T
   const junctions: string[] = [];
   assembly.parts.forEach((part, i) => {
     const at = `${field}.parts[${i}]`;
-    if (typeof part.id !== "string" || part.id === "" || part.id.startsWith(HEATSINK_PREFIX.slice(0, -1)) || part.id === AMBIENT_NODE)
+    if (typeof part.id !== "string" || part.id === "" || part.id === HEATSINK_PREFIX.slice(0, -1) || part.id === AMBIENT_NODE)
       throw inputError("bad-network", `${at}.id`, `a non-empty part name other than "heatsink" and "${AMBIENT_NODE}"`, describeFound(part.id));
     if (seen.has(part.id)) throw inputError("bad-network", `${at}.id`, "a part name used once", describeFound(part.id));
     seen.add(part.id);

@@ -98,6 +98,10 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
   const keys = new Float64Array(STEPPER_CACHE_SIZE).fill(Number.NaN);
   const decays = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
   const rises = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
+  // Response to a unit ramp b = 1 W/s over the step, h·A·(φ0(A) − φ1(A)) (advanceModalState with
+  // lambda = 0), filled on first use per cached length.
+  const ramps = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
+  const rampReady = new Uint8Array(STEPPER_CACHE_SIZE);
   let next = 0;
   let last = 0;
   const slot = (h: number): number => {
@@ -120,8 +124,20 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
       rise[m] = A < SUBTRACTION_SAFE_RATIO ? -Math.expm1(-A) : 1 - d;
     }
     keys[i] = h;
+    rampReady[i] = 0;
     last = i;
     return i;
+  };
+  const rampTable = (i: number, h: number): Float64Array => {
+    const ramp = ramps[i]!;
+    if (rampReady[i] === 0) {
+      for (let m = 0; m < modes; m++) {
+        const A = h / taus[m]!;
+        ramp[m] = h * A * (expIntegral0(A) - expIntegral1(A));
+      }
+      rampReady[i] = 1;
+    }
+    return ramp;
   };
   return (state, h, powers) => {
     const i = slot(h);
@@ -135,6 +151,16 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
       } else if (terms.length === 1 && terms[0]!.lambda === 0 && terms[0]!.b === 0) {
         const a = terms[0]!.a;
         for (let m = 0; m < modes; m++) state[base + m] = state[base + m]! * decay[m]! + a * rise[m]!;
+      } else if (allPolynomial(terms)) {
+        // a + b·s: the forced response is linear in a and b, so both factors come from the cache
+        let a = 0;
+        let b = 0;
+        for (const t of terms) {
+          a += t.a;
+          b += t.b;
+        }
+        const ramp = rampTable(i, h);
+        for (let m = 0; m < modes; m++) state[base + m] = state[base + m]! * decay[m]! + a * rise[m]! + b * ramp[m]!;
       } else {
         for (let m = 0; m < modes; m++) {
           const A = h / taus[m]!;
@@ -144,6 +170,12 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
     }
     return state;
   };
+}
+
+/** True when every term is a + b·s (no exponential). */
+function allPolynomial(terms: readonly PowerTerm[]): boolean {
+  for (const t of terms) if (t.lambda !== 0) return false;
+  return true;
 }
 
 /**

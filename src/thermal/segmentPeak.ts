@@ -94,11 +94,30 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
  * bracketed by the step ends), else undefined. Source: generalised Descartes rule of signs for exponential sums (Laguerre),
  * as in Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
  */
+const modeOrders = new WeakMap<ModalModel, Int32Array>();
+const slopeScratch = new WeakMap<ModalModel, Float64Array>();
+
+/** Mode indices from the slowest to the fastest, computed once per model. */
+function slowestFirst(model: ModalModel): Int32Array {
+  let order = modeOrders.get(model);
+  if (order === undefined) {
+    order = Int32Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
+    modeOrders.set(model, order);
+  }
+  return order;
+}
+
 function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { constant: number; k: Float64Array } | undefined {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
   let constant = 0;
-  const k = new Float64Array(modes);
+  // scratch reused per model: the result is consumed before the next call
+  let k = slopeScratch.get(model);
+  if (k === undefined) {
+    k = new Float64Array(modes);
+    slopeScratch.set(model, k);
+  }
+  k.fill(0);
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
     let a = 0;
@@ -117,7 +136,7 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
       k[m]! += (g * (a - state[src * modes + m]! - b * tau)) / tau;
     }
   }
-  const order = Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
+  const order = slowestFirst(model);
   let changes = 0;
   let last = Math.sign(constant);
   for (const m of order) {
@@ -148,79 +167,89 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
 export function interiorPeaks(model: ModalModel, state: ModalState, h: number, powers: SourcePowers, o = 0): InteriorPeak[] {
   if (!(h > 0) || provablyMonotone(model, state, powers, o)) return [];
   const scratch = new Float64Array(state.length);
-  const slopeAt = (s: number): number => riseSlope(model, advanceModalState(model, state, s, powers, scratch), powers, s, o);
   const peaks: InteriorPeak[] = [];
-  const refine = (lo: number, hi: number, fLo: number, fHi: number): void => {
-    let side = 0;
-    for (let i = 0; i < 200 && hi - lo > 1e-12 * h; i++) {
-      let mid = (lo * fHi - hi * fLo) / (fHi - fLo);
-      if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
-      if (mid <= lo || mid >= hi) break;
-      const f = slopeAt(mid);
-      if (f > 0) {
-        lo = mid;
-        fLo = f;
-        if (side === 1) fHi *= 0.5;
-        side = 1;
-      } else {
-        hi = mid;
-        fHi = f;
-        if (side === -1) fLo *= 0.5;
-        side = -1;
-        if (f === 0) lo = hi;
-      }
-    }
-    const at = lo === hi ? lo : 0.5 * (lo + hi);
-    // A turn in the very last bracket at the step end belongs to the caller (it sees step ends).
-    if (at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
-  };
   const single = linearSlopeSum(model, state, powers, o);
   if (single !== undefined) {
-    // Closed-form slope S(s) = C + Σ k_m·e^(−s/tau_m) and its derivative: safeguarded Newton.
-    const { constant, k } = single;
-    const taus = model.tauS;
-    const slope = (x: number): [number, number] => {
-      let f = constant;
-      let df = 0;
-      for (let m = 0; m < k.length; m++) {
-        const term = k[m]! * Math.exp(-x / taus[m]!);
-        f += term;
-        df -= term / taus[m]!;
-      }
-      return [f, df];
-    };
-    const [f0] = slope(0);
-    const [fh] = slope(h);
-    if (!(f0 > 0 && fh <= 0)) return peaks;
-    let lo = 0;
-    let hi = h;
-    let x = 0.5 * h;
-    for (let i = 0; i < 100; i++) {
-      const [f, df] = slope(x);
-      if (f > 0) lo = x;
-      else hi = x;
-      if (f === 0 || hi - lo <= 1e-12 * h) break;
-      let next = x - f / df;
-      if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-      if (Math.abs(next - x) <= 1e-12 * h) {
-        x = next;
-        break;
-      }
-      x = next;
-    }
-    if (x < h * (1 - 1e-9)) peaks.push({ atS: x, riseK: modalRise(model, advanceModalState(model, state, x, powers, scratch), o) });
+    const at = singleTurn(model.tauS, single.constant, single.k, h);
+    if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
     return peaks;
   }
-  const first = slopeAt(0);
   let previousS = 0;
-  let previousSlope = first;
+  let previousSlope = slopeAtTime(model, state, powers, o, 0, scratch);
   for (const s of peakGrid(model, h)) {
-    const slope = slopeAt(s);
-    if (previousSlope > 0 && slope <= 0) refine(previousS, s, previousSlope, slope);
+    const slope = slopeAtTime(model, state, powers, o, s, scratch);
+    if (previousSlope > 0 && slope <= 0) {
+      const at = refineTurn(model, state, powers, o, scratch, previousS, s, previousSlope, slope, h);
+      // A turn in the very last bracket at the step end belongs to the caller (it sees step ends).
+      if (at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
+    }
     previousS = s;
     previousSlope = slope;
   }
   return peaks;
+}
+
+/** Slope of the rise at time s into the step (state advanced exactly into scratch). */
+function slopeAtTime(model: ModalModel, state: ModalState, powers: SourcePowers, o: number, s: number, scratch: ModalState): number {
+  return riseSlope(model, advanceModalState(model, state, s, powers, scratch), powers, s, o);
+}
+
+/** Illinois regula falsi on the slope's sign inside [lo, hi] with slope(lo) > 0 ≥ slope(hi). */
+function refineTurn(model: ModalModel, state: ModalState, powers: SourcePowers, o: number, scratch: ModalState, lo: number, hi: number, fLo: number, fHi: number, h: number): number {
+  let side = 0;
+  for (let i = 0; i < 200 && hi - lo > 1e-12 * h; i++) {
+    let mid = (lo * fHi - hi * fLo) / (fHi - fLo);
+    if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi) break;
+    const f = slopeAtTime(model, state, powers, o, mid, scratch);
+    if (f === 0) return mid;
+    if (f > 0) {
+      lo = mid;
+      fLo = f;
+      if (side === 1) fHi *= 0.5;
+      side = 1;
+    } else {
+      hi = mid;
+      fHi = f;
+      if (side === -1) fLo *= 0.5;
+      side = -1;
+    }
+  }
+  return 0.5 * (lo + hi);
+}
+
+/**
+ * The one zero in (0, h) of S(x) = C + Σ k_m·e^(−x/tau_m) when S(0) > 0 ≥ S(h), by Newton's
+ * method kept inside the bracket (bisection when a step leaves it); undefined when there is none.
+ */
+function singleTurn(taus: readonly number[], constant: number, k: Float64Array, h: number): number | undefined {
+  let f0 = constant;
+  for (let m = 0; m < k.length; m++) f0 += k[m]!;
+  if (!(f0 > 0)) return undefined;
+  let fh = constant;
+  for (let m = 0; m < k.length; m++) fh += k[m]! * Math.exp(-h / taus[m]!);
+  if (!(fh <= 0)) return undefined;
+  let lo = 0;
+  let hi = h;
+  let x = 0.5 * h;
+  for (let i = 0; i < 100; i++) {
+    let f = constant;
+    let df = 0;
+    for (let m = 0; m < k.length; m++) {
+      const term = k[m]! * Math.exp(-x / taus[m]!);
+      f += term;
+      df -= term / taus[m]!;
+    }
+    if (f === 0) return x;
+    if (f > 0) lo = x;
+    else hi = x;
+    if (hi - lo <= 1e-12 * h) break;
+    let next = x - f / df;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - x) <= 1e-12 * h) return next;
+    x = next;
+  }
+  return x;
 }
 
 /** Sorted grid in (0, h]: half linear, half log-spaced from min(h, fastest tau)/1e3 up to h. */

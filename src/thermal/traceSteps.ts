@@ -39,11 +39,11 @@ export function* traceSteps(traces: readonly (PowerTrace | undefined)[], fromS =
       return;
     }
     if (untilS !== undefined && next > untilS) next = untilS;
-    const powers: (readonly PowerTerm[] | undefined)[] = traces.map((trace, s) => {
-      const seg = trace?.[cursor[s]!];
-      if (seg === undefined || seg.startS > t) return undefined;
-      return seg.startS === t ? seg.terms : shiftTerms(seg.terms, t - seg.startS);
-    });
+    const powers = new Array<readonly PowerTerm[] | undefined>(traces.length);
+    for (let s = 0; s < traces.length; s++) {
+      const seg = traces[s]?.[cursor[s]!];
+      powers[s] = seg === undefined || seg.startS > t ? undefined : seg.startS === t ? seg.terms : shiftTerms(seg.terms, t - seg.startS);
+    }
     if (next > t) yield { startS: t, durationS: next - t, powers };
     t = next;
     if (untilS !== undefined && t >= untilS) return;

@@ -151,3 +151,22 @@ describe("constant-power load behind the series resistor", () => {
     }
   });
 });
+
+describe("constant-power load: long stalls", () => {
+  test("a stall with a very long timeout settles on the upper root with a bounded number of segments", () => {
+    const r = run(200, 200, 1e5);
+    const r1 = 200 + Math.sqrt(20000);
+    expect(r.outcome).toBe("stalled");
+    // snapped to the root once within SETTLE_TOLERANCE (1e-9 of the 400 V scale): 1e-9 relative
+    expectClose(r.endVoltageV, r1, { rel: 1e-9 });
+    // the settled tail is one constant segment, not 1e5 s of ODE steps
+    expect(r.traces.resistor!.length).toBeLessThan(200);
+    const last = r.traces.resistor!.at(-1)!;
+    expectClose(last.startS + last.durationS, 1e5, { rel: 1e-12 });
+    expectClose(powerAt(last.terms, last.durationS / 2), (VS - r1) ** 2 / R, { rel: 1e-8 });
+    // energy balance over the whole 1e5 s (source energy about 7e7 J): the snap moves V by at most
+    // 1e-9·Vs, so 1e-9 relative of the source energy
+    const e = r.energy;
+    expectClose(e.sourceJ, e.storedJ + e.loadJ + Object.values(e.partsJ).reduce((a, b) => a + b, 0), { rel: 1e-9 });
+  });
+});

@@ -3,6 +3,7 @@ import { describe, expect, test } from "vitest";
 import { type DischargePath, dischargeVoltage } from "../../src/index.js";
 import { createOdexSolver } from "../../src/circuits/loadOdex.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { inputErrorMessage } from "./inputErrorMessage.js";
 
 /**
  * Reference: integrate C·dV/dt = −i(V) with odex (a general-purpose ODE solver from the
@@ -109,6 +110,6 @@ describe("dischargeVoltage", () => {
     [{ kind: "active", resistanceOhm: 10, untilV: -1 } as DischargePath, 1e-3, 10, 1, "path.untilV: expected a stop voltage ≥ 0 V, found -1"],
     [{ kind: "leak" } as unknown as DischargePath, 1e-3, 10, 1, 'path.kind: expected one of "none", "bleeder", "constant-current", "active", found "leak"'],
   ])("%j, C %d, V0 %d, t %d → %s", (path, c, v0, t, message) => {
-    expect(() => dischargeVoltage(path, c, v0, t)).toThrow(message);
+    expect(inputErrorMessage(() => dischargeVoltage(path, c, v0, t))).toBe(message);
   });
 });

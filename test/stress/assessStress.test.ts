@@ -147,3 +147,16 @@ describe("StressAssessment (push-style)", () => {
     expect(pushed.cycleSummary.halfCycles).toBeGreaterThan(0); // an open record keeps its residue
   });
 });
+
+describe("edge cases never reach a report as NaN", () => {
+  test("no history and no events", () => {
+    const report = assessStress(resolveStressConfig({ lifetime: { model: "lesit" } }), [], []);
+    const text = formatStressSection("X", report);
+    expect(text).toContain("ratings: no rating table applies");
+    expect(text).toContain("0 full, 0 half from 0 turning points");
+    expect(text).not.toMatch(/NaN|undefined/);
+    expect(JSON.stringify(stressReportJson(report))).not.toMatch(/NaN|Infinity/);
+    expect(report.damage!.repetitionsToEndOfLife).toBe(Number.POSITIVE_INFINITY);
+    expect(text).toContain("end of life after unlimited repetitions");
+  });
+});

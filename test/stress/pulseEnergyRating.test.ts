@@ -50,8 +50,8 @@ describe("equivalentPulseDurationS", () => {
   });
 
   test("a resistor charging a capacitor gives RC/2", () => {
-    // P(t) = V²/R·e^(−2t/RC): peak V²/R, energy C·V²/2 (energy in the resistor for a full charge,
-    // Horowitz & Hill, The Art of Electronics, 3rd ed. (2015), §1.4.1 RC charging, common result).
+    // P(t) = V²/R·e^(−2t/RC): peak V²/R, energy C·V²/2 dissipated in the resistor over a full
+    // charge whatever R is (the textbook RC-charging energy balance; section not quoted, from memory).
     const V = 400;
     const R = 47;
     const C = 2e-3;

@@ -87,9 +87,10 @@ function literalOpen(values: readonly number[]): string[] {
 
 describe("rainflow: ASTM E1049-85 (reapproved 2017) example history", () => {
   // The standard's example load history, peaks and valleys A..I = -2, 1, -3, 5, -1, 3, -4, 4, -2
-  // (ASTM E1049-85 (2017), Fig. 6(a) for §5.4.4 and its repeating form in §5.4.5); the counts
-  // below are the standard's tabulated results as recalled (from memory) and were re-derived by
-  // stepping §5.4.4 by hand: A-B half (3), B-C half (4), E-F full (4), C-D half (8), D-G half (9),
+  // (ASTM E1049-85 (2017), the rainflow-counting figure of §5.4.4 and the repeating history of
+  // §5.4.5; history, figure and tabulated counts recalled, from memory). The counts were
+  // re-derived by stepping §5.4.4 by hand, and the literal-procedure property tests below
+  // check the same rules on thousands of histories: A-B half (3), B-C half (4), E-F full (4), C-D half (8), D-G half (9),
   // G-H half (8), H-I half (6). Exact: integer ranges, so toEqual.
   const history = [-2, 1, -3, 5, -1, 3, -4, 4, -2];
 

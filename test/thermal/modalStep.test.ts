@@ -85,6 +85,21 @@ describe("zero-length steps and zero power", () => {
     expect(run.peakRiseK).toEqual([0]);
     expect(run.endRiseK).toEqual([0]);
   });
+  test.each([
+    [[{ a: 3, b: 200, lambda: 0 }]],
+    [[{ a: 5, b: -40, lambda: 0 }, { a: 1, b: 7, lambda: 0 }]],
+    [[{ a: 0, b: 1e6, lambda: 0 }]],
+  ])("the stepper's cached ramp path equals the plain update (%j)", (terms) => {
+    const step = createModalStepper(model);
+    for (const h of [1e-9, 1e-6, 0.01, 3, 1e6]) {
+      const a = step(Float64Array.from(start), h, [terms]);
+      const b = advanceModalState(model, start, h, [terms], new Float64Array(2));
+      // same closed form, factored differently (a·rise + b·ramp vs per-term sums): rounding, 1e-13
+      expectClose(a[0]!, b[0]!, { rel: 1e-13, abs: 1e-300 });
+      expectClose(a[1]!, b[1]!, { rel: 1e-13, abs: 1e-300 });
+    }
+  });
+
   test("the cached stepper equals the plain update", () => {
     const step = createModalStepper(model);
     const a = Float64Array.from(start);
