@@ -84,6 +84,8 @@ export interface SupervisionReport {
   readonly marginFraction: number;
   /** measurement floor of the check thresholds [V] */
   readonly floorV: number;
+  /** energy a short puts into the part until the profile's timeout [J] (what an early abort saves from) */
+  readonly timeoutShortEnergyJ: number;
   readonly abortChecks: readonly AbortCheck[];
   readonly recommendedAbort: AbortCheck | null;
   readonly riseChecks: readonly RiseCheck[];
@@ -218,6 +220,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     configuredInside,
     marginFraction,
     floorV,
+    timeoutShortEnergyJ: timeoutEnergyJ,
     abortChecks: aborts,
     recommendedAbort,
     riseChecks: rises,

@@ -68,7 +68,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     ),
   );
   const a = report.recommendedAbort;
-  out.push(a === null ? "  no usable early-abort check at these times." : `  recommended: abort if the bus is below ${volts(a.thresholdV)} at ${dur(a.timeS)}; a short then puts ${formatNumber(a.shortEnergyJ, 3)} J into the part instead of ${formatNumber(a.shortEnergyJ / (a.shareOfTimeoutEnergy || 1), 3)} J.`);
+  out.push(a === null ? "  no usable early-abort check at these times." : `  recommended: abort if the bus is below ${volts(a.thresholdV)} at ${dur(a.timeS)}; a short then puts ${formatNumber(a.shortEnergyJ, 3)} J into the part instead of ${formatNumber(report.timeoutShortEnergyJ, 3)} J at the timeout.`);
   out.push("");
   out.push("Rise-too-fast checks: abort when the bus is already above the threshold (a bypassed or shorted pre-charge element)");
   out.push(
