@@ -92,6 +92,9 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push(`5. Lockout after the profile's burst (${r.attempts} attempts):`);
   if (!l.burstSafe) out.push(`   the burst itself is unsafe (${corner(l.burst)}); no lockout makes it safe.`);
   else if (l.minimumLockoutS === null) out.push("   no lockout in the scanned range makes a second burst safe.");
+  else if (l.minimumLockoutS === 0 && l.bands.length > 1)
+    out.push(`   0 s is safe (the next burst finds the bus still charged), but longer lockouts are not all safe: use one inside a band below; ${corner(l.governing)}.`);
+  else if (l.minimumLockoutS === 0) out.push(`   none needed: the same burst may start again as soon as this one ends; ${corner(l.governing)}.`);
   else out.push(`   at least ${formatPlanDuration(l.minimumLockoutS)} before the same burst may run again; ${corner(l.governing)}.`);
   if (l.bands.length > 1) out.push(`   Safe lockouts form separate bands: ${bands(l.bands)}.`);
   out.push(`   Back within ${l.ambientReturnK} K of ambient ${formatPlanDuration(l.ambientReturnS)} after the burst ends (slowest corner "${l.ambientReturnCorner}").`);

@@ -1,7 +1,5 @@
-import type { Unit } from "mathjs";
 import { InputError, type InputProblem, describeFound, inputError } from "../errors/InputError.js";
 import { type Dimension } from "../units/dimensions.js";
-import { loadMathjs } from "../units/loadMathjs.js";
 import { parseQuantity } from "../units/parseQuantity.js";
 import { type Cips2008Coefficients, CIPS2008_PUBLISHED, cips2008Model } from "./cips2008.js";
 import { coffinMansonModel } from "./coffinManson.js";
@@ -38,26 +36,6 @@ const FITTED_DIMENSION: Record<CycleQuantity, Dimension> = {
   heatingTime: "time",
   frequency: "frequency",
 };
-
-/** Parse a length (bond wire diameter) to metres: a number in m or a string such as "300 um". */
-function parseLength(value: unknown, field: string): number {
-  const expected = 'a length such as "300 um" (or a number in m)';
-  if (typeof value === "number") {
-    if (!Number.isFinite(value)) throw inputError("not-finite", field, expected, describeFound(value));
-    return value;
-  }
-  if (typeof value !== "string" || !/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*[A-Za-zµμ]+\s*$/.test(value))
-    throw inputError("bad-quantity", field, expected, describeFound(value));
-  const math = loadMathjs();
-  let unit: Unit;
-  try {
-    unit = math.unit(value.replace(/[µμ]/g, "u")) as Unit;
-  } catch {
-    throw inputError("unknown-unit", field, expected, describeFound(value));
-  }
-  if (!unit.equalBase(math.unit("m"))) throw inputError("wrong-dimension", field, expected, describeFound(value));
-  return unit.toNumber("m");
-}
 
 function at(prefix: string, path: string): string {
   return prefix === "" ? path : `${prefix}.${path}`;
@@ -151,7 +129,7 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
         {
           currentPerWireA: parseQuantity(raw.currentPerWire, "current", `${field}.currentPerWire`),
           voltageClassV: parseQuantity(raw.voltageClass, "voltage", `${field}.voltageClass`),
-          wireDiameterM: parseLength(raw.wireDiameter, `${field}.wireDiameter`),
+          wireDiameterM: parseQuantity(raw.wireDiameter, "length", `${field}.wireDiameter`),
           coefficients,
           ...(fit === undefined ? {} : { fitted: fit }),
         },

@@ -174,6 +174,12 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
     if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
     return peaks;
   }
+  const exponential = exponentialSlopeSum(model, state, powers, o);
+  if (exponential !== undefined) {
+    const at = singleTurnOfRates(exponential.rates, exponential.coefficients, h);
+    if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
+    return peaks;
+  }
   let previousS = 0;
   let previousSlope = slopeAtTime(model, state, powers, o, 0, scratch);
   for (const s of peakGrid(model, h)) {
@@ -187,6 +193,89 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
     previousSlope = slope;
   }
   return peaks;
+}
+
+/**
+ * For steps where every source's power is a sum of pure exponentials Σ a_k·e^(−lambda_k·s) (b = 0;
+ * lambda_k = 0 is a constant), the slope of the rise is again an exponential sum. Mode m of a
+ * source relaxes as y(s) = c_m·e^(−s/tau) + Σ_k a_k·e^(−lambda_k·s)/(1 − lambda_k·tau) with
+ * c_m = y(0) − Σ_k a_k/(1 − lambda_k·tau), so u = P − y = −Σ_k a_k·(lambda_k·tau/(1 − lambda_k·tau))·e^(−lambda_k·s) − c_m·e^(−s/tau)
+ * and the slope Σ gain·u/tau has one coefficient per distinct rate:
+ *   rate lambda_k: −Σ gain·a_k·lambda_k/(1 − lambda_k·tau_m);   rate 1/tau_m: −Σ_src gain·c_m/tau_m.
+ * With at most one sign change among the coefficients ordered by rate, the slope has at most one
+ * zero (rule of signs for exponential sums, as in linearSlopeSum), found by singleTurnOfRates.
+ * This is the resistor-charging step (constant, e^(−t/τ'), e^(−2t/τ') power), the bulk of every
+ * pre-charge history. Returns undefined when a rate coincides with a mode's 1/tau (a resonant
+ * s·e^(−s/tau) term) or there are more sign changes: the grid search handles those.
+ */
+function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { rates: number[]; coefficients: number[] } | undefined {
+  const modes = model.tauS.length;
+  const row = model.gainKPerW[o]!;
+  const byRate = new Map<number, number>();
+  const add = (rate: number, value: number): void => {
+    byRate.set(rate, (byRate.get(rate) ?? 0) + value);
+  };
+  for (let src = 0; src < row.length; src++) {
+    const terms = powers[src] ?? [];
+    for (const t of terms) if (t.b !== 0) return undefined;
+    for (let m = 0; m < modes; m++) {
+      const g = row[src]![m]!;
+      if (g === 0) continue;
+      const tau = model.tauS[m]!;
+      let c = state[src * modes + m]!;
+      for (const t of terms) {
+        const denominator = 1 - t.lambda * tau;
+        if (Math.abs(denominator) < 1e-3) return undefined;
+        c -= t.a / denominator;
+        if (t.lambda !== 0) add(t.lambda, (-g * t.a * t.lambda) / denominator);
+      }
+      add(1 / tau, (-g * c) / tau);
+    }
+  }
+  const rates = [...byRate.keys()].sort((a, b) => a - b);
+  const coefficients = rates.map((r) => byRate.get(r)!);
+  let changes = 0;
+  let last = 0;
+  for (const value of coefficients) {
+    const sign = Math.sign(value);
+    if (sign === 0) continue;
+    if (last !== 0 && sign !== last) changes++;
+    last = sign;
+  }
+  return changes <= 1 ? { rates, coefficients } : undefined;
+}
+
+/**
+ * The one zero in (0, h) of S(x) = Σ k_i·e^(−r_i·x) when S(0) > 0 ≥ S(h), by Newton's method kept
+ * inside the bracket (bisection when a step leaves it); undefined when there is none.
+ */
+function singleTurnOfRates(rates: readonly number[], k: readonly number[], h: number): number | undefined {
+  const value = (x: number): [number, number] => {
+    let f = 0;
+    let df = 0;
+    for (let i = 0; i < rates.length; i++) {
+      const term = k[i]! * Math.exp(-rates[i]! * x);
+      f += term;
+      df -= term * rates[i]!;
+    }
+    return [f, df];
+  };
+  if (!(value(0)[0] > 0) || !(value(h)[0] <= 0)) return undefined;
+  let lo = 0;
+  let hi = h;
+  let x = 0.5 * h;
+  for (let i = 0; i < 200; i++) {
+    const [f, df] = value(x);
+    if (f === 0) return x;
+    if (f > 0) lo = x;
+    else hi = x;
+    if (hi - lo <= 1e-12 * h) break;
+    let next = x - f / df;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - x) <= 1e-12 * h) return next;
+    x = next;
+  }
+  return 0.5 * (lo + hi);
 }
 
 /** Slope of the rise at time s into the step (state advanced exactly into scratch). */

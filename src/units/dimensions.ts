@@ -13,6 +13,7 @@ export const DIMENSIONS = {
   power: { si: "W", words: "a power", example: "150 W" },
   energy: { si: "J", words: "an energy", example: "12 J" },
   mass: { si: "kg", words: "a mass", example: "8 g" },
+  length: { si: "m", words: "a length", example: "300 um" },
   temperature: { si: "degC", words: "a temperature", example: "40 degC" },
   temperatureDifference: { si: "K", words: "a temperature difference", example: "10 K" },
   thermalResistance: { si: "K/W", words: "a thermal resistance", example: "2.5 K/W" },

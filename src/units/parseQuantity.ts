@@ -29,6 +29,7 @@ const PROBE: Record<Exclude<Dimension, "dimensionless">, string> = {
   power: "W",
   energy: "J",
   mass: "kg",
+  length: "m",
   temperature: "K",
   temperatureDifference: "K",
   thermalResistance: "K/W",

@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
-import { memoryIo } from "./simulateMemoryIo.js";
+import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger retries` on an invented profile: a 48 Ω pre-charge resistor
 // into a shorted bus at 48 V dissipates Vs²/R = 48 W until the 0.5 s timeout (series-resistor

@@ -42,3 +42,55 @@ describe("lockoutAfterBurst", () => {
     expect(answer.minimumLockoutS).toBe(0);
   });
 });
+
+describe("lockoutAfterBurst with the capacitor's charge", () => {
+  test("restarts after a trip: every band of safe lockouts agrees with whole-history brute force", async () => {
+    const { chargeThenTrip } = await import("./scenarios.js");
+    const { wholeTracePeak } = await import("./bruteForce.js");
+    // Invented scenario (see chargeThenTrip): 400 V, 20 Ω, 1 mF, 95 %, trip 20 ms after closing,
+    // bleeder 50 ms; a burst of 8 restarts 10 ms after each trip (the bus still charged: cheap),
+    // then a lockout, then the burst again. A short lockout finds the bus charged, a medium one
+    // finds it empty with the part still warm from the burst's first full charge, a long one a cool part.
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }, { rKPerW: 3, tauS: 60 }] });
+    const circuit = { sourceV: 400, resistanceOhm: 20, capacitanceF: 1e-3, fraction: 0.95, tripS: 0.02, bleedS: 0.05 };
+    const limits = { ambientC: 40, limitC: 85, marginK: 10 };
+    const burst = { gapsS: new Array<number>(7).fill(0.01), spacing: "end-to-start" as const };
+    const answer = lockoutAfterBurst([chargeThenTrip("trip", model, circuit, limits)], burst);
+    expect(answer.burstSafe).toBe(true);
+
+    // Brute force: the whole history (burst, lockout L, burst) written out again from the circuit
+    // formulas and simulated in one piece.
+    const safeAt = (lockoutS: number): boolean => {
+      const trace: { startS: number; durationS: number; terms: { a: number; b: number; lambda: number }[] }[] = [];
+      let t = 0;
+      let v = 0;
+      for (let k = 0; k < 16; k++) {
+        const dv = circuit.sourceV - v;
+        const target = (1 - circuit.fraction) * circuit.sourceV;
+        const chargeS = dv > target ? circuit.resistanceOhm * circuit.capacitanceF * Math.log(dv / target) : 0;
+        if (chargeS > 0) trace.push({ startS: t, durationS: chargeS, terms: [{ a: (dv * dv) / circuit.resistanceOhm, b: 0, lambda: 2 / (circuit.resistanceOhm * circuit.capacitanceF) }] });
+        const wait = k === 7 ? lockoutS : 0.01;
+        t += chargeS + circuit.tripS + wait;
+        v = circuit.sourceV * Math.exp(-wait / circuit.bleedS);
+      }
+      return wholeTracePeak(model, trace, 600) <= limits.limitC - limits.marginK - limits.ambientC;
+    };
+    const grid = [0, ...Array.from({ length: 600 }, (_, i) => 1e-3 * 10 ** ((6 * i) / 599))];
+    const flips: number[] = [];
+    let previous = safeAt(0);
+    for (let i = 1; i < grid.length; i++) {
+      const now = safeAt(grid[i]!);
+      if (now !== previous) flips.push(i);
+      previous = now;
+    }
+    const edges = answer.bands.flatMap((b) => (b.openEnded ? [b.fromS] : [b.fromS, b.toS])).filter((x) => x > 0);
+    expect(edges).toHaveLength(flips.length);
+    // each solver edge lies in the grid cell where brute force flips (edges are on the safe side)
+    edges.forEach((e, i) => {
+      expect(e).toBeGreaterThanOrEqual(grid[flips[i]! - 1]! * (1 - 1e-9));
+      expect(e).toBeLessThanOrEqual(grid[flips[i]!]! * (1 + 1e-9));
+    });
+    expect(answer.bands).toHaveLength(2);
+    expect(answer.minimumLockoutS).toBe(0);
+  });
+});

@@ -1,4 +1,5 @@
 import { describe, expect, test } from "vitest";
+import fc from "fast-check";
 import {
   type ModalModel,
   type PowerTerm,
@@ -84,5 +85,45 @@ describe("interiorPeaks with step ends covers the whole step (linear and decayin
     const endRise = modalRise(model, advanceModalState(model, start, h, [terms], new Float64Array(start.length)));
     const found = Math.max(modalRise(model, start), endRise, ...interiorPeaks(model, start, h, [terms]).map((p) => p.riseK));
     expectClose(found, bruteForcePeak(model, start, h, terms).riseK, { abs: 0.01 });
+  });
+});
+
+// Resistor-charging steps (constant, e^(−t/τ'), e^(−2t/τ') power) take the exponential-sum path
+// (one turn by the rule of signs, Newton on the closed-form slope); the grid is only the fallback.
+// Reference: brute-force dense sampling of the exact step solution (4·10^4 points), the same
+// outside check as above; 0.01 K is the resolution the reports need.
+describe("interiorPeaks on exponential power (resistor charging) against dense sampling", () => {
+  test("random Foster networks, random warm states, charging-shaped power", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ r: fc.double({ min: 0.05, max: 3, noNaN: true }), tau: fc.double({ min: 1e-4, max: 100, noNaN: true }) }), { minLength: 1, maxLength: 5 }),
+        fc.double({ min: 1e-3, max: 10, noNaN: true }),
+        fc.double({ min: 10, max: 2000, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (stages, rcTau, p0, warmth, constantShare) => {
+          const model = fosterToModal({ kind: "foster", stages: stages.map((s) => ({ rKPerW: s.r, tauS: s.tau })) });
+          const state = createModalState(model);
+          model.tauS.forEach((tau, m) => {
+            state[m] = p0 * warmth * (m % 2 === 0 ? 0.3 : 0.05) * (1 + tau / 100);
+          });
+          const powers = [[{ a: p0 * constantShare * 0.1, b: 0, lambda: 0 }, { a: p0 * (1 - constantShare) * 0.5, b: 0, lambda: 1 / rcTau }, { a: p0 * 0.5, b: 0, lambda: 2 / rcTau }]];
+          const h = 6 * rcTau;
+          const found = interiorPeaks(model, state, h, powers);
+          const scratch = new Float64Array(state.length);
+          let best = -Infinity;
+          // linear samples plus log-spaced ones from h·1e-9, so a fast mode's early turn is not stepped over
+          for (let i = 0; i <= 20_000; i++) {
+            best = Math.max(best, modalRise(model, advanceModalState(model, state, (h * i) / 20_000, powers, scratch)));
+            best = Math.max(best, modalRise(model, advanceModalState(model, state, h * 10 ** (-9 + (9 * i) / 20_000), powers, scratch)));
+          }
+          const endpoints = Math.max(modalRise(model, state), modalRise(model, advanceModalState(model, state, h, powers, scratch)));
+          const searched = Math.max(endpoints, ...found.map((p) => p.riseK));
+          expect(searched).toBeGreaterThanOrEqual(best - 0.01);
+          expect(searched).toBeLessThanOrEqual(best + 0.01 + 1e-9 * Math.abs(best));
+        },
+      ),
+      { numRuns: 150, seed: 20261202 },
+    );
   });
 });
