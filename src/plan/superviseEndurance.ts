@@ -1,8 +1,7 @@
 import { createModalState, type ModalState } from "../thermal/modalStep.js";
 import { AttemptCursor } from "./AttemptCursor.js";
 import { type ResolvedScenario, type RetryScenario, resolveScenario } from "./RetryScenario.js";
-import type { BurstPlan } from "./RetrySchedule.js";
-import { runBurst } from "./runBurst.js";
+import { retryPolicyVerdict } from "./retryPolicyVerdict.js";
 import { SUPERVISE_DEFAULTS } from "./superviseDefaults.js";
 import type { SupervisedRetryPolicy } from "./superviseRetryPolicy.js";
 
@@ -14,8 +13,10 @@ export interface ShortEndurance {
   readonly longestS: number;
   /** false when the part survives the short for ever (its steady rise under the short power is within the limit) */
   readonly bounded: boolean;
-  /** temperature of the part at the start of the hottest attempt, at the answer [°C] */
+  /** temperature of the part at the start of the hottest attempt, at the answer [°C] (under a retry policy: of the first burst) */
   readonly startTemperatureC: number;
+  /** under a retry policy: what crosses the limit just above the answer, the first burst from cold or the bursts repeated after lockouts; null otherwise */
+  readonly binding: "first burst" | "repeated bursts" | null;
   /** limit − margin [°C] */
   readonly allowedC: number;
   readonly limitC: number;
@@ -25,6 +26,7 @@ export interface ShortEndurance {
 interface TimeoutCheck {
   readonly safe: boolean;
   readonly startTemperatureC: number;
+  readonly binding?: "first burst" | "repeated bursts";
 }
 
 /**
@@ -42,21 +44,25 @@ function longestSafeTimeout(build: (timeoutS: number) => RetryScenario, check: (
   const base = { corner: probe.name, allowedC: probe.allowedC, limitC: probe.limitC };
   const at = (t: number): TimeoutCheck => check(resolveScenario(build(t)), t);
   const top = at(upper);
-  if (top.safe) return { ...base, longestS: Infinity, bounded: false, startTemperatureC: top.startTemperatureC };
+  if (top.safe) return { ...base, longestS: Infinity, bounded: false, startTemperatureC: top.startTemperatureC, binding: null };
   const zero = at(0);
-  if (!zero.safe) return { ...base, longestS: 0, bounded: true, startTemperatureC: zero.startTemperatureC };
+  if (!zero.safe) return { ...base, longestS: 0, bounded: true, startTemperatureC: zero.startTemperatureC, binding: zero.binding ?? null };
   let lo = 0;
   let hi = upper;
   let best = zero;
+  let failing = top;
   while (hi - lo > SUPERVISE_DEFAULTS.bisectionRelTol * hi) {
     const mid = 0.5 * (lo + hi);
     const c = at(mid);
     if (c.safe) {
       lo = mid;
       best = c;
-    } else hi = mid;
+    } else {
+      hi = mid;
+      failing = c;
+    }
   }
-  return { ...base, longestS: lo, bounded: true, startTemperatureC: best.startTemperatureC };
+  return { ...base, longestS: lo, bounded: true, startTemperatureC: best.startTemperatureC, binding: failing.binding ?? null };
 }
 
 /**
@@ -85,18 +91,19 @@ export function longestShortFromState(build: (timeoutS: number) => RetryScenario
 
 /**
  * Issue 8, item 1 (upper end from the hottest state the retry policy leaves, one corner): the
- * longest timeout for which every attempt of the profile's retry burst into a shorted output,
- * from a cold part, stays at or below limit − margin. Each attempt lasts exactly the timeout (a
- * short never completes), so the policy's start-to-start gap g is an end-to-start wait of
- * max(0, g − timeout) (an attempt that outlasts its gap is followed at once). The burst is run by
- * the retry planner (runBurst on an AttemptCursor); the hottest attempt start is reported.
- * Cost O(log(1/bisectionRelTol) × attempts × cost of one attempt).
+ * longest timeout for which the profile's retry policy into a shorted output stays at or below
+ * limit − margin: the burst from a cold part, and the burst followed by the lockout repeated for
+ * as long as the fault persists. Each attempt lasts exactly the timeout (a short never
+ * completes). The policy is checked by the retry planner (retryPolicyVerdict: the burst attempt
+ * by attempt, the repeated burst + lockout cycle by its periodic steady state in closed form);
+ * the hottest attempt start of the first burst is reported, and which of the two crosses the
+ * limit just above the answer.
+ * Cost O(log(1/bisectionRelTol) × cost of retryPolicyVerdict).
  */
 export function longestShortUnderPolicy(build: (timeoutS: number) => RetryScenario, policy: SupervisedRetryPolicy): ShortEndurance {
-  return longestSafeTimeout(build, (corner, timeoutS) => {
-    const plan: BurstPlan = { gapsS: policy.gapsS.map((g) => Math.max(0, g - timeoutS)), spacing: "end-to-start" };
-    const run = runBurst(new AttemptCursor(corner), plan, 0, true);
-    const hottest = run.records.reduce((m, r) => Math.max(m, r.startTemperatureC), -Infinity);
-    return { safe: run.firstUnsafe === null && run.overlapAt === null, startTemperatureC: hottest };
+  return longestSafeTimeout(build, (_corner, timeoutS) => {
+    const verdict = retryPolicyVerdict([build(timeoutS)], policy.burst, policy.lockoutS);
+    const hottest = verdict.perCorner[0]!.attempts.reduce((m, r) => Math.max(m, r.startTemperatureC), -Infinity);
+    return { safe: verdict.verdict === "safe", startTemperatureC: hottest, binding: verdict.burstSafe ? "repeated bursts" : "first burst" };
   });
 }

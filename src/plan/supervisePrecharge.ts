@@ -32,7 +32,7 @@ export interface TimeoutWindow {
   readonly lowerCorner: string;
   /** longest timeout into a short from a cold part, worst corner */
   readonly cold: ShortEndurance;
-  /** longest timeout into a short through the profile's retry burst, worst corner; null without a retry policy */
+  /** longest timeout into a short through the profile's retry policy (burst, lockout, repeated), worst corner; null without a retry policy */
   readonly underRetry: ShortEndurance | null;
   /** the upper end used: the retry answer when there is one, else the cold one [s] */
   readonly upperS: number;
@@ -84,6 +84,8 @@ export interface SupervisionReport {
   readonly marginFraction: number;
   /** measurement floor of the check thresholds [V] */
   readonly floorV: number;
+  /** energy a short puts into the part until the profile's timeout [J] (what an early abort saves from) */
+  readonly timeoutShortEnergyJ: number;
   readonly abortChecks: readonly AbortCheck[];
   readonly recommendedAbort: AbortCheck | null;
   readonly riseChecks: readonly RiseCheck[];
@@ -102,8 +104,8 @@ export interface SupervisionReport {
  * supervision corner set.
  * 1. Timeout window: the lower end is the slowest healthy corner's completion time (every corner
  *    run through the circuit model); the upper end the longest timeout the part survives into a
- *    shorted output, from cold (longestShortFromState) and through the profile's retry burst
- *    (longestShortUnderPolicy), worst over every heated part and both ends of the bus-voltage
+ *    shorted output, from cold (longestShortFromState) and through the profile's retry policy,
+ *    burst and lockout repeated (longestShortUnderPolicy), worst over every heated part and both ends of the bus-voltage
  *    range. When the ends cross, no safe timeout exists (verdict "fail", with the reason).
  * 2. Early-abort and rise-too-fast checks at the profile's check times, or at
  *    SUPERVISE_DEFAULTS.autoCheckFractions of the slowest completion time.
@@ -146,7 +148,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
   let reason = "";
   if (!Number.isFinite(lowerS)) reason = `the healthy corner "${slowest.corner.name}" never completes (${slowest.reason})`;
   else if (!exists)
-    reason = `the slowest healthy corner ("${slowest.corner.name}") needs ${formatDuration(lowerS)}, but the part survives a short only ${formatDuration(upperS)}${underRetry === null ? " from cold" : " through the retry burst"} (corner "${(underRetry ?? cold).corner}")`;
+    reason = `the slowest healthy corner ("${slowest.corner.name}") needs ${formatDuration(lowerS)}, but the part survives a short only ${formatDuration(upperS)}${underRetry === null ? " from cold" : " through the retry policy"} (corner "${(underRetry ?? cold).corner}")`;
   if (!exists) problems.push(`no safe timeout exists: ${reason}`);
   const window: TimeoutWindow = {
     lowerS,
@@ -218,6 +220,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     configuredInside,
     marginFraction,
     floorV,
+    timeoutShortEnergyJ: timeoutEnergyJ,
     abortChecks: aborts,
     recommendedAbort,
     riseChecks: rises,

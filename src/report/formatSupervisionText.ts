@@ -14,8 +14,8 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
     ["pre-charge timeout, highest (cold part)", dur(w.cold.longestS), `short at ${volts(report.shortBusVoltageV)}`],
   ];
   if (w.underRetry !== null)
-    rows.push(["pre-charge timeout, highest (retry burst)", dur(w.underRetry.longestS), `hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C`]);
-  rows.push(["timeout window", w.exists ? `${dur(w.lowerS)} to ${dur(w.upperS)}` : "none", w.exists ? `margin ${dur(w.marginS)}` : w.reason]);
+    rows.push(["pre-charge timeout, highest (retry policy)", dur(w.underRetry.longestS), `${w.underRetry.binding ?? "policy"} bind; first burst's hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C`]);
+  rows.push(["timeout window", w.exists ? `${dur(w.lowerS)} to ${dur(w.upperS)}` : "none", w.exists ? `margin ${dur(w.marginS)}` : "NO SAFE TIMEOUT: the ends cross (see the report)"]);
   rows.push(["profile's timeout", dur(report.configuredTimeoutS), report.configuredInside ? "inside the window" : "OUTSIDE the window"]);
   const a = report.recommendedAbort;
   rows.push(["early abort", a === null ? "none usable" : `bus < ${volts(a.thresholdV)} at ${dur(a.timeS)}`, a === null ? "" : `short energy ${formatNumber(a.shortEnergyJ, 3)} J (${formatNumber(a.shareOfTimeoutEnergy * 100, 3)} % of a full timeout)`]);
@@ -49,7 +49,8 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   out.push(`  longest timeout the part survives into a short, from cold: ${dur(w.cold.longestS)}  (${w.cold.corner})`);
   if (w.underRetry !== null && report.policy !== null)
     out.push(
-      `  longest timeout through the retry burst (${report.policy.attempts} attempts, ${report.policy.field}): ${dur(w.underRetry.longestS)}  (hottest attempt starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C)`,
+      `  longest timeout through the retry policy (${report.policy.attempts} attempts, then ${dur(report.policy.lockoutS)} lockout, repeated; ${report.policy.field}): ${dur(w.underRetry.longestS)}` +
+        `  (hottest attempt of the first burst starts at ${formatNumber(w.underRetry.startTemperatureC, 4)} °C${w.underRetry.binding === null ? "" : `; ${w.underRetry.binding} bind`})`,
     );
   else out.push("  the profile has no retry block: the upper end is the cold one");
   if (w.exists) out.push(`  window: ${dur(w.lowerS)} to ${dur(w.upperS)}; margin ${dur(w.marginS)}${Number.isFinite(w.marginRatio) ? ` (upper/lower ${formatNumber(w.marginRatio, 3)})` : ""}`);
@@ -67,7 +68,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     ),
   );
   const a = report.recommendedAbort;
-  out.push(a === null ? "  no usable early-abort check at these times." : `  recommended: abort if the bus is below ${volts(a.thresholdV)} at ${dur(a.timeS)}; a short then puts ${formatNumber(a.shortEnergyJ, 3)} J into the part instead of ${formatNumber(a.shortEnergyJ / (a.shareOfTimeoutEnergy || 1), 3)} J.`);
+  out.push(a === null ? "  no usable early-abort check at these times." : `  recommended: abort if the bus is below ${volts(a.thresholdV)} at ${dur(a.timeS)}; a short then puts ${formatNumber(a.shortEnergyJ, 3)} J into the part instead of ${formatNumber(report.timeoutShortEnergyJ, 3)} J at the timeout.`);
   out.push("");
   out.push("Rise-too-fast checks: abort when the bus is already above the threshold (a bypassed or shorted pre-charge element)");
   out.push(

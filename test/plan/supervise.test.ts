@@ -78,14 +78,16 @@ describe("longestShortFromState: one Foster stage closed forms", () => {
 });
 
 describe("longestShortUnderPolicy: the retry burst, through the retry planner", () => {
-  const retry = `  - retry: { attempts: 3, interval: 5 s, fault: { type: shorted-output }, lockout: 1 min }\n`;
+  // a 10 min lockout is 60 τ: what a burst leaves has decayed by e^(−60) before the next burst, so
+  // the first burst binds and the closed forms below apply to it
+  const retry = `  - retry: { attempts: 3, interval: 5 s, fault: { type: shorted-output }, lockout: 10 min }\n`;
   const profile = oneStageProfile({ ...BASE, retry });
   const part = profile.parts[0]!;
   const build = (t: number) => shortedScenario(profile, part, 50, t, MODELS);
   const policy = profileRetryPolicy(profile.events)!;
 
   test("the policy is read from the profile's retry block", () => {
-    expect(policy).toMatchObject({ attempts: 3, gapsS: [5, 5], intervalS: 5, lockoutS: 60 });
+    expect(policy).toMatchObject({ attempts: 3, gapsS: [5, 5], intervalS: 5, lockoutS: 600 });
   });
 
   test("at the answer, the hottest attempt's start θ0 gives the same t_max in closed form", () => {
@@ -113,6 +115,19 @@ describe("longestShortUnderPolicy: the retry burst, through the retry planner", 
     const end3 = PR + (start3 - PR) * a;
     expectClose(answer.startTemperatureC - 25, start3, { rel: 1e-6 }); // same arithmetic, rounding only
     expectClose(end3, DT, { rel: 1e-6 }); // the third attempt ends at the allowed rise (bisection 1e-9)
+    expect(answer.binding).toBe("first burst");
+  });
+
+  test("a short lockout: the repeated bursts bind and the answer is shorter", () => {
+    // 20 s lockout (2 τ): each burst starts from what the last one left (e^(−2) of its end rise and
+    // more), so the periodic steady state of burst + lockout is hotter than the first burst
+    const short = oneStageProfile({ ...BASE, retry: retry.replace("lockout: 10 min", "lockout: 20 s") });
+    const p = short.parts[0]!;
+    const answer = longestShortUnderPolicy((t) => shortedScenario(short, p, 50, t, MODELS), profileRetryPolicy(short.events)!);
+    const first = longestShortUnderPolicy(build, policy);
+    expect(answer.binding).toBe("repeated bursts");
+    expect(answer.longestS).toBeLessThan(first.longestS);
+    expect(answer.longestS).toBeGreaterThan(0);
   });
 });
 

@@ -31,7 +31,7 @@ describe("heatledger supervise (in process)", () => {
     expect(text).not.toMatch(/NaN|Infinity/);
   });
 
-  test("no safe timeout: exit 1, says so with the reason; --json carries exists: false and null for unbounded numbers", async () => {
+  test("no safe timeout: exit 1, says so with the reason; --json carries exists: false", async () => {
     // C up to 0.5 F needs about 15 s to charge; the short is survivable for 2.88 s (see supervise.test.ts)
     const files = { "p.yaml": oneStageProfileText({ ...BASE, capacitanceF: [0.2, 0.5] }) };
     const io = memoryIo(files);
@@ -43,6 +43,18 @@ describe("heatledger supervise (in process)", () => {
     expect(json.verdict).toBe("fail");
     expect(json.window.exists).toBe(false);
     expect(json.window.lowerS).toBeGreaterThan(json.window.upperS);
+  });
+
+  test("--json: a short the part survives for ever is null (unbounded), never Infinity or NaN", async () => {
+    // 5 V into 10 ohm: P = 2.5 W, P·R_th = 5 K below the 125 K allowed rise: no upper end
+    const io = memoryIo({ "p.yaml": oneStageProfileText({ ...BASE, busV: [4, 5] }) });
+    expect(await runCli(["supervise", "p.yaml", "--json"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).not.toMatch(/NaN|Infinity/);
+    const json = JSON.parse(text) as { window: { exists: boolean; upperS: number | null; cold: { longestS: number | null; bounded: boolean } } };
+    expect(json.window.cold).toMatchObject({ longestS: null, bounded: false });
+    expect(json.window.upperS).toBeNull();
+    expect(json.window.exists).toBe(true);
   });
 
   test("the profile's timeout outside the window: exit 1", async () => {
