@@ -49,7 +49,7 @@ export interface CapacityInversion {
   readonly capacityJPerK: number;
   /** that capacity as a mass of the chosen material [kg] */
   readonly massKg?: number;
-  /** the part's peak at that scale [°C] (at the smallest scale tried for `any`, the largest for `none`) */
+  /** the sized part's peak at that scale [°C] (at the smallest scale tried for `any`, the largest for `none`) */
   readonly peakTemperatureC: number;
   /** the lower end of the final bracket: a scale whose peak is above the target (undefined for `any`/`none`) */
   readonly crossingScale?: number;
@@ -70,6 +70,10 @@ export interface HeatCapacitySizing {
   readonly presentCapacityJPerK: number;
   /** the part's peak with its present network [°C] */
   readonly presentPeakC: number;
+  /** other parts on the same network (one heatsink): scaling it scales theirs too, so each is held to its own target */
+  readonly sharedWith: readonly string[];
+  /** the part on the network that sets the answer (closest to its target at the sized scale) */
+  readonly governingPartId: string;
   /** undefined when no event puts energy into the part */
   readonly worstEvent?: SizingWorstEvent;
   /** undefined when no capacity can help (target ≤ ambient) */
@@ -95,6 +99,9 @@ export interface HeatCapacitySizing {
  *    bisected on ln k until the peak is within `temperatureToleranceK` below the target and the
  *    bracket narrower than `capacityRelativeWidth`. The answer is reported as k, as the part's
  *    first capacity k·C_first and, with a material, as the mass k·C_first/c.
+ *    Parts that share the network (a MOSFET and its source resistor on one heatsink) share the
+ *    scaling, so a scale is accepted only when every one of them stays at or under its own target;
+ *    the part that binds is reported as governing.
  *    Monotonicity: more capacity at the same resistances lowers the peak for a one-stage network
  *    exactly (a first-order low-pass with a longer time constant is an average of the shorter
  *    one's output); for several stages it holds for steps and pulse trains but is not proven for
@@ -114,6 +121,21 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
   const marginK = options.marginK ?? part.marginK;
   if (!Number.isFinite(marginK) || marginK < 0) throw inputError("bad-option", "--margin", "a margin ≥ 0 K", String(marginK));
   const targetC = part.limitC - marginK;
+  const group = profile.parts.map((p, i) => ({ p, i })).filter(({ p }) => p.networkKey === part.networkKey);
+  const targets = group.map(({ p }) => p.limitC - (options.marginK ?? p.marginK));
+  /** how far the hottest part of the group is over its target [K], and which one it is */
+  const excessOf = (peaks: readonly { peakTemperatureC: number }[]): { excess: number; governing: string } => {
+    let excess = -Infinity;
+    let governing = part.id;
+    group.forEach(({ p, i }, j) => {
+      const over = peaks[i]!.peakTemperatureC - targets[j]!;
+      if (over > excess) {
+        excess = over;
+        governing = p.id;
+      }
+    });
+    return { excess, governing };
+  };
   const c = options.material?.specificHeatJPerKgK;
   const massOf = (capacity: number): number | undefined => (c === undefined || !Number.isFinite(capacity) ? undefined : capacity / c);
   const presentCapacity = sizeShortTimeCapacity(part.model, part.observedIndex, part.sourceIndex);
@@ -127,15 +149,20 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
     },
   });
   const presentPeakC = present.parts[partIndex]!.peakTemperatureC;
-  const base = { partId: part.id, partIndex, ambientC: part.ambientC, limitC: part.limitC, marginK, targetC, presentCapacityJPerK: presentCapacity, presentPeakC, ...(worst === undefined ? {} : { worstEvent: worst }) };
+  const presentExcess = excessOf(present.parts);
+  const sharedWith = group.filter(({ p }) => p.id !== part.id).map(({ p }) => p.id);
+  const base = { partId: part.id, partIndex, ambientC: part.ambientC, limitC: part.limitC, marginK, targetC, presentCapacityJPerK: presentCapacity, presentPeakC, sharedWith, ...(worst === undefined ? {} : { worstEvent: worst }) };
 
   const riseK = targetC - part.ambientC;
-  if (!(riseK > 0)) {
+  const cold = group.find(({ p }, j) => !(targets[j]! - p.ambientC > 0));
+  if (cold !== undefined) {
+    const t = targets[group.indexOf(cold)]!;
     return {
       ...base,
+      governingPartId: cold.p.id,
       inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: presentPeakC, simulations: 1 },
       feasible: false,
-      reason: `the target ${targetC} °C (limit ${part.limitC} °C less ${marginK} K margin) is not above the ambient ${part.ambientC} °C, so no heat capacity keeps the part under it`,
+      reason: `${cold.p.id === part.id ? "the" : `${cold.p.id}, on the same network: its`} target ${t} °C (limit ${cold.p.limitC} °C less ${cold.p.limitC - t} K margin) is not above the ambient ${cold.p.ambientC} °C, so no heat capacity keeps the part under it`,
     };
   }
   const adiabatic: AdiabaticBound =
@@ -144,76 +171,83 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
       : { riseK, capacityJPerK: worst.energyJ / riseK, ...(c === undefined ? {} : { massKg: adiabaticMass(worst.energyJ, c, riseK) }) };
 
   let simulations = 1;
-  const peakAt = (scale: number): number => {
+  const runAt = (scale: number): { excess: number; governing: string; peakC: number } => {
     simulations++;
-    return simulateProfile(sizeScaledProfile(profile, partIndex, scale), { models: options.models }).parts[partIndex]!.peakTemperatureC;
+    const parts = simulateProfile(sizeScaledProfile(profile, partIndex, scale), { models: options.models }).parts;
+    return { ...excessOf(parts), peakC: parts[partIndex]!.peakTemperatureC };
   };
   const d = SIZE_DEFAULTS;
-  // bracket: lo crosses the target, hi stays at or under it
+  // bracket: lo puts a part of the network over its target, hi keeps every one at or under it
   let lo: number;
-  let hi: number;
-  let peakHi: number;
-  if (presentPeakC <= targetC) {
-    hi = 1;
-    peakHi = presentPeakC;
+  let hi = 1;
+  let atHi = { ...presentExcess, peakC: presentPeakC };
+  if (presentExcess.excess <= 0) {
     for (;;) {
       const k = hi / d.bracketFactor;
       if (k < d.minCapacityScale) {
         return {
           ...base,
+          governingPartId: atHi.governing,
           adiabatic,
-          inversion: { status: "any", scale: 0, capacityJPerK: 0, ...(c === undefined ? {} : { massKg: 0 }), peakTemperatureC: peakHi, simulations },
+          inversion: { status: "any", scale: 0, capacityJPerK: 0, ...(c === undefined ? {} : { massKg: 0 }), peakTemperatureC: atHi.peakC, simulations },
           feasible: true,
-          reason: `even ${hi.toExponential(1)} × the present capacity keeps the peak at ${peakHi.toFixed(2)} °C, under the ${targetC} °C target: the resistance to ambient, not the heat capacity, sets this part's peak`,
+          reason: `even ${hi.toExponential(1)} × the present capacity keeps the peak at ${atHi.peakC.toFixed(2)} °C, under the ${targetC} °C target: the resistance to ambient, not the heat capacity, sets this part's peak`,
         };
       }
-      const p = peakAt(k);
-      if (p > targetC) {
+      const r = runAt(k);
+      if (r.excess > 0) {
         lo = k;
         break;
       }
       hi = k;
-      peakHi = p;
+      atHi = r;
     }
   } else {
     lo = 1;
     for (;;) {
       const k = lo * d.bracketFactor;
       if (k > d.maxCapacityScale) {
+        const r = runAt(lo);
         return {
           ...base,
+          governingPartId: r.governing,
           adiabatic,
-          inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: peakAt(lo), simulations },
+          inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: r.peakC, simulations },
           feasible: false,
-          reason: `even ${lo.toExponential(1)} × the present capacity leaves the peak above the ${targetC} °C target`,
+          reason: `even ${lo.toExponential(1)} × the present capacity leaves ${r.governing} above its target`,
         };
       }
-      const p = peakAt(k);
-      if (p <= targetC) {
+      const r = runAt(k);
+      if (r.excess <= 0) {
         hi = k;
-        peakHi = p;
+        atHi = r;
         break;
       }
       lo = k;
     }
   }
-  while (simulations < d.maxSimulations && (hi / lo - 1 > d.capacityRelativeWidth || targetC - peakHi > d.temperatureToleranceK)) {
+  while (simulations < d.maxSimulations && (hi / lo - 1 > d.capacityRelativeWidth || -atHi.excess > d.temperatureToleranceK)) {
     const mid = Math.sqrt(lo * hi);
     if (mid <= lo || mid >= hi) break;
-    const p = peakAt(mid);
-    if (p > targetC) lo = mid;
+    const r = runAt(mid);
+    if (r.excess > 0) lo = mid;
     else {
       hi = mid;
-      peakHi = p;
+      atHi = r;
     }
   }
+  const peakHi = atHi.peakC;
   const capacity = hi * presentCapacity;
   const mass = massOf(capacity);
   return {
     ...base,
+    governingPartId: atHi.governing,
     adiabatic,
     inversion: { status: "sized", scale: hi, capacityJPerK: capacity, ...(mass === undefined ? {} : { massKg: mass }), peakTemperatureC: peakHi, crossingScale: lo, simulations },
     feasible: true,
-    reason: `${hi.toPrecision(4)} × the present heat capacity keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${targetC} °C target`,
+    reason:
+      atHi.governing === part.id
+        ? `${hi.toPrecision(4)} × the present heat capacity keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${targetC} °C target`
+        : `${hi.toPrecision(4)} × the present heat capacity of the shared network keeps ${atHi.governing} at its target; this part then peaks at ${peakHi.toFixed(2)} °C (target ${targetC} °C)`,
   };
 }

@@ -15,49 +15,70 @@ export function formatSizingText(report: SizingReport, width = 100): string {
   out.push(`heatledger size: ${report.profileName}`, `profile ${report.file}`, "");
   const m = report.material;
   out.push(
-    "Heat capacity per part (every capacity of the part's network scaled by k at fixed thermal resistances;",
-    "\"first capacity\" is the capacity the part's own power meets first: C1 of a ladder, 1/Σ(R/tau) of a Foster network)",
+    wrapText(
+      "Heat capacity per part. C1 is the capacity the part's own power meets first (C1 of a ladder or lumped element, 1/Σ(R/tau) of a Foster network). " +
+        "k scales every heat capacity of the part's network at fixed thermal resistances (Foster: tau → k·tau).",
+      width,
+    ),
   );
-  if (m !== undefined) out.push(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; values from memory)`);
-  out.push("");
-  const columns = [
-    { heading: "part" },
-    { heading: "target [°C]", align: "right" as const },
-    { heading: "now: peak [°C]", align: "right" as const },
-    { heading: "now: C1 [J/K]", align: "right" as const },
-    { heading: "worst event [J]", align: "right" as const },
-    { heading: "adiabatic C [J/K]", align: "right" as const },
-    ...(m === undefined ? [] : [{ heading: "adiabatic m [g]", align: "right" as const }]),
-    { heading: "profile: k", align: "right" as const },
-    { heading: "profile: C1 [J/K]", align: "right" as const },
-    ...(m === undefined ? [] : [{ heading: "profile: m [g]", align: "right" as const }]),
-    { heading: "peak at k [°C]", align: "right" as const },
-  ];
-  const rows = report.parts.map((p) => {
-    const inv = p.inversion;
-    const k = inv.status === "sized" ? formatNumber(inv.scale) : inv.status === "any" ? "any" : "none";
-    return [
-      p.partId,
-      formatNumber(p.targetC),
-      formatNumber(p.presentPeakC),
-      formatNumber(p.presentCapacityJPerK),
-      p.worstEvent === undefined ? "0" : formatNumber(p.worstEvent.energyJ),
-      p.adiabatic === undefined ? "none" : formatNumber(p.adiabatic.capacityJPerK),
-      ...(m === undefined ? [] : [p.adiabatic === undefined ? "none" : grams(p.adiabatic.massKg)]),
-      k,
-      inv.status === "none" ? "none" : formatNumber(inv.capacityJPerK),
-      ...(m === undefined ? [] : [inv.status === "none" ? "none" : grams(inv.massKg)]),
-      inv.status === "none" ? "n/a" : formatNumber(inv.peakTemperatureC),
-    ];
-  });
-  out.push(formatTable(columns, rows));
+  if (m !== undefined) out.push(wrapText(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; value from memory).`, width));
+  out.push("", "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT)");
+  out.push(
+    formatTable(
+      [
+        { heading: "part" },
+        { heading: "target [°C]", align: "right" },
+        { heading: "worst event [J]", align: "right" },
+        { heading: "ΔT [K]", align: "right" },
+        { heading: "C [J/K]", align: "right" },
+        ...(m === undefined ? [] : [{ heading: "m [g]", align: "right" as const }]),
+      ],
+      report.parts.map((p) => [
+        p.partId,
+        formatNumber(p.targetC),
+        p.worstEvent === undefined ? "0" : formatNumber(p.worstEvent.energyJ),
+        p.adiabatic === undefined ? "none" : formatNumber(p.adiabatic.riseK),
+        p.adiabatic === undefined ? "none" : formatNumber(p.adiabatic.capacityJPerK),
+        ...(m === undefined ? [] : [p.adiabatic === undefined ? "none" : grams(p.adiabatic.massKg)]),
+      ]),
+    ),
+  );
+  out.push("Whole profile: the simulation inverted for the smallest k (heat left over from earlier events included)");
+  out.push(
+    formatTable(
+      [
+        { heading: "part" },
+        { heading: "now: peak [°C]", align: "right" },
+        { heading: "now: C1 [J/K]", align: "right" },
+        { heading: "k", align: "right" },
+        { heading: "C1 at k [J/K]", align: "right" },
+        ...(m === undefined ? [] : [{ heading: "m at k [g]", align: "right" as const }]),
+        { heading: "peak at k [°C]", align: "right" },
+        { heading: "governed by" },
+      ],
+      report.parts.map((p) => {
+        const inv = p.inversion;
+        return [
+          p.partId,
+          formatNumber(p.presentPeakC),
+          formatNumber(p.presentCapacityJPerK),
+          inv.status === "sized" ? formatNumber(inv.scale) : inv.status === "any" ? "any" : "none",
+          inv.status === "none" ? "none" : formatNumber(inv.capacityJPerK),
+          ...(m === undefined ? [] : [inv.status === "none" ? "none" : grams(inv.massKg)]),
+          formatNumber(inv.peakTemperatureC),
+          p.governingPartId,
+        ];
+      }),
+    ),
+  );
   for (const p of report.parts) {
-    const worst = p.worstEvent === undefined ? "no event puts energy into it" : `worst event #${p.worstEvent.index} (${p.worstEvent.label}, ${p.worstEvent.kind}), ${formatNumber(p.worstEvent.energyJ)} J`;
-    out.push(wrapText(`${p.partId}: ${p.reason}. ${worst}; sized to ${formatNumber(p.targetC)} °C = limit ${formatNumber(p.limitC)} °C less ${formatNumber(p.marginK)} K.${p.inversion.crossingScale === undefined ? "" : ` k = ${formatNumber(p.inversion.crossingScale)} crosses the target (${p.inversion.simulations} simulations).`}`, width));
+    const worst = p.worstEvent === undefined ? "no event puts energy into it" : `worst event #${p.worstEvent.index} (${p.worstEvent.label}), ${formatNumber(p.worstEvent.energyJ)} J`;
+    const shared = p.sharedWith.length === 0 ? "" : ` Shares its network with ${p.sharedWith.join(", ")}: scaling it scales theirs, so each is held to its own target.`;
+    out.push(wrapText(`${p.partId}: ${p.reason}. ${worst}; target = limit ${formatNumber(p.limitC)} °C less ${formatNumber(p.marginK)} K.${shared}${p.inversion.crossingScale === undefined ? "" : ` k = ${formatNumber(p.inversion.crossingScale)} crosses the target (${p.inversion.simulations} simulations).`}`, width));
   }
   out.push(
     wrapText(
-      "The adiabatic bound covers the worst event alone, from ambient, with no heat leaving; the profile column covers the whole sequence, heat left over from earlier events included.",
+      "The adiabatic C is one lump taking the worst event's whole energy; compare it with C1 at k, not with the network's total capacity. The whole-profile answer is the one that covers the sequence.",
       width,
     ),
     "",
@@ -92,7 +113,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
         ],
       ),
     );
-    out.push(wrapText(`${c.knob.name}: ${c.reason}.`, width));
+    out.push(wrapText(`${c.reason[0]!.toUpperCase()}${c.reason.slice(1)}.`, width));
   }
   out.push("");
   if (report.verdict === "feasible") out.push("Verdict: a feasible size exists for every question asked.");

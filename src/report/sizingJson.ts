@@ -26,6 +26,8 @@ export function sizingJson(report: SizingReport): object {
       targetC: p.targetC,
       presentPeakC: p.presentPeakC,
       presentCapacityJPerK: num(p.presentCapacityJPerK),
+      sharedWith: p.sharedWith,
+      governingPartId: p.governingPartId,
       worstEvent: p.worstEvent ?? null,
       adiabatic: p.adiabatic === undefined ? null : { riseK: p.adiabatic.riseK, capacityJPerK: p.adiabatic.capacityJPerK, massKg: p.adiabatic.massKg ?? null },
       inversion: {
