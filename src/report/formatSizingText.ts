@@ -78,7 +78,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
   }
   out.push(
     wrapText(
-      "The adiabatic C is one lump taking the worst event's whole energy; compare it with C1 at k, not with the network's total capacity. The whole-profile answer is the one that covers the sequence.",
+      "The adiabatic C is one lump that keeps the worst event's whole energy: for that event alone, from ambient, it bounds C1 from above (heat that flows on into the rest of the network only helps). The whole-profile answer is the one that covers the sequence.",
       width,
     ),
     "",
