@@ -57,6 +57,34 @@ describe("heatledger size (in process)", () => {
     expect(text.stdout.join("")).toContain(LINEAR_MOSFET_CAUTION.slice(0, 30));
   });
 
+  test("a profile with no circuit, two parts, --part twice: one sized, one any, the circuit section says there is none", async () => {
+    // invented: 100 W for 0.5 s into each part; "cool" has P·R = 10 K, under its 125 K allowance at any capacity
+    const text = `name: no circuit
+ambient: 25 degC
+parts:
+  - id: hot
+    network: { form: foster, stages: [ { r: 2 K/W, tau: 1 s } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+  - id: cool
+    network: { form: foster, stages: [ { r: 0.1 K/W, tau: 1 s } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - power-trace: { part: hot, points: [[0, 100], [0.5 s, 100]] }
+  - power-trace: { part: cool, points: [[0, 100], [0.5 s, 100]] }
+`;
+    const io = memoryIo({ "p.yaml": text });
+    expect(await runCli(["size", "p.yaml", "--part", "hot", "--part", "cool", "--material", "aluminum"], io)).toBe(0);
+    const out = io.stdout.join("");
+    expect(out).toContain("no circuit in the profile");
+    expect(out).toMatch(/\ncool +[\d.]+ +[\d.]+ +any /);
+    expect(out).not.toMatch(/NaN|Infinity|undefined/);
+    const jsonIo = memoryIo({ "p.yaml": text });
+    expect(await runCli(["size", "p.yaml", "--part", "hot", "--json"], jsonIo)).toBe(0);
+    const json = JSON.parse(jsonIo.stdout.join("")) as { parts: { id: string }[]; circuit: null };
+    expect(json.parts.map((p) => p.id)).toEqual(["hot"]);
+    expect(json.circuit).toBeNull();
+  });
+
   test("no feasible size: exit 1, and the report says why", async () => {
     // 200 °C limit less 170 K is 30 °C, below the 40 °C ambient
     const io = memoryIo(heatPump());
