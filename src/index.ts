@@ -204,6 +204,18 @@ export { planRetries } from "./plan/planRetries.js";
 export type { RetryPlanReport } from "./plan/planRetries.js";
 export { formatRetryPlanText, formatPlanDuration } from "./plan/formatRetryPlanText.js";
 export { retryPlanJson } from "./plan/retryPlanJson.js";
+// plan: sizing (heat capacity by the adiabatic bound and by inverting the profile; slowest charging element)
+export { SIZE_DEFAULTS } from "./plan/sizeDefaults.js";
+export { sizeScaledProfile } from "./plan/sizeScaledProfile.js";
+export { sizeShortTimeCapacity } from "./plan/sizeShortTimeCapacity.js";
+export { sizeHeatCapacity } from "./plan/sizeHeatCapacity.js";
+export type { HeatCapacitySizing, HeatCapacitySizingOptions, SizingWorstEvent, AdiabaticBound, CapacityInversion } from "./plan/sizeHeatCapacity.js";
+export { sizeChargingElement } from "./plan/sizeChargingElement.js";
+export type { ChargingElementSizing, ChargingElementKnob } from "./plan/sizeChargingElement.js";
+export { sizeProfile } from "./plan/sizeProfile.js";
+export type { SizeProfileOptions, SizingReport } from "./plan/sizeProfile.js";
+export { formatSizingText } from "./report/formatSizingText.js";
+export { sizingJson } from "./report/sizingJson.js";
 // plan: supervision (timeout window, early-abort checks, retry storms)
 export { SUPERVISE_DEFAULTS } from "./plan/superviseDefaults.js";
 export { healthyCorners, describeLoad } from "./plan/superviseCorners.js";

@@ -1,0 +1,23 @@
+/**
+ * Defaults of the sizing solvers (`heatledger size`), declared once: code, help text and README read
+ * these. Bracketing steps by a factor, then bisection on the logarithm of the scale factor or the
+ * circuit value; every number here is a choice of our own, with its reason.
+ */
+export const SIZE_DEFAULTS = {
+  /** bracketing step: the capacity scale or circuit value is multiplied or divided by this until the answer changes */
+  bracketFactor: 4,
+  /** smallest capacity scale tried: below it the capacity is taken not to matter (the peak is then R·P, set by the resistance) */
+  minCapacityScale: 1e-6,
+  /** largest capacity scale tried: a finite profile always fits below some scale, so reaching it means a pathological input */
+  maxCapacityScale: 1e9,
+  /** the sized peak lies at most this far below the target temperature [K] (the tests ask for 0.1 K) */
+  temperatureToleranceK: 0.01,
+  /** and the bracket [lo, hi] of the capacity scale is at most this wide, relative, so 1 % less crosses the target */
+  capacityRelativeWidth: 1e-3,
+  /** relative width at which the circuit-value bisection stops (the completion test is exact, so this is cheap) */
+  circuitRelativeWidth: 1e-7,
+  /** circuit values are searched within this factor of the profile's own value, either way */
+  circuitSearchFactor: 1e9,
+  /** most simulations one capacity sizing may run (bracketing plus bisection) */
+  maxSimulations: 80,
+} as const;

@@ -1,0 +1,71 @@
+import { describeFound, inputError } from "../errors/InputError.js";
+import type { CircuitModels } from "../profile/CircuitModels.js";
+import type { DutyProfile } from "../profile/DutyProfile.js";
+import type { MaterialPreset } from "../thermal/materials.js";
+import { type ChargingElementSizing, sizeChargingElement } from "./sizeChargingElement.js";
+import { type HeatCapacitySizing, sizeHeatCapacity } from "./sizeHeatCapacity.js";
+
+/** Options of {@link sizeProfile}. */
+export interface SizeProfileOptions {
+  readonly models: CircuitModels;
+  /** express capacities as masses of this material */
+  readonly material?: MaterialPreset;
+  /** size to this margin below each limit instead of each part's own [K] */
+  readonly marginK?: number;
+  /** size only these parts (ids); default every part */
+  readonly partIds?: readonly string[];
+}
+
+/** Everything `heatledger size` answers for one profile. */
+export interface SizingReport {
+  readonly profileName: string;
+  readonly file: string;
+  readonly material?: MaterialPreset;
+  readonly parts: readonly HeatCapacitySizing[];
+  /** undefined when the profile has no circuit */
+  readonly circuit?: ChargingElementSizing;
+  /** a linear-mode MOSFET is in the circuit (its caution goes into the report) */
+  readonly linearMosfet: boolean;
+  /** "feasible": every sized part has a size and the circuit question (when it applies) an answer */
+  readonly verdict: "feasible" | "infeasible";
+  /** why not, one sentence per failed answer */
+  readonly infeasibleReasons: readonly string[];
+}
+
+/**
+ * Size a duty profile: the heat capacity of each part (sizeHeatCapacity: adiabatic bound and
+ * inversion of the whole profile) and the slowest charging element that still completes a healthy
+ * power-up (sizeChargingElement). Parts are sized one at a time, the others kept as they are.
+ * Cost: parts × (up to SIZE_DEFAULTS.maxSimulations simulations) plus one circuit search.
+ * @throws InputError `bad-option` on `--part` naming an unknown part
+ */
+export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): SizingReport {
+  const ids = profile.parts.map((p) => p.id);
+  const wanted = options.partIds ?? ids;
+  for (const id of wanted) if (!ids.includes(id)) throw inputError("bad-option", "--part", `one of the profile's parts (${ids.join(", ")})`, describeFound(id));
+  const parts = profile.parts
+    .map((p, i) => ({ p, i }))
+    .filter(({ p }) => wanted.includes(p.id))
+    .map(({ i }) =>
+      sizeHeatCapacity(profile, i, {
+        models: options.models,
+        ...(options.material === undefined ? {} : { material: options.material }),
+        ...(options.marginK === undefined ? {} : { marginK: options.marginK }),
+      }),
+    );
+  const circuit = profile.circuit === undefined ? undefined : sizeChargingElement(profile.circuit, options.models);
+  const infeasibleReasons = [
+    ...parts.filter((p) => !p.feasible).map((p) => `${p.partId}: ${p.reason}`),
+    ...(circuit?.status === "none" ? [`circuit: ${circuit.reason}`] : []),
+  ];
+  return {
+    profileName: profile.name,
+    file: profile.file,
+    ...(options.material === undefined ? {} : { material: options.material }),
+    parts,
+    ...(circuit === undefined ? {} : { circuit }),
+    linearMosfet: profile.circuit?.topology === "linear-mosfet",
+    verdict: infeasibleReasons.length === 0 ? "feasible" : "infeasible",
+    infeasibleReasons,
+  };
+}

@@ -1,0 +1,126 @@
+import type { SizingReport } from "../plan/sizeProfile.js";
+import { formatCautions, wrapText } from "./cautions.js";
+import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+
+const grams = (kg: number | undefined): string => (kg === undefined ? "" : formatNumber(kg * 1000));
+
+/**
+ * The terminal report of `heatledger size`: a table of heat capacities per part (adiabatic bound of
+ * the worst event, then the whole-profile inversion), the charging-element answer, the verdict and
+ * the cautions of DESIGN §8. Every number carries its unit in the column heading; no NaN.
+ * Cost O(parts).
+ */
+export function formatSizingText(report: SizingReport, width = 100): string {
+  const out: string[] = [];
+  out.push(`heatledger size: ${report.profileName}`, `profile ${report.file}`, "");
+  const m = report.material;
+  out.push(
+    wrapText(
+      "Heat capacity per part. C1 is the capacity the part's own power meets first (C1 of a ladder or lumped element, 1/Σ(R/tau) of a Foster network). " +
+        "k scales every heat capacity of the part's network at fixed thermal resistances (Foster: tau → k·tau).",
+      width,
+    ),
+  );
+  if (m !== undefined) out.push(wrapText(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; value from memory).`, width));
+  out.push("", "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT)");
+  out.push(
+    formatTable(
+      [
+        { heading: "part" },
+        { heading: "target [°C]", align: "right" },
+        { heading: "worst event [J]", align: "right" },
+        { heading: "ΔT [K]", align: "right" },
+        { heading: "C [J/K]", align: "right" },
+        ...(m === undefined ? [] : [{ heading: "m [g]", align: "right" as const }]),
+      ],
+      report.parts.map((p) => [
+        p.partId,
+        formatNumber(p.targetC),
+        p.worstEvent === undefined ? "0" : formatNumber(p.worstEvent.energyJ),
+        p.adiabatic === undefined ? "none" : formatNumber(p.adiabatic.riseK),
+        p.adiabatic === undefined ? "none" : formatNumber(p.adiabatic.capacityJPerK),
+        ...(m === undefined ? [] : [p.adiabatic === undefined ? "none" : grams(p.adiabatic.massKg)]),
+      ]),
+    ),
+  );
+  out.push("Whole profile: the simulation inverted for the smallest k (heat left over from earlier events included)");
+  out.push(
+    formatTable(
+      [
+        { heading: "part" },
+        { heading: "now: peak [°C]", align: "right" },
+        { heading: "now: C1 [J/K]", align: "right" },
+        { heading: "k", align: "right" },
+        { heading: "C1 at k [J/K]", align: "right" },
+        ...(m === undefined ? [] : [{ heading: "m at k [g]", align: "right" as const }]),
+        { heading: "peak at k [°C]", align: "right" },
+        { heading: "governed by" },
+      ],
+      report.parts.map((p) => {
+        const inv = p.inversion;
+        return [
+          p.partId,
+          formatNumber(p.presentPeakC),
+          formatNumber(p.presentCapacityJPerK),
+          inv.status === "sized" ? formatNumber(inv.scale) : inv.status === "any" ? "any" : "none",
+          inv.status === "none" ? "none" : formatNumber(inv.capacityJPerK),
+          ...(m === undefined ? [] : [inv.status === "none" ? "none" : grams(inv.massKg)]),
+          formatNumber(inv.peakTemperatureC),
+          p.governingPartId,
+        ];
+      }),
+    ),
+  );
+  for (const p of report.parts) {
+    const worst = p.worstEvent === undefined ? "no event puts energy into it" : `worst event #${p.worstEvent.index} (${p.worstEvent.label}), ${formatNumber(p.worstEvent.energyJ)} J`;
+    const shared = p.sharedWith.length === 0 ? "" : ` Shares its network with ${p.sharedWith.join(", ")}: scaling it scales theirs, so each is held to its own target.`;
+    out.push(wrapText(`${p.partId}: ${p.reason}. ${worst}; target = limit ${formatNumber(p.limitC)} °C less ${formatNumber(p.marginK)} K.${shared}${p.inversion.crossingScale === undefined ? "" : ` k = ${formatNumber(p.inversion.crossingScale)} crosses the target (${p.inversion.simulations} simulations).`}`, width));
+  }
+  out.push(
+    wrapText(
+      "The adiabatic C is one lump that keeps the worst event's whole energy: for that event alone, from ambient, it bounds C1 from above (heat that flows on into the rest of the network only helps). The whole-profile answer is the one that covers the sequence.",
+      width,
+    ),
+    "",
+  );
+  const c = report.circuit;
+  out.push("Charging element (healthy power-up from 0 V, the circuit's own load, completion threshold and timeout)");
+  if (c === undefined) out.push("no circuit in the profile");
+  else if (c.knob === undefined) out.push(wrapText(`not applicable: ${c.reason}`, width));
+  else {
+    const unit = c.knob.unit === "ohm" ? "Ω" : c.knob.unit;
+    out.push(
+      formatTable(
+        [
+          { heading: "value" },
+          { heading: `profile [${unit}]`, align: "right" },
+          { heading: "profile charge", align: "right" },
+          { heading: `${c.knob.direction} [${unit}]`, align: "right" },
+          ...(c.currentA === undefined ? [] : [{ heading: "current [A]", align: "right" as const }]),
+          { heading: "charge at it", align: "right" },
+          { heading: "timeout", align: "right" },
+        ],
+        [
+          [
+            c.knob.field,
+            formatNumber(c.presentValue ?? NaN),
+            c.presentChargeS === undefined || !Number.isFinite(c.presentChargeS) ? "does not complete" : formatDuration(c.presentChargeS),
+            c.status === "sized" ? formatNumber(c.value!) : "none",
+            ...(c.currentA === undefined ? [] : [formatNumber(c.currentA)]),
+            c.chargeS === undefined ? "n/a" : formatDuration(c.chargeS),
+            formatDuration(c.timeoutS),
+          ],
+        ],
+      ),
+    );
+    out.push(wrapText(`${c.reason[0]!.toUpperCase()}${c.reason.slice(1)}.`, width));
+  }
+  out.push("");
+  if (report.verdict === "feasible") out.push("Verdict: a feasible size exists for every question asked.");
+  else {
+    out.push("Verdict: NO FEASIBLE SIZE:");
+    for (const r of report.infeasibleReasons) out.push(wrapText(`- ${r}`, width));
+  }
+  out.push("", formatCautions(report.linearMosfet, width));
+  return out.join("\n");
+}

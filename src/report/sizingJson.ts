@@ -1,0 +1,60 @@
+import type { SizingReport } from "../plan/sizeProfile.js";
+
+/** A number for JSON: non-finite values become null (JSON has no Infinity). */
+const num = (x: number | undefined): number | null | undefined => (x === undefined ? undefined : Number.isFinite(x) ? x : null);
+
+/**
+ * The `heatledger size --json` object: verdict ("feasible"|"infeasible"), reasons, the material,
+ * per part the target, present peak and capacity, worst event, adiabatic bound and inversion
+ * (scale k, capacityJPerK, massKg, peakTemperatureC, crossingScale), and the circuit answer.
+ * Every number is SI; Infinity is written as null. Cost O(parts).
+ */
+export function sizingJson(report: SizingReport): object {
+  return {
+    profile: report.profileName,
+    file: report.file,
+    verdict: report.verdict,
+    infeasibleReasons: report.infeasibleReasons,
+    material: report.material === undefined ? null : { id: report.material.id, specificHeatJPerKgK: report.material.specificHeatJPerKgK, source: report.material.source, provenance: report.material.provenance },
+    parts: report.parts.map((p) => ({
+      id: p.partId,
+      feasible: p.feasible,
+      reason: p.reason,
+      ambientC: p.ambientC,
+      limitC: p.limitC,
+      marginK: p.marginK,
+      targetC: p.targetC,
+      presentPeakC: p.presentPeakC,
+      presentCapacityJPerK: num(p.presentCapacityJPerK),
+      sharedWith: p.sharedWith,
+      governingPartId: p.governingPartId,
+      worstEvent: p.worstEvent ?? null,
+      adiabatic: p.adiabatic === undefined ? null : { riseK: p.adiabatic.riseK, capacityJPerK: p.adiabatic.capacityJPerK, massKg: p.adiabatic.massKg ?? null },
+      inversion: {
+        status: p.inversion.status,
+        scale: num(p.inversion.scale),
+        capacityJPerK: num(p.inversion.capacityJPerK),
+        massKg: p.inversion.massKg ?? null,
+        peakTemperatureC: num(p.inversion.peakTemperatureC),
+        crossingScale: p.inversion.crossingScale ?? null,
+        simulations: p.inversion.simulations,
+      },
+    })),
+    circuit:
+      report.circuit === undefined
+        ? null
+        : {
+            status: report.circuit.status,
+            reason: report.circuit.reason,
+            field: report.circuit.knob?.field ?? null,
+            unit: report.circuit.knob?.unit ?? null,
+            direction: report.circuit.knob?.direction ?? null,
+            presentValue: num(report.circuit.presentValue) ?? null,
+            presentChargeS: num(report.circuit.presentChargeS) ?? null,
+            value: num(report.circuit.value) ?? null,
+            currentA: num(report.circuit.currentA) ?? null,
+            chargeS: num(report.circuit.chargeS) ?? null,
+            timeoutS: report.circuit.timeoutS,
+          },
+  };
+}

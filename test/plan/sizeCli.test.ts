@@ -1,0 +1,123 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { describe, expect, test } from "vitest";
+import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "../../src/index.js";
+import { expectClose } from "../helpers/expectClose.js";
+import { memoryIo } from "../helpers/memoryIo.js";
+
+// In-process runs of `heatledger size` through the CLI factory: exit 0 (a size exists),
+// 1 (none, with the reason), 2 (bad input, one line naming the field).
+const bundled = (...names: string[]): Record<string, string> => {
+  const folder = join(import.meta.dirname, "../../profiles");
+  return Object.fromEntries(names.map((n) => [join("profiles", n), readFileSync(join(folder, n), "utf8")]));
+};
+const heatPump = () => bundled("heat-pump-trip-retries.yaml");
+const PROFILE = "profiles/heat-pump-trip-retries.yaml";
+
+describe("heatledger size (in process)", () => {
+  test("the bundled heat-pump profile: exit 0, both tables with units, the circuit answer, the caution, no NaN", async () => {
+    const io = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--material", "copper"], io)).toBe(0);
+    const text = io.stdout.join("");
+    for (const heading of ["Adiabatic bound", "worst event [J]", "C [J/K]", "m [g]", "Whole profile", "peak at k [°C]", "Charging element", "largest [Ω]", "Verdict: a feasible size exists"]) expect(text).toContain(heading);
+    expect(text).toContain(GENERAL_CAUTION.slice(0, 40));
+    expect(text).not.toContain(LINEAR_MOSFET_CAUTION.slice(0, 30));
+    expect(text).not.toMatch(/NaN|Infinity|undefined/);
+  });
+
+  test("--json: the sized peak is at the target and the largest resistance matches the RC closed form", async () => {
+    const io = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as {
+      verdict: string;
+      parts: { targetC: number; inversion: { status: string; peakTemperatureC: number } }[];
+      circuit: { value: number; field: string };
+    };
+    expect(json.verdict).toBe("feasible");
+    const part = json.parts[0]!;
+    expect(part.inversion.status).toBe("sized");
+    // SIZE_DEFAULTS.temperatureToleranceK = 0.01 K below the target
+    expect(part.inversion.peakTemperatureC).toBeLessThanOrEqual(part.targetC);
+    expect(part.inversion.peakTemperatureC).toBeGreaterThan(part.targetC - 0.1);
+    // RC charging to 95 % of 400 V from 0 V with 1 mF in 500 ms, no source resistance (Hayt et al.,
+    // Engineering Circuit Analysis, 8th ed., §8.4): R_max = 0.5 / (1e-3·ln 20) = 166.90 Ω
+    expect(json.circuit.field).toBe("circuit.resistance");
+    expectClose(json.circuit.value, 0.5 / (1e-3 * Math.log(20)), { rel: 1e-6 });
+  });
+
+  test("the bundled MOSFET profile carries the linear-mode caution, and parts on one heatsink get one scale", async () => {
+    const io = memoryIo(bundled("home-storage-400v.yaml", "networks/mosfet-on-heatsink-graph.yaml"));
+    expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as { parts: { id: string; sharedWith: string[]; inversion: { scale: number } }[] };
+    expect(json.parts.map((p) => p.sharedWith)).toEqual([["source-resistor"], ["precharge-mosfet"]]);
+    expect(json.parts[0]!.inversion.scale).toBe(json.parts[1]!.inversion.scale);
+    const text = memoryIo(bundled("home-storage-400v.yaml", "networks/mosfet-on-heatsink-graph.yaml"));
+    expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--part", "source-resistor"], text)).toBe(0);
+    expect(text.stdout.join("")).toContain(LINEAR_MOSFET_CAUTION.slice(0, 30));
+  });
+
+  test("a profile with no circuit, two parts, --part twice: one sized, one any, the circuit section says there is none", async () => {
+    // invented: 100 W for 0.5 s into each part; "cool" has P·R = 10 K, under its 125 K allowance at any capacity
+    const text = `name: no circuit
+ambient: 25 degC
+parts:
+  - id: hot
+    network: { form: foster, stages: [ { r: 2 K/W, tau: 1 s } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+  - id: cool
+    network: { form: foster, stages: [ { r: 0.1 K/W, tau: 1 s } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - power-trace: { part: hot, points: [[0, 100], [0.5 s, 100]] }
+  - power-trace: { part: cool, points: [[0, 100], [0.5 s, 100]] }
+`;
+    const io = memoryIo({ "p.yaml": text });
+    expect(await runCli(["size", "p.yaml", "--part", "hot", "--part", "cool", "--material", "aluminum"], io)).toBe(0);
+    const out = io.stdout.join("");
+    expect(out).toContain("no circuit in the profile");
+    expect(out).toMatch(/\ncool +[\d.]+ +[\d.]+ +any /);
+    expect(out).not.toMatch(/NaN|Infinity|undefined/);
+    const jsonIo = memoryIo({ "p.yaml": text });
+    expect(await runCli(["size", "p.yaml", "--part", "hot", "--json"], jsonIo)).toBe(0);
+    const json = JSON.parse(jsonIo.stdout.join("")) as { parts: { id: string }[]; circuit: null };
+    expect(json.parts.map((p) => p.id)).toEqual(["hot"]);
+    expect(json.circuit).toBeNull();
+  });
+
+  test("no feasible size: exit 1, and the report says why", async () => {
+    // 200 °C limit less 170 K is 30 °C, below the 40 °C ambient
+    const io = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--margin", "170 K"], io)).toBe(1);
+    expect(io.stdout.join("")).toContain(
+      "Verdict: NO FEASIBLE SIZE:\n- precharge-resistor: the target 30 °C (limit 200 °C less 170 K margin) is not above the ambient 40",
+    );
+    const jsonIo = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--margin", "170", "--json"], jsonIo)).toBe(1);
+    const json = JSON.parse(jsonIo.stdout.join("")) as { verdict: string; parts: { inversion: { scale: number | null } }[] };
+    expect(json.verdict).toBe("infeasible");
+    expect(json.parts[0]!.inversion.scale).toBeNull();
+  });
+
+  test.each([
+    {
+      args: ["--material", "unobtainium"],
+      message:
+        'heatledger: --material: expected one of the material presets copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, fr4, found "unobtainium"\n',
+    },
+    { args: ["--margin", "5 degC"], message: 'heatledger: --margin: expected a temperature difference such as "10 K" (or a number in K); write differences in K, found "5 degC" (an absolute temperature)\n' },
+    { args: ["--margin=-3"], message: "heatledger: --margin: expected a margin ≥ 0 K, found -3\n" },
+    { args: ["--part", "nope"], message: 'heatledger: --part: expected one of the profile\'s parts (precharge-resistor), found "nope"\n' },
+  ])("bad input $args: exit 2 with one line naming the flag", async ({ args, message }) => {
+    const io = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, ...args], io)).toBe(2);
+    expect(io.stderr.join("")).toBe(message);
+    expect(io.stdout.join("")).toBe("");
+  });
+
+  test("a missing profile: exit 2 naming the file", async () => {
+    const io = memoryIo({});
+    expect(await runCli(["size", "nothere.yaml"], io)).toBe(2);
+    expect(io.stderr.join("")).toBe("heatledger: nothere.yaml: expected a readable duty profile, found no such file\n");
+  });
+});
