@@ -157,12 +157,13 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
   const cold = group.find(({ p }, j) => !(targets[j]! - p.ambientC > 0));
   if (cold !== undefined) {
     const t = targets[group.indexOf(cold)]!;
+    const show = (x: number): number => Number(x.toPrecision(6)); // display only: no float noise in the sentence
     return {
       ...base,
       governingPartId: cold.p.id,
       inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: presentPeakC, simulations: 1 },
       feasible: false,
-      reason: `${cold.p.id === part.id ? "the" : `${cold.p.id}, on the same network: its`} target ${t} °C (limit ${cold.p.limitC} °C less ${cold.p.limitC - t} K margin) is not above the ambient ${cold.p.ambientC} °C, so no heat capacity keeps the part under it`,
+      reason: `${cold.p.id === part.id ? "the" : `${cold.p.id}, on the same network: its`} target ${show(t)} °C (limit ${show(cold.p.limitC)} °C less ${show(options.marginK ?? cold.p.marginK)} K margin) is not above the ambient ${show(cold.p.ambientC)} °C, so no heat capacity keeps the part under it`,
     };
   }
   const adiabatic: AdiabaticBound =
@@ -191,7 +192,7 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
           adiabatic,
           inversion: { status: "any", scale: 0, capacityJPerK: 0, ...(c === undefined ? {} : { massKg: 0 }), peakTemperatureC: atHi.peakC, simulations },
           feasible: true,
-          reason: `even ${hi.toExponential(1)} × the present capacity keeps the peak at ${atHi.peakC.toFixed(2)} °C, under the ${targetC} °C target: the resistance to ambient, not the heat capacity, sets this part's peak`,
+          reason: `even ${hi.toExponential(1)} × the present capacity keeps the peak at ${atHi.peakC.toFixed(2)} °C, under the ${Number(targetC.toPrecision(6))} °C target: the resistance to ambient, not the heat capacity, sets this part's peak`,
         };
       }
       const r = runAt(k);
@@ -247,7 +248,7 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
     feasible: true,
     reason:
       atHi.governing === part.id
-        ? `${hi.toPrecision(4)} × the present heat capacity keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${targetC} °C target`
-        : `${hi.toPrecision(4)} × the present heat capacity of the shared network keeps ${atHi.governing} at its target; this part then peaks at ${peakHi.toFixed(2)} °C (target ${targetC} °C)`,
+        ? `${hi.toPrecision(4)} × the present heat capacity keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${Number(targetC.toPrecision(6))} °C target`
+        : `${hi.toPrecision(4)} × the present heat capacity of the shared network keeps ${atHi.governing} at its target; this part then peaks at ${peakHi.toFixed(2)} °C (target ${Number(targetC.toPrecision(6))} °C)`,
   };
 }
