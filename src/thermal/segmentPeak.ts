@@ -170,7 +170,7 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
   const peaks: InteriorPeak[] = [];
   const single = linearSlopeSum(model, state, powers, o);
   if (single !== undefined) {
-    const at = singleTurn(model.tauS, single.constant, single.k, h);
+    const at = singleTurnOfRates([0, ...model.tauS.map((tau) => 1 / tau)], [single.constant, ...single.k], h);
     if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
     return peaks;
   }
@@ -305,40 +305,6 @@ function refineTurn(model: ModalModel, state: ModalState, powers: SourcePowers, 
     }
   }
   return 0.5 * (lo + hi);
-}
-
-/**
- * The one zero in (0, h) of S(x) = C + Σ k_m·e^(−x/tau_m) when S(0) > 0 ≥ S(h), by Newton's
- * method kept inside the bracket (bisection when a step leaves it); undefined when there is none.
- */
-function singleTurn(taus: readonly number[], constant: number, k: Float64Array, h: number): number | undefined {
-  let f0 = constant;
-  for (let m = 0; m < k.length; m++) f0 += k[m]!;
-  if (!(f0 > 0)) return undefined;
-  let fh = constant;
-  for (let m = 0; m < k.length; m++) fh += k[m]! * Math.exp(-h / taus[m]!);
-  if (!(fh <= 0)) return undefined;
-  let lo = 0;
-  let hi = h;
-  let x = 0.5 * h;
-  for (let i = 0; i < 100; i++) {
-    let f = constant;
-    let df = 0;
-    for (let m = 0; m < k.length; m++) {
-      const term = k[m]! * Math.exp(-x / taus[m]!);
-      f += term;
-      df -= term / taus[m]!;
-    }
-    if (f === 0) return x;
-    if (f > 0) lo = x;
-    else hi = x;
-    if (hi - lo <= 1e-12 * h) break;
-    let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - x) <= 1e-12 * h) return next;
-    x = next;
-  }
-  return x;
 }
 
 /** Sorted grid in (0, h]: half linear, half log-spaced from min(h, fastest tau)/1e3 up to h. */
