@@ -97,6 +97,18 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
 const modeOrders = new WeakMap<ModalModel, Int32Array>();
 const slopeScratch = new WeakMap<ModalModel, Float64Array>();
 
+const linearRateCache = new WeakMap<ModalModel, number[]>();
+
+/** Rates of the linear-power slope sum: 0 (the constant) then 1/tau_m per mode, once per model. */
+function linearRates(model: ModalModel): number[] {
+  let rates = linearRateCache.get(model);
+  if (rates === undefined) {
+    rates = [0, ...model.tauS.map((tau) => 1 / tau)];
+    linearRateCache.set(model, rates);
+  }
+  return rates;
+}
+
 /** Mode indices from the slowest to the fastest, computed once per model. */
 function slowestFirst(model: ModalModel): Int32Array {
   let order = modeOrders.get(model);
@@ -170,7 +182,7 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
   const peaks: InteriorPeak[] = [];
   const single = linearSlopeSum(model, state, powers, o);
   if (single !== undefined) {
-    const at = singleTurnOfRates([0, ...model.tauS.map((tau) => 1 / tau)], [single.constant, ...single.k], h);
+    const at = singleTurnOfRates(linearRates(model), [single.constant, ...single.k], h);
     if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
     return peaks;
   }
