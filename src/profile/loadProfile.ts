@@ -28,8 +28,12 @@ export const PROFILE_DEFAULTS = {
   maxExpandedEvents: 50_000_000,
 } as const;
 
-/** Reads a file named in a profile (a network or a power-trace CSV), path as written. The CLI supplies it. */
-export type ReadNamedFile = (path: string) => string;
+/**
+ * Reads a file named in a profile (a network or a power-trace CSV), path as written. The CLI
+ * supplies it. An optional `displayName` gives the name messages should show for such a file
+ * (the CLI resolves it against the profile's folder).
+ */
+export type ReadNamedFile = ((path: string) => string) & { readonly displayName?: (path: string) => string };
 
 /** Topology → roles its model reports a power trace for. */
 const TOPOLOGY_ROLES: Record<CircuitInput["topology"], readonly CircuitRole[]> = {
@@ -261,16 +265,16 @@ function resolveNetwork(
       try {
         text = readFile(part.network);
       } catch (error) {
-        reader.fail("bad-file", at, "a readable network file", `${describeFound(part.network)} (${error instanceof Error ? error.message.split("\n")[0] : "unreadable"})`);
+        reader.fail("bad-file", at, "a readable network file", `${describeFound(part.network)} (${whyUnreadable(error, readFile.displayName?.(part.network))})`);
         return undefined;
       }
       let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
-        doc = parseStructuredText(text, part.network);
+        doc = parseStructuredText(text, readFile.displayName?.(part.network) ?? part.network);
         model = networkToModal(parseNetwork(doc.data, ""), "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        reader.absorb(withLocation(error, part.network, "", doc?.lineOf));
+        reader.absorb(withLocation(error, readFile.displayName?.(part.network) ?? part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {
@@ -285,6 +289,12 @@ function resolveNetwork(
     throw error;
   }
   return model;
+}
+
+/** Why a named file could not be read, in a few words ("no such file: /a/b.yaml"). */
+function whyUnreadable(error: unknown, shownAs: string | undefined): string {
+  const reason = error instanceof InputError ? (error.problems[0]?.found ?? "unreadable") : error instanceof Error ? error.message.split("\n")[0]! : "unreadable";
+  return shownAs === undefined ? reason : `${reason}: ${shownAs}`;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -559,12 +569,18 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
   } else if (ctx.readFile === undefined) {
     ctx.reader.fail("bad-file", join(at, "file"), "inline points (this caller cannot read files)", describeFound(t.file));
   } else {
+    let text: string | undefined;
     try {
-      const text = ctx.readFile(t.file!);
-      segments = pointsToSegments(powerTracePoints(text, t.file!, join(at, "file")), t.scale ?? 1);
+      text = ctx.readFile(t.file!);
     } catch (error) {
-      if (error instanceof InputError) ctx.reader.absorb(error);
-      else ctx.reader.fail("bad-file", join(at, "file"), "a readable CSV file of time, power", `${describeFound(t.file)} (${error instanceof Error ? error.message.split("\n")[0] : "unreadable"})`);
+      ctx.reader.fail("bad-file", join(at, "file"), "a readable CSV file of time, power", `${describeFound(t.file)} (${whyUnreadable(error, ctx.readFile.displayName?.(t.file!))})`);
+    }
+    if (text !== undefined) {
+      try {
+        segments = pointsToSegments(powerTracePoints(text, ctx.readFile.displayName?.(t.file!) ?? t.file!, join(at, "file")), t.scale ?? 1);
+      } catch (error) {
+        ctx.reader.absorb(error);
+      }
     }
   }
   const last = segments[segments.length - 1];

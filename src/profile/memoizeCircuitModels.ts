@@ -10,11 +10,24 @@ export const CIRCUIT_MEMO_SIZE = 64;
  * part temperatures) reuses the first result instead of solving the circuit again. Long profiles
  * repeat the same power-up from an empty capacitor thousands of times; the results are immutable,
  * so sharing them is exact. Discharges are cheap closed forms and pass through.
- * Cost O(1) per hit (a string key of the inputs); memory O(CIRCUIT_MEMO_SIZE) results.
+ * Cost O(1) per hit (a short string key: object ids of load and completion rule, the voltages and,
+ * when the model reads them, the part temperatures); memory O(CIRCUIT_MEMO_SIZE) results.
  */
 export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_SIZE): CircuitModels {
   const memo = new Map<string, CircuitResult>();
   let lastCircuit: unknown;
+  // loads and completion rules are the profile's own objects, reused event after event: an id
+  // per object makes the key cheap; an unseen object gets a fresh id (never a false hit)
+  const ids = new WeakMap<object, number>();
+  let nextId = 0;
+  const idOf = (o: object): number => {
+    let id = ids.get(o);
+    if (id === undefined) {
+      id = nextId++;
+      ids.set(o, id);
+    }
+    return id;
+  };
   return {
     discharge: models.discharge,
     charge: (circuit, load, conditions) => {
@@ -23,7 +36,7 @@ export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_
         lastCircuit = circuit;
       }
       const readsTemperature = circuit.topology === "linear-mosfet" && circuit.thresholdTempcoVPerK !== undefined && circuit.thresholdTempcoVPerK !== 0;
-      const key = `${JSON.stringify(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${JSON.stringify(conditions.completion)}|${
+      const key = `${idOf(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${idOf(conditions.completion)}|${
         readsTemperature ? JSON.stringify(conditions.partTemperatureC ?? {}) : ""
       }|${conditions.wantSamples === true}`;
       const hit = memo.get(key);

@@ -39,7 +39,8 @@ profile are read relative to the profile's folder. See DEVELOPERS.md, "Profile f
   command.action((file: string, options: { json?: boolean; csv?: string; force?: boolean; chart: boolean }) => {
     if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
     const folder = dirname(file);
-    const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
+    const located = (path: string): string => (isAbsolute(path) ? path : join(folder, path));
+    const readNamed = Object.assign((path: string): string => readTextFile(run.io, located(path), "file named in the profile"), { displayName: located });
     const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
     const digest = new EventDigest(profile.parts.map((p) => p.limitC));
     const envelope = options.json || !options.chart ? undefined : new PeakEnvelope(profile.parts.length);
