@@ -13,6 +13,8 @@ import type { CircuitRole, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent,
 import { type CircuitInput, type EventInput, type FaultInput, type LoadInput, type PartInput, ROLE_NAMES, profileSchema } from "./profileSchema.js";
 import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
 import { resolveSupervision } from "./resolveSupervision.js";
+import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
+import { stressPartKind } from "./stressPartKind.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -107,6 +109,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     events,
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
     ...(supervision === undefined ? {} : { supervision }),
+    ...(input.occursPerYear === undefined ? {} : { occursPerYear: input.occursPerYear }),
   };
 }
 
@@ -224,6 +227,12 @@ function resolvePart(
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
   const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
   networks.set(networkKey, model);
+  let stress: StressConfig | undefined;
+  try {
+    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
+  } catch (error) {
+    reader.absorb(error);
+  }
   if (model === undefined) return undefined;
   try {
     const sourceAt = part.source === undefined ? 0 : sourceIndex(model, part.source, join(field, "source"));
@@ -238,6 +247,7 @@ function resolvePart(
       ambientC: part.ambient ?? ambientC,
       limitC: part.limits.maxTemperature,
       marginK: margin,
+      ...(stress === undefined ? {} : { stress }),
     };
   } catch (error) {
     reader.absorb(error);
