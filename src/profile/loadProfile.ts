@@ -151,8 +151,11 @@ function issueToProblems(issue: z.core.$ZodIssue, file: string, lineOf: (field: 
     }
     case "too_small":
       return [at(field, issue.origin === "array" ? `at least ${String(issue.minimum)} item${issue.minimum === 1 ? "" : "s"}` : "a non-empty text", describeFound(input))];
-    case "invalid_union":
-      return [at(field, field.endsWith("network") ? "a network mapping (form: foster | cauer | graph) or a network file path" : "a valid value", describeFound(input))];
+    case "invalid_union": {
+      // a union that names what it wants (the stress keys' quantities and lifetime models do) says so
+      const named = issue.message !== "" && !issue.message.startsWith("Invalid input") ? issue.message : "a valid value";
+      return [at(field, field.endsWith("network") ? "a network mapping (form: foster | cauer | graph) or a network file path" : named, describeFound(input))];
+    }
     default:
       return [at(field, "a valid value", describeFound(input))];
   }
