@@ -159,7 +159,8 @@ export class ProfileStress {
       const trace = event.traces[i];
       if (trace === undefined || !(event.energyJ[i]! > 0)) return;
       const { pulseEnergy, soa, soaDerating } = part.config;
-      if (pulseEnergy === undefined && soa === undefined) return;
+      // an SOA table is only read for the circuit's MOSFET (the note in finish says so for other parts)
+      if (pulseEnergy === undefined && (soa === undefined || !part.isMosfet)) return;
       const pulse = pulseFromTrace(trace);
       const field = `events[${event.index}]`;
       const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field);
