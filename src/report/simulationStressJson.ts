@@ -2,6 +2,7 @@ import type { ProfileStressResult } from "../profile/ProfileStress.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { type StressJson, stressReportJson } from "../stress/stressReportJson.js";
 import type { SimulationJson } from "./simulationJson.js";
+import { LIFETIME_CAUTION } from "../stress/stressCautions.js";
 
 /** `simulate --json` with the stress layer's findings added (DESIGN §6's keys unchanged in name). */
 export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
@@ -20,7 +21,7 @@ export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
 /**
  * Add the stress layer to the simulation JSON: each part gets `stress` (`ratingChecks` per event,
  * `cycles` summary, `damage` per repetition with projections), the top level gets `ratingStatus`,
- * `temperatureVerdict` and `occursPerYear`. The top-level `verdict` is the exit status in words:
+ * `temperatureVerdict` and `occursPerYear`, and `cautions` the lifetime caution when damage was computed. The top-level `verdict` is the exit status in words:
  * "fail" when a temperature limit is crossed (primary) or an event fails a rating table
  * (secondary); each part's own `verdict` stays the temperature verdict.
  * Cost O(parts × (checks listed + top cycles)).
@@ -32,6 +33,7 @@ export function simulationStressJson(base: SimulationJson, stress: ProfileStress
     temperatureVerdict: base.verdict,
     ratingStatus: stress.ratingStatus,
     occursPerYear: occursPerYear ?? null,
+    cautions: stress.parts.some((p) => p.report.damage !== undefined) ? [...base.cautions, LIFETIME_CAUTION] : base.cautions,
     parts: base.parts.map((p, i) => {
       const part = stress.parts[i]!;
       return { ...p, stress: { ...stressReportJson(part.report), checksOmitted: part.checksOmitted } };
