@@ -10,7 +10,8 @@ function inCircuit<T>(compute: () => T): T {
   try {
     return compute();
   } catch (error) {
-    if (error instanceof InputError) throw new InputError(error.problems.map((p) => ({ ...p, field: p.field === "" ? "circuit" : `circuit (model field ${p.field})` })));
+    if (error instanceof InputError)
+      throw new InputError(error.problems.map((p) => ({ ...p, field: "circuit", expected: p.field === "" ? p.expected : `${p.expected} (circuit model value ${p.field})` })));
     throw error;
   }
 }
