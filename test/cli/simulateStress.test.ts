@@ -1,4 +1,6 @@
+import fc from "fast-check";
 import { describe, expect, test } from "vitest";
+import { stringify } from "yaml";
 import { runCli } from "../../src/cli/main.js";
 import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
@@ -266,5 +268,42 @@ events:
     const io = memoryIo(files({ powerW: 60, pulses: 2, top: "occursPerYear: -3" }));
     expect(await runCli(["simulate", "dir/p.yaml"], io)).toBe(2);
     expect(io.stderr.join("")).toContain("dir/p.yaml:3: occursPerYear: expected a number of times per year > 0 such as 52, found -3");
+  });
+});
+
+describe("garbled stress keys never escape as anything but a clear input error", () => {
+  // fast-check (fixed seed): random values in every stress slot of a valid profile. Each run ends
+  // in a report (exit 0 or 1) with no NaN, or in input errors (exit 2) with one
+  // `file:line: field: expected ..., found ...` line per problem and no stack trace.
+  const garbage = fc.oneof(
+    fc.constantFrom<unknown>(null, true, "", "abc", "12 parsecs", "-5 s", "1e400 J", "dc", [], {}, [1, 2], 0, -1, 1e300, 5e-324, "3 K", "10 ms", "2 A", "400 V"),
+    fc.double({ noNaN: true }),
+    fc.string({ maxLength: 6 }),
+  );
+  test("random ratings, lifetime and hysteresis values", async () => {
+    await fc.assert(
+      fc.asyncProperty(garbage, garbage, garbage, garbage, garbage, garbage, async (d1, e1, d2, e2, cycles, hyst) => {
+        const keys = stringify({
+          ratings: { pulseEnergy: [{ duration: d1, energy: e1 }, { duration: d2, energy: e2 }] },
+          lifetime: { model: "coffin-manson", referenceCycles: cycles, referenceRange: "50 K", exponent: 4 },
+          cycleHysteresis: hyst,
+        })
+          .trimEnd()
+          .split("\n")
+          .map((l) => `    ${l}`)
+          .join("\n");
+        const io = memoryIo(files({ powerW: 60, pulses: 2, stressKeys: keys }));
+        const status = await runCli(["simulate", "dir/p.yaml", "--json"], io);
+        const err = io.stderr.join("");
+        expect(err).not.toMatch(/\n\s+at /);
+        if (status === 2) {
+          for (const line of err.trim().split("\n")) expect(line).toMatch(/^heatledger: dir\/p\.yaml:\d+: parts\[0\]\.\S+: expected .+, found .+$/);
+        } else {
+          expect([0, 1]).toContain(status);
+          expect(io.stdout.join("")).not.toMatch(/NaN/);
+        }
+      }),
+      { numRuns: 150, seed: 20261202 },
+    );
   });
 });
