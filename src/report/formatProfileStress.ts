@@ -1,7 +1,7 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
-import { formatStressSection } from "../stress/formatStressSection.js";
-import { LINEAR_MOSFET_CAUTION } from "./cautions.js";
+import { STRESS_SECTION_WIDTH, formatStressSection } from "../stress/formatStressSection.js";
+import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
 
 const RATING_WORDS = {
   pass: "every checked event is within its rating tables",
@@ -12,8 +12,9 @@ const RATING_WORDS = {
 /**
  * The stress block of `simulate`'s terminal report: one section per part (formatStressSection:
  * rating checks, rainflow cycles, Miner damage, notes), a plain line for a part whose cycling
- * damage was not assessed (no lifetime model), and a closing line with the rating-check status,
- * which is a secondary check beside the temperature verdict. The linear-mode MOSFET caution is
+ * damage was not assessed (no lifetime model), and closing lines: the rating-check status (a
+ * secondary check beside the temperature verdict; "no event was checked" when no part has a
+ * table) and, when damage was computed, what one repetition is and how often it occurs. The linear-mode MOSFET caution is
  * left to the report's closing cautions when the circuit is a linear MOSFET, so it is not
  * printed twice. Returns a string; prints nothing.
  * Cost O(parts × (listed events + top cycles)).
@@ -25,6 +26,15 @@ export function formatProfileStress(profile: DutyProfile, stress: ProfileStressR
     const notAssessed = report.damage === undefined ? "  damage: cycling damage was not assessed (no lifetime model for this part).\n" : "";
     return formatStressSection(part.id, report) + notAssessed;
   });
-  const rate = profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`;
-  return `${blocks.join("\n")}\nRating checks (secondary to the temperature verdict): ${RATING_WORDS[stress.ratingStatus]}.\nDamage is per repetition of the whole profile; ${rate}.\n`;
+  const anyTable = profile.parts.some((p) => p.stress?.pulseEnergy !== undefined || (p.stress?.soa !== undefined && p.role === "mosfet"));
+  const closing = [
+    `Rating checks (secondary to the temperature verdict): ${anyTable ? RATING_WORDS[stress.ratingStatus] : "no part has a rating table (ratings: pulseEnergy, soa), so no event was checked"}.`,
+  ];
+  if (stress.parts.some((p) => p.report.damage !== undefined))
+    closing.push(
+      `Damage is per repetition of the whole profile; ${
+        profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
+      }.`,
+    );
+  return `${blocks.join("\n")}\n${closing.map((line) => wrapText(line, STRESS_SECTION_WIDTH)).join("\n")}\n`;
 }
