@@ -149,6 +149,7 @@ export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOpti
 export { simulateProfile, combinedModel } from "./profile/simulateProfile.js";
 export type { PartVerdict, EventTemperatures, PartResult, SimulationResult, SimulateOptions } from "./profile/simulateProfile.js";
 export { stressPartKind } from "./profile/stressPartKind.js";
+export { mosfetOperatingPoints } from "./profile/mosfetOperatingPoints.js";
 export { ProfileStress } from "./profile/ProfileStress.js";
 export type { ProfileStressOptions, PartStress, ProfileStressResult } from "./profile/ProfileStress.js";
 

@@ -1,14 +1,13 @@
-import type { CircuitSample } from "../circuits/CircuitResult.js";
 import { EVENT_DIGEST_DEFAULTS } from "../report/EventDigest.js";
 import { type EventRatingCheck, StressAssessment, type StressReport, worseStatus } from "../stress/assessStress.js";
 import { checkPulseEnergy } from "../stress/pulseEnergyRating.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { pulseFromTrace } from "../stress/pulseFromTrace.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
-import { type OperatingPoint, checkSoa, soaDeratingFactor } from "../stress/soaTable.js";
-import { type PowerTrace, powerAt } from "../thermal/powerTrace.js";
+import { checkSoa, soaDeratingFactor } from "../stress/soaTable.js";
 import type { DutyProfile } from "./DutyProfile.js";
 import type { TimelineEvent } from "./expandTimeline.js";
+import { mosfetOperatingPoints } from "./mosfetOperatingPoints.js";
 import { stressPartKind } from "./stressPartKind.js";
 
 /** Options of {@link ProfileStress}; every field has a default. */
@@ -46,48 +45,6 @@ interface PartState {
 }
 
 /**
- * Operating points (time, Vds, Id) of a MOSFET during one charging event, from the circuit's
- * samples and the MOSFET's own power trace. The circuit models report the bus voltage and the
- * current the charging element drives into the bus, which is the MOSFET's drain current Id (it is
- * in series with the bus); they do not report Vds, so it is derived from the dissipation:
- *   Vds(t) = P_mosfet(t) / Id(t)            for Id > 0 (P = Vds·Id, exact in every regime: current
- *                                             source and fully on alike),
- *   Vds(t) = Vs − Vc(t)                       for Id = 0 (no current: nothing drops across the
- *                                             source resistor, the MOSFET holds the whole gap).
- * Source: P = V·I for a two-terminal element (Hayt, Kemmerly & Durbin, Engineering Circuit
- * Analysis, 8th ed. (2012), ch. 2, from memory); series circuit: the same current flows through
- * every element in series (ch. 3, from memory).
- * Cost O(samples × log segments).
- */
-function operatingPoints(samples: readonly CircuitSample[], trace: PowerTrace, sourceVoltageV: number): OperatingPoint[] {
-  const points: OperatingPoint[] = [];
-  for (const sample of samples) {
-    const idA = sample.currentA;
-    let vdsV: number;
-    if (idA > 0) {
-      const seg = segmentAt(trace, sample.timeS);
-      const powerW = seg === undefined ? 0 : powerAt(seg.terms, Math.min(seg.durationS, Math.max(0, sample.timeS - seg.startS)));
-      vdsV = Math.max(0, powerW) / idA;
-    } else vdsV = Math.max(0, sourceVoltageV - sample.voltageV);
-    if (Number.isFinite(vdsV) && Number.isFinite(idA)) points.push({ timeS: sample.timeS, vdsV, idA: Math.max(0, idA) });
-  }
-  return points;
-}
-
-/** The trace segment that holds time t (the last one starting at or before t); binary search. */
-function segmentAt(trace: PowerTrace, timeS: number): PowerTrace[number] | undefined {
-  let lo = 0;
-  let hi = trace.length - 1;
-  if (hi < 0 || timeS < trace[0]!.startS) return undefined;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if (trace[mid]!.startS <= timeS) lo = mid;
-    else hi = mid - 1;
-  }
-  return trace[lo];
-}
-
-/**
  * The stress layer fed by a running simulation, one StressAssessment per part of a profile: the
  * CLI hands it every temperature point of the thermal visitor (`addPoint`: step ends and interior
  * peaks, which hold every turning point of the history) and every event as it closes (`addEvent`),
@@ -98,7 +55,7 @@ function segmentAt(trace: PowerTrace, timeS: number): PowerTrace[number] | undef
  * Rating checks run as each event closes (not at the end) so that a profile of a million events
  * keeps only `keepChecks` checks per part in memory: per event with power in the part, the
  * single-pulse energy at its equivalent duration E/P_peak (pulseFromTrace on the part's trace),
- * and for a MOSFET with an SOA table every operating point of the event (see operatingPoints),
+ * and for a MOSFET with an SOA table every operating point of the event (see mosfetOperatingPoints),
  * with the SOA derated at the part's temperature at the event start when the profile says how.
  * The per-event rule is the one of StressAssessment.finish, applied as events arrive.
  * Source: wiring of our own (DEVELOPERS.md, "Stress: ratings, cycles and damage").
@@ -166,7 +123,7 @@ export class ProfileStress {
       const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field);
       let soaCheck: EventRatingCheck["soa"];
       if (soa !== undefined && part.isMosfet) {
-        const points = event.samples === undefined ? [] : operatingPoints(event.samples, trace, this.profile.circuit?.busVoltageV ?? 0);
+        const points = event.samples === undefined ? [] : mosfetOperatingPoints(event.samples, trace, this.profile.circuit?.busVoltageV ?? 0);
         if (points.length === 0 || !(pulse.durationS > 0)) part.eventsWithoutPoints++;
         else soaCheck = checkSoa(soa, points, pulse.durationS, field, soaDerating === undefined ? 1 : soaDeratingFactor(soaDerating, start[i]!));
       }

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { LINEAR_MOSFET_CAUTION, ProfileStress, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { LINEAR_MOSFET_CAUTION, ProfileStress, chargeLinearMosfet, defaultCircuitModels, loadProfile, mosfetOperatingPoints, simulateProfile } from "../../src/index.js";
 import type { OperatingPoint } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 
@@ -132,5 +132,31 @@ describe("ProfileStress on a linear-MOSFET pre-charge", () => {
     const rs = stress.finish(result.endTimeS).parts[1]!.report;
     expect(rs.events).toEqual([]);
     expect(rs.notes.join(" ")).toContain("not the circuit's linear-mode MOSFET");
+  });
+});
+
+describe("mosfetOperatingPoints", () => {
+  // Every sample of the real linear-MOSFET model against the closed form of the header: Id = 0.5 A,
+  // Vds = 400 − (0.5/1.5e-3)·t − 1.1 V, while the MOSFET is a current source (the whole charge to
+  // 390 V). Vds comes from P/Id, so it carries the rounding of the power terms: 1e-9 relative.
+  test("Vds = P/Id agrees with Vs − I·t/C − I·Rs at every sample of a charge", () => {
+    const result = chargeLinearMosfet(
+      { capacitanceF: 1.5e-3, gateVoltageV: 4.6, thresholdVoltageV: 3.5, sourceResistorOhm: 2.2, rdsOnOhm: 0.12 },
+      { sourceVoltageV: 400, initialVoltageV: 0, completion: { withinV: 10, timeoutS: 3 }, wantSamples: true },
+    );
+    const points = mosfetOperatingPoints(result.samples!, result.traces["mosfet"]!, 400);
+    expect(points.length).toBe(result.samples!.length);
+    expect(points.length).toBeGreaterThan(10);
+    for (const p of points) {
+      expectClose(p.idA, 0.5, { rel: 1e-12 });
+      expectClose(p.vdsV, 400 - (0.5 / 1.5e-3) * p.timeS - 1.1, { rel: 1e-9 });
+    }
+  });
+
+  // With no current nothing drops across the source resistor: Vds = Vs − Vc (Kirchhoff's voltage
+  // law around the loop; Hayt et al., ch. 3). Exact arithmetic.
+  test("at zero current Vds is the whole gap Vs − Vc", () => {
+    const points = mosfetOperatingPoints([{ timeS: 0.5, voltageV: 120, currentA: 0 }], [], 400);
+    expect(points).toEqual([{ timeS: 0.5, vdsV: 280, idA: 0 }]);
   });
 });
