@@ -211,6 +211,11 @@ describe("bad stress keys in a profile: file:line, field, expected, found", () =
       "dir/p.yaml:8: parts[0].ratings.pulseEnergy[1].duration: expected durations in increasing order (greater than 1 s of row 0), found 0.01 s",
     ],
     [
+      "an SOA boundary whose voltages do not increase",
+      "    ratings: { soa: [{ duration: 1 s, points: [{ vds: 100 V, id: 1 A }, { vds: 10 V, id: 5 A }] }] }",
+      "dir/p.yaml:8: parts[0].ratings.soa[0].points[1].vds: expected voltages in increasing order (greater than 100 V), found 10 V",
+    ],
+    [
       "a negative Coffin-Manson exponent",
       COFFIN(-2),
       "dir/p.yaml:8: parts[0].lifetime.exponent: expected an exponent n > 0 (life falls as the range grows), found -2",
