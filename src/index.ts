@@ -148,6 +148,10 @@ export { expandTimeline } from "./profile/expandTimeline.js";
 export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOptions } from "./profile/expandTimeline.js";
 export { simulateProfile, combinedModel } from "./profile/simulateProfile.js";
 export type { PartVerdict, EventTemperatures, PartResult, SimulationResult, SimulateOptions } from "./profile/simulateProfile.js";
+export { stressPartKind } from "./profile/stressPartKind.js";
+export { mosfetOperatingPoints } from "./profile/mosfetOperatingPoints.js";
+export { ProfileStress } from "./profile/ProfileStress.js";
+export type { ProfileStressOptions, PartStress, ProfileStressResult } from "./profile/ProfileStress.js";
 
 // report: simulation
 export { EventDigest, EVENT_DIGEST_DEFAULTS } from "./report/EventDigest.js";
@@ -155,6 +159,9 @@ export type { EventRecord } from "./report/EventDigest.js";
 export { PeakEnvelope } from "./report/PeakEnvelope.js";
 export { formatSimulationText } from "./report/formatSimulationText.js";
 export { simulationJson } from "./report/simulationJson.js";
+export { formatProfileStress } from "./report/formatProfileStress.js";
+export { simulationStressJson } from "./report/simulationStressJson.js";
+export type { SimulationStressJson } from "./report/simulationStressJson.js";
 export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
 export { SimulationCsv } from "./report/SimulationCsv.js";
 export { formatFosterFit } from "./report/formatFosterFit.js";

@@ -4,6 +4,7 @@ import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
+import type { StressConfig } from "../stress/resolveStressConfig.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -56,6 +57,8 @@ export interface ProfilePart {
   readonly ambientC: number;
   readonly limitC: number;
   readonly marginK: number;
+  /** ratings, lifetime model and cycle hysteresis (stress layer), resolved at load time; undefined: defaults, no ratings */
+  readonly stress?: StressConfig;
 }
 
 /** A fault condition met by a power-up. */
@@ -100,6 +103,8 @@ export interface DutyProfile {
   readonly retryPlan?: RetryPlanInput;
   /** the supervision section, when the profile has one (read by `heatledger supervise`) */
   readonly supervision?: SupervisionSpec;
+  /** how many times a year the whole profile happens (for calendar life); undefined: not stated */
+  readonly occursPerYear?: number;
 }
 
 /** A closed range of one quantity [SI]; low = high for a single value. */

@@ -1,4 +1,4 @@
-import type { CircuitOutcome } from "../circuits/CircuitResult.js";
+import type { CircuitOutcome, CircuitSample } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -34,6 +34,8 @@ export interface TimelineEvent {
   readonly traces: readonly (PowerTrace | undefined)[];
   /** energy into each part [J] */
   readonly energyJ: readonly number[];
+  /** circuit samples of a charging event in absolute time, when ExpandOptions.wantSamples asked for them */
+  readonly samples?: readonly CircuitSample[];
 }
 
 /** Time between events (a retry interval, the rest of a repeat period): no power, the bus as it was left. */
@@ -52,6 +54,8 @@ export type TimelineItem = TimelineEvent | TimelineGap;
 export interface ExpandOptions {
   /** each part's temperature now [°C] (profile part order), read at the start of every charge; default: ambient */
   readonly temperatureOf?: () => readonly number[];
+  /** also carry each charging event's circuit samples (bus voltage, inrush current; for the SOA check); default false */
+  readonly wantSamples?: boolean;
 }
 
 /**
@@ -75,6 +79,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
   const partCount = profile.parts.length;
   const ambient = profile.parts.map((p) => p.ambientC);
   const temperatureOf = options.temperatureOf ?? (() => ambient);
+  const wantSamples = options.wantSamples === true;
   const state = { timeS: 0, voltageV: 0, busOn: false, index: 0 };
 
   const advance = (durationS: number, field: string): void => {
@@ -122,7 +127,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     });
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
-    const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC });
+    const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC, wantSamples });
     const traces = noPower();
     const energyJ = zeros();
     profile.parts.forEach((p, i) => {
@@ -148,7 +153,8 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.busOn = false;
       state.voltageV = r.endVoltageV;
     }
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
+    const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
   };
 
   function* walk(events: readonly ProfileEvent[]): Generator<TimelineItem, void> {

@@ -13,6 +13,8 @@ import type { CircuitRole, DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent,
 import { type CircuitInput, type EventInput, type FaultInput, type LoadInput, type PartInput, ROLE_NAMES, profileSchema } from "./profileSchema.js";
 import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
 import { resolveSupervision } from "./resolveSupervision.js";
+import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
+import { stressPartKind } from "./stressPartKind.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -107,6 +109,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     events,
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
     ...(supervision === undefined ? {} : { supervision }),
+    ...(input.occursPerYear === undefined ? {} : { occursPerYear: input.occursPerYear }),
   };
 }
 
@@ -148,8 +151,11 @@ function issueToProblems(issue: z.core.$ZodIssue, file: string, lineOf: (field: 
     }
     case "too_small":
       return [at(field, issue.origin === "array" ? `at least ${String(issue.minimum)} item${issue.minimum === 1 ? "" : "s"}` : "a non-empty text", describeFound(input))];
-    case "invalid_union":
-      return [at(field, field.endsWith("network") ? "a network mapping (form: foster | cauer | graph) or a network file path" : "a valid value", describeFound(input))];
+    case "invalid_union": {
+      // a union that names what it wants (the stress keys' quantities and lifetime models do) says so
+      const named = issue.message !== "" && !issue.message.startsWith("Invalid input") ? issue.message : "a valid value";
+      return [at(field, field.endsWith("network") ? "a network mapping (form: foster | cauer | graph) or a network file path" : named, describeFound(input))];
+    }
     default:
       return [at(field, "a valid value", describeFound(input))];
   }
@@ -224,6 +230,12 @@ function resolvePart(
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
   const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
   networks.set(networkKey, model);
+  let stress: StressConfig | undefined;
+  try {
+    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
+  } catch (error) {
+    reader.absorb(error);
+  }
   if (model === undefined) return undefined;
   try {
     const sourceAt = part.source === undefined ? 0 : sourceIndex(model, part.source, join(field, "source"));
@@ -238,6 +250,7 @@ function resolvePart(
       ambientC: part.ambient ?? ambientC,
       limitC: part.limits.maxTemperature,
       marginK: margin,
+      ...(stress === undefined ? {} : { stress }),
     };
   } catch (error) {
     reader.absorb(error);

@@ -2,6 +2,7 @@ import * as z from "zod";
 import { InputError } from "../errors/InputError.js";
 import { type Dimension, expectedWords } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parseQuantity.js";
+import { stressKeysSchema } from "../stress/stressKeysSchema.js";
 
 /**
  * A quantity field: a number in SI or a unit string, parsed by parseQuantity into SI. A failure
@@ -169,6 +170,8 @@ export const partSchema = z.strictObject({
   observe: z.string().optional(),
   ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "40 degC"' }).optional(),
   limits: limitsSchema,
+  // ratings, lifetime, cycleHysteresis: the stress layer's keys (src/stress/stressKeysSchema.ts)
+  ...stressKeysSchema.shape,
 });
 
 const mosfetSchema = z.strictObject({
@@ -325,6 +328,8 @@ export const profileSchema = z.strictObject({
   events: z.array(eventSchema).min(1),
   retryPlan: retryPlanSchema.optional(),
   supervision: supervisionSchema.optional(),
+  /** how many times a year the whole profile happens, for calendar life (stress layer) */
+  occursPerYear: quantity("dimensionless", { above: 0, words: "a number of times per year > 0 such as 52" }).optional(),
 });
 
 /** The profile as validated by {@link profileSchema}, before networks and files are resolved. */

@@ -58,6 +58,8 @@ export interface SimulateOptions {
   readonly onEvent?: (event: TimelineEvent, temperatures: EventTemperatures) => void;
   /** called for every step end and interior peak with each part's temperature [°C] */
   readonly onPoint?: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => void;
+  /** carry the circuit samples on each charging event handed to onEvent (for the SOA check); default false */
+  readonly wantSamples?: boolean;
 }
 
 /**
@@ -139,7 +141,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   };
 
   function* steps(): Generator<TimedStep> {
-    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf })) {
+    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
       const until = item.startS + item.durationS;
       if (item.type === "event") {
         openEvent(item);

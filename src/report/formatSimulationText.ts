@@ -37,9 +37,17 @@ const VERDICT_WORDS = {
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
  * verdict, and the cautions of DESIGN §8 at the end. Returns a string; the CLI prints it.
+ * `stressText` (optional, from formatProfileStress) goes just before the verdict.
  * Cost O(parts × (events kept + chart width)).
  */
-export function formatSimulationText(profile: DutyProfile, result: SimulationResult, digest: EventDigest, envelope: PeakEnvelope | undefined, width = 100): string {
+export function formatSimulationText(
+  profile: DutyProfile,
+  result: SimulationResult,
+  digest: EventDigest,
+  envelope: PeakEnvelope | undefined,
+  width = 100,
+  stressText = "",
+): string {
   const out: string[] = [];
   out.push(`heatledger simulate: ${profile.name}`);
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
@@ -113,6 +121,8 @@ export function formatSimulationText(profile: DutyProfile, result: SimulationRes
       );
     });
   }
+  // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
+  if (stressText !== "") out.push(stressText);
   out.push(`Verdict: ${VERDICT_WORDS[result.verdict]}.`);
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));

@@ -1,0 +1,40 @@
+import type { DutyProfile } from "../profile/DutyProfile.js";
+import type { ProfileStressResult } from "../profile/ProfileStress.js";
+import { STRESS_SECTION_WIDTH, formatStressSection } from "../stress/formatStressSection.js";
+import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
+
+const RATING_WORDS = {
+  pass: "every checked event is within its rating tables",
+  "outside-table": "some events fall outside the rating tables (not covered: a warning, not a failure)",
+  fail: "FAIL: an event exceeds a rating table (exit status 1)",
+} as const;
+
+/**
+ * The stress block of `simulate`'s terminal report: one section per part (formatStressSection:
+ * rating checks, rainflow cycles, Miner damage, notes), a plain line for a part whose cycling
+ * damage was not assessed (no lifetime model), and closing lines: the rating-check status (a
+ * secondary check beside the temperature verdict; "no event was checked" when no part has a
+ * table) and, when damage was computed, what one repetition is and how often it occurs. The linear-mode MOSFET caution is
+ * left to the report's closing cautions when the circuit is a linear MOSFET, so it is not
+ * printed twice. Returns a string; prints nothing.
+ * Cost O(parts × (listed events + top cycles)).
+ */
+export function formatProfileStress(profile: DutyProfile, stress: ProfileStressResult): string {
+  const closingHasMosfet = profile.circuit?.topology === "linear-mosfet";
+  const blocks = stress.parts.map((part) => {
+    const report = closingHasMosfet ? { ...part.report, cautions: part.report.cautions.filter((c) => c !== LINEAR_MOSFET_CAUTION) } : part.report;
+    const notAssessed = report.damage === undefined ? "  damage: cycling damage was not assessed (no lifetime model for this part).\n" : "";
+    return formatStressSection(part.id, report) + notAssessed;
+  });
+  const anyTable = profile.parts.some((p) => p.stress?.pulseEnergy !== undefined || (p.stress?.soa !== undefined && p.role === "mosfet"));
+  const closing = [
+    `Rating checks (secondary to the temperature verdict): ${anyTable ? RATING_WORDS[stress.ratingStatus] : "no part has a rating table (ratings: pulseEnergy, soa), so no event was checked"}.`,
+  ];
+  if (stress.parts.some((p) => p.report.damage !== undefined))
+    closing.push(
+      `Damage is per repetition of the whole profile; ${
+        profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
+      }.`,
+    );
+  return `${blocks.join("\n")}\n${closing.map((line) => wrapText(line, STRESS_SECTION_WIDTH)).join("\n")}\n`;
+}
