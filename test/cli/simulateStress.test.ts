@@ -4,7 +4,7 @@ import { stringify } from "yaml";
 import { runCli } from "../../src/cli/main.js";
 import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
-import { memoryIo } from "./simulateMemoryIo.js";
+import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger simulate` with the stress keys of a part (ratings, lifetime,
 // cycleHysteresis) and the profile's occursPerYear, on invented profiles. Every rating table and
