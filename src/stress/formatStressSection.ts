@@ -78,11 +78,16 @@ export function formatStressSection(partId: string, report: StressReport): strin
     );
     if (d.topCycles.length > 0) {
       lines.push("    most damaging cycles:");
-      for (const t of d.topCycles)
-        lines.push(
-          `      ${num(t.cycle.rangeK)} K (${num(t.cycle.minC)} to ${num(t.cycle.maxC)} °C, heating ${num(t.cycle.heatingTimeS)} s) ×${t.cycle.count}: ` +
-            `N_f ${num(t.cyclesToFailure)}, ${num(t.share * 100)} % of the damage`,
-        );
+      // cycles that print the same are listed once with their summed count and share
+      const grouped = new Map<string, { count: number; share: number; cyclesToFailure: number }>();
+      for (const t of d.topCycles) {
+        const key = `${num(t.cycle.rangeK)} K (${num(t.cycle.minC)} to ${num(t.cycle.maxC)} °C, heating ${num(t.cycle.heatingTimeS)} s)`;
+        const entry = grouped.get(key) ?? { count: 0, share: 0, cyclesToFailure: t.cyclesToFailure };
+        entry.count += t.cycle.count;
+        entry.share += t.share;
+        grouped.set(key, entry);
+      }
+      for (const [key, g] of grouped) lines.push(`      ${key} ×${g.count}: N_f ${num(g.cyclesToFailure)}, ${num(g.share * 100)} % of the damage`);
     }
     for (const w of d.warnings) lines.push(...paragraph("  warning: ", w));
   }
