@@ -69,14 +69,26 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
   let direction = 0;
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
-    const trend = powerTrend(terms);
-    if (trend === undefined) return false;
-    const p = terms === undefined ? 0 : powerAt(terms, 0);
+    // constant power (no terms, or one constant term) is by far the most common step: no trend
+    let trend: number | undefined = 0;
+    let p = 0;
+    if (terms !== undefined && terms.length > 0) {
+      const first = terms[0]!;
+      if (terms.length === 1 && first.b === 0 && first.lambda === 0) p = first.a;
+      else {
+        trend = powerTrend(terms);
+        if (trend === undefined) return false;
+        p = powerAt(terms, 0);
+      }
+    }
+    const gains = row[src]!;
+    const base = src * modes;
     for (let m = 0; m < modes; m++) {
-      const u = p - state[src * modes + m]!;
-      const side = Math.sign(u);
+      const u = p - state[base + m]!;
+      const side = u > 0 ? 1 : u < 0 ? -1 : 0;
       if (trend !== 0 && side !== 0 && side !== trend) return false;
-      const sign = Math.sign(row[src]![m]!) * (side !== 0 ? side : trend);
+      const g = gains[m]!;
+      const sign = (g > 0 ? 1 : g < 0 ? -1 : 0) * (side !== 0 ? side : trend);
       if (sign === 0) continue;
       if (direction === 0) direction = sign;
       else if (sign !== direction) return false;
@@ -84,6 +96,9 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
   }
   return true;
 }
+
+/** The shared answer for steps without an interior peak (callers only read it). */
+const NO_PEAKS = Object.freeze([]) as unknown as InteriorPeak[];
 
 /**
  * For steps where every source's power is linear (a + b·s, no exponentials), the slope of the rise
@@ -177,7 +192,7 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
  * @returns the interior peaks in time order (usually none or one)
  */
 export function interiorPeaks(model: ModalModel, state: ModalState, h: number, powers: SourcePowers, o = 0): InteriorPeak[] {
-  if (!(h > 0) || provablyMonotone(model, state, powers, o)) return [];
+  if (!(h > 0) || provablyMonotone(model, state, powers, o)) return NO_PEAKS;
   const scratch = new Float64Array(state.length);
   const peaks: InteriorPeak[] = [];
   const single = linearSlopeSum(model, state, powers, o);
