@@ -4,40 +4,14 @@
 // simulated without and with ProfileStress fed from the visitor, as the CLI feeds it. Prints
 // events, CPU time of both and the heap after a full GC; figures are read by people, never asserted.
 import { ProfileStress, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { shuttleProfileText } from "./shuttleProfile.js";
 
 function profileText(months: number): string {
-  return `name: bench, power-ups every 20 minutes for ${months} months with monthly fault bursts
-ambient: 40 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.3 K/W, tau: 30 ms }, { r: 1 K/W, tau: 2 s }, { r: 2 K/W, tau: 60 s }, { r: 1.5 K/W, tau: 900 s }] }
-    limits: { maxTemperature: 200 degC }
-    ratings: { pulseEnergy: [{ duration: 1 ms, energy: 5 J }, { duration: 10 s, energy: 500 J }] }
-    lifetime: { model: coffin-manson, referenceCycles: 100000, referenceRange: 50 K, exponent: 4 }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 3.3 mF
-  resistance: 22 ohm
-  completion: { fraction: 0.92, timeout: 600 ms }
-  discharge: { kind: bleeder, resistance: 4.7 kohm }
-events:
-  - repeat:
-      count: ${months}
-      period: 30 day
-      events:
-        - repeat:
-            count: ${29 * 72}
-            period: 20 min
-            events:
-              - power-up: {}
-              - run: 15 min
-              - power-down: {}
-        - retry: { attempts: 5, interval: 2 s, backoff: 2, fault: { type: shorted-output }, faultyAttempts: 3, lockout: 5 min }
-        - run: 8 h
-        - power-down: {}
-`;
+  return shuttleProfileText(
+    months,
+    "    ratings: { pulseEnergy: [{ duration: 1 ms, energy: 5 J }, { duration: 10 s, energy: 500 J }] }\n" +
+      "    lifetime: { model: coffin-manson, referenceCycles: 100000, referenceRange: 50 K, exponent: 4 }\n",
+  );
 }
 
 function cpuOf(work: () => void): number {

@@ -4,38 +4,10 @@
 // events, steps, time and heap before/after; the target (under 2 s, memory not growing with the
 // event count) is read by people, never asserted.
 import { defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { shuttleProfileText } from "./shuttleProfile.js";
 
 function profileText(years: number): string {
-  return `name: bench, power-ups every 20 minutes for ${years} years with monthly fault bursts
-ambient: 40 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.3 K/W, tau: 30 ms }, { r: 1 K/W, tau: 2 s }, { r: 2 K/W, tau: 60 s }, { r: 1.5 K/W, tau: 900 s }] }
-    limits: { maxTemperature: 200 degC }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 3.3 mF
-  resistance: 22 ohm
-  completion: { fraction: 0.92, timeout: 600 ms }
-  discharge: { kind: bleeder, resistance: 4.7 kohm }
-events:
-  - repeat:
-      count: ${Math.round(years * 12)}
-      period: 30 day
-      events:
-        - repeat:
-            count: ${29 * 72}
-            period: 20 min
-            events:
-              - power-up: {}
-              - run: 15 min
-              - power-down: {}
-        - retry: { attempts: 5, interval: 2 s, backoff: 2, fault: { type: shorted-output }, faultyAttempts: 3, lockout: 5 min }
-        - run: 8 h
-        - power-down: {}
-`;
+  return shuttleProfileText(Math.round(years * 12));
 }
 
 function measure(years: number): { events: number; steps: number; seconds: number; cpuSeconds: number; heapBeforeMB: number; heapAfterMB: number } {
