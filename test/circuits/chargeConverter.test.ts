@@ -1,15 +1,11 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type CircuitResult, type ConverterParams, chargeConverter, powerAt } from "../../src/index.js";
+import { type BusLoad, type CircuitResult, type ConverterParams, chargeConverter } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { sumParts, traceAt } from "./circuitResultProbes.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";
 
 const cond = { sourceVoltageV: 400, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 2 } };
-const sumParts = (r: CircuitResult): number => Object.values(r.energy.partsJ).reduce((a, b) => a + b, 0);
-const traceAt = (r: CircuitResult, role: string, t: number): number => {
-  const seg = (r.traces[role] ?? []).find((s) => t >= s.startS && t < s.startS + s.durationS);
-  return seg === undefined ? 0 : powerAt(seg.terms, t - seg.startS);
-};
 
 // Efficiency η: input = output/η, loss = output·(1/η − 1) (Erickson & Maksimović, Fundamentals of
 // Power Electronics, 2nd ed. (2001), §1.1, from memory). Output energy into C from V0 to V1 with no

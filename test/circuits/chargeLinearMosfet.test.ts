@@ -1,17 +1,13 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type CircuitResult, type LinearMosfetParams, chargeLinearMosfet, powerAt, segmentEnergy } from "../../src/index.js";
+import { type BusLoad, type CircuitResult, type LinearMosfetParams, chargeLinearMosfet, segmentEnergy } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { sumParts, traceAt } from "./circuitResultProbes.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";
 
 // Scenario (invented): 400 V bus, 1 mF link, gate at 12 V, threshold 4 V, Rs = 4 Ω → I = 2 A.
 const base: LinearMosfetParams = { capacitanceF: 1e-3, gateVoltageV: 12, thresholdVoltageV: 4, sourceResistorOhm: 4, rdsOnOhm: 50 };
 const cond = { sourceVoltageV: 400, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 2 } };
-const sumParts = (r: CircuitResult): number => Object.values(r.energy.partsJ).reduce((a, b) => a + b, 0);
-const traceAt = (r: CircuitResult, role: string, t: number): number => {
-  const seg = (r.traces[role] ?? []).find((s) => t >= s.startS && t < s.startS + s.durationS);
-  return seg === undefined ? 0 : powerAt(seg.terms, t - seg.startS);
-};
 
 describe("chargeLinearMosfet", () => {
   // Constant current into C: V = V0 + I·t/C (Hayt, Kemmerly & Durbin, Engineering Circuit

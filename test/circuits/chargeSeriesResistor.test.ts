@@ -1,17 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, powerAt, segmentEnergy, validatePowerTrace } from "../../src/index.js";
+import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, segmentEnergy, validatePowerTrace } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { sumParts, traceAt } from "./circuitResultProbes.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";
 
-const sumParts = (r: CircuitResult): number => Object.values(r.energy.partsJ).reduce((a, b) => a + b, 0);
 const traceEnergy = (r: CircuitResult, role: string): number =>
   (r.traces[role] ?? []).reduce((e, s) => e + segmentEnergy(s.terms, s.durationS), 0);
-/** power of a trace at time t (0 in gaps) */
-const traceAt = (r: CircuitResult, role: string, t: number): number => {
-  const seg = (r.traces[role] ?? []).find((s) => t >= s.startS && t < s.startS + s.durationS);
-  return seg === undefined ? 0 : powerAt(seg.terms, t - seg.startS);
-};
 const conditions = (over: Partial<ChargeConditions> & { completion?: ChargeConditions["completion"] } = {}): ChargeConditions => ({
   sourceVoltageV: 400,
   initialVoltageV: 0,

@@ -4,22 +4,11 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION, InputError, loadProfile } from "../../src/index.js";
 import { memoryIo } from "../helpers/memoryIo.js";
-import { type OneStageSettings, oneStageProfileText } from "./superviseFixtures.js";
+import { ONE_STAGE_BASE, type OneStageSettings, oneStageProfileText } from "./superviseFixtures.js";
 
 // In-process runs of `heatledger supervise` through the CLI factory, and the profile's
 // supervision section's bad-input messages.
-const BASE: OneStageSettings = {
-  rThKPerW: 2,
-  tauS: 10,
-  resistanceOhm: 10,
-  busV: [40, 50],
-  capacitanceF: [1e-3, 2e-3],
-  fraction: [0.9, 0.95],
-  ambientC: 25,
-  limitC: 150,
-  marginK: 0,
-  timeoutS: 1,
-};
+const BASE: OneStageSettings = ONE_STAGE_BASE;
 
 describe("heatledger supervise (in process)", () => {
   test("a safe window: exit 0, text with every section and the cautions, no NaN", async () => {

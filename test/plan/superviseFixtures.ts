@@ -51,3 +51,17 @@ export function oneStageProfile(s: OneStageSettings): DutyProfile {
 }
 
 export const MODELS = defaultCircuitModels;
+
+/** The base one-stage settings both supervision test files start from (invented values). */
+export const ONE_STAGE_BASE: OneStageSettings = {
+  rThKPerW: 2,
+  tauS: 10,
+  resistanceOhm: 10,
+  busV: [40, 50],
+  capacitanceF: [1e-3, 2e-3],
+  fraction: [0.9, 0.95],
+  ambientC: 25,
+  limitC: 150,
+  marginK: 0,
+  timeoutS: 1,
+};
