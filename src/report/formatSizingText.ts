@@ -22,7 +22,11 @@ export function formatSizingText(report: SizingReport, width = 100): string {
     ),
   );
   if (m !== undefined) out.push(wrapText(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; value from memory).`, width));
-  out.push("", "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT)");
+  out.push(
+    "",
+    "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT). One lump of this capacity is",
+    "enough for that event by itself; compare it with the total capacity of a network, not with its first stage C1.",
+  );
   out.push(
     formatTable(
       [
