@@ -101,78 +101,175 @@ function provablyMonotone(model: ModalModel, state: ModalState, powers: SourcePo
 const NO_PEAKS = Object.freeze([]) as unknown as InteriorPeak[];
 
 /**
+ * Exponential sums S(x) = Σ_i k_i·e^(−r_i·x) built by the closed-form paths below live in these
+ * module scratch arrays, rates ascending (the order the rule of signs needs), and are consumed by
+ * singleTurnOfRates before the next call: no allocation per step. Grown on demand.
+ */
+let sumRates = new Float64Array(16);
+let sumCoefficients = new Float64Array(16);
+/** State scratch for advancing to a found turn. */
+let turnState = new Float64Array(16);
+
+function reserveSum(size: number): void {
+  if (sumRates.length >= size) return;
+  sumRates = new Float64Array(2 * size);
+  sumCoefficients = new Float64Array(2 * size);
+}
+
+function reserveState(size: number): Float64Array {
+  if (turnState.length < size) turnState = new Float64Array(2 * size);
+  return turnState;
+}
+
+/** Add value at rate into the first n scratch entries (merged when the rate is already there, else inserted in order); returns the new count. */
+function addToSum(n: number, rate: number, value: number): number {
+  let i = n;
+  while (i > 0 && sumRates[i - 1]! > rate) i--;
+  if (i > 0 && sumRates[i - 1] === rate) {
+    sumCoefficients[i - 1]! += value;
+    return n;
+  }
+  sumRates.copyWithin(i + 1, i, n);
+  sumCoefficients.copyWithin(i + 1, i, n);
+  sumRates[i] = rate;
+  sumCoefficients[i] = value;
+  return n + 1;
+}
+
+/** Sign changes among the first n scratch coefficients, in rate order, zeros skipped. */
+function signChanges(n: number): number {
+  let changes = 0;
+  let last = 0;
+  for (let i = 0; i < n; i++) {
+    const value = sumCoefficients[i]!;
+    const sign = value > 0 ? 1 : value < 0 ? -1 : 0;
+    if (sign === 0) continue;
+    if (last !== 0 && sign !== last) changes++;
+    last = sign;
+  }
+  return changes;
+}
+
+/**
  * For steps where every source's power is linear (a + b·s, no exponentials), the slope of the rise
  * is an exponential sum S(s) = C + Σ_m k_m·e^(−s/tau_m) with C = Σ_src b·Σ_m gain and
  * k_m = Σ_src gain·(u_m(0) − b·tau_m)/tau_m. By the rule of signs for exponential sums, S has no
  * more zeros than its coefficients, ordered by rate (C first, then slower to faster modes), have
- * sign changes. Returns C and k when there is at most one change (then at most one turn,
- * bracketed by the step ends), else undefined. Source: generalised Descartes rule of signs for exponential sums (Laguerre),
- * as in Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
+ * sign changes. Leaves the sum in the scratch and returns its length when there is at most one
+ * change (then at most one turn, bracketed by the step ends), else −1 (also when a term is not
+ * linear). Source: generalised Descartes rule of signs for exponential sums (Laguerre), as in
+ * Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
  */
-const modeOrders = new WeakMap<ModalModel, Int32Array>();
-const slopeScratch = new WeakMap<ModalModel, Float64Array>();
-
-const linearRateCache = new WeakMap<ModalModel, number[]>();
-
-/** Rates of the linear-power slope sum: 0 (the constant) then 1/tau_m per mode, once per model. */
-function linearRates(model: ModalModel): number[] {
-  let rates = linearRateCache.get(model);
-  if (rates === undefined) {
-    rates = [0, ...model.tauS.map((tau) => 1 / tau)];
-    linearRateCache.set(model, rates);
-  }
-  return rates;
-}
-
-/** Mode indices from the slowest to the fastest, computed once per model. */
-function slowestFirst(model: ModalModel): Int32Array {
-  let order = modeOrders.get(model);
-  if (order === undefined) {
-    order = Int32Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
-    modeOrders.set(model, order);
-  }
-  return order;
-}
-
-function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { constant: number; k: Float64Array } | undefined {
+function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): number {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
+  reserveSum(modes + 1);
+  let n = 0;
   let constant = 0;
-  // scratch reused per model: the result is consumed before the next call
-  let k = slopeScratch.get(model);
-  if (k === undefined) {
-    k = new Float64Array(modes);
-    slopeScratch.set(model, k);
-  }
-  k.fill(0);
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
     let a = 0;
     let b = 0;
     if (terms !== undefined) {
       for (const t of terms) {
-        if (t.lambda !== 0) return undefined;
+        if (t.lambda !== 0) return -1;
         a += t.a;
         b += t.b;
       }
     }
+    const gains = row[src]!;
+    const base = src * modes;
     for (let m = 0; m < modes; m++) {
-      const g = row[src]![m]!;
+      const g = gains[m]!;
+      if (g === 0) continue;
       const tau = model.tauS[m]!;
       constant += g * b;
-      k[m]! += (g * (a - state[src * modes + m]! - b * tau)) / tau;
+      n = addToSum(n, 1 / tau, (g * (a - state[base + m]! - b * tau)) / tau);
     }
   }
-  const order = slowestFirst(model);
-  let changes = 0;
-  let last = Math.sign(constant);
-  for (const m of order) {
-    const sign = Math.sign(k[m]!);
-    if (sign === 0) continue;
-    if (last !== 0 && sign !== last) changes++;
-    last = sign;
+  n = addToSum(n, 0, constant);
+  return signChanges(n) <= 1 ? n : -1;
+}
+
+/**
+ * For steps where every source's power is a sum of pure exponentials Σ a_k·e^(−lambda_k·s) (b = 0;
+ * lambda_k = 0 is a constant), the slope of the rise is again an exponential sum. Mode m of a
+ * source relaxes as y(s) = c_m·e^(−s/tau) + Σ_k a_k·e^(−lambda_k·s)/(1 − lambda_k·tau) with
+ * c_m = y(0) − Σ_k a_k/(1 − lambda_k·tau), so u = P − y = −Σ_k a_k·(lambda_k·tau/(1 − lambda_k·tau))·e^(−lambda_k·s) − c_m·e^(−s/tau)
+ * and the slope Σ gain·u/tau has one coefficient per distinct rate:
+ *   rate lambda_k: −Σ gain·a_k·lambda_k/(1 − lambda_k·tau_m);   rate 1/tau_m: −Σ_src gain·c_m/tau_m.
+ * With at most one sign change among the coefficients ordered by rate, the slope has at most one
+ * zero (rule of signs for exponential sums, as in linearSlopeSum), found by singleTurnOfRates.
+ * This is the resistor-charging step (constant, e^(−t/τ'), e^(−2t/τ') power), the bulk of every
+ * pre-charge history. Leaves the sum in the scratch and returns its length; −1 when a rate
+ * coincides with a mode's 1/tau (a resonant s·e^(−s/tau) term) or there are more sign changes:
+ * the grid search handles those.
+ */
+function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): number {
+  const modes = model.tauS.length;
+  const row = model.gainKPerW[o]!;
+  let n = 0;
+  for (let src = 0; src < row.length; src++) {
+    const terms = powers[src];
+    const count = terms === undefined ? 0 : terms.length;
+    for (let j = 0; j < count; j++) if (terms![j]!.b !== 0) return -1;
+    reserveSum(n + modes * (count + 1));
+    const gains = row[src]!;
+    const base = src * modes;
+    for (let m = 0; m < modes; m++) {
+      const g = gains[m]!;
+      if (g === 0) continue;
+      const tau = model.tauS[m]!;
+      let c = state[base + m]!;
+      for (let j = 0; j < count; j++) {
+        const t = terms![j]!;
+        const denominator = 1 - t.lambda * tau;
+        if (Math.abs(denominator) < 1e-3) return -1;
+        c -= t.a / denominator;
+        if (t.lambda !== 0) n = addToSum(n, t.lambda, (-g * t.a * t.lambda) / denominator);
+      }
+      n = addToSum(n, 1 / tau, (-g * c) / tau);
+    }
   }
-  return changes <= 1 ? { constant, k } : undefined;
+  return signChanges(n) <= 1 ? n : -1;
+}
+
+/**
+ * The one zero in (0, h) of the scratch sum S(x) = Σ_{i<n} k_i·e^(−r_i·x) when S(0) > 0 ≥ S(h),
+ * by Newton's method kept inside the bracket (bisection when a step leaves it); undefined when
+ * there is none. Cost O(n) per iteration, no allocation.
+ */
+function singleTurnOfRates(n: number, h: number): number | undefined {
+  let atZero = 0;
+  let atEnd = 0;
+  for (let i = 0; i < n; i++) {
+    atZero += sumCoefficients[i]!;
+    atEnd += sumCoefficients[i]! * Math.exp(-sumRates[i]! * h);
+  }
+  if (!(atZero > 0) || !(atEnd <= 0)) return undefined;
+  let lo = 0;
+  let hi = h;
+  // Start from the secant through the bracket ends: near the turn when one mode dominates.
+  let x = (h * atZero) / (atZero - atEnd);
+  if (!(x > lo && x < hi)) x = 0.5 * h;
+  for (let iteration = 0; iteration < 200; iteration++) {
+    let f = 0;
+    let df = 0;
+    for (let i = 0; i < n; i++) {
+      const term = sumCoefficients[i]! * Math.exp(-sumRates[i]! * x);
+      f += term;
+      df -= term * sumRates[i]!;
+    }
+    if (f === 0) return x;
+    if (f > 0) lo = x;
+    else hi = x;
+    if (hi - lo <= 1e-12 * h) break;
+    let next = x - f / df;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - x) <= 1e-12 * h) return next;
+    x = next;
+  }
+  return 0.5 * (lo + hi);
 }
 
 /**
@@ -193,20 +290,15 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
  */
 export function interiorPeaks(model: ModalModel, state: ModalState, h: number, powers: SourcePowers, o = 0): InteriorPeak[] {
   if (!(h > 0) || provablyMonotone(model, state, powers, o)) return NO_PEAKS;
+  let n = linearSlopeSum(model, state, powers, o);
+  if (n < 0) n = exponentialSlopeSum(model, state, powers, o);
+  if (n >= 0) {
+    const at = singleTurnOfRates(n, h);
+    if (at === undefined || !(at < h * (1 - 1e-9))) return NO_PEAKS;
+    return [{ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, reserveState(state.length)), o) }];
+  }
   const scratch = new Float64Array(state.length);
   const peaks: InteriorPeak[] = [];
-  const single = linearSlopeSum(model, state, powers, o);
-  if (single !== undefined) {
-    const at = singleTurnOfRates(linearRates(model), [single.constant, ...single.k], h);
-    if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
-    return peaks;
-  }
-  const exponential = exponentialSlopeSum(model, state, powers, o);
-  if (exponential !== undefined) {
-    const at = singleTurnOfRates(exponential.rates, exponential.coefficients, h);
-    if (at !== undefined && at < h * (1 - 1e-9)) peaks.push({ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, scratch), o) });
-    return peaks;
-  }
   let previousS = 0;
   let previousSlope = slopeAtTime(model, state, powers, o, 0, scratch);
   for (const s of peakGrid(model, h)) {
@@ -220,89 +312,6 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
     previousSlope = slope;
   }
   return peaks;
-}
-
-/**
- * For steps where every source's power is a sum of pure exponentials Σ a_k·e^(−lambda_k·s) (b = 0;
- * lambda_k = 0 is a constant), the slope of the rise is again an exponential sum. Mode m of a
- * source relaxes as y(s) = c_m·e^(−s/tau) + Σ_k a_k·e^(−lambda_k·s)/(1 − lambda_k·tau) with
- * c_m = y(0) − Σ_k a_k/(1 − lambda_k·tau), so u = P − y = −Σ_k a_k·(lambda_k·tau/(1 − lambda_k·tau))·e^(−lambda_k·s) − c_m·e^(−s/tau)
- * and the slope Σ gain·u/tau has one coefficient per distinct rate:
- *   rate lambda_k: −Σ gain·a_k·lambda_k/(1 − lambda_k·tau_m);   rate 1/tau_m: −Σ_src gain·c_m/tau_m.
- * With at most one sign change among the coefficients ordered by rate, the slope has at most one
- * zero (rule of signs for exponential sums, as in linearSlopeSum), found by singleTurnOfRates.
- * This is the resistor-charging step (constant, e^(−t/τ'), e^(−2t/τ') power), the bulk of every
- * pre-charge history. Returns undefined when a rate coincides with a mode's 1/tau (a resonant
- * s·e^(−s/tau) term) or there are more sign changes: the grid search handles those.
- */
-function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): { rates: number[]; coefficients: number[] } | undefined {
-  const modes = model.tauS.length;
-  const row = model.gainKPerW[o]!;
-  const byRate = new Map<number, number>();
-  const add = (rate: number, value: number): void => {
-    byRate.set(rate, (byRate.get(rate) ?? 0) + value);
-  };
-  for (let src = 0; src < row.length; src++) {
-    const terms = powers[src] ?? [];
-    for (const t of terms) if (t.b !== 0) return undefined;
-    for (let m = 0; m < modes; m++) {
-      const g = row[src]![m]!;
-      if (g === 0) continue;
-      const tau = model.tauS[m]!;
-      let c = state[src * modes + m]!;
-      for (const t of terms) {
-        const denominator = 1 - t.lambda * tau;
-        if (Math.abs(denominator) < 1e-3) return undefined;
-        c -= t.a / denominator;
-        if (t.lambda !== 0) add(t.lambda, (-g * t.a * t.lambda) / denominator);
-      }
-      add(1 / tau, (-g * c) / tau);
-    }
-  }
-  const rates = [...byRate.keys()].sort((a, b) => a - b);
-  const coefficients = rates.map((r) => byRate.get(r)!);
-  let changes = 0;
-  let last = 0;
-  for (const value of coefficients) {
-    const sign = Math.sign(value);
-    if (sign === 0) continue;
-    if (last !== 0 && sign !== last) changes++;
-    last = sign;
-  }
-  return changes <= 1 ? { rates, coefficients } : undefined;
-}
-
-/**
- * The one zero in (0, h) of S(x) = Σ k_i·e^(−r_i·x) when S(0) > 0 ≥ S(h), by Newton's method kept
- * inside the bracket (bisection when a step leaves it); undefined when there is none.
- */
-function singleTurnOfRates(rates: readonly number[], k: readonly number[], h: number): number | undefined {
-  const value = (x: number): [number, number] => {
-    let f = 0;
-    let df = 0;
-    for (let i = 0; i < rates.length; i++) {
-      const term = k[i]! * Math.exp(-rates[i]! * x);
-      f += term;
-      df -= term * rates[i]!;
-    }
-    return [f, df];
-  };
-  if (!(value(0)[0] > 0) || !(value(h)[0] <= 0)) return undefined;
-  let lo = 0;
-  let hi = h;
-  let x = 0.5 * h;
-  for (let i = 0; i < 200; i++) {
-    const [f, df] = value(x);
-    if (f === 0) return x;
-    if (f > 0) lo = x;
-    else hi = x;
-    if (hi - lo <= 1e-12 * h) break;
-    let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - x) <= 1e-12 * h) return next;
-    x = next;
-  }
-  return 0.5 * (lo + hi);
 }
 
 /** Slope of the rise at time s into the step (state advanced exactly into scratch). */

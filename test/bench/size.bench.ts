@@ -1,12 +1,12 @@
 // Sizing speed figures: the whole-profile capacity inversion and the charging-element search on the
 // bundled example profiles (simulations per answer and wall time). Printed, never asserted.
 import { readFileSync } from "node:fs";
-import { dirname, join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { join } from "node:path";
+import { projectRoot } from "./projectRoot.js";
 import { defaultCircuitModels, loadProfile, sizeProfile } from "../../src/index.js";
 
 export async function run(print: (line: string) => void): Promise<void> {
-  const folder = join(dirname(fileURLToPath(import.meta.url)), "../../profiles");
+  const folder = join(projectRoot, "profiles");
   for (const name of ["heat-pump-trip-retries.yaml", "warehouse-robot-48v.yaml", "home-storage-400v.yaml", "irrigation-pump-decade.yaml"]) {
     const file = join(folder, name);
     const profile = loadProfile(readFileSync(file, "utf8"), file, (p) => readFileSync(join(folder, p), "utf8"));

@@ -3,7 +3,7 @@
 // and its parts. Printed, never asserted (`npm run bench -- supervise`).
 import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { projectRoot } from "./projectRoot.js";
 import { defaultCircuitModels, longestShortFromState, longestShortUnderPolicy, loadProfile, profileRetryPolicy, shortedScenario, supervisePrecharge } from "../../src/index.js";
 
 function time<T>(work: () => T): { ms: number; result: T } {
@@ -13,7 +13,7 @@ function time<T>(work: () => T): { ms: number; result: T } {
 }
 
 export async function run(print: (line: string) => void): Promise<void> {
-  const file = join(dirname(fileURLToPath(import.meta.url)), "../../profiles/electric-boat-72v-supervision.yaml");
+  const file = join(projectRoot, "profiles/electric-boat-72v-supervision.yaml");
   const profile = loadProfile(readFileSync(file, "utf8"), file, (p) => readFileSync(join(dirname(file), p), "utf8"));
   const part = profile.parts[0]!;
   const build = (t: number) => shortedScenario(profile, part, 84, t, defaultCircuitModels);
