@@ -68,7 +68,8 @@ export class ProfileStress {
   private readonly parts: PartState[];
   private readonly keepChecks: number;
   private readonly lastStepEndC: number[];
-  private readonly startTemperatureC = new Map<number, readonly number[]>();
+  /** each part's temperature at the start of event `lastPointEvent` (its first point's previous step end) */
+  private readonly startTemperatureC: number[];
   private lastPointEvent = -1;
 
   constructor(profile: DutyProfile, options: ProfileStressOptions = {}) {
@@ -90,6 +91,7 @@ export class ProfileStress {
       return { config, assessment, isMosfet: partKind === "mosfet", checks: [], omitted: 0, status: "pass" as RatingStatus, eventsWithoutPoints: 0 };
     });
     this.lastStepEndC = profile.parts.map((p) => p.ambientC);
+    this.startTemperatureC = this.lastStepEndC.slice();
   }
 
   /** Whether the simulation should carry circuit samples (a MOSFET part has an SOA table). */
@@ -100,18 +102,19 @@ export class ProfileStress {
   /** A point of the thermal history (the simulator's onPoint): each part's temperature [°C]. */
   addPoint(timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number): void {
     if (eventIndex !== this.lastPointEvent) {
-      // the first point of a new event: the last step end before it is the temperature at its start
-      this.startTemperatureC.set(eventIndex, this.lastStepEndC.slice());
+      // the first point of a new event: the last step end before it is the temperature at its
+      // start (events close in order, each before the next one's first point, so one slot holds it)
+      for (let i = 0; i < this.lastStepEndC.length; i++) this.startTemperatureC[i] = this.lastStepEndC[i]!;
       this.lastPointEvent = eventIndex;
     }
-    this.parts.forEach((p, i) => p.assessment.addTemperature(timeS, temperatureC[i]!));
+    for (let i = 0; i < this.parts.length; i++) this.parts[i]!.assessment.addTemperature(timeS, temperatureC[i]!);
     if (kind === "step-end") for (let i = 0; i < temperatureC.length; i++) this.lastStepEndC[i] = temperatureC[i]!;
   }
 
   /** An event whose window has closed (the simulator's onEvent): run its rating checks per part. */
   addEvent(event: TimelineEvent): void {
-    const start = this.startTemperatureC.get(event.index) ?? this.lastStepEndC;
-    this.startTemperatureC.delete(event.index);
+    // an event without points of its own (none reached the visitor) started where the last step ended
+    const start = event.index === this.lastPointEvent ? this.startTemperatureC : this.lastStepEndC;
     this.parts.forEach((part, i) => {
       const trace = event.traces[i];
       if (trace === undefined || !(event.energyJ[i]! > 0)) return;

@@ -10,8 +10,9 @@ export const CIRCUIT_MEMO_SIZE = 64;
  * part temperatures) reuses the first result instead of solving the circuit again. Long profiles
  * repeat the same power-up from an empty capacitor thousands of times; the results are immutable,
  * so sharing them is exact. Discharges are cheap closed forms and pass through.
- * Cost O(1) per hit (a short string key: object ids of load and completion rule, the voltages and,
- * when the model reads them, the part temperatures); memory O(CIRCUIT_MEMO_SIZE) results.
+ * Cost O(1) per hit (the call before is compared field by field; else a short string key: object
+ * ids of load and completion rule, the voltages and, when the model reads them, the part
+ * temperatures); memory O(CIRCUIT_MEMO_SIZE) results.
  */
 export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_SIZE): CircuitModels {
   const memo = new Map<string, CircuitResult>();
@@ -28,23 +29,45 @@ export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_
     }
     return id;
   };
+  // the call before, checked first without building a key: a long profile mostly repeats it
+  let last: { load: unknown; sourceV: number; initialV: number; completion: unknown; wantSamples: boolean; result: CircuitResult } | undefined;
   return {
     discharge: models.discharge,
     charge: (circuit, load, conditions) => {
       if (circuit !== lastCircuit) {
         memo.clear();
+        last = undefined;
         lastCircuit = circuit;
       }
       const readsTemperature = circuit.topology === "linear-mosfet" && circuit.thresholdTempcoVPerK !== undefined && circuit.thresholdTempcoVPerK !== 0;
-      const key = `${idOf(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${idOf(conditions.completion)}|${
-        readsTemperature ? JSON.stringify(conditions.partTemperatureC ?? {}) : ""
-      }|${conditions.wantSamples === true}`;
-      const hit = memo.get(key);
-      if (hit !== undefined) return hit;
-      const result = models.charge(circuit, load, conditions);
-      if (memo.size >= size) memo.delete(memo.keys().next().value!);
-      memo.set(key, result);
+      const wantSamples = conditions.wantSamples === true;
+      if (
+        !readsTemperature &&
+        last !== undefined &&
+        last.load === load &&
+        last.sourceV === conditions.sourceVoltageV &&
+        last.initialV === conditions.initialVoltageV &&
+        last.completion === conditions.completion &&
+        last.wantSamples === wantSamples
+      )
+        return last.result;
+      const result = keyed(circuit, load, conditions, readsTemperature);
+      last = readsTemperature ? undefined : { load, sourceV: conditions.sourceVoltageV, initialV: conditions.initialVoltageV, completion: conditions.completion, wantSamples, result };
       return result;
     },
   };
+
+  function keyed(circuit: ChargeArgs[0], load: ChargeArgs[1], conditions: ChargeArgs[2], readsTemperature: boolean): CircuitResult {
+    const key = `${idOf(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${idOf(conditions.completion)}|${
+      readsTemperature ? JSON.stringify(conditions.partTemperatureC ?? {}) : ""
+    }|${conditions.wantSamples === true}`;
+    const hit = memo.get(key);
+    if (hit !== undefined) return hit;
+    const result = models.charge(circuit, load, conditions);
+    if (memo.size >= size) memo.delete(memo.keys().next().value!);
+    memo.set(key, result);
+    return result;
+  }
 }
+
+type ChargeArgs = Parameters<CircuitModels["charge"]>;

@@ -117,15 +117,25 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   let events = 0;
   let lastIndex = -1;
 
-  const temperatureOf = (): number[] => Array.from(now, (rise, i) => ambient[i]! + rise);
+  // One array, refilled at every charge: expandTimeline reads it at once and keeps nothing.
+  const temperatures = new Array<number>(count).fill(0);
+  const temperatureOf = (): number[] => {
+    for (let i = 0; i < count; i++) temperatures[i] = ambient[i]! + now[i]!;
+    return temperatures;
+  };
   const closeEvent = (): void => {
     if (current === undefined) return;
     lastIndex = current.index;
-    if (options.onEvent !== undefined)
-      options.onEvent(current, {
-      peakTemperatureC: Array.from(eventPeak, (rise, i) => ambient[i]! + rise),
-      peakTimeS: Array.from(eventPeakTime),
-    });
+    if (options.onEvent !== undefined) {
+      // fresh arrays: the visitor may keep them
+      const peakTemperatureC = new Array<number>(count);
+      const peakTimeS = new Array<number>(count);
+      for (let i = 0; i < count; i++) {
+        peakTemperatureC[i] = ambient[i]! + eventPeak[i]!;
+        peakTimeS[i] = eventPeakTime[i]!;
+      }
+      options.onEvent(current, { peakTemperatureC, peakTimeS });
+    }
     current = undefined;
   };
   const openEvent = (event: TimelineEvent): void => {
@@ -163,12 +173,16 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       }
       if (firstExceedance[i] === undefined && ambient[i]! + rise > parts[i]!.limitC) firstExceedance[i] = point.timeS;
     }
-    if (options.onPoint !== undefined) options.onPoint(point.timeS, point.riseK.map((r, i) => ambient[i]! + r), point.kind, current?.index ?? lastIndex);
+    if (options.onPoint !== undefined) {
+      const temperatureC = new Array<number>(count);
+      for (let i = 0; i < count; i++) temperatureC[i] = ambient[i]! + point.riseK[i]!;
+      options.onPoint(point.timeS, temperatureC, point.kind, current?.index ?? lastIndex);
+    }
   };
 
   let summary: ReturnType<typeof runThermalHistory>;
   try {
-    summary = runThermalHistory(model, steps(), { onPoint });
+    summary = runThermalHistory(model, steps(), { onPoint, freshPoints: false });
   } catch (error) {
     if (error instanceof InputError) throw withLocation(error, profile.file);
     throw error;

@@ -38,6 +38,8 @@ export class EventDigest {
   readonly all: EventRecord[] = [];
   readonly hottest: EventRecord[] = [];
   count = 0;
+  /** closeness of each record of `hottest`, same order */
+  private readonly hottestCloseness: number[] = [];
   private readonly limits: readonly number[];
   private readonly keepAll: number;
   private readonly keepHottest: number;
@@ -50,15 +52,17 @@ export class EventDigest {
 
   /** Closeness of an event to a limit: max over parts of peak − limit [K]. */
   closeness(record: EventRecord): number {
-    let worst = -Infinity;
-    record.peakTemperatureC.forEach((t, i) => {
-      worst = Math.max(worst, t - this.limits[i]!);
-    });
-    return worst;
+    return closenessOf(record.peakTemperatureC, this.limits);
   }
 
   /** Record an event (in time order). */
   add(event: TimelineEvent, temperatures: EventTemperatures): void {
+    this.count++;
+    const keep = this.all.length < this.keepAll;
+    const c = closenessOf(temperatures.peakTemperatureC, this.limits);
+    const ranks = this.hottest.length < this.keepHottest || c > this.hottestCloseness[this.hottestCloseness.length - 1]!;
+    // most events of a long run are neither kept nor among the hottest: no record is made for them
+    if (!keep && !ranks) return;
     const record: EventRecord = {
       index: event.index,
       kind: event.kind,
@@ -73,15 +77,23 @@ export class EventDigest {
       peakTemperatureC: temperatures.peakTemperatureC,
       peakTimeS: temperatures.peakTimeS,
     };
-    this.count++;
-    if (this.all.length < this.keepAll) this.all.push(record);
-    const c = this.closeness(record);
-    const last = this.hottest[this.hottest.length - 1];
-    if (this.hottest.length < this.keepHottest || (last !== undefined && c > this.closeness(last))) {
-      let at = this.hottest.findIndex((r) => c > this.closeness(r));
+    if (keep) this.all.push(record);
+    if (ranks) {
+      let at = this.hottestCloseness.findIndex((r) => c > r);
       if (at < 0) at = this.hottest.length;
       this.hottest.splice(at, 0, record);
-      if (this.hottest.length > this.keepHottest) this.hottest.pop();
+      this.hottestCloseness.splice(at, 0, c);
+      if (this.hottest.length > this.keepHottest) {
+        this.hottest.pop();
+        this.hottestCloseness.pop();
+      }
     }
   }
+}
+
+/** max over parts of peak − limit [K]. */
+function closenessOf(peaksC: readonly number[], limitsC: readonly number[]): number {
+  let worst = -Infinity;
+  for (let i = 0; i < peaksC.length; i++) worst = Math.max(worst, peaksC[i]! - limitsC[i]!);
+  return worst;
 }

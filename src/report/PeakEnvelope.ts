@@ -35,10 +35,11 @@ export class PeakEnvelope {
     }
     if (bin < 0) bin = 0;
     this.used = Math.max(this.used, bin + 1);
-    this.maxima.forEach((m, s) => {
+    for (let s = 0; s < this.maxima.length; s++) {
+      const m = this.maxima[s]!;
       const v = values[s]!;
       if (Number.isNaN(m[bin]!) || v > m[bin]!) m[bin] = v;
-    });
+    }
   }
 
   private merge(): void {

@@ -83,7 +83,7 @@ export function formatSimulationText(
   );
   const short = digest.count <= EVENT_DIGEST_DEFAULTS.terminalAll && digest.all.length === digest.count;
   const shown: readonly EventRecord[] = short ? digest.all : [...digest.hottest].sort((a, b) => a.index - b.index);
-  out.push(short ? "Events" : `Events: the ${shown.length} closest to a limit, of ${digest.count} (--json lists ${digest.all.length === digest.count ? "all" : `the first ${digest.all.length}`})`);
+  out.push(short ? "Events" : `Events: the ${shown.length} closest to a limit, of ${digest.count} (--json lists ${digest.count <= EVENT_DIGEST_DEFAULTS.keepAll ? "all" : `the first ${EVENT_DIGEST_DEFAULTS.keepAll}`})`);
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;

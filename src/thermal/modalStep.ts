@@ -88,7 +88,8 @@ const SUBTRACTION_SAFE_RATIO = 0.7;
  * factors e^(−h/tau) and 1 − e^(−h/tau) are cached for the {@link STEPPER_CACHE_SIZE} most recent
  * step lengths (tables allocated once, reused), so a pulse train whose segments repeat a few
  * durations costs one multiply-add per mode for constant power, and a step of a new length costs
- * one exp per mode and no allocation.
+ * one exp per mode and no allocation. Exponential power terms (a charging resistor) keep their
+ * forced response per cached length while the same terms object recurs.
  * Cost O(sources × modes × terms) per call; O(modes × STEPPER_CACHE_SIZE) memory.
  */
 export function createModalStepper(model: ModalModel): (state: ModalState, h: number, powers: SourcePowers) => ModalState {
@@ -102,6 +103,11 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
   // lambda = 0), filled on first use per cached length.
   const ramps = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
   const rampReady = new Uint8Array(STEPPER_CACHE_SIZE);
+  // Forced response of one exponential term list per cached length, A·Σ[a·J0 + b·h·J1] per mode:
+  // it does not depend on the state, and a long history repeats the same charging step (the same
+  // terms object) many times. Keyed by the terms object itself; cleared when the slot is reused.
+  const forcedTerms: (readonly PowerTerm[] | undefined)[] = new Array<readonly PowerTerm[] | undefined>(STEPPER_CACHE_SIZE).fill(undefined);
+  const forced = Array.from({ length: STEPPER_CACHE_SIZE }, () => new Float64Array(modes));
   let next = 0;
   let last = 0;
   const slot = (h: number): number => {
@@ -125,6 +131,7 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
     }
     keys[i] = h;
     rampReady[i] = 0;
+    forcedTerms[i] = undefined;
     last = i;
     return i;
   };
@@ -162,10 +169,12 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
         const ramp = rampTable(i, h);
         for (let m = 0; m < modes; m++) state[base + m] = state[base + m]! * decay[m]! + a * rise[m]! + b * ramp[m]!;
       } else {
-        for (let m = 0; m < modes; m++) {
-          const A = h / taus[m]!;
-          state[base + m] = state[base + m]! * decay[m]! + forcedResponse(A, decay[m]!, h, terms);
+        const f = forced[i]!;
+        if (forcedTerms[i] !== terms) {
+          for (let m = 0; m < modes; m++) f[m] = forcedResponse(h / taus[m]!, decay[m]!, h, terms);
+          forcedTerms[i] = terms;
         }
+        for (let m = 0; m < modes; m++) state[base + m] = state[base + m]! * decay[m]! + f[m]!;
       }
     }
     return state;

@@ -7,7 +7,7 @@ import type { TimedStep } from "./traceSteps.js";
 export interface HistoryPoint {
   /** absolute time [s] */
   readonly timeS: number;
-  /** rise over ambient per observed node [K] (a fresh array per point) */
+  /** rise over ambient per observed node [K] (a fresh array per point unless HistoryOptions.freshPoints is false) */
   readonly riseK: readonly number[];
   /** "step-end": the end of a step; "peak": an interior local maximum of some observed node */
   readonly kind: "step-end" | "peak";
@@ -21,6 +21,11 @@ export interface HistoryOptions {
   readonly onPoint?: (point: HistoryPoint) => void;
   /** state at the start (default: all nodes at ambient); it is copied, not modified */
   readonly initialState?: ModalState;
+  /**
+   * false: every point hands the visitor the same riseK array, refilled (the visitor copies what
+   * it keeps; saves an allocation per point on long runs). Default true: a fresh array per point.
+   */
+  readonly freshPoints?: boolean;
 }
 
 /** What a run leaves: peaks per observed node and the end state. */
@@ -49,6 +54,8 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
   const findPeaks = options.findPeaks ?? true;
   const visit = options.onPoint;
   const observed = model.observed.length;
+  const shared = options.freshPoints === false ? new Array<number>(observed).fill(0) : undefined;
+  const pointArray = (): number[] => shared ?? new Array<number>(observed);
   const state = options.initialState === undefined ? createModalState(model) : Float64Array.from(options.initialState);
   const step = createModalStepper(model);
   const scratch = new Float64Array(state.length);
@@ -79,8 +86,12 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
         }
         if (visit !== undefined) {
           for (const p of found) {
-            advanceModalState(model, state, p.atS, s.powers, scratch);
-            const riseK = Array.from({ length: observed }, (_, o) => modalRise(model, scratch, o));
+            const riseK = pointArray();
+            if (observed === 1) riseK[0] = p.riseK;
+            else {
+              advanceModalState(model, state, p.atS, s.powers, scratch);
+              for (let o = 0; o < observed; o++) riseK[o] = modalRise(model, scratch, o);
+            }
             visit({ timeS: s.startS + p.atS, riseK, kind: "peak" });
           }
         }
@@ -89,8 +100,8 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
     step(state, s.durationS, s.powers);
     endTimeS = s.startS + s.durationS;
     count++;
-    // The visitor gets a fresh array; without one nothing is allocated per step.
-    const riseK: number[] | undefined = visit === undefined ? undefined : new Array<number>(observed);
+    // The visitor gets an array (fresh unless freshPoints is false); without one nothing is allocated per step.
+    const riseK: number[] | undefined = visit === undefined ? undefined : pointArray();
     for (let o = 0; o < observed; o++) {
       const r = modalRise(model, state, o);
       if (riseK !== undefined) riseK[o] = r;

@@ -107,8 +107,6 @@ const NO_PEAKS = Object.freeze([]) as unknown as InteriorPeak[];
  */
 let sumRates = new Float64Array(16);
 let sumCoefficients = new Float64Array(16);
-/** State scratch for advancing to a found turn. */
-let turnState = new Float64Array(16);
 
 function reserveSum(size: number): void {
   if (sumRates.length >= size) return;
@@ -116,9 +114,21 @@ function reserveSum(size: number): void {
   sumCoefficients = new Float64Array(2 * size);
 }
 
-function reserveState(size: number): Float64Array {
-  if (turnState.length < size) turnState = new Float64Array(2 * size);
-  return turnState;
+const rateOrders = new WeakMap<ModalModel, Int32Array>();
+let lastOrderModel: ModalModel | undefined;
+let lastOrder: Int32Array = new Int32Array(0);
+
+/** Mode indices from the slowest to the fastest (ascending rate 1/tau), computed once per model. */
+function slowestFirst(model: ModalModel): Int32Array {
+  if (model === lastOrderModel) return lastOrder;
+  let order = rateOrders.get(model);
+  if (order === undefined) {
+    order = Int32Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
+    rateOrders.set(model, order);
+  }
+  lastOrderModel = model;
+  lastOrder = order;
+  return order;
 }
 
 /** Add value at rate into the first n scratch entries (merged when the rate is already there, else inserted in order); returns the new count. */
@@ -163,9 +173,12 @@ function signChanges(n: number): number {
 function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): number {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
+  const order = slowestFirst(model);
   reserveSum(modes + 1);
-  let n = 0;
-  let constant = 0;
+  // rate 0 (the constant C) first, then every mode slowest first: appended in order, merged by rate
+  sumRates[0] = 0;
+  sumCoefficients[0] = 0;
+  let n = 1;
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
     let a = 0;
@@ -179,15 +192,14 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
     }
     const gains = row[src]!;
     const base = src * modes;
-    for (let m = 0; m < modes; m++) {
+    for (const m of order) {
       const g = gains[m]!;
       if (g === 0) continue;
       const tau = model.tauS[m]!;
-      constant += g * b;
+      sumCoefficients[0]! += g * b;
       n = addToSum(n, 1 / tau, (g * (a - state[base + m]! - b * tau)) / tau);
     }
   }
-  n = addToSum(n, 0, constant);
   return signChanges(n) <= 1 ? n : -1;
 }
 
@@ -216,7 +228,7 @@ function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: Sourc
     reserveSum(n + modes * (count + 1));
     const gains = row[src]!;
     const base = src * modes;
-    for (let m = 0; m < modes; m++) {
+    for (const m of slowestFirst(model)) {
       const g = gains[m]!;
       if (g === 0) continue;
       const tau = model.tauS[m]!;
@@ -235,6 +247,20 @@ function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: Sourc
 }
 
 /**
+ * ∫0^x S(s) ds of the scratch sum, exactly: Σ k_i·(1 − e^(−r_i·x))/r_i (k_i·x for r_i = 0), with
+ * 1 − e^(−r·x) from expm1 so small r·x loses nothing. Since S is the slope of the rise, this is
+ * the rise gained from the step start to x (fundamental theorem of calculus).
+ */
+function integralOfSum(n: number, x: number): number {
+  let sum = 0;
+  for (let i = 0; i < n; i++) {
+    const r = sumRates[i]!;
+    sum += r === 0 ? sumCoefficients[i]! * x : (-sumCoefficients[i]! * Math.expm1(-r * x)) / r;
+  }
+  return sum;
+}
+
+/**
  * The one zero in (0, h) of the scratch sum S(x) = Σ_{i<n} k_i·e^(−r_i·x) when S(0) > 0 ≥ S(h),
  * by Newton's method kept inside the bracket (bisection when a step leaves it); undefined when
  * there is none. Cost O(n) per iteration, no allocation.
@@ -249,9 +275,22 @@ function singleTurnOfRates(n: number, h: number): number | undefined {
   if (!(atZero > 0) || !(atEnd <= 0)) return undefined;
   let lo = 0;
   let hi = h;
-  // Start from the secant through the bracket ends: near the turn when one mode dominates.
-  let x = (h * atZero) / (atZero - atEnd);
+  // Start from the last turn when the step has the same length (a long history repeats the same
+  // charging step from nearly the same state, so Newton then needs two or three iterations), else
+  // from the secant through the bracket ends; any start inside the bracket converges.
+  let x = h === lastTurnStepS ? lastTurnS : (h * atZero) / (atZero - atEnd);
   if (!(x > lo && x < hi)) x = 0.5 * h;
+  lastTurnStepS = h;
+  lastTurnS = turnInside(n, h, lo, hi, x);
+  return lastTurnS;
+}
+
+/** The previous turn found by singleTurnOfRates and its step length (a starting guess only). */
+let lastTurnStepS = Number.NaN;
+let lastTurnS = Number.NaN;
+
+/** Safeguarded Newton on the scratch sum inside [lo, hi] from x, S(lo) > 0 ≥ S(hi). */
+function turnInside(n: number, h: number, lo: number, hi: number, x: number): number {
   for (let iteration = 0; iteration < 200; iteration++) {
     let f = 0;
     let df = 0;
@@ -295,7 +334,7 @@ export function interiorPeaks(model: ModalModel, state: ModalState, h: number, p
   if (n >= 0) {
     const at = singleTurnOfRates(n, h);
     if (at === undefined || !(at < h * (1 - 1e-9))) return NO_PEAKS;
-    return [{ atS: at, riseK: modalRise(model, advanceModalState(model, state, at, powers, reserveState(state.length)), o) }];
+    return [{ atS: at, riseK: modalRise(model, state, o) + integralOfSum(n, at) }];
   }
   const scratch = new Float64Array(state.length);
   const peaks: InteriorPeak[] = [];

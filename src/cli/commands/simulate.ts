@@ -1,6 +1,7 @@
 import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
 import {
+  EVENT_DIGEST_DEFAULTS,
   EventDigest,
   PeakEnvelope,
   ProfileStress,
@@ -50,7 +51,8 @@ profile's folder. See DEVELOPERS.md, "Profile format" and "Stress: ratings, cycl
     const located = (path: string): string => (isAbsolute(path) ? path : join(folder, path));
     const readNamed = Object.assign((path: string): string => readTextFile(run.io, located(path), "file named in the profile"), { displayName: located });
     const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
-    const digest = new EventDigest(profile.parts.map((p) => p.limitC));
+    // the text report lists at most terminalAll events in order (else the hottest): only --json needs keepAll
+    const digest = new EventDigest(profile.parts.map((p) => p.limitC), options.json ? EVENT_DIGEST_DEFAULTS.keepAll : EVENT_DIGEST_DEFAULTS.terminalAll);
     const envelope = options.json || !options.chart ? undefined : new PeakEnvelope(profile.parts.length);
     const csv = options.csv === undefined ? undefined : new SimulationCsv(profile.parts.map((p) => p.id));
     const stress = new ProfileStress(profile, { keepCycles: options.cycles !== undefined });
