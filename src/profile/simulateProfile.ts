@@ -1,6 +1,6 @@
 import { InputError, withLocation } from "../errors/InputError.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
-import { modalRise } from "../thermal/modalStep.js";
+import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
 import { runThermalHistory } from "../thermal/runThermalHistory.js";
 import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -56,11 +56,17 @@ export interface SimulateOptions {
   readonly models: CircuitModels;
   /** called once per event when its window closes, in time order */
   readonly onEvent?: (event: TimelineEvent, temperatures: EventTemperatures) => void;
-  /** called for every step end and interior peak with each part's temperature [°C] */
+  /**
+   * called for every step end and interior peak with each part's temperature [°C]; the array is
+   * refilled at every point (copy what you keep)
+   */
   readonly onPoint?: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => void;
   /** carry the circuit samples on each charging event handed to onEvent (for the SOA check); default false */
   readonly wantSamples?: boolean;
 }
+
+/** The powers of a step that heats no part (read only). */
+const NO_POWERS: SourcePowers = Object.freeze([]);
 
 /**
  * One modal model for all parts: its sources and observed nodes are the parts (profile order).
@@ -152,17 +158,16 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
 
   function* steps(): Generator<TimedStep> {
     for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
+      if (item.type === "event") openEvent(item);
+      // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge
       const until = item.startS + item.durationS;
-      if (item.type === "event") {
-        openEvent(item);
-        yield* traceSteps(item.traces, item.startS, until);
-      } else {
-        yield* traceSteps([], item.startS, until);
-      }
+      if (item.type === "event" && item.traces.some((t) => t !== undefined)) yield* traceSteps(item.traces, item.startS, until);
+      else if (until > item.startS) yield { startS: item.startS, durationS: until - item.startS, powers: NO_POWERS };
     }
     closeEvent();
   }
 
+  const pointTemperatures = new Array<number>(count).fill(0);
   const onPoint = (point: { timeS: number; riseK: readonly number[]; kind: "step-end" | "peak" }): void => {
     for (let i = 0; i < count; i++) {
       const rise = point.riseK[i]!;
@@ -174,9 +179,8 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       if (firstExceedance[i] === undefined && ambient[i]! + rise > parts[i]!.limitC) firstExceedance[i] = point.timeS;
     }
     if (options.onPoint !== undefined) {
-      const temperatureC = new Array<number>(count);
-      for (let i = 0; i < count; i++) temperatureC[i] = ambient[i]! + point.riseK[i]!;
-      options.onPoint(point.timeS, temperatureC, point.kind, current?.index ?? lastIndex);
+      for (let i = 0; i < count; i++) pointTemperatures[i] = ambient[i]! + point.riseK[i]!;
+      options.onPoint(point.timeS, pointTemperatures, point.kind, current?.index ?? lastIndex);
     }
   };
 
