@@ -38,7 +38,7 @@ export { interiorPeaks, riseSlope, PEAK_GRID_POINTS } from "./thermal/segmentPea
 export type { InteriorPeak } from "./thermal/segmentPeak.js";
 export { traceSteps } from "./thermal/traceSteps.js";
 export type { TimedStep } from "./thermal/traceSteps.js";
-export { runThermalHistory } from "./thermal/runThermalHistory.js";
+export { runThermalHistory, ThermalRun } from "./thermal/runThermalHistory.js";
 export { networkToModal } from "./thermal/ThermalNetwork.js";
 export type { ThermalNetwork } from "./thermal/ThermalNetwork.js";
 export { parseNetwork, NETWORK_FORMS } from "./thermal/parseNetwork.js";

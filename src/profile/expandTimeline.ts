@@ -1,4 +1,4 @@
-import type { CircuitOutcome, CircuitSample } from "../circuits/CircuitResult.js";
+import type { CircuitOutcome, CircuitResult, CircuitSample } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -118,24 +118,40 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     return { type: "gap", startS, durationS, endVoltageV: state.voltageV };
   };
 
+  const roleTrace = (result: CircuitResult, i: number): PowerTrace | undefined => {
+    const role = profile.parts[i]!.role;
+    const trace = role === undefined ? undefined : result.traces[role];
+    return trace === undefined || trace.length === 0 ? undefined : trace;
+  };
+  // energy per part of a circuit result, computed once per result object (a memoized charge
+  // returns the same object event after event); shared, never modified
+  const energies = new WeakMap<CircuitResult, readonly number[]>();
+  const energyOf = (result: CircuitResult): readonly number[] => {
+    let energyJ = energies.get(result);
+    if (energyJ === undefined) {
+      energyJ = Object.freeze(profile.parts.map((_, i) => roleTrace(result, i)?.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0) ?? 0));
+      energies.set(result, energyJ);
+    }
+    return energyJ;
+  };
+
   const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, afterS: number): TimelineEvent => {
     const c = circuit!;
     const temps = temperatureOf();
     const partTemperatureC: Record<string, number> = {};
-    profile.parts.forEach((p, i) => {
-      if (p.role !== undefined) partTemperatureC[p.role] = temps[i]!;
-    });
+    for (let i = 0; i < partCount; i++) {
+      const role = profile.parts[i]!.role;
+      if (role !== undefined) partTemperatureC[role] = temps[i]!;
+    }
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC, wantSamples });
     const traces = noPower();
-    const energyJ = zeros();
-    profile.parts.forEach((p, i) => {
-      const trace = p.role === undefined ? undefined : result.traces[p.role];
-      if (trace === undefined || trace.length === 0) return;
-      traces[i] = trace.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
-      energyJ[i] = trace.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
-    });
+    const energyJ = energyOf(result);
+    for (let i = 0; i < partCount; i++) {
+      const trace = roleTrace(result, i);
+      if (trace !== undefined) traces[i] = trace.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
+    }
     const r = result;
     let reason = r.reason;
     state.timeS += r.durationS;

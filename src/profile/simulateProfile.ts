@@ -1,8 +1,8 @@
 import { InputError, withLocation } from "../errors/InputError.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
-import { runThermalHistory } from "../thermal/runThermalHistory.js";
-import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
+import { ThermalRun } from "../thermal/runThermalHistory.js";
+import { traceSteps } from "../thermal/traceSteps.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
 import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
@@ -99,7 +99,7 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
 
 /**
  * Simulate a duty profile: expand it lazily (expandTimeline), turn every event's power into exact
- * thermal steps (traceSteps) and integrate all parts in one streaming pass (runThermalHistory,
+ * thermal steps (traceSteps) and integrate all parts in one streaming pass (ThermalRun,
  * closed-form modal updates plus interior peak search), so the thermal state of every part is
  * carried from event to event and memory stays flat however many events the profile holds.
  * Temperatures are ambient + rise; each part's verdict compares its peak with its limit:
@@ -156,17 +156,6 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     if (event.outcome !== "none") outcomes[event.outcome]++;
   };
 
-  function* steps(): Generator<TimedStep> {
-    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
-      if (item.type === "event") openEvent(item);
-      // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge
-      const until = item.startS + item.durationS;
-      if (item.type === "event" && item.traces.some((t) => t !== undefined)) yield* traceSteps(item.traces, item.startS, until);
-      else if (until > item.startS) yield { startS: item.startS, durationS: until - item.startS, powers: NO_POWERS };
-    }
-    closeEvent();
-  }
-
   const pointTemperatures = new Array<number>(count).fill(0);
   const onPoint = (point: { timeS: number; riseK: readonly number[]; kind: "step-end" | "peak" }): void => {
     for (let i = 0; i < count; i++) {
@@ -184,13 +173,23 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     }
   };
 
-  let summary: ReturnType<typeof runThermalHistory>;
+  // The walk is pulled item by item and each item's steps are pushed into the run at once, so a
+  // charge reads (temperatureOf) the parts' state after every earlier item.
+  const run = new ThermalRun(model, { onPoint, freshPoints: false });
   try {
-    summary = runThermalHistory(model, steps(), { onPoint, freshPoints: false });
+    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
+      if (item.type === "event") openEvent(item);
+      const until = item.startS + item.durationS;
+      // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge
+      if (item.type === "event" && item.traces.some((t) => t !== undefined)) for (const step of traceSteps(item.traces, item.startS, until)) run.push(step);
+      else if (until > item.startS) run.push({ startS: item.startS, durationS: until - item.startS, powers: NO_POWERS });
+    }
+    closeEvent();
   } catch (error) {
     if (error instanceof InputError) throw withLocation(error, profile.file);
     throw error;
   }
+  const summary = run.summary();
   const results: PartResult[] = parts.map((p, i) => {
     const peakTemperatureC = p.ambientC + summary.peakRiseK[i]!;
     const marginK = p.limitC - peakTemperatureC;

@@ -77,9 +77,10 @@ function forcedResponse(A: number, decay: number, h: number, terms: readonly Pow
 export const STEPPER_CACHE_SIZE = 8;
 
 /**
- * Below this h/tau the stepper takes 1 − e^(−h/tau) from expm1; above it, 1 − e^(−h/tau) is
- * formed by subtraction, whose relative error is at most 2^-53·e^(−0.7)/(1 − e^(−0.7)) ≈ 1.1·2^-53,
- * i.e. rounding, while saving one transcendental call per mode.
+ * Below this h/tau the stepper takes 1 − e^(−h/tau) from expm1 and e^(−h/tau) as 1 + expm1(−h/tau)
+ * (rounded once near 1, within an ulp of exp); above it, e^(−h/tau) from exp and 1 − e^(−h/tau)
+ * by subtraction, whose relative error is at most 2^-53·e^(−0.7)/(1 − e^(−0.7)) ≈ 1.1·2^-53, i.e.
+ * rounding. Either way one transcendental call per mode.
  */
 const SUBTRACTION_SAFE_RATIO = 0.7;
 
@@ -123,11 +124,18 @@ export function createModalStepper(model: ModalModel): (state: ModalState, h: nu
     const decay = decays[i]!;
     const rise = rises[i]!;
     for (let m = 0; m < modes; m++) {
-      // h/tau as a division, exactly as advanceModalState, so both paths agree to the bit
+      // h/tau as a division, exactly as advanceModalState; the factors agree with its exp and
+      // expm1 to an ulp (see SUBTRACTION_SAFE_RATIO)
       const A = h / taus[m]!;
-      const d = Math.exp(-A);
-      decay[m] = d;
-      rise[m] = A < SUBTRACTION_SAFE_RATIO ? -Math.expm1(-A) : 1 - d;
+      if (A < SUBTRACTION_SAFE_RATIO) {
+        const e = Math.expm1(-A);
+        decay[m] = 1 + e;
+        rise[m] = -e;
+      } else {
+        const d = Math.exp(-A);
+        decay[m] = d;
+        rise[m] = 1 - d;
+      }
     }
     keys[i] = h;
     rampReady[i] = 0;

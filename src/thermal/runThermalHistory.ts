@@ -1,5 +1,5 @@
 import type { ModalModel } from "./ModalModel.js";
-import { type ModalState, advanceModalState, createModalState, createModalStepper, modalRise } from "./modalStep.js";
+import { type ModalState, type SourcePowers, advanceModalState, createModalState, createModalStepper, modalRise } from "./modalStep.js";
 import { interiorPeaks } from "./segmentPeak.js";
 import type { TimedStep } from "./traceSteps.js";
 
@@ -22,8 +22,8 @@ export interface HistoryOptions {
   /** state at the start (default: all nodes at ambient); it is copied, not modified */
   readonly initialState?: ModalState;
   /**
-   * false: every point hands the visitor the same riseK array, refilled (the visitor copies what
-   * it keeps; saves an allocation per point on long runs). Default true: a fresh array per point.
+   * false: every point hands the visitor the same point object and riseK array, refilled (the
+   * visitor copies what it keeps; saves allocations on long runs). Default true: fresh ones.
    */
   readonly freshPoints?: boolean;
 }
@@ -51,24 +51,58 @@ export interface HistorySummary {
  * Cost O(steps × sources × modes) plus the peak search on steps that are not provably monotone.
  */
 export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>, options: HistoryOptions = {}): HistorySummary {
-  const findPeaks = options.findPeaks ?? true;
-  const visit = options.onPoint;
-  const observed = model.observed.length;
-  const shared = options.freshPoints === false ? new Array<number>(observed).fill(0) : undefined;
-  const pointArray = (): number[] => shared ?? new Array<number>(observed);
-  const state = options.initialState === undefined ? createModalState(model) : Float64Array.from(options.initialState);
-  const step = createModalStepper(model);
-  const scratch = new Float64Array(state.length);
-  const peakRiseK = new Array<number>(observed).fill(0);
-  const peakTimeS = new Array<number>(observed).fill(0);
-  const startRise = Array.from({ length: observed }, (_, o) => modalRise(model, state, o));
-  startRise.forEach((r, o) => {
-    if (r > peakRiseK[o]!) peakRiseK[o] = r;
-  });
-  let endTimeS = 0;
-  let count = 0;
-  for (const s of steps) {
-    if (findPeaks) {
+  const run = new ThermalRun(model, options);
+  for (const s of steps) run.push(s);
+  return run.summary();
+}
+
+/**
+ * The push form of {@link runThermalHistory}: the caller hands steps one at a time (`push`), in
+ * time order, and reads the summary at any point. For producers that are themselves loops (a
+ * profile walk) this saves wrapping them in a generator. Same arithmetic, same points.
+ * Cost per step as runThermalHistory; memory O(sources × modes).
+ */
+export class ThermalRun {
+  private readonly model: ModalModel;
+  private readonly findPeaks: boolean;
+  private readonly visit: ((point: HistoryPoint) => void) | undefined;
+  private readonly observed: number;
+  private readonly state: ModalState;
+  private readonly step: (state: ModalState, h: number, powers: SourcePowers) => ModalState;
+  private readonly scratch: ModalState;
+  private readonly shared: number[] | undefined;
+  private readonly reusedPoint: { timeS: number; riseK: number[]; kind: HistoryPoint["kind"] } | undefined;
+  private readonly peakRiseK: number[];
+  private readonly peakTimeS: number[];
+  private endTimeS = 0;
+  private count = 0;
+
+  constructor(model: ModalModel, options: HistoryOptions = {}) {
+    this.model = model;
+    this.findPeaks = options.findPeaks ?? true;
+    this.visit = options.onPoint;
+    this.observed = model.observed.length;
+    this.state = options.initialState === undefined ? createModalState(model) : Float64Array.from(options.initialState);
+    this.step = createModalStepper(model);
+    this.scratch = new Float64Array(this.state.length);
+    this.shared = options.freshPoints === false ? new Array<number>(this.observed).fill(0) : undefined;
+    this.reusedPoint = this.shared === undefined ? undefined : { timeS: 0, riseK: this.shared, kind: "step-end" };
+    this.peakRiseK = new Array<number>(this.observed).fill(0);
+    this.peakTimeS = new Array<number>(this.observed).fill(0);
+    for (let o = 0; o < this.observed; o++) {
+      const r = modalRise(model, this.state, o);
+      if (r > this.peakRiseK[o]!) this.peakRiseK[o] = r;
+    }
+  }
+
+  private pointArray(): number[] {
+    return this.shared ?? new Array<number>(this.observed);
+  }
+
+  /** Integrate one more step (it starts where the previous one ended). */
+  push(s: TimedStep): void {
+    const { model, state, observed, visit, peakRiseK, peakTimeS } = this;
+    if (this.findPeaks) {
       let found: { atS: number; riseK: number; o: number }[] | undefined;
       for (let o = 0; o < observed; o++) {
         const peaks = interiorPeaks(model, state, s.durationS, s.powers, o);
@@ -77,7 +111,7 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
         for (const p of peaks) found.push({ atS: p.atS, riseK: p.riseK, o });
       }
       if (found !== undefined) {
-        found.sort((a, b) => a.atS - b.atS);
+        if (found.length > 1) found.sort((a, b) => a.atS - b.atS);
         for (const p of found) {
           if (p.riseK > peakRiseK[p.o]!) {
             peakRiseK[p.o] = p.riseK;
@@ -86,22 +120,23 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
         }
         if (visit !== undefined) {
           for (const p of found) {
-            const riseK = pointArray();
+            const riseK = this.pointArray();
             if (observed === 1) riseK[0] = p.riseK;
             else {
-              advanceModalState(model, state, p.atS, s.powers, scratch);
-              for (let o = 0; o < observed; o++) riseK[o] = modalRise(model, scratch, o);
+              advanceModalState(model, state, p.atS, s.powers, this.scratch);
+              for (let o = 0; o < observed; o++) riseK[o] = modalRise(model, this.scratch, o);
             }
-            visit({ timeS: s.startS + p.atS, riseK, kind: "peak" });
+            visit(this.point(s.startS + p.atS, riseK, "peak"));
           }
         }
       }
     }
-    step(state, s.durationS, s.powers);
-    endTimeS = s.startS + s.durationS;
-    count++;
+    this.step(state, s.durationS, s.powers);
+    const endTimeS = s.startS + s.durationS;
+    this.endTimeS = endTimeS;
+    this.count++;
     // The visitor gets an array (fresh unless freshPoints is false); without one nothing is allocated per step.
-    const riseK: number[] | undefined = visit === undefined ? undefined : pointArray();
+    const riseK: number[] | undefined = visit === undefined ? undefined : this.pointArray();
     for (let o = 0; o < observed; o++) {
       const r = modalRise(model, state, o);
       if (riseK !== undefined) riseK[o] = r;
@@ -110,14 +145,29 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
         peakTimeS[o] = endTimeS;
       }
     }
-    if (visit !== undefined) visit({ timeS: endTimeS, riseK: riseK!, kind: "step-end" });
+    if (visit !== undefined) visit(this.point(endTimeS, riseK!, "step-end"));
   }
-  return {
-    peakRiseK,
-    peakTimeS,
-    endRiseK: Array.from({ length: observed }, (_, o) => modalRise(model, state, o)),
-    endTimeS,
-    endState: state,
-    steps: count,
-  };
+
+  /** The point handed to the visitor: one object refilled when freshPoints is false, else a new one. */
+  private point(timeS: number, riseK: number[], kind: HistoryPoint["kind"]): HistoryPoint {
+    const reused = this.reusedPoint;
+    if (reused === undefined) return { timeS, riseK, kind };
+    reused.timeS = timeS;
+    reused.riseK = riseK;
+    reused.kind = kind;
+    return reused;
+  }
+
+  /** Peaks so far, the state now (the run's own: copy it to keep it past further pushes). */
+  summary(): HistorySummary {
+    const { model, state, observed } = this;
+    return {
+      peakRiseK: this.peakRiseK.slice(),
+      peakTimeS: this.peakTimeS.slice(),
+      endRiseK: Array.from({ length: observed }, (_, o) => modalRise(model, state, o)),
+      endTimeS: this.endTimeS,
+      endState: state,
+      steps: this.count,
+    };
+  }
 }

@@ -218,32 +218,84 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
  * the grid search handles those.
  */
 function exponentialSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): number {
+  const plan = exponentialPlanFor(model, powers, o);
+  if (plan === undefined) return -1;
+  const n = plan.rates.length;
+  reserveSum(n);
+  sumRates.set(plan.rates);
+  sumCoefficients.set(plan.fixed);
+  for (let i = 0; i < plan.entry.length; i++) sumCoefficients[plan.entry[i]!]! += plan.factor[i]! * (state[plan.stateIndex[i]!]! - plan.offset[i]!);
+  return signChanges(n) <= 1 ? n : -1;
+}
+
+/**
+ * The state-free part of exponentialSlopeSum for one step's powers: the rates (ascending, merged),
+ * the coefficients of the power's own rates lambda_k, and for every mode m of every source with a
+ * gain the entry at rate 1/tau_m with factor −gain/tau_m and offset K = Σ_k a_k/(1 − lambda_k·tau_m),
+ * so that entry += factor·(y_m(0) − K). undefined when the closed form does not apply (a b·s term,
+ * or a lambda_k within 1e-3 relative of a mode's 1/tau_m).
+ */
+interface ExponentialPlan {
+  readonly rates: Float64Array;
+  readonly fixed: Float64Array;
+  readonly entry: Int32Array;
+  readonly stateIndex: Int32Array;
+  readonly factor: Float64Array;
+  readonly offset: Float64Array;
+}
+
+/** The last plan and what it was made for (a long history repeats one charging step's terms). */
+let planModel: ModalModel | undefined;
+let planObserved = -1;
+let planTerms: (readonly PowerTerm[] | undefined)[] = [];
+let lastPlan: ExponentialPlan | undefined;
+
+function exponentialPlanFor(model: ModalModel, powers: SourcePowers, o: number): ExponentialPlan | undefined {
+  const sources = model.gainKPerW[o]!.length;
+  let same = model === planModel && o === planObserved && planTerms.length === sources;
+  for (let src = 0; same && src < sources; src++) same = planTerms[src] === powers[src];
+  if (same) return lastPlan;
+  planModel = model;
+  planObserved = o;
+  planTerms = Array.from({ length: sources }, (_, src) => powers[src]);
+  lastPlan = buildExponentialPlan(model, powers, o);
+  return lastPlan;
+}
+
+function buildExponentialPlan(model: ModalModel, powers: SourcePowers, o: number): ExponentialPlan | undefined {
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
   let n = 0;
+  const modeTerms: { rate: number; stateIndex: number; factor: number; offset: number }[] = [];
   for (let src = 0; src < row.length; src++) {
-    const terms = powers[src];
-    const count = terms === undefined ? 0 : terms.length;
-    for (let j = 0; j < count; j++) if (terms![j]!.b !== 0) return -1;
-    reserveSum(n + modes * (count + 1));
+    const terms = powers[src] ?? [];
+    for (const t of terms) if (t.b !== 0) return undefined;
+    reserveSum(n + modes * (terms.length + 1));
     const gains = row[src]!;
-    const base = src * modes;
     for (const m of slowestFirst(model)) {
       const g = gains[m]!;
       if (g === 0) continue;
       const tau = model.tauS[m]!;
-      let c = state[base + m]!;
-      for (let j = 0; j < count; j++) {
-        const t = terms![j]!;
+      let offset = 0;
+      for (const t of terms) {
         const denominator = 1 - t.lambda * tau;
-        if (Math.abs(denominator) < 1e-3) return -1;
-        c -= t.a / denominator;
+        if (Math.abs(denominator) < 1e-3) return undefined;
+        offset += t.a / denominator;
         if (t.lambda !== 0) n = addToSum(n, t.lambda, (-g * t.a * t.lambda) / denominator);
       }
-      n = addToSum(n, 1 / tau, (-g * c) / tau);
+      n = addToSum(n, 1 / tau, 0);
+      modeTerms.push({ rate: 1 / tau, stateIndex: src * modes + m, factor: -g / tau, offset });
     }
   }
-  return signChanges(n) <= 1 ? n : -1;
+  const rates = sumRates.slice(0, n);
+  return {
+    rates,
+    fixed: sumCoefficients.slice(0, n),
+    entry: Int32Array.from(modeTerms, (t) => rates.indexOf(t.rate)),
+    stateIndex: Int32Array.from(modeTerms, (t) => t.stateIndex),
+    factor: Float64Array.from(modeTerms, (t) => t.factor),
+    offset: Float64Array.from(modeTerms, (t) => t.offset),
+  };
 }
 
 /**

@@ -27,6 +27,20 @@ describe("memoizeCircuitModels", () => {
     expect(log.initialV).toEqual([0, Number.MIN_VALUE, 0]);
   });
 
+  test("the call before and older calls both hit; a different completion rule object does not", () => {
+    // two lookups: the call before is compared field by field, older ones by their key
+    const log = { initialV: [] as number[] };
+    const memo = memoizeCircuitModels(fakeModels(log));
+    const a = memo.charge(circuit, circuit.load, at(0));
+    const b = memo.charge(circuit, circuit.load, at(12));
+    expect(memo.charge(circuit, circuit.load, at(0))).toBe(a);
+    expect(memo.charge(circuit, circuit.load, at(12))).toBe(b);
+    expect(memo.charge(circuit, circuit.load, at(12))).toBe(b);
+    expect(log.initialV).toEqual([0, 12]);
+    memo.charge(circuit, circuit.load, { ...at(12), completion: { ...circuit.completion } });
+    expect(log.initialV).toEqual([0, 12, 12]);
+  });
+
   test("forgets everything when the circuit changes", () => {
     const log = { initialV: [] as number[] };
     const memo = memoizeCircuitModels(fakeModels(log));

@@ -100,6 +100,23 @@ describe("zero-length steps and zero power", () => {
     }
   });
 
+  test("the stepper's kept forced response of exponential terms follows the step length and the terms object", () => {
+    // the forced response of one terms object is kept per cached length: alternate lengths and
+    // terms objects (with equal and with different contents) and compare every step with the plain update
+    const step = createModalStepper(model);
+    const charging = [{ a: 40, b: 0, lambda: 25 }, { a: 9, b: 0, lambda: 0 }];
+    const other = [{ a: 15, b: 2, lambda: 3 }];
+    const sameContent = charging.map((t) => ({ ...t }));
+    let a: Float64Array = Float64Array.from(start);
+    let b: Float64Array = Float64Array.from(start);
+    for (const [h, terms] of [[0.1, charging], [0.1, charging], [0.3, charging], [0.1, other], [0.1, charging], [0.3, sameContent], [0.3, other], [0.1, charging]] as const) {
+      a = step(a, h, [terms]);
+      b = advanceModalState(model, b, h, [terms], new Float64Array(2));
+      expectClose(a[0]!, b[0]!, { rel: 1e-13, abs: 1e-300 });
+      expectClose(a[1]!, b[1]!, { rel: 1e-13, abs: 1e-300 });
+    }
+  });
+
   test("the cached stepper equals the plain update", () => {
     const step = createModalStepper(model);
     const a = Float64Array.from(start);

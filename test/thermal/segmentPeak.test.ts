@@ -127,3 +127,34 @@ describe("interiorPeaks on exponential power (resistor charging) against dense s
     );
   });
 });
+
+describe("the peak search's caches keyed by the terms object give the answers of a fresh search", () => {
+  // interiorPeaks keeps the state-free part of the slope sum for the last terms object, and starts
+  // Newton from the last turn when the step length repeats. Property: one terms object used from a
+  // sequence of different states gives the same peaks as a fresh copy of the terms (new identity,
+  // so nothing cached applies) from each state, to the root tolerance (1e-12·h in time).
+  test("one charging step from many states (property)", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: 0, max: 400, noNaN: true }), { minLength: 2, maxLength: 8 }),
+        fc.double({ min: 0.01, max: 1, noNaN: true }),
+        (warmths, rcTau) => {
+          const terms: PowerTerm[] = [{ a: 200, b: 0, lambda: 1 / rcTau }, { a: 300, b: 0, lambda: 2 / rcTau }];
+          const h = 5 * rcTau;
+          const states = warmths.map((w) => advanceModalState(foster, createModalState(foster), 0.05, [[{ a: w, b: 0, lambda: 0 }]]));
+          // all searches with the one terms object first (the caches then apply from the second on)
+          const cached = states.map((state) => interiorPeaks(foster, state, h, [terms]));
+          states.forEach((state, k) => {
+            const fresh = interiorPeaks(foster, state, h, [terms.map((t) => ({ ...t }))]);
+            expect(cached[k]!.length).toBe(fresh.length);
+            cached[k]!.forEach((p, i) => {
+              expectClose(p.atS, fresh[i]!.atS, { abs: 1e-10 * h });
+              expectClose(p.riseK, fresh[i]!.riseK, { rel: 1e-12, abs: 1e-12 });
+            });
+          });
+        },
+      ),
+      { numRuns: 60, seed: 20261202 },
+    );
+  });
+});
