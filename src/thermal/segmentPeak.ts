@@ -174,11 +174,12 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
   const modes = model.tauS.length;
   const row = model.gainKPerW[o]!;
   const order = slowestFirst(model);
-  reserveSum(modes + 1);
-  // rate 0 (the constant C) first, then every mode slowest first: appended in order, merged by rate
-  sumRates[0] = 0;
-  sumCoefficients[0] = 0;
-  let n = 1;
+  const rates = linearRates(model);
+  const n = modes + 1;
+  reserveSum(n);
+  sumRates.set(rates);
+  sumCoefficients.fill(0, 0, n);
+  // entry 0 is the constant C (rate 0), entry p ≥ 1 the mode order[p − 1], slowest first
   for (let src = 0; src < row.length; src++) {
     const terms = powers[src];
     let a = 0;
@@ -192,15 +193,35 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
     }
     const gains = row[src]!;
     const base = src * modes;
-    for (const m of order) {
+    for (let p = 1; p < n; p++) {
+      const m = order[p - 1]!;
       const g = gains[m]!;
       if (g === 0) continue;
-      const tau = model.tauS[m]!;
       sumCoefficients[0]! += g * b;
-      n = addToSum(n, 1 / tau, (g * (a - state[base + m]! - b * tau)) / tau);
+      // g·(a − y − b·tau)/tau, as g·(a − y)·(1/tau) − g·b
+      sumCoefficients[p]! += g * (a - state[base + m]!) * rates[p]! - g * b;
     }
   }
   return signChanges(n) <= 1 ? n : -1;
+}
+
+const linearRateCache = new WeakMap<ModalModel, Float64Array>();
+let lastRatesModel: ModalModel | undefined;
+let lastRates: Float64Array = new Float64Array(0);
+
+/** Rates of the linear-power slope sum: 0, then 1/tau of every mode slowest first; once per model. */
+function linearRates(model: ModalModel): Float64Array {
+  if (model === lastRatesModel) return lastRates;
+  let rates = linearRateCache.get(model);
+  if (rates === undefined) {
+    const order = slowestFirst(model);
+    rates = new Float64Array(order.length + 1);
+    order.forEach((m, p) => (rates![p + 1] = 1 / model.tauS[m]!));
+    linearRateCache.set(model, rates);
+  }
+  lastRatesModel = model;
+  lastRates = rates;
+  return rates;
 }
 
 /**
