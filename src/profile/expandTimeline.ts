@@ -173,84 +173,110 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
   };
 
-  function* walk(events: readonly ProfileEvent[]): Generator<TimelineItem, void> {
-    for (const e of events) {
-      switch (e.kind) {
-        case "power-up":
-          yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, 0);
-          break;
-        case "fault":
-          yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.afterS);
-          break;
-        case "run":
-          yield plain("run", e.field, e.label ?? "run", e.durationS);
-          break;
-        case "wait":
-          yield plain("wait", e.field, e.label ?? "wait", e.durationS);
-          break;
-        case "lockout":
-          state.busOn = false;
-          yield plain("lockout", e.field, e.label ?? "lockout", e.durationS);
-          break;
-        case "power-down":
-          state.busOn = false;
-          yield plain("power-down", e.field, e.label ?? "power-down", e.offS);
-          break;
-        case "power-trace": {
-          const traces = noPower();
-          const energyJ = zeros();
-          const startS = state.timeS;
-          traces[e.partIndex] = e.segments.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
-          energyJ[e.partIndex] = e.segments.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
-          yield plain("power-trace", e.field, e.label ?? `power trace into ${profile.parts[e.partIndex]!.id}`, e.durationS, traces, energyJ);
-          break;
-        }
-        case "retry": {
-          const name = e.label ?? "retry";
-          let interval = e.intervalS;
-          let done = false;
-          for (let k = 1; k <= e.attempts; k++) {
-            const startS = state.timeS;
-            const faulty = e.fault !== undefined && k <= e.faultyAttempts;
-            const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
-            const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.afterS) : charge("power-up", e.field, label, circuit!.load, 0);
-            yield event;
-            if (event.outcome === "completed" && !(faulty && e.fault!.type === "trip-after-close")) {
-              done = true;
-              break;
-            }
-            if (k < e.attempts) {
-              const rest = startS + interval - state.timeS;
-              if (rest > 0) yield gap(rest, e.field);
-              interval = Math.min(interval * e.backoff, e.maxIntervalS);
-            }
-          }
-          if (!done) {
-            state.busOn = false;
-            yield plain("lockout", e.field, `${name}: lockout after ${e.attempts} failed attempt${e.attempts === 1 ? "" : "s"}`, e.lockoutS);
-          }
-          break;
-        }
-        case "repeat":
-          for (let i = 0; i < e.count; i++) {
-            const startS = state.timeS;
-            yield* walk(e.events);
-            if (e.periodS !== undefined) {
-              const rest = startS + e.periodS - state.timeS;
-              if (rest < -1e-9 * Math.max(1, e.periodS))
-                throw inputError(
-                  "out-of-range",
-                  `${e.field}.period`,
-                  `a period at least as long as one repetition (repetition ${i + 1} took ${state.timeS - startS} s)`,
-                  `${e.periodS} s`,
-                );
-              if (rest > 0) yield gap(rest, e.field);
-            }
-          }
-          break;
+  // One generator walks the whole nest of repeats with an explicit stack of frames (one per
+  // repeat body being walked), so every item is yielded once, not passed up through a generator
+  // per nesting level.
+  const stack: WalkFrame[] = [{ events: profile.events, index: 0, repeat: undefined, iteration: 0, startS: 0 }];
+  while (stack.length > 0) {
+    const frame = stack[stack.length - 1]!;
+    if (frame.index >= frame.events.length) {
+      const r = frame.repeat;
+      if (r === undefined) {
+        stack.pop();
+        continue;
       }
+      // the end of one repetition: wait out its period, then the next repetition or the end
+      if (r.periodS !== undefined) {
+        const rest = frame.startS + r.periodS - state.timeS;
+        if (rest < -1e-9 * Math.max(1, r.periodS))
+          throw inputError(
+            "out-of-range",
+            `${r.field}.period`,
+            `a period at least as long as one repetition (repetition ${frame.iteration + 1} took ${state.timeS - frame.startS} s)`,
+            `${r.periodS} s`,
+          );
+        if (rest > 0) yield gap(rest, r.field);
+      }
+      frame.iteration++;
+      if (frame.iteration < r.count) {
+        frame.index = 0;
+        frame.startS = state.timeS;
+      } else stack.pop();
+      continue;
+    }
+    const e = frame.events[frame.index++]!;
+    switch (e.kind) {
+      case "power-up":
+        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, 0);
+        break;
+      case "fault":
+        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.afterS);
+        break;
+      case "run":
+        yield plain("run", e.field, e.label ?? "run", e.durationS);
+        break;
+      case "wait":
+        yield plain("wait", e.field, e.label ?? "wait", e.durationS);
+        break;
+      case "lockout":
+        state.busOn = false;
+        yield plain("lockout", e.field, e.label ?? "lockout", e.durationS);
+        break;
+      case "power-down":
+        state.busOn = false;
+        yield plain("power-down", e.field, e.label ?? "power-down", e.offS);
+        break;
+      case "power-trace": {
+        const traces = noPower();
+        const energyJ = zeros();
+        const startS = state.timeS;
+        traces[e.partIndex] = e.segments.map((s) => ({ startS: s.startS + startS, durationS: s.durationS, terms: s.terms }));
+        energyJ[e.partIndex] = e.segments.reduce((sum, s) => sum + segmentEnergy(s.terms, s.durationS), 0);
+        yield plain("power-trace", e.field, e.label ?? `power trace into ${profile.parts[e.partIndex]!.id}`, e.durationS, traces, energyJ);
+        break;
+      }
+      case "retry": {
+        const name = e.label ?? "retry";
+        let interval = e.intervalS;
+        let done = false;
+        for (let k = 1; k <= e.attempts; k++) {
+          const startS = state.timeS;
+          const faulty = e.fault !== undefined && k <= e.faultyAttempts;
+          const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
+          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.afterS) : charge("power-up", e.field, label, circuit!.load, 0);
+          yield event;
+          if (event.outcome === "completed" && !(faulty && e.fault!.type === "trip-after-close")) {
+            done = true;
+            break;
+          }
+          if (k < e.attempts) {
+            const rest = startS + interval - state.timeS;
+            if (rest > 0) yield gap(rest, e.field);
+            interval = Math.min(interval * e.backoff, e.maxIntervalS);
+          }
+        }
+        if (!done) {
+          state.busOn = false;
+          yield plain("lockout", e.field, `${name}: lockout after ${e.attempts} failed attempt${e.attempts === 1 ? "" : "s"}`, e.lockoutS);
+        }
+        break;
+      }
+      case "repeat":
+        if (e.count > 0) stack.push({ events: e.events, index: 0, repeat: e, iteration: 0, startS: state.timeS });
+        break;
     }
   }
+}
 
-  yield* walk(profile.events);
+/** A list of events being walked by expandTimeline: the profile's own, or a repeat's body. */
+interface WalkFrame {
+  readonly events: readonly ProfileEvent[];
+  /** the next event to walk */
+  index: number;
+  /** the repeat whose body this is (undefined for the profile's top level) */
+  readonly repeat: Extract<ProfileEvent, { kind: "repeat" }> | undefined;
+  /** 0-based repetition being walked */
+  iteration: number;
+  /** start of this repetition [s] */
+  startS: number;
 }
