@@ -108,10 +108,15 @@ const NO_PEAKS = Object.freeze([]) as unknown as InteriorPeak[];
 let sumRates = new Float64Array(16);
 let sumCoefficients = new Float64Array(16);
 
+/** Make room for `size` entries, keeping those already there. */
 function reserveSum(size: number): void {
   if (sumRates.length >= size) return;
-  sumRates = new Float64Array(2 * size);
-  sumCoefficients = new Float64Array(2 * size);
+  const rates = new Float64Array(2 * size);
+  const coefficients = new Float64Array(2 * size);
+  rates.set(sumRates);
+  coefficients.set(sumCoefficients);
+  sumRates = rates;
+  sumCoefficients = coefficients;
 }
 
 const rateOrders = new WeakMap<ModalModel, Int32Array>();

@@ -1,4 +1,4 @@
-import { describe, expect, test } from "vitest";
+import { describe, expect, test, vi } from "vitest";
 import fc from "fast-check";
 import {
   type ModalModel,
@@ -156,5 +156,40 @@ describe("the peak search's caches keyed by the terms object give the answers of
       ),
       { numRuns: 60, seed: 20261202 },
     );
+  });
+});
+
+describe("interiorPeaks when the slope-sum scratch grows mid-build", () => {
+  // The closed-form paths keep their sums in module scratch arrays grown on demand. Here, in a
+  // fresh copy of the module (16 entries), a first charging source from a warm state fills 9
+  // entries (its decay rate and 8 modes) and a second one then needs room for 16 more: the growth
+  // must keep the first source's coefficients. With every tau below 1/lambda the sum's
+  // coefficients change sign once (the one-turn path applies). Checked against dense sampling as
+  // above (0.01 K).
+  test("two charging sources sharing eight modes", async () => {
+    vi.resetModules();
+    const fresh = (await import("../../src/thermal/segmentPeak.js")) as typeof import("../../src/thermal/segmentPeak.js");
+    const tauS = Array.from({ length: 8 }, (_, m) => 1e-4 * 2 ** m);
+    const model: ModalModel = {
+      tauS,
+      sources: ["first", "second"],
+      observed: ["first"],
+      gainKPerW: [[tauS.map(() => 0.3), tauS.map(() => 0.2)]],
+    };
+    const state = createModalState(model);
+    for (let m = 0; m < 8; m++) state[m] = 60; // the first source's modes start warm
+    const powers = [[{ a: 300, b: 0, lambda: 10 }], [{ a: 500, b: 0, lambda: 10 }]];
+    const h = 0.3;
+    const found = fresh.interiorPeaks(model, state, h, powers);
+    const scratch = new Float64Array(state.length);
+    let best = -Infinity;
+    for (let i = 0; i <= 20_000; i++) {
+      best = Math.max(best, modalRise(model, advanceModalState(model, state, (h * i) / 20_000, powers, scratch)));
+      best = Math.max(best, modalRise(model, advanceModalState(model, state, h * 10 ** (-9 + (9 * i) / 20_000), powers, scratch)));
+    }
+    const endpoints = Math.max(modalRise(model, state), modalRise(model, advanceModalState(model, state, h, powers, scratch)));
+    expect(best).toBeGreaterThan(endpoints + 0.1);
+    expect(found.length).toBe(1);
+    expectClose(found[0]!.riseK, best, { abs: 0.01 });
   });
 });
