@@ -30,7 +30,7 @@ export interface PartResult {
   /** the warning band below the limit the profile asked for [K] */
   readonly requiredMarginK: number;
   readonly verdict: PartVerdict;
-  /** first step end or interior peak found above the limit [s]; undefined if never */
+  /** first time the temperature went above the limit [s], found exactly inside its step; undefined if never */
   readonly firstExceedanceS?: number;
   /** energy put into the part over the whole profile [J] */
   readonly energyJ: number;
@@ -114,7 +114,6 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const count = parts.length;
   const ambient = parts.map((p) => p.ambientC);
   const now = new Float64Array(count);
-  const firstExceedance: (number | undefined)[] = new Array<number | undefined>(count).fill(undefined);
   const energy = new Float64Array(count);
   const eventPeak = new Float64Array(count);
   const eventPeakTime = new Float64Array(count);
@@ -165,7 +164,6 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
         eventPeak[i] = rise;
         eventPeakTime[i] = point.timeS;
       }
-      if (firstExceedance[i] === undefined && ambient[i]! + rise > parts[i]!.limitC) firstExceedance[i] = point.timeS;
     }
     if (options.onPoint !== undefined) {
       for (let i = 0; i < count; i++) pointTemperatures[i] = ambient[i]! + point.riseK[i]!;
@@ -175,7 +173,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
 
   // The walk is pulled item by item and each item's steps are pushed into the run at once, so a
   // charge reads (temperatureOf) the parts' state after every earlier item.
-  const run = new ThermalRun(model, { onPoint, freshPoints: false });
+  const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC) });
   try {
     for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
       if (item.type === "event") openEvent(item);
@@ -194,7 +192,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     const peakTemperatureC = p.ambientC + summary.peakRiseK[i]!;
     const marginK = p.limitC - peakTemperatureC;
     const verdict: PartVerdict = peakTemperatureC > p.limitC ? "fail" : marginK < p.marginK ? "warn" : "pass";
-    const exceed = firstExceedance[i];
+    const exceed = summary.firstCrossingS[i];
     return {
       id: p.id,
       peakTemperatureC,

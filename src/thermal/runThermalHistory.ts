@@ -26,6 +26,12 @@ export interface HistoryOptions {
    * visitor copies what it keeps; saves allocations on long runs). Default true: fresh ones.
    */
   readonly freshPoints?: boolean;
+  /**
+   * a rise per observed node [K] (e.g. a limit less the ambient): the run finds the first time
+   * each node's rise goes above it, exactly, inside the step where that happens
+   * (HistorySummary.firstCrossingS). Default: none.
+   */
+  readonly crossingRiseK?: readonly number[];
 }
 
 /** What a run leaves: peaks per observed node and the end state. */
@@ -42,6 +48,8 @@ export interface HistorySummary {
   readonly endState: ModalState;
   /** number of steps integrated */
   readonly steps: number;
+  /** per observed node, the first time its rise went above HistoryOptions.crossingRiseK [s]; undefined if never (or not asked) */
+  readonly firstCrossingS: readonly (number | undefined)[];
 }
 
 /**
@@ -76,6 +84,12 @@ export class ThermalRun {
   private readonly peakTimeS: number[];
   private endTimeS = 0;
   private count = 0;
+  /** crossing levels (rise [K]) per observed node, and the first crossing times found */
+  private readonly levels: readonly number[] | undefined;
+  private readonly crossings: (number | undefined)[];
+  /** nodes still below their level (none: no start state is kept per step) */
+  private pending: number;
+  private readonly startState: ModalState;
 
   constructor(model: ModalModel, options: HistoryOptions = {}) {
     this.model = model;
@@ -89,10 +103,40 @@ export class ThermalRun {
     this.reusedPoint = this.shared === undefined ? undefined : { timeS: 0, riseK: this.shared, kind: "step-end" };
     this.peakRiseK = new Array<number>(this.observed).fill(0);
     this.peakTimeS = new Array<number>(this.observed).fill(0);
+    this.levels = options.crossingRiseK;
+    this.crossings = new Array<number | undefined>(this.observed).fill(undefined);
+    this.startState = new Float64Array(this.state.length);
+    this.pending = 0;
     for (let o = 0; o < this.observed; o++) {
       const r = modalRise(model, this.state, o);
       if (r > this.peakRiseK[o]!) this.peakRiseK[o] = r;
+      if (this.levels === undefined) continue;
+      // a node already above its level at the start crosses at the start
+      if (r > this.levels[o]!) this.crossings[o] = 0;
+      else this.pending++;
     }
+  }
+
+  /**
+   * Record node o's first crossing of its level inside the current step, whose start state is
+   * startState and whose first point above the level is at t (an interior peak or the step end).
+   * On [0, t] the rise starts at or below the level and every interior maximum before t is at or
+   * below it (a higher one would have been the first point above), so rise − level changes sign
+   * once there: bisection on its sign (exact rise at every trial, advanceModalState) finds the
+   * crossing to 1e-12 of the step. Source: bisection, Press et al., Numerical Recipes, 3rd ed.
+   * (2007), §9.1.
+   */
+  private cross(o: number, startS: number, t: number, powers: SourcePowers): void {
+    const level = this.levels![o]!;
+    let lo = 0;
+    let hi = t;
+    for (let i = 0; i < 200 && hi - lo > 1e-12 * t; i++) {
+      const mid = 0.5 * (lo + hi);
+      if (modalRise(this.model, advanceModalState(this.model, this.startState, mid, powers, this.scratch), o) > level) hi = mid;
+      else lo = mid;
+    }
+    this.crossings[o] = startS + hi;
+    this.pending--;
   }
 
   private pointArray(): number[] {
@@ -102,6 +146,8 @@ export class ThermalRun {
   /** Integrate one more step (it starts where the previous one ended). */
   push(s: TimedStep): void {
     const { model, state, observed, visit, peakRiseK, peakTimeS } = this;
+    const levels = this.pending > 0 ? this.levels : undefined;
+    if (levels !== undefined) this.startState.set(state);
     if (this.findPeaks) {
       let found: { atS: number; riseK: number; o: number }[] | undefined;
       for (let o = 0; o < observed; o++) {
@@ -117,6 +163,7 @@ export class ThermalRun {
             peakRiseK[p.o] = p.riseK;
             peakTimeS[p.o] = s.startS + p.atS;
           }
+          if (levels !== undefined && this.crossings[p.o] === undefined && p.riseK > levels[p.o]!) this.cross(p.o, s.startS, p.atS, s.powers);
         }
         if (visit !== undefined) {
           for (const p of found) {
@@ -144,6 +191,7 @@ export class ThermalRun {
         peakRiseK[o] = r;
         peakTimeS[o] = endTimeS;
       }
+      if (levels !== undefined && this.crossings[o] === undefined && r > levels[o]!) this.cross(o, s.startS, s.durationS, s.powers);
     }
     if (visit !== undefined) visit(this.point(endTimeS, riseK!, "step-end"));
   }
@@ -168,6 +216,7 @@ export class ThermalRun {
       endTimeS: this.endTimeS,
       endState: state,
       steps: this.count,
+      firstCrossingS: this.crossings.slice(),
     };
   }
 }
