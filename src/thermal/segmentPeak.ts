@@ -119,22 +119,37 @@ function reserveSum(size: number): void {
   sumCoefficients = coefficients;
 }
 
-const rateOrders = new WeakMap<ModalModel, Int32Array>();
-let lastOrderModel: ModalModel | undefined;
-let lastOrder: Int32Array = new Int32Array(0);
-
-/** Mode indices from the slowest to the fastest (ascending rate 1/tau), computed once per model. */
-function slowestFirst(model: ModalModel): Int32Array {
-  if (model === lastOrderModel) return lastOrder;
-  let order = rateOrders.get(model);
-  if (order === undefined) {
-    order = Int32Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!);
-    rateOrders.set(model, order);
-  }
-  lastOrderModel = model;
-  lastOrder = order;
-  return order;
+/**
+ * A value computed once per model and kept beside it (WeakMap), with the last model asked for
+ * checked first: the hot path asks for the same model step after step.
+ */
+function perModel<T>(compute: (model: ModalModel) => T): (model: ModalModel) => T {
+  const cache = new WeakMap<ModalModel, T>();
+  let lastModel: ModalModel | undefined;
+  let lastValue: T | undefined;
+  return (model) => {
+    if (model === lastModel) return lastValue!;
+    let value = cache.get(model);
+    if (value === undefined) {
+      value = compute(model);
+      cache.set(model, value);
+    }
+    lastModel = model;
+    lastValue = value;
+    return value;
+  };
 }
+
+/** Mode indices from the slowest to the fastest (ascending rate 1/tau). */
+const slowestFirst = perModel((model) => Int32Array.from(model.tauS.keys()).sort((i, j) => model.tauS[j]! - model.tauS[i]!));
+
+/** Rates of the linear-power slope sum: 0, then 1/tau of every mode slowest first. */
+const linearRates = perModel((model) => {
+  const order = slowestFirst(model);
+  const rates = new Float64Array(order.length + 1);
+  order.forEach((m, p) => (rates[p + 1] = 1 / model.tauS[m]!));
+  return rates;
+});
 
 /** Add value at rate into the first n scratch entries (merged when the rate is already there, else inserted in order); returns the new count. */
 function addToSum(n: number, rate: number, value: number): number {
@@ -210,24 +225,6 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
   return signChanges(n) <= 1 ? n : -1;
 }
 
-const linearRateCache = new WeakMap<ModalModel, Float64Array>();
-let lastRatesModel: ModalModel | undefined;
-let lastRates: Float64Array = new Float64Array(0);
-
-/** Rates of the linear-power slope sum: 0, then 1/tau of every mode slowest first; once per model. */
-function linearRates(model: ModalModel): Float64Array {
-  if (model === lastRatesModel) return lastRates;
-  let rates = linearRateCache.get(model);
-  if (rates === undefined) {
-    const order = slowestFirst(model);
-    rates = new Float64Array(order.length + 1);
-    order.forEach((m, p) => (rates![p + 1] = 1 / model.tauS[m]!));
-    linearRateCache.set(model, rates);
-  }
-  lastRatesModel = model;
-  lastRates = rates;
-  return rates;
-}
 
 /**
  * For steps where every source's power is a sum of pure exponentials Σ a_k·e^(−lambda_k·s) (b = 0;

@@ -3,6 +3,7 @@ import fc from "fast-check";
 import {
   type ModalModel,
   type PowerTerm,
+  type SourcePowers,
   advanceModalState,
   cauerToModal,
   createModalState,
@@ -29,6 +30,20 @@ function bruteForcePeak(model: ModalModel, start: Float64Array, h: number, terms
     if (r > best.riseK) best = { atS: s, riseK: r };
   }
   return best;
+}
+
+/**
+ * The largest rise of dense sampling over a step (linear samples plus log-spaced ones from h·1e-9,
+ * so a fast mode's early turn is not stepped over), and the larger of the two step ends.
+ */
+function sampledMaximum(model: ModalModel, state: Float64Array, h: number, powers: SourcePowers): { best: number; endpoints: number } {
+  const scratch = new Float64Array(state.length);
+  let best = -Infinity;
+  for (let i = 0; i <= 20_000; i++) {
+    best = Math.max(best, modalRise(model, advanceModalState(model, state, (h * i) / 20_000, powers, scratch)));
+    best = Math.max(best, modalRise(model, advanceModalState(model, state, h * 10 ** (-9 + (9 * i) / 20_000), powers, scratch)));
+  }
+  return { best, endpoints: Math.max(modalRise(model, state), modalRise(model, advanceModalState(model, state, h, powers, scratch))) };
 }
 
 /** A warm start: the state after 0.5 s at 30 W. */
@@ -110,14 +125,7 @@ describe("interiorPeaks on exponential power (resistor charging) against dense s
           const powers = [[{ a: p0 * constantShare * 0.1, b: 0, lambda: 0 }, { a: p0 * (1 - constantShare) * 0.5, b: 0, lambda: 1 / rcTau }, { a: p0 * 0.5, b: 0, lambda: 2 / rcTau }]];
           const h = 6 * rcTau;
           const found = interiorPeaks(model, state, h, powers);
-          const scratch = new Float64Array(state.length);
-          let best = -Infinity;
-          // linear samples plus log-spaced ones from h·1e-9, so a fast mode's early turn is not stepped over
-          for (let i = 0; i <= 20_000; i++) {
-            best = Math.max(best, modalRise(model, advanceModalState(model, state, (h * i) / 20_000, powers, scratch)));
-            best = Math.max(best, modalRise(model, advanceModalState(model, state, h * 10 ** (-9 + (9 * i) / 20_000), powers, scratch)));
-          }
-          const endpoints = Math.max(modalRise(model, state), modalRise(model, advanceModalState(model, state, h, powers, scratch)));
+          const { best, endpoints } = sampledMaximum(model, state, h, powers);
           const searched = Math.max(endpoints, ...found.map((p) => p.riseK));
           expect(searched).toBeGreaterThanOrEqual(best - 0.01);
           expect(searched).toBeLessThanOrEqual(best + 0.01 + 1e-9 * Math.abs(best));
@@ -181,13 +189,7 @@ describe("interiorPeaks when the slope-sum scratch grows mid-build", () => {
     const powers = [[{ a: 300, b: 0, lambda: 10 }], [{ a: 500, b: 0, lambda: 10 }]];
     const h = 0.3;
     const found = fresh.interiorPeaks(model, state, h, powers);
-    const scratch = new Float64Array(state.length);
-    let best = -Infinity;
-    for (let i = 0; i <= 20_000; i++) {
-      best = Math.max(best, modalRise(model, advanceModalState(model, state, (h * i) / 20_000, powers, scratch)));
-      best = Math.max(best, modalRise(model, advanceModalState(model, state, h * 10 ** (-9 + (9 * i) / 20_000), powers, scratch)));
-    }
-    const endpoints = Math.max(modalRise(model, state), modalRise(model, advanceModalState(model, state, h, powers, scratch)));
+    const { best, endpoints } = sampledMaximum(model, state, h, powers);
     expect(best).toBeGreaterThan(endpoints + 0.1);
     expect(found.length).toBe(1);
     expectClose(found[0]!.riseK, best, { abs: 0.01 });
