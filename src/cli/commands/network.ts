@@ -6,7 +6,7 @@ import { registerNetworkFromRating } from "./networkFromRating.js";
 import { registerNetworkLumped } from "./networkLumped.js";
 import { registerNetworkShow } from "./networkShow.js";
 
-/** Subcommands of `heatledger network`, in help order. Add new ones here. */
+/** Subcommands of `heatledger network`, in help order (definitions only; see registry.ts). Add new ones here. */
 const SUBCOMMANDS: readonly ((network: Command, run: CliRun) => void)[] = [registerNetworkShow, registerNetworkConvert, registerNetworkFit, registerNetworkFromRating, registerNetworkLumped];
 
 /** `heatledger network ...`: look at, convert and build thermal networks. */

@@ -1,16 +1,7 @@
 import type { Command } from "commander";
-import {
-  FIT_CRITERIA,
-  FIT_DEFAULTS,
-  type FitOptions,
-  InputError,
-  type ThermalNetwork,
-  formatNetworkFile,
-  inputError,
-  resolveFitOptions,
-} from "../../index.js";
-import type { CliRun } from "../main.js";
-import { writeOutputFile } from "../readInputFile.js";
+import { InputError, inputError } from "../../errors/InputError.js";
+import { FIT_CRITERIA } from "../../thermal/fitCriterion.js";
+import { FIT_DEFAULTS, type FitOptions, resolveFitOptions } from "../../thermal/fitDefaults.js";
 
 /** One flag of the fit: its commander spelling, help line and the FitOptions field it sets. */
 interface FitFlag {
@@ -81,20 +72,6 @@ export interface OutputFlags {
   readonly force?: boolean;
   readonly name?: string;
   readonly json?: boolean;
-}
-
-/**
- * Write the network file when --out is given (refusing to overwrite without --force) and return
- * the text report's closing lines: where the file went, or the file's text to copy.
- */
-export function emitNetwork(run: CliRun, network: ThermalNetwork, flags: OutputFlags): { written: string | null; text: string } {
-  const format = flags.out?.toLowerCase().endsWith(".json") ? "json" : "yaml";
-  const file = formatNetworkFile(network, format, flags.name);
-  if (flags.out !== undefined) {
-    writeOutputFile(run.io, flags.out, file, flags.force === true, "--out");
-    return { written: flags.out, text: `Wrote ${flags.out}: reference it from a profile, or inspect it with \`heatledger network show ${flags.out}\`.\n` };
-  }
-  return { written: null, text: `Network file (no --out given; save this text or rerun with --out FILE):\n${file}` };
 }
 
 function camel(flags: string): string {

@@ -1,60 +1,12 @@
 import type { Command } from "commander";
-import {
-  FIT_DEFAULTS,
-  type FosterFit,
-  InputError,
-  type QuantityTable,
-  type ZthPoint,
-  fitFosterNetwork,
-  formatCautions,
-  formatFosterFit,
-  GENERAL_CAUTION,
-  networkToDocument,
-  parseQuantityTable,
-  withLocation,
-} from "../../index.js";
+import { FIT_DEFAULTS } from "../../thermal/fitDefaults.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
-import { type OutputFlags, addFitFlags, addOutputFlags, emitNetwork, readFitFlags } from "./networkBuildFlags.js";
+import { type OutputFlags, addFitFlags, addOutputFlags } from "./networkBuildFlags.js";
 
-/**
- * Fit `points`, re-homing point errors onto the file's lines ("points[3].time" → line of row 3).
- * Shared by `network fit` and `network from-rating`.
- */
-export function fitTablePoints(points: readonly ZthPoint[], table: QuantityTable, file: string, options: Record<string, unknown>): FosterFit {
-  const fitOptions = readFitFlags(options);
-  try {
-    return fitFosterNetwork(points, fitOptions, "points");
-  } catch (error) {
-    if (!(error instanceof InputError)) throw error;
-    const lineOf = (field: string): number => {
-      const m = /^points\[(\d+)\]/.exec(field);
-      return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
-    };
-    throw withLocation(error, file, "", lineOf);
-  }
-}
+/** What the flags of `heatledger network fit` parse to (the fit flags are read by readFitFlags). */
+export type NetworkFitFlags = Record<string, unknown> & OutputFlags & { readonly timeUnit?: string; readonly zthUnit?: string };
 
-/** The JSON object of a fit, shared by `network fit` and `network from-rating`. */
-export function fitJson(fit: FosterFit, source: string, written: string | null, extra: Record<string, unknown> = {}, name?: string): Record<string, unknown> {
-  return {
-    source,
-    ...extra,
-    network: networkToDocument(fit.network, name),
-    stages: fit.network.stages.map((s) => ({ rKPerW: s.rKPerW, tauS: s.tauS, cJPerK: s.tauS / s.rKPerW })),
-    totalRthKPerW: fit.network.stages.reduce((a, s) => a + s.rKPerW, 0),
-    pointCount: fit.pointCount,
-    errors: fit.errors,
-    chosenBy: fit.chosenBy,
-    criterion: fit.criterion,
-    candidates: fit.candidates,
-    warnings: fit.warnings,
-    written,
-    caution: GENERAL_CAUTION,
-  };
-}
-
-/** `heatledger network fit POINTS.csv`. */
+/** `heatledger network fit POINTS.csv`: flags and help here; the run is loaded from networkFitAction.ts when it starts. */
 export function registerNetworkFit(network: Command, run: CliRun): void {
   const command = network
     .command("fit")
@@ -90,22 +42,8 @@ Examples:
   heatledger network fit part-zth.csv --stages 4 --out part.yaml
   heatledger network fit part-zth.csv --time-unit s --zth-unit K/W --json`,
   );
-  command.action((file: string, options: Record<string, unknown> & OutputFlags & { timeUnit?: string; zthUnit?: string }) => {
-    const table = parseQuantityTable(
-      readTextFile(run.io, file, "Zth points file"),
-      [
-        { key: "time", headerPattern: /^(t|time|t_?p|duration|pulse)\b/i, dimension: "time", unit: options.timeUnit, unitOption: "--time-unit" },
-        { key: "zth", headerPattern: /^(z|zth|z_?th|impedance)\b/i, dimension: "thermalResistance", unit: options.zthUnit, unitOption: "--zth-unit" },
-      ],
-      file,
-    );
-    const points = table.rows.map((r) => ({ timeS: r.values[0]!, zthKPerW: r.values[1]! }));
-    const fit = fitTablePoints(points, table, file, options);
-    const emitted = emitNetwork(run, fit.network, options);
-    if (options.json) {
-      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, {}, options.name), null, 2)}\n`);
-      return;
-    }
-    run.io.out(`Fit of ${file} (${table.units[0]}, ${table.units[1]})\n${formatFosterFit(fit, points, Math.min(run.io.columns, 100))}\n${emitted.text}\n${formatCautions(false)}`);
+  command.action(async (file: string, options: NetworkFitFlags) => {
+    const { networkFitAction } = await import("./networkFitAction.js");
+    networkFitAction(run, file, options);
   });
 }

@@ -1,23 +1,13 @@
 import type { Command } from "commander";
-import {
-  InputError,
-  PULSE_RATING_ASSUMPTIONS,
-  formatCautions,
-  formatFosterFit,
-  formatNumber,
-  inputError,
-  parseQuantity,
-  parseQuantityTable,
-  withLocation,
-  wrapText,
-  zthFromPulseRating,
-} from "../../index.js";
+import { PULSE_RATING_ASSUMPTIONS } from "../../thermal/zthFromPulseRating.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
-import { type OutputFlags, addFitFlags, addOutputFlags, emitNetwork } from "./networkBuildFlags.js";
-import { fitJson, fitTablePoints } from "./networkFit.js";
+import { type OutputFlags, addFitFlags, addOutputFlags } from "./networkBuildFlags.js";
 
-/** `heatledger network from-rating TABLE.csv`. */
+/** What the flags of `heatledger network from-rating` parse to (the fit flags are read by readFitFlags). */
+export type NetworkFromRatingFlags = Record<string, unknown> &
+  OutputFlags & { readonly startTemperature?: string; readonly maxTemperature?: string; readonly durationUnit?: string; readonly energyUnit?: string };
+
+/** `heatledger network from-rating TABLE.csv`: flags and help here; the run is loaded from networkFromRatingAction.ts when it starts. */
 export function registerNetworkFromRating(network: Command, run: CliRun): void {
   const command = network
     .command("from-rating")
@@ -48,50 +38,8 @@ A table where a longer pulse is rated for less energy, or for more power, is rej
 Example:
   heatledger network from-rating rating.csv --start-temperature "25 degC" --max-temperature "350 degC" --out part.yaml`,
   );
-  command.action((file: string, options: Record<string, unknown> & OutputFlags & { startTemperature?: string; maxTemperature?: string; durationUnit?: string; energyUnit?: string }) => {
-    if (options.startTemperature === undefined) throw inputError("bad-option", "--start-temperature", "the temperature the rating starts from, such as \"25 degC\"", "nothing");
-    if (options.maxTemperature === undefined) throw inputError("bad-option", "--max-temperature", "the element temperature the rated pulse reaches, such as \"350 degC\"", "nothing");
-    const startC = parseQuantity(options.startTemperature, "temperature", "--start-temperature");
-    const maxC = parseQuantity(options.maxTemperature, "temperature", "--max-temperature");
-    const table = parseQuantityTable(
-      readTextFile(run.io, file, "pulse rating table"),
-      [
-        { key: "duration", headerPattern: /^(t|time|t_?p|duration|pulse)\b/i, dimension: "time", unit: options.durationUnit, unitOption: "--duration-unit" },
-        { key: "energy", headerPattern: /^(e|energy|e_?max|w)\b/i, dimension: "energy", unit: options.energyUnit, unitOption: "--energy-unit" },
-      ],
-      file,
-    );
-    let points;
-    try {
-      points = zthFromPulseRating(
-        table.rows.map((r) => ({ durationS: r.values[0]!, energyJ: r.values[1]! })),
-        { startC, maxC },
-        "table",
-      );
-    } catch (error) {
-      if (!(error instanceof InputError)) throw error;
-      const flags: Record<string, string> = { maxTemperature: "--max-temperature", startTemperature: "--start-temperature" };
-      const renamed = new InputError(error.problems.map((p) => ({ ...p, field: flags[p.field] ?? p.field })));
-      if (error.problems.every((p) => p.field in flags)) throw renamed;
-      throw withLocation(renamed, file, "", (field) => {
-        const m = /^table\[(\d+)\]/.exec(field);
-        return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
-      });
-    }
-    const fit = fitTablePoints(points, table, file, options);
-    const emitted = emitNetwork(run, fit.network, options);
-    const riseK = maxC - startC;
-    if (options.json) {
-      const extra = { startTemperatureC: startC, maxTemperatureC: maxC, allowedRiseK: riseK, assumptions: PULSE_RATING_ASSUMPTIONS, zthPoints: points };
-      run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, extra, options.name), null, 2)}\n`);
-      return;
-    }
-    const head = [
-      `Pulse rating ${file}: ${points.length} rows, from ${formatNumber(startC)} degC to ${formatNumber(maxC)} degC (allowed rise ${formatNumber(riseK)} K)`,
-      `Zth(t_p) = ${formatNumber(riseK)} K * t_p / E_max(t_p), assuming:`,
-      ...PULSE_RATING_ASSUMPTIONS.map((a) => wrapText(`  - ${a}`, 100).replace(/\n/g, "\n    ")),
-      "",
-    ].join("\n");
-    run.io.out(`${head}\n${formatFosterFit(fit, points, Math.min(run.io.columns, 100))}\n${emitted.text}\n${formatCautions(false)}`);
+  command.action(async (file: string, options: NetworkFromRatingFlags) => {
+    const { networkFromRatingAction } = await import("./networkFromRatingAction.js");
+    networkFromRatingAction(run, file, options);
   });
 }

@@ -6,7 +6,12 @@ import { registerSize } from "./size.js";
 import { registerSupervise } from "./supervise.js";
 import type { CliRun } from "../main.js";
 
-/** A command module registers its flags, help and action on the program. */
+/**
+ * A command module registers its flags, help and action on the program. The definition module
+ * (`<name>.ts`) imports only commander and the constants its help prints; its action imports the
+ * implementation (`<name>Action.ts`, which imports the library modules it needs) with
+ * `await import(...)`, so `--help` and the other commands never load it.
+ */
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */

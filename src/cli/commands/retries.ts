@@ -1,9 +1,6 @@
-import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
-import { PLAN_DEFAULTS, defaultCircuitModels, formatRetryPlanText, loadProfile, lockoutMapCsv, planRetries, retryPlanJson } from "../../index.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { PLAN_DEFAULTS } from "../../plan/planDefaults.js";
 import type { CliRun } from "../main.js";
-import { readTextFile, writeOutputFile } from "../readInputFile.js";
 
 /** Options of `heatledger retries`: one table drives the flags and their help. */
 export const RETRIES_OPTIONS = [
@@ -12,7 +9,14 @@ export const RETRIES_OPTIONS = [
   { flags: "--force", help: "overwrite the --csv file if it exists" },
 ] as const;
 
-/** `heatledger retries PROFILE`. */
+/** What the flags of `heatledger retries` parse to. */
+export interface RetriesFlags {
+  readonly json?: boolean;
+  readonly csv?: string;
+  readonly force?: boolean;
+}
+
+/** `heatledger retries PROFILE`: flags and help here; the run is loaded from retriesAction.ts when it starts. */
 export function registerRetries(program: Command, run: CliRun): void {
   const command = program
     .command("retries")
@@ -30,15 +34,8 @@ burst + lockout repeated while the fault persists passes limit - margin), 2 bad 
 See README, "Reading the retry plan".`,
     );
   for (const option of RETRIES_OPTIONS) command.option(option.flags, option.help);
-  command.action((file: string, options: { json?: boolean; csv?: string; force?: boolean }) => {
-    if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
-    const folder = dirname(file);
-    const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-    const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
-    const report = planRetries(profile, defaultCircuitModels);
-    if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
-    if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);
-    else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}`);
-    run.status = report.policy.verdict === "unsafe" ? EXIT_LIMIT : EXIT_OK;
+  command.action(async (file: string, options: RetriesFlags) => {
+    const { retriesAction } = await import("./retriesAction.js");
+    retriesAction(run, file, options);
   });
 }

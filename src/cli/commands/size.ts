@@ -1,9 +1,7 @@
-import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
-import { MATERIALS, SIZE_DEFAULTS, defaultCircuitModels, formatSizingText, loadProfile, materialPreset, parseQuantity, sizeProfile, sizingJson } from "../../index.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { SIZE_DEFAULTS } from "../../plan/sizeDefaults.js";
+import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
 
 /** Options of `heatledger size`: one table drives the flags and their help. */
 export const SIZE_OPTIONS = [
@@ -13,7 +11,15 @@ export const SIZE_OPTIONS = [
   { flags: "--margin <K>", help: "size to this margin below each limit (default: each part's own margin from the profile)" },
 ] as const;
 
-/** `heatledger size PROFILE`. */
+/** What the flags of `heatledger size` parse to. */
+export interface SizeFlags {
+  readonly json?: boolean;
+  readonly part?: string[];
+  readonly material?: string;
+  readonly margin?: string;
+}
+
+/** `heatledger size PROFILE`: flags and help here; the run is loaded from sizeAction.ts when it starts. */
 export function registerSize(program: Command, run: CliRun): void {
   const command = program
     .command("size")
@@ -34,20 +40,8 @@ why), 2 bad input. See README, "Sizing a pre-charge part".`,
     if (option.flags === "--part <id>") command.option(option.flags, option.help, (value: string, previous: string[] | undefined) => [...(previous ?? []), value]);
     else command.option(option.flags, option.help);
   }
-  command.action((file: string, options: { json?: boolean; part?: string[]; material?: string; margin?: string }) => {
-    const material = options.material === undefined ? undefined : materialPreset(options.material, "--material");
-    const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
-    const folder = dirname(file);
-    const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-    const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
-    const report = sizeProfile(profile, {
-      models: defaultCircuitModels,
-      ...(material === undefined ? {} : { material }),
-      ...(marginK === undefined ? {} : { marginK }),
-      ...(options.part === undefined ? {} : { partIds: options.part }),
-    });
-    if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
-    else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
-    run.status = report.verdict === "feasible" ? EXIT_OK : EXIT_LIMIT;
+  command.action(async (file: string, options: SizeFlags) => {
+    const { sizeAction } = await import("./sizeAction.js");
+    sizeAction(run, file, options);
   });
 }

@@ -1,9 +1,6 @@
-import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
-import { SUPERVISE_DEFAULTS, defaultCircuitModels, formatSupervisionText, loadProfile, supervisePrecharge, supervisionJson } from "../../index.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { SUPERVISE_DEFAULTS } from "../../plan/superviseDefaults.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
 
 /** Options of `heatledger supervise`: one table drives the flags and their help. */
 export const SUPERVISE_OPTIONS = [
@@ -11,7 +8,13 @@ export const SUPERVISE_OPTIONS = [
   { flags: "--no-chart", help: "leave the envelope and energy charts out of the text report" },
 ] as const;
 
-/** `heatledger supervise PROFILE`. */
+/** What the flags of `heatledger supervise` parse to. */
+export interface SuperviseFlags {
+  readonly json?: boolean;
+  readonly chart: boolean;
+}
+
+/** `heatledger supervise PROFILE`: flags and help here; the run is loaded from superviseAction.ts when it starts. */
 export function registerSupervise(program: Command, run: CliRun): void {
   const command = program
     .command("supervise")
@@ -29,13 +32,8 @@ exists or the profile's timeout is outside the window, 2 bad input. See README, 
 supervision answers".`,
     );
   for (const option of SUPERVISE_OPTIONS) command.option(option.flags, option.help);
-  command.action((file: string, options: { json?: boolean; chart: boolean }) => {
-    const folder = dirname(file);
-    const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-    const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
-    const report = supervisePrecharge(profile, defaultCircuitModels);
-    if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
-    else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
-    run.status = report.verdict === "fail" ? EXIT_LIMIT : EXIT_OK;
+  command.action(async (file: string, options: SuperviseFlags) => {
+    const { superviseAction } = await import("./superviseAction.js");
+    superviseAction(run, file, options);
   });
 }

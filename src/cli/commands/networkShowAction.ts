@@ -1,0 +1,48 @@
+import { describeNetwork } from "../../report/describeNetwork.js";
+import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
+import { lineChart } from "../../report/lineChart.js";
+import { parseNetwork } from "../../thermal/parseNetwork.js";
+import { networkToModal } from "../../thermal/ThermalNetwork.js";
+import { logSpacedTimes, zth } from "../../thermal/zth.js";
+import type { CliRun } from "../main.js";
+import { readStructuredFile } from "../readInputFile.js";
+import { type NetworkShowFlags, ZTH_TABLE_ROWS } from "./networkShow.js";
+
+/**
+ * The run of `heatledger network show FILE` (flags and help are in networkShow.ts, which loads
+ * this module only when the command runs): print the network's Foster (modal) form, total Rth
+ * and Zth(t) as a table and a chart for every source/observed pair, or one JSON object.
+ * @throws InputError for an unreadable or invalid network file
+ */
+export function networkShowAction(run: CliRun, file: string, options: NetworkShowFlags): void {
+  const parsed = readStructuredFile(run.io, file, "network file", (data) => parseNetwork(data, ""));
+  const model = networkToModal(parsed);
+  const rows = Math.max(2, Math.min(200, Number.parseInt(options.rows, 10) || ZTH_TABLE_ROWS));
+  const description = describeNetwork(parsed, model, rows);
+  if (options.json) {
+    run.io.out(`${JSON.stringify(description, null, 2)}\n`);
+    return;
+  }
+  const out: string[] = [`Network ${file}: ${parsed.kind} form, ${model.tauS.length} modes`];
+  for (const pair of description.pairs) {
+    out.push("", `Heat into "${pair.source}", rise at "${pair.observed}": total Rth = ${formatNumber(pair.totalRthKPerW)} K/W`);
+    out.push(
+      formatTable(
+        [{ heading: "mode" }, { heading: "R [K/W]", align: "right" }, { heading: "tau", align: "right" }, { heading: "C = tau/R [J/K]", align: "right" }],
+        pair.foster.map((s, i) => [String(i + 1), formatNumber(s.rKPerW), formatDuration(s.tauS), s.rKPerW > 0 ? formatNumber(s.tauS / s.rKPerW) : "n/a"]),
+      ),
+    );
+    out.push(
+      formatTable(
+        [{ heading: "t", align: "right" }, { heading: "Zth [K/W]", align: "right" }],
+        pair.zth.map((p) => [formatDuration(p.timeS), formatNumber(p.zthKPerW)]),
+      ),
+    );
+    const points = logSpacedTimes(pair.zth[0]!.timeS, pair.zth[pair.zth.length - 1]!.timeS, 400).map((t) => ({
+      x: t,
+      y: zth(model, t, model.observed.indexOf(pair.observed), model.sources.indexOf(pair.source)),
+    }));
+    out.push(lineChart([{ label: `Zth ${pair.source} -> ${pair.observed}`, points }], { logX: true, yUnit: "K/W", width: Math.min(run.io.columns, 100) }));
+  }
+  run.io.out(`${out.join("\n")}\n`);
+}

@@ -1,0 +1,30 @@
+import { dirname, isAbsolute, join } from "node:path";
+import { formatRetryPlanText } from "../../plan/formatRetryPlanText.js";
+import { lockoutMapCsv } from "../../plan/formatLockoutMap.js";
+import { planRetries } from "../../plan/planRetries.js";
+import { retryPlanJson } from "../../plan/retryPlanJson.js";
+import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
+import { loadProfile } from "../../profile/loadProfile.js";
+import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import type { CliRun } from "../main.js";
+import { readTextFile, writeOutputFile } from "../readInputFile.js";
+import type { RetriesFlags } from "./retries.js";
+
+/**
+ * The run of `heatledger retries PROFILE` (flags and help are in retries.ts, which loads this
+ * module only when the command runs): plan the retries of the profile's first retry block with a
+ * fault, write the --csv lockout map and print the report; exit status 1 when the profile's own
+ * policy is unsafe.
+ * @throws InputError for a bad profile, a file it names, or a --csv file that exists without --force
+ */
+export function retriesAction(run: CliRun, file: string, options: RetriesFlags): void {
+  if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
+  const folder = dirname(file);
+  const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
+  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
+  const report = planRetries(profile, defaultCircuitModels);
+  if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
+  if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);
+  else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}`);
+  run.status = report.policy.verdict === "unsafe" ? EXIT_LIMIT : EXIT_OK;
+}

@@ -1,0 +1,35 @@
+import { dirname, isAbsolute, join } from "node:path";
+import { sizeProfile } from "../../plan/sizeProfile.js";
+import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
+import { loadProfile } from "../../profile/loadProfile.js";
+import { formatSizingText } from "../../report/formatSizingText.js";
+import { sizingJson } from "../../report/sizingJson.js";
+import { materialPreset } from "../../thermal/materials.js";
+import { parseQuantity } from "../../units/parseQuantity.js";
+import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import type { CliRun } from "../main.js";
+import { readTextFile } from "../readInputFile.js";
+import type { SizeFlags } from "./size.js";
+
+/**
+ * The run of `heatledger size PROFILE` (flags and help are in size.ts, which loads this module
+ * only when the command runs): size every part (or the --part ones) and the charging element and
+ * print the report; exit status 1 when no feasible size exists.
+ * @throws InputError for a bad profile, a file it names, --material or --margin
+ */
+export function sizeAction(run: CliRun, file: string, options: SizeFlags): void {
+  const material = options.material === undefined ? undefined : materialPreset(options.material, "--material");
+  const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
+  const folder = dirname(file);
+  const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
+  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
+  const report = sizeProfile(profile, {
+    models: defaultCircuitModels,
+    ...(material === undefined ? {} : { material }),
+    ...(marginK === undefined ? {} : { marginK }),
+    ...(options.part === undefined ? {} : { partIds: options.part }),
+  });
+  if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
+  else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
+  run.status = report.verdict === "feasible" ? EXIT_OK : EXIT_LIMIT;
+}

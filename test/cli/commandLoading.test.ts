@@ -1,0 +1,52 @@
+import { describe, expect, test } from "vitest";
+import { cliModuleLoads } from "../helpers/cliModuleLoads.js";
+
+// Start-up cost: each command's flags and help are defined eagerly, its implementation (and the
+// library modules it needs) is imported only when it runs (DEVELOPERS.md, "How to add a command").
+// A fresh process runs the built CLI and lists every module it loaded; a static import of the
+// library index, or of an action module, from a command definition makes these tests fail.
+
+/** The fitting libraries: only `network fit` and `network from-rating` need them. */
+const FITTING_PACKAGES = ["ml-fcnnls", "ml-levenberg-marquardt", "ml-matrix"];
+
+describe("runCli loads each command's implementation only when it runs", () => {
+  test.each([[["--help"]], [["--version"]], [["simulate", "--help"]], [["network", "--help"]], [["network", "fit", "--help"]], [["size", "--help"]]])(
+    "%j loads commander and the definitions, no library package and no action module",
+    (args) => {
+      const loads = cliModuleLoads(args);
+      expect(loads.status).toBe(0);
+      expect(loads.packages).toEqual(["commander"]);
+      expect(loads.dist).not.toContain("dist/index.js");
+      expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual([]);
+    },
+  );
+
+  test("simulate PROFILE loads what simulate needs, not the fitting libraries, the planners or the library index", () => {
+    const loads = cliModuleLoads(["simulate", "profiles/warehouse-robot-48v.yaml"]);
+    expect(loads.status).toBe(0);
+    // it did load its own implementation and the profile's parsers (so the listing sees lazy imports)
+    expect(loads.dist).toContain("dist/cli/commands/simulateAction.js");
+    expect(loads.packages).toEqual(expect.arrayContaining(["yaml", "zod"]));
+    expect(loads.packages.filter((name) => FITTING_PACKAGES.includes(name))).toEqual([]);
+    expect(loads.dist).not.toContain("dist/index.js");
+    expect(loads.dist).not.toContain("dist/thermal/fitFosterNetwork.js");
+    // of src/plan only the default tables the help texts print
+    expect(loads.dist.filter((file) => file.startsWith("dist/plan/"))).toEqual(["dist/plan/planDefaults.js", "dist/plan/sizeDefaults.js", "dist/plan/superviseDefaults.js"]);
+    expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual(["dist/cli/commands/simulateAction.js"]);
+  });
+
+  test("network show FILE loads neither the fitting libraries nor the profile schema", () => {
+    const loads = cliModuleLoads(["network", "show", "profiles/networks/wirewound-resistor-foster.yaml"]);
+    expect(loads.status).toBe(0);
+    expect(loads.packages.filter((name) => [...FITTING_PACKAGES, "zod"].includes(name))).toEqual([]);
+    expect(loads.dist).not.toContain("dist/index.js");
+  });
+
+  test("network fit POINTS loads the fitting libraries when it runs", () => {
+    const loads = cliModuleLoads(["network", "fit", "profiles/networks/example-zth.csv"]);
+    expect(loads.status).toBe(0);
+    expect(loads.packages).toEqual(expect.arrayContaining(["ml-fcnnls", "ml-levenberg-marquardt"]));
+    expect(loads.dist).toContain("dist/cli/commands/networkFitAction.js");
+    expect(loads.dist).not.toContain("dist/index.js");
+  });
+});
