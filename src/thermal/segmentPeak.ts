@@ -341,13 +341,13 @@ function integralOfSum(n: number, x: number): number {
  * there is none. Cost O(n) per iteration, no allocation.
  */
 function singleTurnOfRates(n: number, h: number): number | undefined {
+  // with at most one zero, a slope that does not start positive never turns down: no maximum
   let atZero = 0;
+  for (let i = 0; i < n; i++) atZero += sumCoefficients[i]!;
+  if (!(atZero > 0)) return undefined;
   let atEnd = 0;
-  for (let i = 0; i < n; i++) {
-    atZero += sumCoefficients[i]!;
-    atEnd += sumCoefficients[i]! * Math.exp(-sumRates[i]! * h);
-  }
-  if (!(atZero > 0) || !(atEnd <= 0)) return undefined;
+  for (let i = 0; i < n; i++) atEnd += sumCoefficients[i]! * Math.exp(-sumRates[i]! * h);
+  if (!(atEnd <= 0)) return undefined;
   let lo = 0;
   let hi = h;
   // Start from the last turn when the step has the same length (a long history repeats the same
