@@ -29,7 +29,8 @@ export interface HistoryOptions {
   /**
    * a rise per observed node [K] (e.g. a limit less the ambient): the run finds the first time
    * each node's rise goes above it, exactly, inside the step where that happens
-   * (HistorySummary.firstCrossingS). Default: none.
+   * (HistorySummary.firstCrossingS). Exact with findPeaks on (the default); with it off only step
+   * ends are seen, so a crossing inside a step that ends below the level is missed. Default: none.
    */
   readonly crossingRiseK?: readonly number[];
 }
