@@ -41,9 +41,9 @@ export function formatProfileStress(profile: DutyProfile, stress: ProfileStressR
   if (stress.parts.some((p) => p.report.damage !== undefined))
     closing.push(
       options.damageNote ??
-      `Damage is per repetition of the whole profile; ${
-        profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
-      }.`,
+        `Damage is per repetition of the whole profile; ${
+          profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
+        }.`,
     );
   return `${blocks.join("\n")}\n${closing.map((line) => wrapText(line, STRESS_SECTION_WIDTH)).join("\n")}\n`;
 }
