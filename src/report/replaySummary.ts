@@ -72,14 +72,17 @@ export function formatReplayHeader(summary: ReplaySummary, limitsC: readonly num
     `the profile's own ${summary.ignoredProfileEvents} event${summary.ignoredProfileEvents === 1 ? " is" : "s are"} ignored: its parts, circuit and limits replay the log`,
   ];
   summary.parts.forEach((p, i) => {
-    const where =
-      p.firstExceedanceS === null
-        ? `never above its limit (${formatNumber(limitsC[i]!, 4)} °C)`
-        : `first above its limit (${formatNumber(limitsC[i]!, 4)} °C) at ${formatDuration(p.firstExceedanceS)} (${p.firstExceedanceS.toFixed(3)} s from the first line)` +
-          (p.firstExceedanceTimestamp === null ? "" : `, ${p.firstExceedanceTimestamp}`) +
-          `, during line ${p.firstExceedanceLine!.line} (${p.firstExceedanceLine!.event}${p.firstExceedanceLine!.note === "" ? "" : `: ${p.firstExceedanceLine!.note}`})`;
-    const damage = p.damageToDate === null ? "damage to date not assessed (no lifetime model)" : `damage to date ${formatNumber(p.damageToDate, 3)} (Miner's rule; 1 = end of cycling life)`;
-    out.push(`${p.id}: ${where}; ${damage}`);
+    const limit = `${formatNumber(limitsC[i]!, 4)} °C`;
+    if (p.firstExceedanceS === null) out.push(`${p.id}: never above its limit (${limit})`);
+    else {
+      const line = p.firstExceedanceLine!;
+      out.push(`${p.id}: first above its limit (${limit}) during line ${line.line} (${line.event}${line.note === "" ? "" : `: ${line.note}`})`);
+      out.push(
+        `  at ${p.firstExceedanceS.toFixed(3)} s from the first line (${formatDuration(p.firstExceedanceS)})` +
+          (p.firstExceedanceTimestamp === null ? "" : `, ${p.firstExceedanceTimestamp}`),
+      );
+    }
+    out.push(p.damageToDate === null ? "  damage to date not assessed (no lifetime model)" : `  damage to date ${formatNumber(p.damageToDate, 3)} (Miner's rule; 1 = end of cycling life)`);
   });
   return out;
 }
