@@ -128,7 +128,8 @@ export type { StressConfig, StressPartKind } from "./stress/resolveStressConfig.
 export { LIFETIME_CAUTION } from "./stress/stressCautions.js";
 export { StressAssessment, assessStress, worseStatus } from "./stress/assessStress.js";
 export type { StressEvent, TemperaturePoint, StressOptions, EventRatingCheck, CycleSummary, StressReport } from "./stress/assessStress.js";
-export { formatStressSection, STRESS_SECTION_MAX_EVENTS, STRESS_SECTION_WIDTH } from "./stress/formatStressSection.js";
+export { formatStressSection, STRESS_SECTION_MAX_EVENTS, STRESS_SECTION_WIDTH, PROFILE_HISTORY_WORDS } from "./stress/formatStressSection.js";
+export type { StressHistoryWords } from "./stress/formatStressSection.js";
 export { stressReportJson } from "./stress/stressReportJson.js";
 export type { StressJson } from "./stress/stressReportJson.js";
 export { CYCLES_CSV_COLUMNS, formatCyclesCsv } from "./stress/formatCyclesCsv.js";
@@ -158,13 +159,26 @@ export { EventDigest, EVENT_DIGEST_DEFAULTS } from "./report/EventDigest.js";
 export type { EventRecord } from "./report/EventDigest.js";
 export { PeakEnvelope } from "./report/PeakEnvelope.js";
 export { formatSimulationText } from "./report/formatSimulationText.js";
+export type { SimulationTextHeader } from "./report/formatSimulationText.js";
 export { simulationJson } from "./report/simulationJson.js";
 export { formatProfileStress } from "./report/formatProfileStress.js";
+export type { ProfileStressTextOptions } from "./report/formatProfileStress.js";
 export { simulationStressJson } from "./report/simulationStressJson.js";
 export type { SimulationStressJson } from "./report/simulationStressJson.js";
 export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
 export { SimulationCsv } from "./report/SimulationCsv.js";
 export { formatFosterFit } from "./report/formatFosterFit.js";
+// replay (field event logs -> the profile's events -> history, first exceedance, damage to date)
+export { LOG_WORDS, LOG_WORD_LIST, LOG_COLUMNS } from "./replay/logWords.js";
+export type { LogWord, LogColumn } from "./replay/logWords.js";
+export { logLineAt, logTimestamp } from "./replay/EventLog.js";
+export type { EventLog, LogLine } from "./replay/EventLog.js";
+export { parseEventLog } from "./replay/parseEventLog.js";
+export { eventLogToEvents, countProfileEvents, LOG_LINE_FIELD } from "./replay/eventLogToEvents.js";
+export { replayEventLog, replayProfile } from "./replay/replayEventLog.js";
+export type { ReplayResult } from "./replay/replayEventLog.js";
+export { replaySummary, formatReplayHeader } from "./report/replaySummary.js";
+export type { ReplaySummary, ReplayPartSummary } from "./report/replaySummary.js";
 // plan
 export { PLAN_DEFAULTS } from "./plan/planDefaults.js";
 export { resolveScenario, resolveCorners } from "./plan/RetryScenario.js";

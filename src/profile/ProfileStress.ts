@@ -1,4 +1,5 @@
 import { EVENT_DIGEST_DEFAULTS } from "../report/EventDigest.js";
+import type { RainflowMode } from "../stress/rainflowCounter.js";
 import { type EventRatingCheck, StressAssessment, type StressReport, worseStatus } from "../stress/assessStress.js";
 import { checkPulseEnergy } from "../stress/pulseEnergyRating.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
@@ -16,6 +17,12 @@ export interface ProfileStressOptions {
   readonly keepCycles?: boolean;
   /** rating checks listed per part, declared once (EVENT_DIGEST_DEFAULTS.keepAll); later ones are counted, not kept */
   readonly keepChecks?: number;
+  /**
+   * how the history is closed for the cycle count: "repeating" (default, `simulate`: one repetition
+   * of a profile, ASTM E1049 §5.4.5) or "open" (`replay`: a one-off record such as a field log, half
+   * cycles from the residue, §5.4.4)
+   */
+  readonly mode?: RainflowMode;
 }
 
 /** The stress report of one part of a simulated profile. */
@@ -82,7 +89,7 @@ export class ProfileStress {
       const assessment = new StressAssessment(config, {
         partKind,
         linearMode: linearMosfet && partKind === "mosfet",
-        mode: "repeating",
+        mode: options.mode ?? "repeating",
         keepCycles: options.keepCycles === true,
         ...(profile.occursPerYear === undefined ? {} : { repetitionsPerYear: profile.occursPerYear }),
       });

@@ -1,6 +1,6 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
-import { STRESS_SECTION_WIDTH, formatStressSection } from "../stress/formatStressSection.js";
+import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } from "../stress/formatStressSection.js";
 import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
 
 const RATING_WORDS = {
@@ -8,6 +8,14 @@ const RATING_WORDS = {
   "outside-table": "some events fall outside the rating tables (not covered: a warning, not a failure)",
   fail: "FAIL: an event exceeds a rating table (exit status 1)",
 } as const;
+
+/** Options of {@link formatProfileStress}, for a command whose history is not one profile repetition (`replay`). */
+export interface ProfileStressTextOptions {
+  /** how the damage lines name one pass of the history (default: a repetition of the profile) */
+  readonly history?: StressHistoryWords;
+  /** the closing sentence about what the damage is per (default: per repetition, with occursPerYear) */
+  readonly damageNote?: string;
+}
 
 /**
  * The stress block of `simulate`'s terminal report: one section per part (formatStressSection:
@@ -19,12 +27,12 @@ const RATING_WORDS = {
  * printed twice. Returns a string; prints nothing.
  * Cost O(parts × (listed events + top cycles)).
  */
-export function formatProfileStress(profile: DutyProfile, stress: ProfileStressResult): string {
+export function formatProfileStress(profile: DutyProfile, stress: ProfileStressResult, options: ProfileStressTextOptions = {}): string {
   const closingHasMosfet = profile.circuit?.topology === "linear-mosfet";
   const blocks = stress.parts.map((part) => {
     const report = closingHasMosfet ? { ...part.report, cautions: part.report.cautions.filter((c) => c !== LINEAR_MOSFET_CAUTION) } : part.report;
     const notAssessed = report.damage === undefined ? "  damage: cycling damage was not assessed (no lifetime model for this part).\n" : "";
-    return formatStressSection(part.id, report) + notAssessed;
+    return formatStressSection(part.id, report, options.history) + notAssessed;
   });
   const anyTable = profile.parts.some((p) => p.stress?.pulseEnergy !== undefined || (p.stress?.soa !== undefined && p.role === "mosfet"));
   const closing = [
@@ -32,9 +40,10 @@ export function formatProfileStress(profile: DutyProfile, stress: ProfileStressR
   ];
   if (stress.parts.some((p) => p.report.damage !== undefined))
     closing.push(
-      `Damage is per repetition of the whole profile; ${
-        profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
-      }.`,
+      options.damageNote ??
+        `Damage is per repetition of the whole profile; ${
+          profile.occursPerYear === undefined ? "the profile does not state how often it occurs (occursPerYear), so no calendar life" : `the profile occurs ${profile.occursPerYear} times a year`
+        }.`,
     );
   return `${blocks.join("\n")}\n${closing.map((line) => wrapText(line, STRESS_SECTION_WIDTH)).join("\n")}\n`;
 }

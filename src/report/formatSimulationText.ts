@@ -32,12 +32,21 @@ const VERDICT_WORDS = {
   fail: "FAIL: a part passes its temperature limit",
 } as const;
 
+/** What a command other than `simulate` puts at the top of the report (`replay`: the log it read). */
+export interface SimulationTextHeader {
+  /** the command named in the first line (default "simulate") */
+  readonly command?: string;
+  /** lines printed after the profile line */
+  readonly lines?: readonly string[];
+}
+
 /**
  * The terminal report of a simulation: a header, one row per part (peak, when, limit, margin,
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
  * verdict, and the cautions of DESIGN §8 at the end. Returns a string; the CLI prints it.
- * `stressText` (optional, from formatProfileStress) goes just before the verdict.
+ * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
+ * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).
  */
 export function formatSimulationText(
@@ -47,10 +56,12 @@ export function formatSimulationText(
   envelope: PeakEnvelope | undefined,
   width = 100,
   stressText = "",
+  header: SimulationTextHeader = {},
 ): string {
   const out: string[] = [];
-  out.push(`heatledger simulate: ${profile.name}`);
+  out.push(`heatledger ${header.command ?? "simulate"}: ${profile.name}`);
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
+  if (header.lines !== undefined) out.push(...header.lines);
   const charges = result.outcomes.completed + result.outcomes["timed-out"] + result.outcomes.stalled;
   if (charges > 0) out.push(`pre-charge attempts: ${charges} (${result.outcomes.completed} completed, ${result.outcomes["timed-out"]} timed out, ${result.outcomes.stalled} stalled)`);
   out.push("");

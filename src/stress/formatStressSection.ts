@@ -22,6 +22,17 @@ function num(x: number, digits = 3): string {
   return String(Number(x.toPrecision(digits)));
 }
 
+/** How the damage lines name one pass of the history ("per repetition of the profile", "repetitions"). */
+export interface StressHistoryWords {
+  /** follows the damage figure: "per repetition of the profile" */
+  readonly perRepetition: string;
+  /** follows the count to end of life: "repetitions" */
+  readonly repetitions: string;
+}
+
+/** The words of `simulate`: the history is one repetition of a duty profile. */
+export const PROFILE_HISTORY_WORDS: StressHistoryWords = { perRepetition: "per repetition of the profile", repetitions: "repetitions" };
+
 const STATUS_WORDS = { pass: "pass", fail: "FAIL", "outside-table": "not covered by the table" } as const;
 
 /**
@@ -31,7 +42,7 @@ const STATUS_WORDS = { pass: "pass", fail: "FAIL", "outside-table": "not covered
  * at most about 100 characters; returns a string, prints nothing.
  * Cost O(events + top cycles + warnings).
  */
-export function formatStressSection(partId: string, report: StressReport): string {
+export function formatStressSection(partId: string, report: StressReport, history: StressHistoryWords = PROFILE_HISTORY_WORDS): string {
   const lines: string[] = [`Stress — ${partId}`];
   const checked = report.events.filter((e) => e.pulseEnergy !== undefined || e.soa !== undefined);
   if (checked.length > 0) {
@@ -72,9 +83,9 @@ export function formatStressSection(partId: string, report: StressReport): strin
   );
   const d = report.damage;
   if (d !== undefined) {
-    lines.push(`  damage (${d.model}, Miner's rule): ${num(d.damagePerRepetition)} per repetition of the profile`);
+    lines.push(`  damage (${d.model}, Miner's rule): ${num(d.damagePerRepetition)} ${history.perRepetition}`);
     lines.push(
-      `    end of life after ${num(d.repetitionsToEndOfLife)} repetitions` + (d.yearsToEndOfLife === undefined ? "" : ` (${num(d.yearsToEndOfLife)} years at the stated rate)`),
+      `    end of life after ${num(d.repetitionsToEndOfLife)} ${history.repetitions}` + (d.yearsToEndOfLife === undefined ? "" : ` (${num(d.yearsToEndOfLife)} years at the stated rate)`),
     );
     if (d.topCycles.length > 0) {
       lines.push("    most damaging cycles:");

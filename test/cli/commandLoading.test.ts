@@ -10,7 +10,7 @@ import { cliModuleLoads } from "../helpers/cliModuleLoads.js";
 const FITTING_PACKAGES = ["ml-fcnnls", "ml-levenberg-marquardt", "ml-matrix"];
 
 describe("runCli loads each command's implementation only when it runs", () => {
-  test.each([[["--help"]], [["--version"]], [["simulate", "--help"]], [["network", "--help"]], [["network", "fit", "--help"]], [["size", "--help"]]])(
+  test.each([[["--help"]], [["--version"]], [["simulate", "--help"]], [["replay", "--help"]], [["network", "--help"]], [["network", "fit", "--help"]], [["size", "--help"]]])(
     "%j loads commander and the definitions, no library package and no action module",
     (args) => {
       const loads = cliModuleLoads(args);
@@ -33,6 +33,17 @@ describe("runCli loads each command's implementation only when it runs", () => {
     // of src/plan only the default tables the help texts print
     expect(loads.dist.filter((file) => file.startsWith("dist/plan/"))).toEqual(["dist/plan/planDefaults.js", "dist/plan/sizeDefaults.js", "dist/plan/superviseDefaults.js"]);
     expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual(["dist/cli/commands/simulateAction.js"]);
+  });
+
+  test("replay LOG loads what simulate needs and csv-parse, not the fitting libraries, the planners or the library index", () => {
+    const loads = cliModuleLoads(["replay", "profiles/logs/irrigation-pump-returned-unit.csv", "--profile", "profiles/irrigation-pump-decade.yaml"]);
+    expect(loads.status).toBe(1); // the bundled log crosses the limit
+    expect(loads.dist).toContain("dist/cli/commands/replayAction.js");
+    expect(loads.packages).toEqual(expect.arrayContaining(["yaml", "zod", "csv-parse"]));
+    expect(loads.packages.filter((name) => FITTING_PACKAGES.includes(name))).toEqual([]);
+    expect(loads.dist).not.toContain("dist/index.js");
+    expect(loads.dist.filter((file) => file.startsWith("dist/plan/"))).toEqual(["dist/plan/planDefaults.js", "dist/plan/sizeDefaults.js", "dist/plan/superviseDefaults.js"]);
+    expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual(["dist/cli/commands/replayAction.js"]);
   });
 
   test("network show FILE loads neither the fitting libraries nor the profile schema", () => {

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { registerNetwork } from "./network.js";
+import { registerReplay } from "./replay.js";
 import { registerRetries } from "./retries.js";
 import { registerSimulate } from "./simulate.js";
 import { registerSize } from "./size.js";
@@ -15,4 +16,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerRetries, registerSupervise, registerSize, registerNetwork];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerNetwork];

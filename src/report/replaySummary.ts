@@ -1,0 +1,88 @@
+import type { ProfileStressResult } from "../profile/ProfileStress.js";
+import { type EventLog, logLineAt, logTimestamp } from "../replay/EventLog.js";
+import type { ReplayResult } from "../replay/replayEventLog.js";
+import { formatDuration, formatNumber } from "./formatTable.js";
+
+/** One part's findings from a field log: when it first went above its limit (and on which log line), and its damage to date. */
+export interface ReplayPartSummary {
+  readonly id: string;
+  /** seconds from the log's first line; null when the part never went above its limit */
+  readonly firstExceedanceS: number | null;
+  /** the same moment on the unit's clock (ISO 8601, UTC) for a timestamped log; null otherwise */
+  readonly firstExceedanceTimestamp: string | null;
+  /** the log line in effect then (the last line at or before it) */
+  readonly firstExceedanceLine: { readonly line: number; readonly event: string; readonly note: string } | null;
+  /** Miner damage of the whole log (open history, ASTM E1049 §5.4.4); null without a lifetime model */
+  readonly damageToDate: number | null;
+}
+
+/** What `replay --json` adds under `replay`, and what the text report's header says. */
+export interface ReplaySummary {
+  readonly log: string;
+  readonly lines: number;
+  /** seconds from the first line to the last */
+  readonly spanS: number;
+  readonly timeKind: "seconds" | "timestamp";
+  /** the first line's time on the unit's clock (ISO 8601, UTC) for a timestamped log; null otherwise */
+  readonly startTimestamp: string | null;
+  /** events the profile states itself, ignored by the replay */
+  readonly ignoredProfileEvents: number;
+  readonly parts: readonly ReplayPartSummary[];
+}
+
+/**
+ * The replay's own findings, from the simulation and the stress layer: the log, per part the
+ * first exceedance mapped back onto the log (line, event word, note, timestamp) and the damage to
+ * date (Miner's rule over the log counted as a one-off history).
+ * Cost O(parts × log (lines)).
+ */
+export function replaySummary(log: EventLog, replay: ReplayResult, stress: ProfileStressResult): ReplaySummary {
+  const last = log.lines[log.lines.length - 1]!;
+  return {
+    log: log.file,
+    lines: log.lines.length,
+    spanS: last.timeS,
+    timeKind: log.timeKind,
+    startTimestamp: logTimestamp(log, 0) ?? null,
+    ignoredProfileEvents: replay.ignoredProfileEvents,
+    parts: replay.simulation.parts.map((p, i) => {
+      const t = p.firstExceedanceS;
+      const line = t === undefined ? undefined : logLineAt(log, t);
+      const damage = stress.parts[i]?.report.damage;
+      return {
+        id: p.id,
+        firstExceedanceS: t ?? null,
+        firstExceedanceTimestamp: t === undefined ? null : (logTimestamp(log, t) ?? null),
+        firstExceedanceLine: line === undefined ? null : { line: line.line, event: line.word, note: line.note },
+        damageToDate: damage === undefined ? null : damage.damagePerRepetition,
+      };
+    }),
+  };
+}
+
+/**
+ * The header lines of `replay`'s text report: the log (lines, span, start), the ignored profile
+ * events, and per part the first exceedance on the log and the damage to date.
+ * Cost O(parts).
+ */
+export function formatReplayHeader(summary: ReplaySummary, limitsC: readonly number[]): string[] {
+  const out = [
+    `log ${summary.log}: ${summary.lines} line${summary.lines === 1 ? "" : "s"} over ${formatDuration(summary.spanS)}` +
+      (summary.startTimestamp === null ? " (times in seconds from its first line)" : `, from ${summary.startTimestamp}`),
+    `the profile's own ${summary.ignoredProfileEvents} event${summary.ignoredProfileEvents === 1 ? " is" : "s are"} ignored: its parts, circuit and limits replay the log`,
+  ];
+  summary.parts.forEach((p, i) => {
+    const limit = `${formatNumber(limitsC[i]!, 4)} °C`;
+    if (p.firstExceedanceS === null) out.push(`${p.id}: never above its limit (${limit})`);
+    else {
+      const line = p.firstExceedanceLine!;
+      out.push(`${p.id}: first above its limit (${limit}) during line ${line.line} (${line.event}${line.note === "" ? "" : `: ${line.note}`})`);
+      out.push(
+        `  at ${p.firstExceedanceS.toFixed(3)} s from the first line (${formatDuration(p.firstExceedanceS)})` +
+          (p.firstExceedanceTimestamp === null ? "" : `, ${p.firstExceedanceTimestamp}`),
+      );
+    }
+    out.push(p.damageToDate === null ? "  damage to date not assessed (no lifetime model)" : `  damage to date ${formatNumber(p.damageToDate, 3)} (Miner's rule; 1 = end of cycling life)`);
+  });
+  return out;
+}

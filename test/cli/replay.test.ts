@@ -1,0 +1,87 @@
+import { describe, expect, test } from "vitest";
+import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION } from "../../src/report/cautions.js";
+import { memoryIo } from "../helpers/memoryIo.js";
+
+// In-process runs of `heatledger replay` through the CLI factory, on an invented profile and log.
+const PROFILE = `name: invented 24 V cart
+ambient: 25 degC
+parts:
+  - id: R1
+    role: resistor
+    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 0.2 s }, { r: 2 K/W, tau: 20 s }] }
+    limits: { maxTemperature: 90 degC, margin: 10 K }
+circuit:
+  topology: series-resistor
+  busVoltage: 24 V
+  capacitance: 2.2 mF
+  resistance: 8.2 ohm
+  completion: { fraction: 0.9, timeout: 500 ms }
+  discharge: { kind: bleeder, resistance: 1 kohm }
+events:
+  - power-up: {}
+  - run: 1 h
+`;
+const LOG = `time,event,note
+0,power-up,morning
+3600,power-down,
+3700,power-up,
+3760,note,
+`;
+const files = (log = LOG): Record<string, string> => ({ "dir/cart.yaml": PROFILE, "logs/unit.csv": log });
+
+describe("heatledger replay (in process)", () => {
+  test("the text report names the log, keeps simulate's sections and ends with the cautions", async () => {
+    const io = memoryIo(files());
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--no-chart"], io)).toBe(0);
+    const text = io.stdout.join("");
+    const lines = text.split("\n");
+    expect(lines[0]).toBe("heatledger replay: invented 24 V cart");
+    expect(lines[2]).toBe("log logs/unit.csv: 4 lines over 62.7 min (times in seconds from its first line)");
+    expect(lines[3]).toBe("the profile's own 2 events are ignored: its parts, circuit and limits replay the log");
+    expect(lines[4]).toBe("R1: never above its limit (90.00 °C)");
+    expect(lines[5]).toBe("  damage to date not assessed (no lifetime model)");
+    expect(text).toContain("line 2: power-up (morning)");
+    expect(text).toContain("Verdict: PASS");
+    expect(text).not.toContain("Temperature of R1");
+    expect(text.trimEnd().endsWith(GENERAL_CAUTION.slice(-30))).toBe(true);
+    expect(text).not.toMatch(/NaN/);
+  });
+
+  test("a limit crossed exits 1 and the header gives the moment and the log line", async () => {
+    // twenty shorts 1 s apart: 70 W for 0.5 s each into 2.5 K/W (about 105 °C by the end)
+    const burst = Array.from({ length: 20 }, (_, k) => `${10 + k},short,${k === 0 ? "bus shorted" : ""}`).join("\n");
+    const io = memoryIo(files(`time,event,note\n0,power-up,\n5,power-down,\n${burst}\n60,note,\n`));
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--json"], io)).toBe(1);
+    const json = JSON.parse(io.stdout.join("")) as {
+      verdict: string;
+      parts: { firstExceedanceS?: number }[];
+      replay: { lines: number; parts: { firstExceedanceS: number; firstExceedanceLine: { line: number; event: string } }[] };
+    };
+    expect(json.verdict).toBe("fail");
+    expect(json.replay.lines).toBe(23);
+    const first = json.replay.parts[0]!;
+    expect(first.firstExceedanceLine.event).toBe("short");
+    // the line in effect is the short that started within the second before the crossing
+    expect(10 + (first.firstExceedanceLine.line - 4)).toBe(Math.floor(first.firstExceedanceS));
+  });
+
+  test("--csv refuses to overwrite without --force", async () => {
+    const io = memoryIo({ ...files(), "out.csv": "old" });
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--csv", "out.csv"], io)).toBe(2);
+    expect(io.stderr.join("")).toContain("out.csv: --csv: expected a path that does not exist yet (or add --force to overwrite), found an existing file");
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--csv", "out.csv", "--force"], io)).toBe(0);
+    expect(io.files["out.csv"]!.split("\n")[0]).toContain("R1");
+  });
+
+  test.each([
+    [["replay", "logs/unit.csv"], "heatledger: logs/unit.csv: --profile: expected a duty profile file (--profile FILE) whose parts, circuit and limits replay this log, found nothing\n"],
+    [["replay", "logs/none.csv", "--profile", "dir/cart.yaml"], "heatledger: logs/none.csv: expected a readable event log, found no such file\n"],
+    [["replay", "logs/unit.csv", "--profile", "dir/none.yaml"], "heatledger: dir/none.yaml: expected a readable duty profile, found no such file\n"],
+  ])("%j: exit 2 with one clear line", async (args, message) => {
+    const io = memoryIo(files());
+    expect(await runCli(args, io)).toBe(2);
+    expect(io.stderr.join("")).toBe(message);
+    expect(io.stdout.join("")).toBe("");
+  });
+});
