@@ -67,7 +67,8 @@ export function replaySummary(log: EventLog, replay: ReplayResult, stress: Profi
  */
 export function formatReplayHeader(summary: ReplaySummary, limitsC: readonly number[]): string[] {
   const out = [
-    `log ${summary.log}: ${summary.lines} line${summary.lines === 1 ? "" : "s"} over ${formatDuration(summary.spanS)}` +
+    // "entries": the events the log holds; "line N" elsewhere is a line of the file (header and comments counted)
+    `log ${summary.log}: ${summary.lines} entr${summary.lines === 1 ? "y" : "ies"} over ${formatDuration(summary.spanS)}` +
       (summary.startTimestamp === null ? " (times in seconds from its first line)" : `, from ${summary.startTimestamp}`),
     `the profile's own ${summary.ignoredProfileEvents} event${summary.ignoredProfileEvents === 1 ? " is" : "s are"} ignored: its parts, circuit and limits replay the log`,
   ];

@@ -21,7 +21,7 @@ describe("heatledger replay, the built bin, on the bundled log", () => {
     expect(run.status).toBe(1);
     const lines = run.stdout.split("\n");
     expect(lines[0]).toBe("heatledger replay: 80 V irrigation pump drive, ten years of daily cycles with occasional faults");
-    expect(lines[2]).toBe(`log ${LOG}: 79 lines over 5.03 d, from 2026-06-01T06:00:00.000Z`);
+    expect(lines[2]).toBe(`log ${LOG}: 79 entries over 5.03 d, from 2026-06-01T06:00:00.000Z`);
     expect(lines[3]).toBe("the profile's own 17 events are ignored: its parts, circuit and limits replay the log");
     // the storm's attempts start every 2 s from 06:02:36; the crossing falls in the attempt of line 80
     expect(lines[4]).toBe("precharge-resistor: first above its limit (180.0 °C) during line 80 (overload)");

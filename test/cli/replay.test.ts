@@ -37,7 +37,7 @@ describe("heatledger replay (in process)", () => {
     const text = io.stdout.join("");
     const lines = text.split("\n");
     expect(lines[0]).toBe("heatledger replay: invented 24 V cart");
-    expect(lines[2]).toBe("log logs/unit.csv: 4 lines over 62.7 min (times in seconds from its first line)");
+    expect(lines[2]).toBe("log logs/unit.csv: 4 entries over 62.7 min (times in seconds from its first line)");
     expect(lines[3]).toBe("the profile's own 2 events are ignored: its parts, circuit and limits replay the log");
     expect(lines[4]).toBe("R1: never above its limit (90.00 °C)");
     expect(lines[5]).toBe("  damage to date not assessed (no lifetime model)");
