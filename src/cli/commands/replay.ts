@@ -1,14 +1,15 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 import { LOG_COLUMNS, LOG_WORDS } from "../../replay/logWords.js";
+import { CSV_OPTION, NO_CHART_OPTION } from "./simulate.js";
 
 /** Options of `heatledger replay`: one table drives the flags and their help. */
 export const REPLAY_OPTIONS = [
   { flags: "--profile <file>", help: "duty profile (YAML or JSON) giving the parts, circuit and limits (required; its own events are ignored)" },
   { flags: "--json", help: "print one JSON object (verdict, parts, events, replay) instead of the text report" },
-  { flags: "--csv <file>", help: "write the time series (every step end and local peak, °C per part) to a CSV file" },
+  CSV_OPTION,
   { flags: "--force", help: "overwrite the --csv file if it exists" },
-  { flags: "--no-chart", help: "leave the temperature charts out of the text report" },
+  NO_CHART_OPTION,
 ] as const;
 
 /** What the flags of `heatledger replay` parse to. */

@@ -1,13 +1,18 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 
+/** The time-series flag, shared by the commands that simulate a history (simulate, replay). */
+export const CSV_OPTION = { flags: "--csv <file>", help: "write the time series (every step end and local peak, °C per part) to a CSV file" } as const;
+/** The flag that drops the charts, shared as CSV_OPTION. */
+export const NO_CHART_OPTION = { flags: "--no-chart", help: "leave the temperature charts out of the text report" } as const;
+
 /** Options of `heatledger simulate`: one table drives the flags and their help. */
 export const SIMULATE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (verdict, parts, events) instead of the text report" },
-  { flags: "--csv <file>", help: "write the time series (every step end and local peak, °C per part) to a CSV file" },
+  CSV_OPTION,
   { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" },
   { flags: "--force", help: "overwrite the --csv or --cycles file if it exists" },
-  { flags: "--no-chart", help: "leave the temperature charts out of the text report" },
+  NO_CHART_OPTION,
 ] as const;
 
 /** What the flags of `heatledger simulate` parse to. */
