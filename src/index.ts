@@ -147,7 +147,7 @@ export { defaultCircuitModels } from "./profile/defaultCircuitModels.js";
 export { memoizeCircuitModels, CIRCUIT_MEMO_SIZE } from "./profile/memoizeCircuitModels.js";
 export { expandTimeline } from "./profile/expandTimeline.js";
 export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOptions } from "./profile/expandTimeline.js";
-export { simulateProfile, combinedModel } from "./profile/simulateProfile.js";
+export { simulateProfile, combinedModel, PROGRESS_EVENTS } from "./profile/simulateProfile.js";
 export type { PartVerdict, EventTemperatures, PartResult, SimulationResult, SimulateOptions } from "./profile/simulateProfile.js";
 export { stressPartKind } from "./profile/stressPartKind.js";
 export { mosfetOperatingPoints } from "./profile/mosfetOperatingPoints.js";

@@ -14,6 +14,8 @@ export interface CliIo {
   readonly exists: (path: string) => boolean;
   /** terminal width in columns, for charts and tables */
   readonly columns: number;
+  /** raw writes for a progress line on an interactive terminal (stderr); absent when stderr is not one */
+  readonly progress?: (text: string) => void;
 }
 
 /** Exit status: every limit met. */
@@ -23,7 +25,7 @@ export const EXIT_LIMIT = 1;
 /** Exit status: bad input (file, field or flag). */
 export const EXIT_INPUT = 2;
 
-/** The real process: stdout, stderr, the file system and the terminal width. */
+/** The real process: stdout, stderr, the file system, the terminal width and, when stderr is a terminal, progress. */
 export function processIo(): CliIo {
   return {
     out: (text) => process.stdout.write(text),
@@ -32,5 +34,6 @@ export function processIo(): CliIo {
     writeFile: (path, text) => writeFileSync(path, text, "utf8"),
     exists: (path) => existsSync(path),
     columns: process.stdout.columns ?? 100,
+    ...(process.stderr.isTTY ? { progress: (text: string) => void process.stderr.write(text) } : {}),
   };
 }

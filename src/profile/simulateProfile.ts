@@ -63,7 +63,12 @@ export interface SimulateOptions {
   readonly onPoint?: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => void;
   /** carry the circuit samples on each charging event handed to onEvent (for the SOA check); default false */
   readonly wantSamples?: boolean;
+  /** called every {@link PROGRESS_EVENTS} events with the events opened so far and the profile time reached [s] */
+  readonly onProgress?: (events: number, timeS: number) => void;
 }
+
+/** How many events pass between two calls of SimulateOptions.onProgress (a power of two). */
+export const PROGRESS_EVENTS = 65_536;
 
 /** The powers of a step that heats no part (read only). */
 const NO_POWERS: SourcePowers = Object.freeze([]);
@@ -147,6 +152,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     closeEvent();
     current = event;
     events++;
+    if ((events & (PROGRESS_EVENTS - 1)) === 0) options.onProgress?.(events, event.startS);
     for (let i = 0; i < count; i++) {
       eventPeak[i] = now[i]!;
       eventPeakTime[i] = event.startS;

@@ -15,6 +15,7 @@ import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
+import { simulationProgress } from "../simulationProgress.js";
 import { readTextFile, writeOutputFile } from "../readInputFile.js";
 import type { ReplayFlags } from "./replay.js";
 
@@ -51,19 +52,26 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
   const csv = options.csv === undefined ? undefined : new SimulationCsv(profile.parts.map((p) => p.id));
   const replayed = replayProfile(profile, log);
   const stress = new ProfileStress(replayed, { mode: "open" });
-  const replay = replayEventLog(profile, log, {
-    models: defaultCircuitModels,
-    wantSamples: stress.wantsSamples,
-    onEvent: (event, temperatures) => {
-      digest.add(event, temperatures);
-      stress.addEvent(event);
-    },
-    onPoint: (timeS, temperatureC, kind, eventIndex) => {
-      envelope?.add(timeS, temperatureC);
-      csv?.add(timeS, eventIndex, kind, temperatureC);
-      stress.addPoint(timeS, temperatureC, kind, eventIndex);
-    },
-  }, replayed);
+  const progress = simulationProgress(run.io, "replaying");
+  let replay: ReturnType<typeof replayEventLog>;
+  try {
+    replay = replayEventLog(profile, log, {
+      models: defaultCircuitModels,
+      wantSamples: stress.wantsSamples,
+      onEvent: (event, temperatures) => {
+        digest.add(event, temperatures);
+        stress.addEvent(event);
+      },
+      onPoint: (timeS, temperatureC, kind, eventIndex) => {
+        envelope?.add(timeS, temperatureC);
+        csv?.add(timeS, eventIndex, kind, temperatureC);
+        stress.addPoint(timeS, temperatureC, kind, eventIndex);
+      },
+      onProgress: progress.onProgress,
+    }, replayed);
+  } finally {
+    progress.done();
+  }
   const result = replay.simulation;
   const stressResult = stress.finish(result.endTimeS);
   const summary = replaySummary(log, replay, stressResult);

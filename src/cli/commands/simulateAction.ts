@@ -14,6 +14,7 @@ import { formatCyclesCsv } from "../../stress/formatCyclesCsv.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
 import { readTextFile, writeOutputFile } from "../readInputFile.js";
+import { simulationProgress } from "../simulationProgress.js";
 import type { SimulateFlags } from "./simulate.js";
 
 /**
@@ -34,19 +35,26 @@ export function simulateAction(run: CliRun, file: string, options: SimulateFlags
   const envelope = options.json || !options.chart ? undefined : new PeakEnvelope(profile.parts.length);
   const csv = options.csv === undefined ? undefined : new SimulationCsv(profile.parts.map((p) => p.id));
   const stress = new ProfileStress(profile, { keepCycles: options.cycles !== undefined });
-  const result = simulateProfile(profile, {
-    models: defaultCircuitModels,
-    wantSamples: stress.wantsSamples,
-    onEvent: (event, temperatures) => {
-      digest.add(event, temperatures);
-      stress.addEvent(event);
-    },
-    onPoint: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => {
-      envelope?.add(timeS, temperatureC);
-      csv?.add(timeS, eventIndex, kind, temperatureC);
-      stress.addPoint(timeS, temperatureC, kind, eventIndex);
-    },
-  });
+  const progress = simulationProgress(run.io, "simulating");
+  let result: ReturnType<typeof simulateProfile>;
+  try {
+    result = simulateProfile(profile, {
+      models: defaultCircuitModels,
+      wantSamples: stress.wantsSamples,
+      onEvent: (event, temperatures) => {
+        digest.add(event, temperatures);
+        stress.addEvent(event);
+      },
+      onPoint: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => {
+        envelope?.add(timeS, temperatureC);
+        csv?.add(timeS, eventIndex, kind, temperatureC);
+        stress.addPoint(timeS, temperatureC, kind, eventIndex);
+      },
+      onProgress: progress.onProgress,
+    });
+  } finally {
+    progress.done();
+  }
   const stressResult = stress.finish(result.endTimeS);
   if (csv !== undefined) writeOutputFile(run.io, options.csv!, csv.text(), options.force === true, "--csv");
   let cyclesNote = "";
