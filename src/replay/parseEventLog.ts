@@ -59,7 +59,6 @@ export function parseEventLog(text: string, file: string): EventLog {
   let timeKind: "seconds" | "timestamp" | undefined;
   let first = 0;
   let startEpochMs: number | undefined;
-  let previous: { line: number; timeS: number; text: string } | undefined;
   for (const row of rows.slice(1)) {
     const line = row.info.lines;
     if (row.record.length > header.record.length)
@@ -89,8 +88,9 @@ export function parseEventLog(text: string, file: string): EventLog {
     } else if (kind !== timeKind)
       throw fail(line, "time", `${timeKind === "seconds" ? "seconds (a number)" : "an ISO 8601 timestamp"} like the first line (line ${lines[0]!.line})`, describeFound(timeText));
     const timeS = kind === "seconds" ? value - first : (value - first) / 1000;
+    const previous = lines[lines.length - 1];
     if (previous !== undefined && timeS < previous.timeS)
-      throw fail(line, "time", `a time at or after the previous line's (line ${previous.line}: ${JSON.stringify(previous.text)})`, describeFound(timeText));
+      throw fail(line, "time", `a time at or after the previous line's (line ${previous.line}: ${JSON.stringify(previous.timeText)})`, describeFound(timeText));
     const wordText = cell("event");
     const word = wordText.toLowerCase();
     if (!(LOG_WORD_LIST as readonly string[]).includes(word)) {
@@ -98,7 +98,6 @@ export function parseEventLog(text: string, file: string): EventLog {
       throw fail(line, "event", `one of the event words ${LOG_WORD_LIST.join(", ")}${guess === undefined ? "" : ` (did you mean "${guess}"?)`}`, wordText === "" ? "nothing" : describeFound(wordText));
     }
     lines.push({ line, timeS, timeText, word: word as LogWord, note: cell("note") });
-    previous = { line, timeS, text: timeText };
   }
   return { file, lines, timeKind: timeKind!, ...(startEpochMs === undefined ? {} : { startEpochMs }) };
 }

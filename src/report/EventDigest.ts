@@ -50,11 +50,6 @@ export class EventDigest {
     this.keepHottest = keepHottest;
   }
 
-  /** Closeness of an event to a limit: max over parts of peak − limit [K]. */
-  closeness(record: EventRecord): number {
-    return closenessOf(record.peakTemperatureC, this.limits);
-  }
-
   /** Record an event (in time order). */
   add(event: TimelineEvent, temperatures: EventTemperatures): void {
     this.count++;
@@ -91,7 +86,7 @@ export class EventDigest {
   }
 }
 
-/** max over parts of peak − limit [K]. */
+/** Closeness of an event to a limit: max over parts of peak − limit [K]. */
 function closenessOf(peaksC: readonly number[], limitsC: readonly number[]): number {
   let worst = -Infinity;
   for (let i = 0; i < peaksC.length; i++) worst = Math.max(worst, peaksC[i]! - limitsC[i]!);
