@@ -66,7 +66,8 @@ const ATTEMPT_MEMO_SIZE = 512;
  * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of DESIGN §4.
  * Cost O(corners × parts).
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
- *   or a corner sets a resistance for a topology without a series resistor
+ *   or a corner sets a resistance for a topology without a series resistor; `out-of-range` when
+ *   the lockout map's longest interval is not above its shortest
  */
 export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): ProfileRetrySetup {
   const circuit = profile.circuit;
@@ -138,6 +139,9 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
   });
   const slowest = Math.max(...watched.flatMap((p) => p.model.tauS));
   const attempts = plan.attempts ?? retry.attempts;
+  const mapFromS = plan.map?.from ?? Math.min(retry.intervalS, slowest) / 10;
+  const mapToS = plan.map?.to ?? RETRY_PLAN_DEFAULTS.mapToTauMultiple * slowest;
+  if (!(mapToS > mapFromS)) throw inputError("out-of-range", "retryPlan.map.to", `a longest interval above the shortest (${mapFromS} s)`, `${mapToS} s`);
   return {
     retry,
     fault,
@@ -152,8 +156,8 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
     nearAmbientK: plan.nearAmbient ?? PLAN_DEFAULTS.ambientReturnK,
     map: {
       attempts: plan.map?.attempts ?? Math.max(10, RETRY_PLAN_DEFAULTS.mapAttemptsFactor * retry.attempts),
-      fromS: plan.map?.from ?? Math.min(retry.intervalS, slowest) / 10,
-      toS: plan.map?.to ?? RETRY_PLAN_DEFAULTS.mapToTauMultiple * slowest,
+      fromS: mapFromS,
+      toS: mapToS,
       points: plan.map?.points ?? RETRY_PLAN_DEFAULTS.mapPoints,
     },
     linearMosfet: circuit.topology === "linear-mosfet",
