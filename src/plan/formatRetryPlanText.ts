@@ -56,7 +56,9 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push(`2. Most attempts at an interval of ${formatPlanDuration(setup.intervalS)} (${setup.spacing}):`);
   if (m === null) out.push("   not defined: the interval is shorter than one attempt.");
   else if (m.unlimited) out.push(`   unlimited: retrying for ever at this interval is safe; ${corner(m.governing)}.`);
-  else out.push(`   ${m.attempts}${m.capped ? " or more (the count was capped)" : ""}; attempt ${m.attempts! + 1} would reach ${m.firstUnsafePeakC?.toFixed(1) ?? "?"} °C in corner "${m.governing.corner}" (limit − margin ${m.governing.allowedC.toFixed(1)} °C).`);
+  // a capped count has no unsafe attempt to name (firstUnsafePeakC is null)
+  else if (m.firstUnsafePeakC === null) out.push(`   ${m.attempts} or more (the count was capped); ${corner(m.governing)}.`);
+  else out.push(`   ${m.attempts}; attempt ${m.attempts! + 1} would reach ${m.firstUnsafePeakC.toFixed(1)} °C in corner "${m.governing.corner}" (limit − margin ${m.governing.allowedC.toFixed(1)} °C).`);
   out.push("");
 
   const f = report.forever;

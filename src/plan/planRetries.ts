@@ -10,7 +10,7 @@ import { type UniformIntervalAnswer, minUniformInterval } from "./minUniformInte
 import { type ProfileRetrySetup, profileRetrySetup } from "./profileRetrySetup.js";
 import { type RetryPolicyVerdict, retryPolicyVerdict } from "./retryPolicyVerdict.js";
 import { scanGrid } from "./scanFeasibleBands.js";
-import { InputError, inputError } from "../errors/InputError.js";
+import { InputError } from "../errors/InputError.js";
 
 /** Every answer of the retry plan for one profile. */
 export interface RetryPlanReport {
@@ -47,16 +47,14 @@ export function planRetries(profile: DutyProfile, models: CircuitModels): RetryP
   try {
     max = maxAttempts(corners, setup.intervalS, setup.spacing);
   } catch (error) {
-    // an interval shorter than an attempt has no attempt count; the report says so
+    // an interval shorter than an attempt has no attempt count (max stays null); the report says so
     if (!(error instanceof InputError)) throw error;
-    max = null;
   }
   const forever = minForeverInterval(corners, { spacing: setup.spacing });
   const fastest = fastestSchedule(corners, setup.attempts);
   const candidates = firstWaitCandidates(fastest);
   const backoff = setup.attempts >= 2 && candidates.length > 0 ? backoffRule(corners, setup.attempts, candidates) : null;
   const lockout = lockoutAfterBurst(corners, setup.policy, { ambientReturnK: setup.nearAmbientK });
-  if (!(setup.map.toS > setup.map.fromS)) throw inputError("out-of-range", "retryPlan.map.to", `a longest interval above the shortest (${setup.map.fromS} s)`, `${setup.map.toS} s`);
   const intervals = scanGrid(setup.map.fromS, setup.map.toS, setup.map.points, Math.log10(setup.map.toS / setup.map.fromS)).slice(-setup.map.points);
   const map = lockoutMap(corners, setup.map.attempts, intervals, setup.spacing);
   return { setup, policy, uniformInterval, maxAttempts: max, forever, fastest, backoff, lockout, map };

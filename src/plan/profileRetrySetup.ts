@@ -1,14 +1,14 @@
 import type { ChargeConditions } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
-import type { DutyProfile, FaultSpec, ProfileCircuit, ProfileEvent } from "../profile/DutyProfile.js";
+import type { DutyProfile, FaultSpec, ProfileCircuit } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
+import { type RetryBlock, firstRetryBlock } from "./firstRetryBlock.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import type { AttemptOutcome, RetryScenario } from "./RetryScenario.js";
 import { type BurstPlan, type RetrySpacing, backoffBurst } from "./RetrySchedule.js";
 
-/** The retry block of a profile that the planner works on. */
-export type RetryBlock = Extract<ProfileEvent, { kind: "retry" }>;
+export type { RetryBlock } from "./firstRetryBlock.js";
 
 /** Everything `heatledger retries` needs from a profile, resolved. */
 export interface ProfileRetrySetup {
@@ -52,17 +52,6 @@ export const RETRY_PLAN_DEFAULTS = {
 /** Attempt outcomes remembered per corner and part. */
 const ATTEMPT_MEMO_SIZE = 512;
 
-function findRetry(events: readonly ProfileEvent[]): RetryBlock | undefined {
-  for (const e of events) {
-    if (e.kind === "retry" && e.fault !== undefined) return e;
-    if (e.kind === "repeat") {
-      const inner = findRetry(e.events);
-      if (inner !== undefined) return inner;
-    }
-  }
-  return undefined;
-}
-
 /**
  * Build the planner's corners from a duty profile: the fault of its (first) retry block, its
  * circuit at every corner of `retryPlan.corners` (bus voltage, ambient, capacitance and
@@ -77,12 +66,13 @@ function findRetry(events: readonly ProfileEvent[]): RetryBlock | undefined {
  * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of DESIGN §4.
  * Cost O(corners × parts).
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
- *   or a corner sets a resistance for a topology without a series resistor
+ *   or a corner sets a resistance for a topology without a series resistor; `out-of-range` when
+ *   the lockout map's longest interval is not above its shortest
  */
 export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): ProfileRetrySetup {
   const circuit = profile.circuit;
   if (circuit === undefined) throw inputError("bad-profile", "circuit", "a pre-charge circuit (the retry planner needs one)", "none");
-  const retry = findRetry(profile.events);
+  const retry = firstRetryBlock(profile.events, (block) => block.fault !== undefined);
   if (retry === undefined) throw inputError("bad-profile", "events", "a retry block with a fault (the fault the planner retries into)", "none");
   const fault = retry.fault!;
   const plan = profile.retryPlan ?? {};
@@ -149,6 +139,9 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
   });
   const slowest = Math.max(...watched.flatMap((p) => p.model.tauS));
   const attempts = plan.attempts ?? retry.attempts;
+  const mapFromS = plan.map?.from ?? Math.min(retry.intervalS, slowest) / 10;
+  const mapToS = plan.map?.to ?? RETRY_PLAN_DEFAULTS.mapToTauMultiple * slowest;
+  if (!(mapToS > mapFromS)) throw inputError("out-of-range", "retryPlan.map.to", `a longest interval above the shortest (${mapFromS} s)`, `${mapToS} s`);
   return {
     retry,
     fault,
@@ -163,8 +156,8 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
     nearAmbientK: plan.nearAmbient ?? PLAN_DEFAULTS.ambientReturnK,
     map: {
       attempts: plan.map?.attempts ?? Math.max(10, RETRY_PLAN_DEFAULTS.mapAttemptsFactor * retry.attempts),
-      fromS: plan.map?.from ?? Math.min(retry.intervalS, slowest) / 10,
-      toS: plan.map?.to ?? RETRY_PLAN_DEFAULTS.mapToTauMultiple * slowest,
+      fromS: mapFromS,
+      toS: mapToS,
       points: plan.map?.points ?? RETRY_PLAN_DEFAULTS.mapPoints,
     },
     linearMosfet: circuit.topology === "linear-mosfet",

@@ -48,11 +48,11 @@ export function retryPolicyVerdict(scenarios: readonly RetryScenario[], burst: B
       reasons.push(`corner "${c.name}": attempt ${run.firstUnsafe + 1} of the burst reaches ${run.records[run.firstUnsafe]!.peakC.toFixed(1)} °C, above limit − margin ${c.allowedC.toFixed(1)} °C`);
   }
   const cycleVerdicts = scenarios.map((s, i) => retryForeverCheck(resolveScenario(burstAsAttempt(s, burst), `corners[${i}]`), lockoutS, "end-to-start"));
-  cycleVerdicts.forEach((v) => {
-    if (!v.safe && !v.overlap) {
-      const peak = Math.max(v.transientPeakC, v.steadyPeakC ?? -Infinity);
-      reasons.push(`corner "${v.corner}": repeating burst + ${lockoutS} s lockout while the fault persists reaches ${peak.toFixed(1)} °C, above limit − margin ${v.allowedC.toFixed(1)} °C`);
-    }
+  // each corner's hottest point of the repeated cycle: the way in (transient) or the settled cycle
+  const cyclePeaksC = cycleVerdicts.map((v) => Math.max(v.transientPeakC, v.steadyPeakC ?? -Infinity));
+  cycleVerdicts.forEach((v, i) => {
+    if (!v.safe && !v.overlap)
+      reasons.push(`corner "${v.corner}": repeating burst + ${lockoutS} s lockout while the fault persists reaches ${cyclePeaksC[i]!.toFixed(1)} °C, above limit − margin ${v.allowedC.toFixed(1)} °C`);
   });
   const burstSafe = runs.every(({ run }) => run.overlapAt === null && run.firstUnsafe === null);
   const cyclesSafe = cycleVerdicts.every((v) => v.safe);
@@ -62,7 +62,7 @@ export function retryPolicyVerdict(scenarios: readonly RetryScenario[], burst: B
     burst: governingCorner(burstEntries),
     perCorner: runs.map(({ c, run }) => ({ corner: c.name, attempts: run.records })),
     cyclesSafe,
-    cycles: governingCorner(cycleVerdicts.map((v) => ({ corner: v.corner, peakC: Math.max(v.transientPeakC, v.steadyPeakC ?? -Infinity), allowedC: v.allowedC, limitC: v.limitC, headroomK: v.headroomK }))),
+    cycles: governingCorner(cycleVerdicts.map((v, i) => ({ corner: v.corner, peakC: cyclePeaksC[i]!, allowedC: v.allowedC, limitC: v.limitC, headroomK: v.headroomK }))),
     cycleVerdicts,
     reasons,
   };

@@ -1,4 +1,5 @@
 import type { ProfileEvent } from "../profile/DutyProfile.js";
+import { firstRetryBlock } from "./firstRetryBlock.js";
 import { type BurstPlan, backoffBurst } from "./RetrySchedule.js";
 
 /** The retry policy of a profile: how firmware restarts a pre-charge that did not complete. */
@@ -25,15 +26,8 @@ export interface SupervisedRetryPolicy {
  * Cost O(events + attempts).
  */
 export function profileRetryPolicy(events: readonly ProfileEvent[]): SupervisedRetryPolicy | null {
-  for (const e of events) {
-    if (e.kind === "retry") {
-      const burst = backoffBurst(e.attempts, e.intervalS, e.backoff, e.maxIntervalS);
-      return { field: e.field, attempts: e.attempts, gapsS: burst.gapsS, burst, intervalS: e.intervalS, lockoutS: e.lockoutS };
-    }
-    if (e.kind === "repeat") {
-      const inner = profileRetryPolicy(e.events);
-      if (inner !== null) return inner;
-    }
-  }
-  return null;
+  const e = firstRetryBlock(events);
+  if (e === undefined) return null;
+  const burst = backoffBurst(e.attempts, e.intervalS, e.backoff, e.maxIntervalS);
+  return { field: e.field, attempts: e.attempts, gapsS: burst.gapsS, burst, intervalS: e.intervalS, lockoutS: e.lockoutS };
 }

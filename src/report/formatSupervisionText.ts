@@ -62,7 +62,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   out.push(
     indent(
       formatTable(
-        [{ heading: "check" , align: "right" }, { heading: "lowest healthy [V]", align: "right" }, { heading: "threshold [V]", align: "right" }, { heading: "short energy before [J]", align: "right" }, { heading: "of timeout", align: "right" }, { heading: "usable" }],
+        [{ heading: "check", align: "right" }, { heading: "lowest healthy [V]", align: "right" }, { heading: "threshold [V]", align: "right" }, { heading: "short energy before [J]", align: "right" }, { heading: "of timeout", align: "right" }, { heading: "usable" }],
         report.abortChecks.map((c) => [dur(c.timeS), formatNumber(c.lowestHealthyV, 4), formatNumber(c.thresholdV, 4), formatNumber(c.shortEnergyJ, 4), `${formatNumber(c.shareOfTimeoutEnergy * 100, 3)} %`, c.usable ? "yes" : "no"]),
       ),
     ),

@@ -63,6 +63,13 @@ describe("profileRetrySetup", () => {
     expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow(InputError);
     expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow("events: expected a retry block with a fault (the fault the planner retries into), found none");
   });
+
+  test("a lockout map whose longest interval is not above its shortest is refused, naming both", () => {
+    const text = `${PROFILE("{ type: shorted-output }", "{ kind: none }")}retryPlan:
+  map: { from: 2 s, to: 1 s }
+`;
+    expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow("retryPlan.map.to: expected a longest interval above the shortest (2 s), found 1 s");
+  });
 });
 
 describe("profileRetrySetup with two parts on one network", () => {
