@@ -72,10 +72,10 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
 
   const s = report.fastest;
   out.push(`4. Fastest safe schedule of ${s.requestedAttempts} attempts (each at the earliest moment its own peak stays safe):`);
-  out.push("   attempt   start      wait after previous   ratio    peak °C   governing corner");
+  out.push("   attempt   start      wait after previous   ratio    peak [°C]   governing corner");
   for (const a of s.schedule) {
     out.push(
-      `   ${String(a.attempt).padStart(7)}   ${formatPlanDuration(a.startS).padEnd(9)}  ${(a.waitS === null ? "-" : formatPlanDuration(a.waitS)).padEnd(20)}  ${(a.ratio === null ? "-" : a.ratio.toFixed(2)).padEnd(7)}  ${a.governing.peakC.toFixed(1).padStart(7)}   ${a.governing.corner}`,
+      `   ${String(a.attempt).padStart(7)}   ${formatPlanDuration(a.startS).padEnd(9)}  ${(a.waitS === null ? "-" : formatPlanDuration(a.waitS)).padEnd(20)}  ${(a.ratio === null ? "-" : a.ratio.toFixed(2)).padEnd(7)}  ${a.governing.peakC.toFixed(1).padStart(9)}   ${a.governing.corner}`,
     );
   }
   if (s.stoppedBecause !== null) out.push(`   Stopped: ${s.stoppedBecause}.`);
