@@ -38,11 +38,10 @@ export function networkConvertAction(run: CliRun, file: string, flags: ConvertFl
   }
   const source = flags.source ?? observe;
   const converted = convert(parsed, to as (typeof CONVERT_TARGETS)[number], observe, source);
+  const { written, text } = emitNetwork(run, converted, flags);
   if (flags.json === true) {
-    const { written } = emitNetwork(run, converted, flags);
     run.io.out(`${JSON.stringify({ from: parsed.kind, to, written, network: networkToDocument(converted, flags.name) }, null, 2)}\n`);
     return;
   }
-  const { text } = emitNetwork(run, converted, flags);
   run.io.out(`Converted ${file} from ${parsed.kind} to ${to} form (${"stages" in converted ? converted.stages.length : 0} stages).\n${text}`);
 }
