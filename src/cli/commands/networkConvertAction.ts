@@ -1,4 +1,4 @@
-import { inputError } from "../../errors/InputError.js";
+import { InputError, inputError } from "../../errors/InputError.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
 import { fosterToCauer } from "../../thermal/fosterToCauer.js";
 import { modalToFoster } from "../../thermal/modalToFoster.js";
@@ -34,7 +34,8 @@ export function networkConvertAction(run: CliRun, file: string, flags: ConvertFl
   const parsed = readStructuredFile(run.io, file, "network file", (data) => parseNetwork(data, ""));
   const observe = flags.observe;
   if (parsed.kind === "graph" && observe === undefined && parsed.observed.length > 1) {
-    throw inputError("bad-option", "--observe", `the node whose Zth to convert, one of ${parsed.observed.join(", ")}`, "nothing");
+    // names the file: the nodes to choose from are the file's
+    throw new InputError({ code: "bad-option", file, line: 0, field: "--observe", expected: `the node whose Zth to convert, one of ${parsed.observed.join(", ")}`, found: "nothing" });
   }
   const source = flags.source ?? observe;
   const converted = convert(parsed, to as (typeof CONVERT_TARGETS)[number], observe, source);
