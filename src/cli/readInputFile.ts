@@ -30,19 +30,27 @@ export function readStructuredFile<T>(io: CliIo, path: string, what: string, par
 }
 
 /**
+ * Refuse an output path that exists unless force is set: commands call this before the work, so
+ * a long run does not end in that refusal.
+ * @throws InputError (code bad-option, field flag) when the path exists and force is not set
+ */
+export function refuseExistingOutput(io: CliIo, path: string | undefined, force: boolean, flag: string): void {
+  if (path === undefined || force || !io.exists(path)) return;
+  throw new InputError({
+    code: "bad-option",
+    file: path,
+    line: 0,
+    field: flag,
+    expected: "a path that does not exist yet (or add --force to overwrite)",
+    found: "an existing file",
+  });
+}
+
+/**
  * Write an output file, refusing to overwrite an existing one unless force is set (no data is
  * lost without asking).
  */
 export function writeOutputFile(io: CliIo, path: string, text: string, force: boolean, flag: string): void {
-  if (!force && io.exists(path)) {
-    throw new InputError({
-      code: "bad-option",
-      file: path,
-      line: 0,
-      field: flag,
-      expected: "a path that does not exist yet (or add --force to overwrite)",
-      found: "an existing file",
-    });
-  }
+  refuseExistingOutput(io, path, force, flag);
   io.writeFile(path, text);
 }

@@ -35,4 +35,17 @@ describe("heatledger network convert", () => {
     expect(await runCli(["network", "convert", "f.yaml", ...flags], io)).toBe(2);
     expect(io.stderr.join("")).toBe(message);
   });
+
+  test("network convert of a graph with several observed nodes and no --observe names the file and the nodes", async () => {
+    const graph = JSON.stringify({
+      form: "graph",
+      nodes: [{ id: "a", c: 1 }, { id: "b", c: 2 }],
+      links: [{ from: "a", to: "b", r: 1 }, { from: "b", to: "ambient", r: 2 }],
+      sources: ["a"],
+      observed: ["a", "b"],
+    });
+    const io = memoryIo({ "g.json": graph });
+    expect(await runCli(["network", "convert", "g.json", "--to", "foster"], io)).toBe(2);
+    expect(io.stderr.join("")).toBe("heatledger: g.json: --observe: expected the node whose Zth to convert, one of a, b, found nothing\n");
+  });
 });

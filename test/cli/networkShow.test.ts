@@ -11,6 +11,7 @@ describe("heatledger network show", () => {
     const io = memoryIo({ "n.yaml": "form: foster\nstages:\n  - { r: 1 K/W, tau: 1 s }\n  - { r: 2 K/W, tau: 10 s }\n" });
     expect(await runCli(["network", "show", "n.yaml"], io)).toBe(0);
     const text = io.stdout.join("");
+    // Foster stages in series: total Rth = 1 + 2 K/W (steady state, common practice)
     expect(text).toContain("total Rth = 3.000 K/W");
     expect(text).toContain("Zth [K/W]");
   });
@@ -32,6 +33,7 @@ describe("heatledger network show", () => {
 
   test("the built bin runs network show on a bundled network and exits 2 on a missing file", () => {
     const ok = execFileSync(process.execPath, ["bin/heatledger.js", "network", "show", "profiles/networks/wirewound-resistor-foster.yaml"], { cwd: root, encoding: "utf8" });
+    // the sum of the file's four stage resistances, 0.35 + 0.90 + 1.60 + 2.20 K/W (Foster stages in series, common practice)
     expect(ok).toContain("total Rth = 5.050 K/W");
     const bad = spawnSync(process.execPath, ["bin/heatledger.js", "network", "show", "missing.yaml"], { cwd: root, encoding: "utf8" });
     expect(bad.status).toBe(2);

@@ -1,4 +1,4 @@
-import { inputError } from "../../errors/InputError.js";
+import { InputError, inputError } from "../../errors/InputError.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
 import { fosterToCauer } from "../../thermal/fosterToCauer.js";
 import { modalToFoster } from "../../thermal/modalToFoster.js";
@@ -34,15 +34,15 @@ export function networkConvertAction(run: CliRun, file: string, flags: ConvertFl
   const parsed = readStructuredFile(run.io, file, "network file", (data) => parseNetwork(data, ""));
   const observe = flags.observe;
   if (parsed.kind === "graph" && observe === undefined && parsed.observed.length > 1) {
-    throw inputError("bad-option", "--observe", `the node whose Zth to convert, one of ${parsed.observed.join(", ")}`, "nothing");
+    // names the file: the nodes to choose from are the file's
+    throw new InputError({ code: "bad-option", file, line: 0, field: "--observe", expected: `the node whose Zth to convert, one of ${parsed.observed.join(", ")}`, found: "nothing" });
   }
   const source = flags.source ?? observe;
   const converted = convert(parsed, to as (typeof CONVERT_TARGETS)[number], observe, source);
+  const { written, text } = emitNetwork(run, converted, flags);
   if (flags.json === true) {
-    const { written } = emitNetwork(run, converted, flags);
     run.io.out(`${JSON.stringify({ from: parsed.kind, to, written, network: networkToDocument(converted, flags.name) }, null, 2)}\n`);
     return;
   }
-  const { text } = emitNetwork(run, converted, flags);
   run.io.out(`Converted ${file} from ${parsed.kind} to ${to} form (${"stages" in converted ? converted.stages.length : 0} stages).\n${text}`);
 }

@@ -1,22 +1,17 @@
-import { dirname, isAbsolute, join } from "node:path";
 import { InputError } from "../../errors/InputError.js";
-import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { loadProfile } from "../../profile/loadProfile.js";
 import { ProfileStress } from "../../profile/ProfileStress.js";
 import { parseEventLog } from "../../replay/parseEventLog.js";
 import { replayEventLog, replayProfile } from "../../replay/replayEventLog.js";
-import { EVENT_DIGEST_DEFAULTS, EventDigest } from "../../report/EventDigest.js";
 import { formatProfileStress } from "../../report/formatProfileStress.js";
 import { formatSimulationText } from "../../report/formatSimulationText.js";
-import { PeakEnvelope } from "../../report/PeakEnvelope.js";
 import { formatReplayHeader, replaySummary } from "../../report/replaySummary.js";
-import { SimulationCsv } from "../../report/SimulationCsv.js";
 import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
-import { simulationProgress } from "../simulationProgress.js";
-import { readTextFile, writeOutputFile } from "../readInputFile.js";
+import { readProfileFile } from "../readProfileFile.js";
+import { readTextFile, refuseExistingOutput } from "../readInputFile.js";
+import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { ReplayFlags } from "./replay.js";
 
 /** The damage lines of a replay: one pass of the history is the whole log. */
@@ -39,43 +34,16 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
       expected: "a duty profile file (--profile FILE) whose parts, circuit and limits replay this log",
       found: "nothing",
     });
-  if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
+  refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   const log = parseEventLog(readTextFile(run.io, file, "event log"), file);
-  const profileFile = options.profile;
-  const folder = dirname(profileFile);
-  const located = (path: string): string => (isAbsolute(path) ? path : join(folder, path));
-  const readNamed = Object.assign((path: string): string => readTextFile(run.io, located(path), "file named in the profile"), { displayName: located });
-  const profile = loadProfile(readTextFile(run.io, profileFile, "duty profile"), profileFile, readNamed);
-  // the text report lists at most terminalAll events in order (else the hottest): only --json needs keepAll
-  const digest = new EventDigest(profile.parts.map((p) => p.limitC), options.json ? EVENT_DIGEST_DEFAULTS.keepAll : EVENT_DIGEST_DEFAULTS.terminalAll);
-  const envelope = options.json || !options.chart ? undefined : new PeakEnvelope(profile.parts.length);
-  const csv = options.csv === undefined ? undefined : new SimulationCsv(profile.parts.map((p) => p.id));
+  const profile = readProfileFile(run.io, options.profile);
   const replayed = replayProfile(profile, log);
   const stress = new ProfileStress(replayed, { mode: "open" });
-  const progress = simulationProgress(run.io, "replaying");
-  let replay: ReturnType<typeof replayEventLog>;
-  try {
-    replay = replayEventLog(profile, log, {
-      models: defaultCircuitModels,
-      wantSamples: stress.wantsSamples,
-      onEvent: (event, temperatures) => {
-        digest.add(event, temperatures);
-        stress.addEvent(event);
-      },
-      onPoint: (timeS, temperatureC, kind, eventIndex) => {
-        envelope?.add(timeS, temperatureC);
-        csv?.add(timeS, eventIndex, kind, temperatureC);
-        stress.addPoint(timeS, temperatureC, kind, eventIndex);
-      },
-      onProgress: progress.onProgress,
-    }, replayed);
-  } finally {
-    progress.done();
-  }
+  const { result: replay, digest, envelope, csv } = recordSimulation(run.io, profile, options, stress, "replaying", (simulate) => replayEventLog(profile, log, simulate, replayed));
   const result = replay.simulation;
   const stressResult = stress.finish(result.endTimeS);
   const summary = replaySummary(log, replay, stressResult);
-  if (csv !== undefined) writeOutputFile(run.io, options.csv!, csv.text(), options.force === true, "--csv");
+  const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
   if (options.json) {
     const json = simulationStressJson(simulationJson(replay.profile, result, digest), stressResult, undefined);
     run.io.out(`${JSON.stringify({ ...json, replay: summary }, null, 2)}\n`);
@@ -84,14 +52,9 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
       history: REPLAY_HISTORY_WORDS,
       damageNote: "Damage to date is Miner's rule over the whole log, counted as a one-off history (ASTM E1049 §5.4.4: half cycles from the residue); the cycling life left depends on what the unit did outside the log.",
     });
-    const header = formatReplayHeader(
-      summary,
-      profile.parts.map((p) => p.limitC),
-    );
+    const header = formatReplayHeader(summary, profile.parts.map((p) => p.limitC));
     run.io.out(
-      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header })}\n${
-        csv === undefined ? "" : `Time series: ${csv.rowCount} rows written to ${options.csv}\n`
-      }`,
+      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header })}\n${csvNote}`,
     );
   }
   run.status = result.verdict === "fail" || stressResult.ratingStatus === "fail" ? EXIT_LIMIT : EXIT_OK;

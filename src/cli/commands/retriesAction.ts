@@ -1,13 +1,12 @@
-import { dirname, isAbsolute, join } from "node:path";
 import { formatRetryPlanText } from "../../plan/formatRetryPlanText.js";
 import { lockoutMapCsv } from "../../plan/formatLockoutMap.js";
 import { planRetries } from "../../plan/planRetries.js";
 import { retryPlanJson } from "../../plan/retryPlanJson.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { loadProfile } from "../../profile/loadProfile.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
-import { readTextFile, writeOutputFile } from "../readInputFile.js";
+import { readProfileFile } from "../readProfileFile.js";
+import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
 import type { RetriesFlags } from "./retries.js";
 
 /**
@@ -18,10 +17,8 @@ import type { RetriesFlags } from "./retries.js";
  * @throws InputError for a bad profile, a file it names, or a --csv file that exists without --force
  */
 export function retriesAction(run: CliRun, file: string, options: RetriesFlags): void {
-  if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
-  const folder = dirname(file);
-  const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
+  refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
+  const profile = readProfileFile(run.io, file);
   const report = planRetries(profile, defaultCircuitModels);
   if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
   if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);

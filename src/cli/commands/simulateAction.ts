@@ -1,20 +1,15 @@
-import { dirname, isAbsolute, join } from "node:path";
-import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { loadProfile } from "../../profile/loadProfile.js";
 import { ProfileStress } from "../../profile/ProfileStress.js";
 import { simulateProfile } from "../../profile/simulateProfile.js";
-import { EVENT_DIGEST_DEFAULTS, EventDigest } from "../../report/EventDigest.js";
 import { formatProfileStress } from "../../report/formatProfileStress.js";
 import { formatSimulationText } from "../../report/formatSimulationText.js";
-import { PeakEnvelope } from "../../report/PeakEnvelope.js";
-import { SimulationCsv } from "../../report/SimulationCsv.js";
 import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { formatCyclesCsv } from "../../stress/formatCyclesCsv.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
-import { readTextFile, writeOutputFile } from "../readInputFile.js";
-import { simulationProgress } from "../simulationProgress.js";
+import { readProfileFile } from "../readProfileFile.js";
+import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
+import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { SimulateFlags } from "./simulate.js";
 
 /**
@@ -24,39 +19,13 @@ import type { SimulateFlags } from "./simulate.js";
  * @throws InputError for a bad profile, a file it names, or an output file that exists without --force
  */
 export function simulateAction(run: CliRun, file: string, options: SimulateFlags): void {
-  if (options.csv !== undefined && !options.force && run.io.exists(options.csv)) writeOutputFile(run.io, options.csv, "", false, "--csv");
-  if (options.cycles !== undefined && !options.force && run.io.exists(options.cycles)) writeOutputFile(run.io, options.cycles, "", false, "--cycles");
-  const folder = dirname(file);
-  const located = (path: string): string => (isAbsolute(path) ? path : join(folder, path));
-  const readNamed = Object.assign((path: string): string => readTextFile(run.io, located(path), "file named in the profile"), { displayName: located });
-  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
-  // the text report lists at most terminalAll events in order (else the hottest): only --json needs keepAll
-  const digest = new EventDigest(profile.parts.map((p) => p.limitC), options.json ? EVENT_DIGEST_DEFAULTS.keepAll : EVENT_DIGEST_DEFAULTS.terminalAll);
-  const envelope = options.json || !options.chart ? undefined : new PeakEnvelope(profile.parts.length);
-  const csv = options.csv === undefined ? undefined : new SimulationCsv(profile.parts.map((p) => p.id));
+  refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
+  refuseExistingOutput(run.io, options.cycles, options.force === true, "--cycles");
+  const profile = readProfileFile(run.io, file);
   const stress = new ProfileStress(profile, { keepCycles: options.cycles !== undefined });
-  const progress = simulationProgress(run.io, "simulating");
-  let result: ReturnType<typeof simulateProfile>;
-  try {
-    result = simulateProfile(profile, {
-      models: defaultCircuitModels,
-      wantSamples: stress.wantsSamples,
-      onEvent: (event, temperatures) => {
-        digest.add(event, temperatures);
-        stress.addEvent(event);
-      },
-      onPoint: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => {
-        envelope?.add(timeS, temperatureC);
-        csv?.add(timeS, eventIndex, kind, temperatureC);
-        stress.addPoint(timeS, temperatureC, kind, eventIndex);
-      },
-      onProgress: progress.onProgress,
-    });
-  } finally {
-    progress.done();
-  }
+  const { result, digest, envelope, csv } = recordSimulation(run.io, profile, options, stress, "simulating", (simulate) => simulateProfile(profile, simulate));
   const stressResult = stress.finish(result.endTimeS);
-  if (csv !== undefined) writeOutputFile(run.io, options.csv!, csv.text(), options.force === true, "--csv");
+  const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
   let cyclesNote = "";
   if (options.cycles !== undefined) {
     const parts = stressResult.parts.map((p) => ({ id: p.id, cycles: p.report.cycles, damage: p.report.damage === undefined ? undefined : p.report.cycleDamage }));
@@ -66,7 +35,7 @@ export function simulateAction(run: CliRun, file: string, options: SimulateFlags
   if (options.json) run.io.out(`${JSON.stringify(simulationStressJson(simulationJson(profile, result, digest), stressResult, profile.occursPerYear), null, 2)}\n`);
   else
     run.io.out(
-      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult))}\n${csv === undefined ? "" : `Time series: ${csv.rowCount} rows written to ${options.csv}\n`}${cyclesNote}`,
+      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult))}\n${csvNote}${cyclesNote}`,
     );
   run.status = result.verdict === "fail" || stressResult.ratingStatus === "fail" ? EXIT_LIMIT : EXIT_OK;
 }

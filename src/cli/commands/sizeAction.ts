@@ -1,14 +1,12 @@
-import { dirname, isAbsolute, join } from "node:path";
 import { sizeProfile } from "../../plan/sizeProfile.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { loadProfile } from "../../profile/loadProfile.js";
 import { formatSizingText } from "../../report/formatSizingText.js";
 import { sizingJson } from "../../report/sizingJson.js";
 import { materialPreset } from "../../thermal/materials.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
+import { readProfileFile } from "../readProfileFile.js";
 import type { SizeFlags } from "./size.js";
 
 /**
@@ -20,9 +18,7 @@ import type { SizeFlags } from "./size.js";
 export function sizeAction(run: CliRun, file: string, options: SizeFlags): void {
   const material = options.material === undefined ? undefined : materialPreset(options.material, "--material");
   const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
-  const folder = dirname(file);
-  const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
+  const profile = readProfileFile(run.io, file);
   const report = sizeProfile(profile, {
     models: defaultCircuitModels,
     ...(material === undefined ? {} : { material }),

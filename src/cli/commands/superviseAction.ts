@@ -1,12 +1,10 @@
-import { dirname, isAbsolute, join } from "node:path";
 import { supervisePrecharge } from "../../plan/supervisePrecharge.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { loadProfile } from "../../profile/loadProfile.js";
 import { formatSupervisionText } from "../../report/formatSupervisionText.js";
 import { supervisionJson } from "../../report/supervisionJson.js";
 import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
+import { readProfileFile } from "../readProfileFile.js";
 import type { SuperviseFlags } from "./supervise.js";
 
 /**
@@ -16,9 +14,7 @@ import type { SuperviseFlags } from "./supervise.js";
  * @throws InputError for a bad profile or a file it names
  */
 export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
-  const folder = dirname(file);
-  const readNamed = (path: string): string => readTextFile(run.io, isAbsolute(path) ? path : join(folder, path), "file named in the profile");
-  const profile = loadProfile(readTextFile(run.io, file, "duty profile"), file, readNamed);
+  const profile = readProfileFile(run.io, file);
   const report = supervisePrecharge(profile, defaultCircuitModels);
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
   else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
