@@ -40,8 +40,12 @@ describe("heatledger retries (in process)", () => {
     expect(await runCli(["retries", "p.yaml", "--json"], io)).toBe(0);
     const json = JSON.parse(io.stdout.join("")) as Record<string, any>;
     expect(json["verdict"]).toBe("safe");
+    // One stage (2 K/W, τ = 5 s), 48 W pulses of 0.5 s repeated every T (start to start): the
+    // periodic steady state peaks at P·R·(1 − e^(−tp/τ))/(1 − e^(−T/τ)) (geometric series of the
+    // stage's pulse responses, as derived in test/thermal/periodicSteadyState.test.ts); equal to the
+    // allowed 65 K rise at T = −τ·ln(1 − P·R·(1 − e^(−tp/τ))/65 K). The planner is asked for 0.1 %
+    // (the retry planner's accuracy target); its solver bisects far finer (1e-9).
     const expected = -5 * Math.log(1 - (48 * 2 * -Math.expm1(-0.5 / 5)) / 65);
-    // the 0.1 %; the solver bisects to 1e-9
     expectClose(json["forever"].minimumIntervalS, expected, { rel: 1e-3 });
     expect(json["forever"].governing.corner).toBe("nominal");
     for (const key of ["uniformInterval", "maxAttempts", "fastest", "backoff", "lockout", "map"]) expect(json[key]).toBeDefined();
