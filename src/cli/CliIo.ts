@@ -25,8 +25,26 @@ export const EXIT_LIMIT = 1;
 /** Exit status: bad input (file, field or flag). */
 export const EXIT_INPUT = 2;
 
+let pipesGuarded = false;
+
+/**
+ * When the reader of stdout or stderr goes away early (`heatledger ... | head`), writes fail with
+ * EPIPE: stop quietly with the exit status set so far, as command-line tools do (common practice),
+ * instead of Node's unhandled-error stack trace. Other stream errors are rethrown. Installed once.
+ */
+function guardClosedPipes(): void {
+  if (pipesGuarded) return;
+  pipesGuarded = true;
+  for (const stream of [process.stdout, process.stderr])
+    stream.on("error", (error: NodeJS.ErrnoException) => {
+      if (error.code !== "EPIPE") throw error;
+      process.exit(typeof process.exitCode === "number" ? process.exitCode : 0);
+    });
+}
+
 /** The real process: stdout, stderr, the file system, the terminal width and, when stderr is a terminal, progress. */
 export function processIo(): CliIo {
+  guardClosedPipes();
   return {
     out: (text) => process.stdout.write(text),
     err: (text) => process.stderr.write(text),
