@@ -30,7 +30,7 @@ export interface AttemptPeriodicState {
  * the sum of the geometric series f_m·Σ_k e^(−k·P/tau_m) (each earlier attempt's contribution
  * decayed by whole periods). The steady cycle's attempt is then simulated once from that state
  * (after the wait) to find its peak, interior peaks included.
- * Source: DESIGN §3 (periodic steady state: start-of-cycle state d_m/(1 − e^(−T/tau_m))); the
+ * Source: docs/design.md, "Periodic steady state" ( start-of-cycle state d_m/(1 − e^(−T/tau_m))); the
  * geometric series of decayed pulse responses is the superposition of Incropera et al.,
  * Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, per mode; the resulting
  * periodic-pulse-train form is common practice in power-semiconductor thermal design.

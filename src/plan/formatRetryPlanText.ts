@@ -23,7 +23,7 @@ function bands(list: readonly FeasibleBand[]): string {
 /**
  * The terminal report of `heatledger retries`: the profile's own policy verdict first, then
  * every answer (items 1-6 of the retry planner) with a sentence on how to read it and the corner
- * that governs it, the lockout map as a heat map, and the cautions (DESIGN §8).
+ * that governs it, the lockout map as a heat map, and the cautions (docs/design.md, "Cautions").
  * Cost O(attempts + map cells).
  */
 export function formatRetryPlanText(report: RetryPlanReport, width = 100): string {

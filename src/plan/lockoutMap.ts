@@ -35,7 +35,7 @@ export interface LockoutMap {
 }
 
 /**
- * Issue 6, item 6: the lockout map, worst peak and verdict for every burst length 1..maxAttempts
+ * The lockout map, worst peak and verdict for every burst length 1..maxAttempts
  * and every interval. Each corner runs one burst of maxAttempts per interval; the peak of a
  * burst of n attempts is the highest own peak of its first n attempts (a shorter burst is a prefix
  * of the longer one, and own peaks do not depend on later attempts), so the whole column costs one

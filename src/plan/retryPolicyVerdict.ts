@@ -32,7 +32,7 @@ export interface RetryPolicyVerdict {
  * part (attempt by attempt, own peaks), and the burst followed by the lockout repeated for ever,
  * through retryForeverCheck on the burst taken as one attempt (burstAsAttempt) with the lockout
  * as an end-to-start wait: periodic steady state of the super-cycle in closed form.
- * Source: DESIGN §3 (periodic steady state) applied to the burst + lockout cycle.
+ * Source: docs/design.md, "Periodic steady state" applied to the burst + lockout cycle.
  * Cost O(corners × (N + cycles to settle × N) × cost of one attempt).
  * @throws InputError for bad corners or a lockout that is not finite and ≥ 0
  */

@@ -109,7 +109,7 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
  * carried from event to event and memory stays flat however many events the profile holds.
  * Temperatures are ambient + rise; each part's verdict compares its peak with its limit:
  * fail when peak > limit, warn when limit − margin < peak ≤ limit, else pass.
- * Source: superposition of exact modal responses (DESIGN §3); verdict rule of our own (DESIGN §5).
+ * Source: superposition of exact modal responses (docs/design.md, "Exact integration"); verdict rule of our own (docs/design.md, "Verdicts").
  * Cost O(events × steps per event × parts × modes); memory O(parts × modes).
  * @throws InputError for a circuit value the models reject or a repeat that overruns its period
  */

@@ -1,5 +1,5 @@
 /**
- * The cautions that close every human-readable report (DESIGN §8), declared once.
+ * The cautions that close every human-readable report (docs/design.md, "Cautions"), declared once.
  */
 export const GENERAL_CAUTION =
   "Caution: these results are only as good as the thermal network, circuit values and duty profile supplied. " +

@@ -44,7 +44,7 @@ export interface SimulationTextHeader {
  * The terminal report of a simulation: a header, one row per part (peak, when, limit, margin,
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
- * verdict, and the cautions of DESIGN §8 at the end. Returns a string; the CLI prints it.
+ * verdict, and the cautions (docs/design.md, "Cautions") at the end. Returns a string; the CLI prints it.
  * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
  * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).

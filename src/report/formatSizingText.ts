@@ -7,7 +7,7 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
 /**
  * The terminal report of `heatledger size`: a table of heat capacities per part (adiabatic bound of
  * the worst event, then the whole-profile inversion), the charging-element answer, the verdict and
- * the cautions of DESIGN §8. Every number carries its unit in the column heading; no NaN.
+ * the cautions (docs/design.md, "Cautions"). Every number carries its unit in the column heading; no NaN.
  * Cost O(parts).
  */
 export function formatSizingText(report: SizingReport, width = 100): string {

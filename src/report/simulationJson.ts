@@ -3,7 +3,7 @@ import type { SimulationResult } from "../profile/simulateProfile.js";
 import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./cautions.js";
 import type { EventDigest } from "./EventDigest.js";
 
-/** One event of one part in the JSON report (DESIGN §6). */
+/** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */
 export interface JsonPartEvent {
   readonly index: number;
   readonly kind: string;
@@ -14,7 +14,7 @@ export interface JsonPartEvent {
   readonly outcome: string;
 }
 
-/** The `simulate --json` object (DESIGN §6, with additions that never rename its fields). */
+/** The `simulate --json` object (docs/design.md, "The JSON contract", with additions that never rename its fields). */
 export interface SimulationJson {
   readonly verdict: "pass" | "fail";
   /** pass | warn | fail: warn is a pass inside a part's wanted margin */
@@ -40,7 +40,7 @@ export interface SimulationJson {
 }
 
 /**
- * The machine-readable result of a simulation, as DESIGN §6 fixes it: `verdict` ("pass" | "fail"),
+ * The machine-readable result of a simulation, as docs/design.md ("The JSON contract") fixes it: `verdict` ("pass" | "fail"),
  * and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK and `events`
  * [{index, kind, startS, energyJ, peakTemperatureC, outcome}]. A "warn" (inside the margin, not past
  * the limit) is a pass for the exit status and `verdict`; `detailedVerdict` tells it apart.

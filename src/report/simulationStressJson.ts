@@ -4,7 +4,7 @@ import { type StressJson, stressReportJson } from "../stress/stressReportJson.js
 import type { SimulationJson } from "./simulationJson.js";
 import { LIFETIME_CAUTION } from "../stress/stressCautions.js";
 
-/** `simulate --json` with the stress layer's findings added (DESIGN §6's keys unchanged in name). */
+/** `simulate --json` with the stress layer's findings added (the JSON contract's keys unchanged in name). */
 export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
   /** the temperature verdict alone (the primary check): "fail" when a part passed its limit */
   readonly temperatureVerdict: "pass" | "fail";

@@ -8,7 +8,7 @@ import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
 
 // End to end: spawn the built bin (dist/ is built by vitest's global setup) on the bundled
 // profiles that carry stress keys; check the JSON's stress additions (damage, cycles, rating
-// checks per event, DESIGN §6's keys unchanged), the --cycles CSV and the exit codes.
+// checks per event, the JSON contract's keys unchanged), the --cycles CSV and the exit codes.
 const root = fileURLToPath(new URL("../..", import.meta.url));
 const temp = mkdtempSync(join(tmpdir(), "heatledger-stress-e2e-"));
 afterAll(() => rmSync(temp, { recursive: true, force: true }));
@@ -45,7 +45,7 @@ describe("heatledger simulate with stress keys, the built bin", () => {
     expect(run.status).toBe(json.verdict === "fail" ? 1 : 0);
     expect(json.occursPerYear).toBe(perYear);
     const part = json.parts.find((p) => p.id === partId)!;
-    // DESIGN §6's keys are still there, beside the new `stress`
+    // the JSON contract's keys are still there, beside the new `stress`
     for (const key of ["peakTemperatureC", "peakTimeS", "limitC", "marginK"] as const) expect(Number.isFinite(part[key])).toBe(true);
     expect(part.stress.ratingChecks.length).toBeGreaterThan(0);
     for (const c of part.stress.ratingChecks) expect(c[table]).not.toBeNull();

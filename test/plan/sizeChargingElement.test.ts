@@ -76,7 +76,7 @@ describe("sizeChargingElement: converter and linear MOSFET", () => {
   });
 
   test("linear MOSFET with a source resistor: Rs_max = (Vgate − Vth)·T / (C·k·Vs) while headroom lasts", () => {
-    // I = (Vgate − Vth)/Rs is constant while the MOSFET has headroom (DESIGN §4), so V = I·t/C as for
+    // I = (Vgate − Vth)/Rs is constant while the MOSFET has headroom (the linear-mode model of src/circuits/chargeLinearMosfet.ts), so V = I·t/C as for
     // a current source; at k = 0.5 the MOSFET keeps Vds ≥ 200 V ≫ I·(Rs + RdsOn) until completion.
     // Rs_max = 1.1 V · 2 s / (1.5e-3 F · 200 V) = 7.3333 Ω.
     const circuit: ProfileCircuit = {

@@ -50,7 +50,7 @@ describe("sizeHeatCapacity: inversion of the whole profile", () => {
   test("a train of pulses on one stage: the closed-form geometric sum agrees", () => {
     // N pulses of P for t_p every T: the peak is at the end of the last pulse,
     //   rise = P·R·(1 − e^(−t_p/a))·(1 − e^(−N·T/a))/(1 − e^(−T/a)),  a = k·tau
-    // (superposition of the §5.2 lumped response, DESIGN §3). Solved here for a by plain bisection
+    // (superposition of the §5.2 lumped response, superposed). Solved here for a by plain bisection
     // on ln a (the rise falls as a grows), independently of the library.
     const [p, r, tau, tp, n, period, rise] = [100, 1.5, 20, 0.2, 12, 3, 100];
     const riseAt = (a: number): number => p * r * (1 - Math.exp(-tp / a)) * (1 - Math.exp((-n * period) / a)) / (1 - Math.exp(-period / a));
@@ -72,7 +72,7 @@ describe("sizeHeatCapacity: inversion of the whole profile", () => {
     { name: "two Foster stages, pulse train", stages: [{ r: 0.4, tau: 0.05 }, { r: 2.5, tau: 30 }], pulse: { powerW: 300, durationS: 0.1, count: 20, periodS: 2 }, limitC: 160, marginK: 10 },
     { name: "three Foster stages, one long pulse", stages: [{ r: 0.2, tau: 0.01 }, { r: 1, tau: 2 }, { r: 3, tau: 200 }], pulse: { powerW: 50, durationS: 5, count: 1, periodS: 10 }, limitC: 90, marginK: 0 },
   ])("$name: the returned capacity keeps the peak within 0.1 K under the target, 1 % less crosses it", ({ stages, pulse, limitC, marginK }) => {
-    // Issue 7's acceptance check. The peaks are re-simulated from a network file whose time
+    // Closed loop: the peaks are re-simulated from a network file whose time
     // constants are multiplied by hand (capacity × k at fixed R is tau × k, sizeScaledProfile).
     const answer = sizeHeatCapacity(loadProfile(pulseProfileText(stages, pulse, limitC, marginK), "t.yaml"), 0, { models });
     const target = limitC - marginK;
