@@ -115,7 +115,7 @@ export { coffinMansonCycles, coffinMansonAccelerationFactor, coffinMansonModel }
 export type { CoffinMansonParameters } from "./stress/coffinManson.js";
 export { NORRIS_LANDZBERG_SNPB, norrisLandzbergCycles, norrisLandzbergAccelerationFactor, norrisLandzbergModel } from "./stress/norrisLandzberg.js";
 export type { NorrisLandzbergParameters } from "./stress/norrisLandzberg.js";
-export { MOLAR_GAS_CONSTANT, LESIT_PUBLISHED, LESIT_FITTED, lesitCycles, lesitModel } from "./stress/lesit.js";
+export { LESIT_GAS_CONSTANT, LESIT_PUBLISHED, LESIT_FITTED, lesitCycles, lesitModel } from "./stress/lesit.js";
 export type { LesitParameters } from "./stress/lesit.js";
 export { CIPS2008_PUBLISHED, CIPS2008_FITTED, CIPS2008_PART_FITTED, cips2008Cycles, cips2008Model } from "./stress/cips2008.js";
 export type { Cips2008Coefficients, Cips2008Part, Cips2008Parameters } from "./stress/cips2008.js";

@@ -81,8 +81,9 @@ function knobOf(circuit: ProfileCircuit): { knob: ChargingElementKnob; value: nu
  * For a series resistor with no load the answer has a closed form (used by the tests): the bus
  * reaches k·Vs at t = tau·ln((Vs − V0)/((1 − k)·Vs)), tau = (R + Rsrc)·C, so
  *   R_max = timeout / (C·ln((Vs − V0)/((1 − k)·Vs))) − Rsrc.
- * Source: RC charging, Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4
- * (section from memory); bisection, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
+ * Source: RC charging, Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.8
+ * (driven RC circuit; section from memory); bisection, Press et al., Numerical Recipes, 3rd ed.
+ * (2007), §9.1.
  * Validity: completion is monotone in the value (a slower element never completes sooner), true of
  * every model here with the loads it takes.
  * Cost: about 30 to 60 circuit runs, O(1) each for linear circuits.

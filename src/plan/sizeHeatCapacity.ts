@@ -107,9 +107,9 @@ export interface HeatCapacitySizing {
  *    one's output); for several stages it holds for steps and pulse trains but is not proven for
  *    every power shape, so the answer keeps its bracket: `crossingScale` is a scale that was
  *    simulated and crosses the target.
- * Source: Q = m·c·ΔT, Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011),
- * §1.3.1 and §5.2; time scaling of linear RC networks (sizeScaledProfile); bisection on a bracket,
- * Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
+ * Source: the adiabatic bound Q = m·c·ΔT, Incropera et al., Fundamentals of Heat and Mass Transfer,
+ * 7th ed. (2011), §1.3.1; time scaling of linear RC networks (sizeScaledProfile); bisection on a
+ * bracket, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
  * Validity: the profile's power does not depend on the part's capacity (a MOSFET with a threshold
  * temperature coefficient makes it depend weakly; the inversion still runs the full model).
  * Cost: up to SIZE_DEFAULTS.maxSimulations runs of simulateProfile, usually about 20.

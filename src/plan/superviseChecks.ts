@@ -50,8 +50,9 @@ export function traceEnergyUntil(trace: PowerTrace, timeS: number): number {
  * it. A check is usable when its threshold is at least the measurement floor. The energy a short
  * puts into the part before the check fires is the short-circuit power trace integrated to t;
  * for a series resistor (Vs²·R/(R + Rsrc)²)·t, the Joule heating of a constant current
- * (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §1.4 power, §7.2
- * energy). The recommended check is the usable one with the least short-circuit energy (the
+ * (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §2.4, Joule heating
+ * p = i²R; section from memory). The recommended check is the usable one with the least
+ * short-circuit energy (the
  * earliest: the energy grows with t).
  * Cost O(checks × corners × one circuit run).
  * @param shortTrace the part's power into a short until (at least) the last check

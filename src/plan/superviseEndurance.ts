@@ -74,7 +74,7 @@ function longestSafeTimeout(build: (timeoutS: number) => RetryScenario, check: (
  *   θ(t) = P·R_th + (θ0 − P·R_th)·e^(−t/τ), so θ(t) = ΔT_max at
  *   t_max = −τ·ln((P·R_th − ΔT_max)/(P·R_th − θ0)), from cold t_max = −τ·ln(1 − ΔT_max/(P·R_th)),
  * unbounded when P·R_th ≤ ΔT_max (lumped capacitance, Incropera et al., Fundamentals of Heat and
- * Mass Transfer, 7th ed. (2011), §5.2). General networks and power traces are solved by
+ * Mass Transfer, 7th ed. (2011), §5.1 and §5.3). General networks and power traces are solved by
  * bisection on the exact modal history (AttemptCursor: own peak of the attempt, interior and
  * late peaks included).
  * Cost O(log(1/bisectionRelTol) × cost of one attempt).

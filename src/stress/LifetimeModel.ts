@@ -75,5 +75,8 @@ export function mergeFittedRange(defaults: FittedRange, user: FittedRange | unde
   return { ...defaults, ...(user ?? {}) };
 }
 
-/** Offset from degrees Celsius to kelvin: T[K] = T[°C] + 273.15 (SI brochure, 9th ed., §2.3.1). */
+/**
+ * Offset from degrees Celsius to kelvin: T[K] = T[°C] + 273.15 (SI brochure, 9th ed. (BIPM 2019),
+ * §2.3.1, section from memory).
+ */
 export const CELSIUS_TO_KELVIN = 273.15;
