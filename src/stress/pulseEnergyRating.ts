@@ -59,7 +59,8 @@ export function validatePulseEnergyTable(table: readonly PulseEnergyPoint[], fie
  * which side): ratings are not extrapolated, because below the shortest row the curve flattens
  * toward the adiabatic limit and above the longest it bends toward steady state, neither of
  * which a straight line on log-log axes follows. Source: log-log interpolation of pulse ratings
- * is common practice (rating curves are drawn on log-log axes).
+ * is common practice: rating curves are drawn on log-log axes, where they run as near-straight
+ * lines between the points a maker gives (a power law E ∝ t^a between rows).
  * Cost O(log rows). Assumes a table that passed {@link validatePulseEnergyTable}.
  */
 export function interpolatePulseEnergy(table: readonly PulseEnergyPoint[], durationS: number): PulseEnergyLookup {

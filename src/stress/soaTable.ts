@@ -59,8 +59,10 @@ function allowedOnCurve(curve: SoaCurve, vdsV: number): number | undefined {
  * Shorter than the shortest boundary: that boundary (a shorter pulse is allowed at least as
  * much). Longer than the longest finite boundary: the DC boundary if the table has one, else
  * undefined. Between the longest finite boundary and DC: the DC boundary (conservative).
- * Source: log-log reading of SOA charts is common practice; the choices outside the table are
- * ours and always err toward the lower current.
+ * Source: log-log interpolation of SOA charts is common practice: the boundaries are drawn on
+ * log-log axes, where each segment between corners is a straight line (a power law, I ∝ V^−1 on
+ * the power-limited segment); the choices outside the table are ours and always err toward the
+ * lower current.
  * Cost O(curves + corners). Assumes a table that passed {@link validateSoaTable}.
  * @returns the allowed current [A], or undefined where the table does not cover (V, t)
  */

@@ -24,7 +24,8 @@ describe("chargeConverter", () => {
   });
 
   // Constant power P into C: C·V·dV/dt = P, so V² = Vk² + 2·P·t/C (separable ODE; Hayt,
-  // Kemmerly & Durbin (2012), ch. 7, capacitor energy C·V²/2 grows at P). Below Vk = P/Ilim the
+  // Kemmerly & Durbin, 8th ed. (2012), §7.1, capacitor energy C·V²/2 grows at P; section from
+  // memory). Below Vk = P/Ilim the
   // current limit gives a ramp lasting C·Vk/Ilim.
   test("constant power with a current limit: ramp to P/Ilim, then V² = Vk² + 2·P·t/C (odex path, 1e-8)", () => {
     const p = 500;

@@ -16,11 +16,10 @@ const conditions = (over: Partial<ChargeConditions> & { completion?: ChargeCondi
 
 describe("chargeSeriesResistor: no load", () => {
   // Charging C through R from V0 to Vs: i = C·dV/dt and i·R = Vs − V, so the resistor takes
-  // ∫i²R dt = ∫(Vs − V)·C dV = C·(Vs − V0)²/2, independent of R. Source: Hayt, Kemmerly & Durbin,
-  // Engineering Circuit Analysis, 8th ed. (2012), ch. 8 "Basic RL and RC Circuits", driven RC
-  // circuit (§8.7, section number from memory); the same result is a classic end-of-chapter
-  // problem of the capacitor energy chapter, §7.2 of Irwin & Nelms, Basic Engineering Circuit
-  // Analysis, 10th ed. (section number from memory). A dwell of 60·τ leaves Vs − V = (Vs − V0)·e^−60,
+  // ∫i²R dt = ∫(Vs − V)·C dV = C·(Vs − V0)²/2, independent of R (integrated here). Source of the
+  // response and the relations: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed.
+  // (2012), §8.8 driven RC circuit and §7.1 capacitor (section numbers from memory). A dwell of
+  // 60·τ leaves Vs − V = (Vs − V0)·e^−60,
   // below 1e-26 relative, so the full-charge energy applies to 1e-9.
   test("resistor energy is C·(Vs − V0)²/2 for any R (property, 1e-9 relative)", () => {
     fc.assert(
@@ -45,8 +44,8 @@ describe("chargeSeriesResistor: no load", () => {
   });
 
   // V(t) = Vs·(1 − e^(−t/τ)) reaches 0.95·Vs at t = τ·ln 20 ≈ 2.996·τ. Source: Hayt, Kemmerly &
-  // Durbin (2012), ch. 8, properties of the exponential response (§8.3, from memory: "the
-  // response is within 5 % of its final value after 3 τ").
+  // Durbin, 8th ed. (2012), §8.2, properties of the exponential response (section from memory:
+  // "the response is within 5 % of its final value after 3 τ").
   test.each([
     [100, 1e-3],
     [4.7, 2.2e-3],
@@ -108,8 +107,8 @@ describe("chargeSeriesResistor: no load", () => {
 
 describe("chargeSeriesResistor: loads on the bus", () => {
   // Thévenin: the bus sees Vs·RL/(R + RL) behind R ∥ RL, so Vc → Vs·RL/(R + RL) with
-  // τ' = C·R·RL/(R + RL). Source: Hayt, Kemmerly & Durbin (2012), ch. 5 (Thévenin equivalent;
-  // §5.4, from memory) and ch. 8 (driven RC circuit).
+  // τ' = C·R·RL/(R + RL). Source: Hayt, Kemmerly & Durbin, 8th ed. (2012), §5.3 (Thévenin
+  // equivalent) and §8.8 (driven RC circuit) (section numbers from memory).
   test.each([
     // RL, expected outcome (threshold 95 % of 400 V = 380 V)
     [10_000, "completed"],
@@ -148,7 +147,8 @@ describe("chargeSeriesResistor: loads on the bus", () => {
   });
 
   // Constant-current load I: C·dV/dt = (Vs − V)/R − I, final value Vs − I·R (driven RC circuit,
-  // Hayt, Kemmerly & Durbin (2012), ch. 8). Below 0 V a real load cannot draw: the bus is held at 0 V.
+  // Hayt, Kemmerly & Durbin, 8th ed. (2012), §8.8, section from memory). Below 0 V a real load
+  // cannot draw: the bus is held at 0 V.
   test.each([
     [1, 300, "stalled"],
     [0.1, 390, "completed"],

@@ -10,7 +10,7 @@ import { expectClose } from "../helpers/expectClose.js";
 //   C·dV/dt = (Vs − V)/R − P/V   ⇔   R·C·V·dV/dt = −(V² − Vs·V + P·R).
 // Equilibria: (Vs − V)·V = P·R, i.e. V = (Vs ± √(Vs² − 4·P·R))/2, real only for P ≤ Vs²/(4R)
 // (the maximum power transfer of a source behind R; Hayt, Kemmerly & Durbin, Engineering Circuit
-// Analysis, 8th ed. (2012), ch. 5, maximum power transfer, §5.5 from memory). Between the roots
+// Analysis, 8th ed. (2012), §5.4, section from memory). Between the roots
 // dV/dt > 0 and above the upper root dV/dt < 0, so the upper root r1 is the stable one and a bus
 // started between the roots settles there (phase-line argument: Hirsch, Smale & Devaney,
 // Differential Equations, Dynamical Systems, and an Introduction to Chaos, 3rd ed. (2013), ch. 1, from memory).

@@ -3,7 +3,7 @@ import { fosterToModal, lockoutAfterBurst, uniformBurst } from "../../src/index.
 import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 
-// One RC stage (lumped capacitance, Incropera et al., 7th ed. (2011), §5.2, eq. 5.6). A burst of N
+// One RC stage (lumped capacitance, Incropera et al., 7th ed. (2011), §5.1 and §5.3). A burst of N
 // pulses every T from ambient ends at θN = S·(1 − q^N)/(1 − q), S = P·R·(1 − e^(−t_on/τ)), q = e^(−T/τ).
 // After a lockout L (from the end of the burst's last pulse) a second burst's k-th pulse ends at
 //   θN·e^(−L/τ)·e^(−((k − 1)·T + t_on)/τ) + S·(1 − q^k)/(1 − q),

@@ -6,7 +6,7 @@ import { rectangularFault } from "./scenarios.js";
 
 // Closed form for one RC stage (R, τ) and rectangular attempts of power P and length t_on repeated
 // every T (start to start). From the lumped-capacitance solution (Incropera et al., Fundamentals
-// of Heat and Mass Transfer, 7th ed. (2011), §5.2, eq. 5.6 and its heated form), a pulse raises
+// of Heat and Mass Transfer, 7th ed. (2011), §5.1, eq. 5.6, and §5.3 with heating), a pulse raises
 // θ0 to θ0·a + P·R·(1 − a) with a = e^(−t_on/τ), and the gap then multiplies by e^(−(T − t_on)/τ).
 // In the periodic steady state the start-of-cycle rise θs repeats:
 //   θs = (θs·a + P·R·(1 − a))·e^(−(T − t_on)/τ)  ⇒  θs = P·R·(1 − a)·e^(−(T − t_on)/τ)/(1 − e^(−T/τ)),

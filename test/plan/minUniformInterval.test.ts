@@ -5,7 +5,7 @@ import { firstOnGrid, linspace, superposedPeak, uniformPulses, wholeTracePeak } 
 import { chargeThenTrip, rectangularFault } from "./scenarios.js";
 
 // One RC stage, N rectangular pulses every T from ambient: by the lumped-capacitance solution
-// (Incropera et al., 7th ed. (2011), §5.2, eq. 5.6) and a geometric series, the n-th pulse ends at
+// (Incropera et al., 7th ed. (2011), §5.1 and §5.3) and a geometric series, the n-th pulse ends at
 // P·R·(1 − e^(−t_on/τ))·(1 − q^n)/(1 − q), q = e^(−T/τ), highest at n = N. The test solves
 // P·R·(1 − a)·(1 + q + … + q^(N−1)) = ΔT_max for q by its own bisection (the sum rises with q).
 function closedFormInterval(R: number, tau: number, P: number, onS: number, N: number, dT: number): number {

@@ -10,7 +10,7 @@ const common = { load: { kind: "none" as const }, discharge: { kind: "none" as c
 
 describe("sizeChargingElement: series resistor", () => {
   // RC charging from V0 through Rt = R + Rsrc (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis,
-  // 8th ed., §8.4, from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C. Setting V = k·Vs:
+  // 8th ed. (2012), §8.8, section from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C. Setting V = k·Vs:
   //   (1 − k)·Vs = (Vs − V0)·e^(−t/τ)  ⇒  t = τ·ln((Vs − V0)/((1 − k)·Vs)).
   // Completion within the timeout T needs t ≤ T, so the largest total resistance is
   //   Rt_max = T / (C·ln((Vs − V0)/((1 − k)·Vs))),  R_max = Rt_max − Rsrc   (here V0 = 0).
@@ -52,7 +52,7 @@ describe("sizeChargingElement: series resistor", () => {
 
 describe("sizeChargingElement: converter and linear MOSFET", () => {
   test("constant-current converter: I_min = C·k·Vs / T", () => {
-    // C·dV/dt = I (Hayt et al., ch. 7, capacitor charged by a constant current): V = I·t/C, so
+    // C·dV/dt = I (Hayt et al., §7.1, capacitor charged by a constant current): V = I·t/C, so
     // reaching k·Vs by T needs I ≥ C·k·Vs/T = 2e-3 · 0.95 · 400 / 0.8 = 0.95 A.
     const circuit: ProfileCircuit = { ...common, topology: "converter", busVoltageV: 400, capacitanceF: 2e-3, mode: "constant-current", currentA: 3, efficiency: 0.9, completion: { fraction: 0.95, timeoutS: 0.8 } };
     const answer = sizeChargingElement(circuit, defaultCircuitModels);

@@ -31,7 +31,7 @@ const models = defaultCircuitModels;
 describe("sizeHeatCapacity: inversion of the whole profile", () => {
   test("one rectangular pulse on one stage: the closed-form scale lies inside the returned bracket", () => {
     // Lumped capacitance with constant heating from rest (Incropera et al., Fundamentals of Heat and
-    // Mass Transfer, 7th ed., §5.2; the general lumped solution of §5.3, eq. numbers from memory):
+    // Mass Transfer, 7th ed. (2011), §5.1 and §5.3, the general lumped solution):
     // rise(t) = P·R·(1 − e^(−t/(k·tau))), highest at the pulse end t_p. Setting it to ΔT:
     //   k = t_p / (tau·ln(1/(1 − ΔT/(P·R)))) = 0.5 / ln(1/0.375) = 0.509770...
     // (P = 100 W, R = 2 K/W, tau = 1 s, t_p = 0.5 s, ΔT = 150 − 25 = 125 K.)
@@ -50,7 +50,7 @@ describe("sizeHeatCapacity: inversion of the whole profile", () => {
   test("a train of pulses on one stage: the closed-form geometric sum agrees", () => {
     // N pulses of P for t_p every T: the peak is at the end of the last pulse,
     //   rise = P·R·(1 − e^(−t_p/a))·(1 − e^(−N·T/a))/(1 − e^(−T/a)),  a = k·tau
-    // (superposition of the §5.2 lumped response, superposed). Solved here for a by plain bisection
+    // (the §5.1/§5.3 lumped response, superposed). Solved here for a by plain bisection
     // on ln a (the rise falls as a grows), independently of the library.
     const [p, r, tau, tp, n, period, rise] = [100, 1.5, 20, 0.2, 12, 3, 100];
     const riseAt = (a: number): number => p * r * (1 - Math.exp(-tp / a)) * (1 - Math.exp((-n * period) / a)) / (1 - Math.exp(-period / a));
@@ -101,10 +101,10 @@ describe("sizeHeatCapacity: inversion of the whole profile", () => {
 
 describe("sizeHeatCapacity: adiabatic bound", () => {
   test("one power-up through a series resistor: C = E/ΔT, m = E/(c·ΔT), and the inversion agrees for a slow part", () => {
-    // Energy in the resistor while C charges from 0 to V1 = f·Vs (Hayt et al., §8.4 RC charging;
+    // Energy in the resistor while C charges from 0 to V1 = f·Vs (Hayt et al., §8.8 RC charging;
     // energy by the capacitor's charge balance): E = ∫(Vs − V)·i dt = ∫C·(Vs − V) dV = C·(Vs·V1 − V1²/2)
     //   = 1e-3 F · (100 V)² · (0.95 − 0.95²/2) = 4.9875 J.
-    // Adiabatic bound, Q = m·c·ΔT (Incropera et al., 7th ed., §1.3.1): ΔT = 75 − 25 = 50 K,
+    // Adiabatic bound, Q = m·c·ΔT (Incropera et al., 7th ed. (2011), §1.3.1): ΔT = 75 − 25 = 50 K,
     //   C = 4.9875/50 = 0.09975 J/K; copper c = 385 J/(kg·K) (Incropera Table A.1, from memory):
     //   m = 4.9875 / (385 · 50) = 2.5909e-4 kg = 0.259 g.
     const text = `name: adiabatic test

@@ -18,7 +18,7 @@ import { MODELS, ONE_STAGE_BASE, type OneStageSettings, oneStageProfile } from "
 // One Foster stage (R_th, τ) heated by a series resistor into a shorted output: the bus is held at
 // 0 V, so the resistor dissipates the constant P = Vs²/R (no source resistance) for the whole
 // timeout. Lumped capacitance (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed.
-// (2011), §5.2): dθ/dt = (P·R_th − θ)/τ, so from θ0
+// (2011), §5.1 and §5.3): dθ/dt = (P·R_th − θ)/τ, so from θ0
 //   θ(t) = P·R_th + (θ0 − P·R_th)·e^(−t/τ),
 // which rises monotonically; setting θ(t_max) = ΔT_max (limit − margin − ambient) gives
 //   t_max = −τ·ln((P·R_th − ΔT_max)/(P·R_th − θ0)),
@@ -124,7 +124,8 @@ describe("supervisePrecharge: the timeout window and checks", () => {
   const report = supervisePrecharge(profile, MODELS);
 
   test("lower end = τ·ln((Vs − V0)/((1 − k)·Vs)) of the worst corner (textbook RC charging)", () => {
-    // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4: Vc(t) = Vs − (Vs − V0)e^(−t/RC).
+    // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.8 (driven RC circuit,
+    // section from memory): Vc(t) = Vs − (Vs − V0)e^(−t/RC).
     // Worst corner: C = 2 mF, k = 0.95, and Vs = 50 V (with V0 = 5 V the ratio (Vs − V0)/((1 − k)Vs)
     // is 18 at 50 V against 17.5 at 40 V). The model is closed form too; 1e-9 covers rounding.
     const tau = 10 * 2e-3;
@@ -150,7 +151,7 @@ describe("supervisePrecharge: the timeout window and checks", () => {
     const check = report.recommendedAbort!;
     expect(check.usable).toBe(true);
     // every corner simulated on its own by the circuit model (a fixed dwell ending at the check)
-    // and by the textbook closed form (Hayt §8.4): both above the threshold
+    // and by the textbook closed form (Hayt §8.8): both above the threshold
     for (const corner of healthyCorners(profile.supervision!, profile.circuit!)) {
       const run = chargeSeriesResistor(
         { resistanceOhm: 10, capacitanceF: corner.capacitanceF },
@@ -160,7 +161,7 @@ describe("supervisePrecharge: the timeout window and checks", () => {
       expectClose(run.endVoltageV, closed, { rel: 1e-9 });
       expect(run.endVoltageV).toBeGreaterThan(check.thresholdV);
     }
-    // Joule heating of the constant short current Vs/R for t_check (Hayt §1.4); exact segment integral
+    // Joule heating of the constant short current Vs/R for t_check (Hayt §2.4); exact segment integral
     expectClose(check.shortEnergyJ, P * check.timeS, { rel: 1e-12 });
     // the threshold keeps the stated margin below the slowest corner
     expectClose(check.thresholdV, (1 - SUPERVISE_DEFAULTS.checkMarginFraction) * check.lowestHealthyV, { rel: 1e-12 });

@@ -5,8 +5,9 @@ import { expectClose } from "../helpers/expectClose.js";
 // A quick retry starts from a partly charged capacitor. Charging C from V0 to V1 from a source Vs
 // through any resistance R dissipates ∫(Vs − V)·C dV = C·[(Vs − V0)² − (Vs − V1)²]/2 in R
 // (energy balance of the RC charge: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th
-// ed. (2012), §8.4, with i = C·dV/dt), so it is less than from empty; between the events the
-// bleeder Rb leaves V0 = Vs·e^(−t/(Rb·C)) (§8.1, source-free RC circuit).
+// ed. (2012), §8.8 driven RC circuit, with i = C·dV/dt), so it is less than from empty; between
+// the events the bleeder Rb leaves V0 = Vs·e^(−t/(Rb·C)) (§8.3, source-free RC circuit)
+// (section numbers from memory).
 const VS = 48;
 const C = 4.7e-3;
 const R = 10;

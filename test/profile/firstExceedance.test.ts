@@ -5,8 +5,8 @@ import { expectClose } from "../helpers/expectClose.js";
 // The first time a part goes above its limit is found exactly inside the step where it happens
 // (ThermalRun's crossing levels), not at the first reported point after it. Checked against the
 // closed forms of a single RC stage: a step of power P gives rise(t) = P·R·(1 − e^(−t/τ)) (the
-// first-order step response; e.g. Incropera et al., Fundamentals of Heat and Mass Transfer, 6th
-// ed., §5.2, lumped capacitance — section from memory), and a decaying pulse a·e^(−λt) gives
+// first-order step response; lumped capacitance, Incropera et al., Fundamentals of Heat and Mass
+// Transfer, 7th ed. (2011), §5.1 and §5.3), and a decaying pulse a·e^(−λt) gives
 // rise(t) = a·R/(1 − λτ)·(e^(−λt) − e^(−t/τ)) (variation of constants, derived here: y' = (P − y)/τ,
 // y(0) = 0).
 

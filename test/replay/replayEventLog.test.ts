@@ -117,11 +117,11 @@ describe("replayEventLog", () => {
 
   // (b) Outside check. One "short" line into a 10 ohm series resistor on a 48 V bus, no source
   // resistance: the bus is held at 0 V, so the resistor dissipates P = V²/R = 230.4 W for the whole
-  // 30 s timeout (Joule heating, Ohm's law; any circuits textbook, e.g. Hayt & Kemmerly,
-  // Engineering Circuit Analysis, ch. 1-2 — from memory). Its single RC stage (R_th = 2 K/W,
-  // τ = 5 s) rises as P·R_th·(1 − e^(−t/τ)) (first-order step response; Incropera et al.,
-  // Fundamentals of Heat and Mass Transfer, 6th ed., §5.2, lumped capacitance — section from
-  // memory). From 25 °C the 325 °C limit (a 300 K rise) is first crossed at
+  // 30 s timeout (Joule heating, Ohm's law; Hayt, Kemmerly & Durbin, Engineering Circuit Analysis,
+  // 8th ed. (2012), §2.4, section from memory). Its single RC stage (R_th = 2 K/W, τ = 5 s) rises
+  // as P·R_th·(1 − e^(−t/τ)) (first-order step response; lumped capacitance, Incropera et al.,
+  // Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3). From 25 °C the
+  // 325 °C limit (a 300 K rise) is first crossed at
   // t = −τ·ln(1 − 300/(P·R_th)) ≈ 5.26 s, and the peak at the end of the timeout is
   // 25 + P·R_th·(1 − e^(−6)). The crossing is found by bisection on exact rises (1e-9 relative, as
   // test/profile/firstExceedance.test.ts).

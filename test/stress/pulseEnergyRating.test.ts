@@ -2,7 +2,14 @@ import { describe, expect, test } from "vitest";
 import { InputError, checkPulseEnergy, equivalentPulseDurationS, interpolatePulseEnergy, validatePulseEnergyTable } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 
-// An invented rating table (demo data, not any maker's part).
+// An invented rating table (demo data, not any maker's part). What the checks rest on:
+// - log-log interpolation between rows is common practice (rating curves are drawn on log-log axes
+//   and run as near-straight lines between the rows a maker gives): the expected values below are
+//   that rule's algebra, worked by hand, not values of any table;
+// - the equivalent rectangular pulse t_eq = E/P_peak is common practice; the RC-charging pulse it
+//   is checked on is textbook circuit analysis (Hayt, Kemmerly & Durbin, Engineering Circuit
+//   Analysis, 8th ed. (2012), §8.8 driven RC circuit and §7.1 capacitor energy; sections from memory);
+// - pass, fail and the table checks are the module's own definitions, checked on hand arithmetic.
 const table = [
   { durationS: 1e-3, energyJ: 5 },
   { durationS: 1e-2, energyJ: 20 },
@@ -15,9 +22,10 @@ describe("interpolatePulseEnergy", () => {
   });
 
   test.each([
-    // [duration, expected energy]: log-log linear between rows, so at the geometric mean of two
-    // durations the energy is the geometric mean of their energies: sqrt(5·20) = 10,
-    // sqrt(20·400) = 89.44...; at 10^(-2 + 2/4) s (a quarter of the way in log t) E = 20·20^(1/4).
+    // [duration, expected energy], worked by hand from the rule ln E linear in ln t (common
+    // practice, see the top): at the geometric mean of two durations the energy is the geometric
+    // mean of their energies, sqrt(5·20) = 10 and sqrt(20·400) = 89.44...; at 10^(-1.5) s, a
+    // quarter of the way from 10 ms to 1 s in log t, E = 20·(400/20)^(1/4) = 20·20^(1/4).
     [Math.sqrt(1e-3 * 1e-2), Math.sqrt(5 * 20)],
     [Math.sqrt(1e-2 * 1), Math.sqrt(20 * 400)],
     [10 ** -1.5, 20 * 20 ** 0.25],
@@ -50,8 +58,10 @@ describe("equivalentPulseDurationS", () => {
   });
 
   test("a resistor charging a capacitor gives RC/2", () => {
-    // P(t) = V²/R·e^(−2t/RC): peak V²/R, energy C·V²/2 dissipated in the resistor over a full
-    // charge whatever R is (the textbook RC-charging energy balance; section not quoted, from memory).
+    // From empty, the driven RC circuit (Hayt, Kemmerly & Durbin, 8th ed. (2012), §8.8, section
+    // from memory) has i = (V/R)·e^(−t/RC), so P(t) = V²/R·e^(−2t/RC): peak V²/R, and over a full
+    // charge ∫P dt = (V²/R)·RC/2 = C·V²/2 whatever R is (the capacitor's stored energy, §7.1).
+    // Then t_eq = (C·V²/2)/(V²/R) = RC/2, the usual rule for such pulses (common practice).
     const V = 400;
     const R = 47;
     const C = 2e-3;
@@ -61,6 +71,7 @@ describe("equivalentPulseDurationS", () => {
 
 describe("checkPulseEnergy", () => {
   test("passes within the rating and fails past it, at t_eq = E/P_peak", () => {
+    // hand arithmetic: t_eq = 15 J / 1500 W = 10 ms, a row of the table (20 J), so 15/20 = 0.75
     const ok = checkPulseEnergy(table, 15, 1500); // t_eq = 10 ms: rated 20 J
     expect(ok.status).toBe("pass");
     expect(ok.utilisation).toBeCloseTo(0.75, 15);

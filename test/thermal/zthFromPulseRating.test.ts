@@ -66,8 +66,8 @@ describe("zthFromPulseRating", () => {
   test("for pulses much shorter than every tau the rated energy tends to C·ΔT (adiabatic limit)", () => {
     // One stage R = 2 K/W, C = 0.5 J/K (tau 1 s): a 1 µs pulse heats adiabatically, so
     // E_max → C·ΔT = 0.5 J/K · 250 K = 125 J and Zth(t_p) → t_p/C.
-    // Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2
-    // (lumped capacitance with negligible outflow). Relative gap t_p/(2·tau) = 5e-7 sets 1e-6.
+    // Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and
+    // §5.3 (lumped capacitance with negligible outflow). Relative gap t_p/(2·tau) = 5e-7 sets 1e-6.
     const one = fosterToModal({ kind: "foster", stages: [{ rKPerW: 2, tauS: 1 }] });
     const tp = 1e-6;
     const energy = (250 * tp) / zth(one, tp);
