@@ -11,7 +11,8 @@ const cond = { sourceVoltageV: 400, initialVoltageV: 0, completion: { fraction: 
 
 describe("chargeLinearMosfet", () => {
   // Constant current into C: V = V0 + I·t/C (Hayt, Kemmerly & Durbin, Engineering Circuit
-  // Analysis, 8th ed. (2012), §7.1, capacitor v = (1/C)∫i dt, section from memory). With I·dt = C·dV the MOSFET takes
+  // Analysis, 8th ed. (2012), §7.1, capacitor v = (1/C)∫i dt, section from memory). With
+  // I·dt = C·dV the MOSFET takes
   // ∫(Vs − V − I·Rs)·I dt = C·[(Vs − I·Rs)·(V1 − V0) − (V1² − V0²)/2] and Rs takes I²·Rs·t.
   test("current-source stretch: linear ramp, MOSFET energy C·[(Vs − I·Rs)·ΔV − Δ(V²)/2]", () => {
     // Rds(on) small: the knee 400 − 2·4.1 = 391.8 V lies above the 380 V threshold

@@ -80,7 +80,8 @@ describe("heatledger simulate with stress keys, the built bin", () => {
     const file = join(temp, "rated.yaml");
     // 50 W for 2 s: 100 J at t_eq = 2 s against an invented 80 J row at 2 s (the 1 ns fall puts
     // t_eq a hair past the row, still inside the table: about 80 J, 125 %); the peak rise
-    // 50·2·(1 − e^−2) = 86.5 K stays under the 150 °C limit from 25 °C (lumped stage, Incropera §5.1 and §5.3)
+    // 50·2·(1 − e^−2) = 86.5 K stays under the 150 °C limit from 25 °C (lumped stage, Incropera
+    // §5.1 and §5.3)
     writeFileSync(
       file,
       "name: rated\nambient: 25 degC\nparts:\n  - id: r\n    network: { form: foster, stages: [{ r: 2 K/W, tau: 1 s }] }\n    limits: { maxTemperature: 150 degC }\n" +

@@ -74,7 +74,8 @@ async function runJson(p: Pulses, extra: string[] = []): Promise<{ status: numbe
 }
 
 // A single RC stage heated by P for t = 1 s from ambient rises by P·R·(1 − e^(−t/tau)) (lumped
-// capacitance: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3), then
+// capacitance: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and
+// §5.3), then
 // cools back to ambient: one closed temperature cycle per pulse, range ΔT = P·R·(1 − e^(−2)).
 const rangeOf = (powerW: number) => powerW * 1 * (1 - Math.exp(-2));
 

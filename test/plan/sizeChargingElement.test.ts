@@ -10,7 +10,8 @@ const common = { load: { kind: "none" as const }, discharge: { kind: "none" as c
 
 describe("sizeChargingElement: series resistor", () => {
   // RC charging from V0 through Rt = R + Rsrc (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis,
-  // 8th ed. (2012), §8.8, section from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C. Setting V = k·Vs:
+  // 8th ed. (2012), §8.8, section from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C.
+  // Setting V = k·Vs:
   //   (1 − k)·Vs = (Vs − V0)·e^(−t/τ)  ⇒  t = τ·ln((Vs − V0)/((1 − k)·Vs)).
   // Completion within the timeout T needs t ≤ T, so the largest total resistance is
   //   Rt_max = T / (C·ln((Vs − V0)/((1 − k)·Vs))),  R_max = Rt_max − Rsrc   (here V0 = 0).

@@ -41,7 +41,8 @@ describe("heatledger size (in process)", () => {
     expect(part.inversion.peakTemperatureC).toBeLessThanOrEqual(part.targetC);
     expect(part.inversion.peakTemperatureC).toBeGreaterThan(part.targetC - 0.1);
     // RC charging to 95 % of 400 V from 0 V with 1 mF in 500 ms, no source resistance (Hayt et al.,
-    // Engineering Circuit Analysis, 8th ed. (2012), §8.8, section from memory): R_max = 0.5 / (1e-3·ln 20) = 166.90 Ω
+    // Engineering Circuit Analysis, 8th ed. (2012), §8.8, section from memory):
+    // R_max = 0.5 / (1e-3·ln 20) = 166.90 Ω
     expect(json.circuit.field).toBe("circuit.resistance");
     expectClose(json.circuit.value, 0.5 / (1e-3 * Math.log(20)), { rel: 1e-6 });
   });

@@ -28,7 +28,8 @@ events:
   });
 
   test("the first capacity of a Cauer ladder heated and observed at its first node is C1 (initial slope of Zth is 1/C1)", () => {
-    // Incropera et al., 7th ed. (2011), §5.1 and §5.3: at t → 0 no heat has left the first lump, dT/dt = P/C1
+    // Incropera et al., 7th ed. (2011), §5.1 and §5.3: at t → 0 no heat has left the first lump,
+    // dT/dt = P/C1
     expectClose(sizeShortTimeCapacity(cauerToModal(ladder), 0, 0), 0.02, { rel: 1e-9 });
   });
 

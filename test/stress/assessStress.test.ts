@@ -47,7 +47,8 @@ describe("assessStress on a pulse train", () => {
       { partKind: "resistor" },
     );
     const report = assessStress(config, events, history(), { partKind: "resistor", repetitionsPerYear: 365 });
-    // Lumped single stage (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3):
+    // Lumped single stage (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011),
+    // §5.1 and §5.3):
     // peak after a pulse p = v·e^(−tp/τ) + P·R·(1 − e^(−tp/τ)), next valley v' = p·e^(−(T−tp)/τ).
     const peaks: number[] = [];
     const valleys: number[] = [0];

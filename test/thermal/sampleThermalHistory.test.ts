@@ -13,7 +13,8 @@ import {
 import { expectClose } from "../helpers/expectClose.js";
 
 // Single RC stage, R = 2 K/W, tau = 0.5 s: heating P·R·(1 − e^(−t/tau)), cooling θ0·e^(−t/tau).
-// Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3 (lumped capacitance).
+// Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3
+// (lumped capacitance).
 const R = 2;
 const TAU = 0.5;
 const single = fosterToModal({ kind: "foster", stages: [{ rKPerW: R, tauS: TAU }] });
