@@ -26,10 +26,9 @@ const FILES = (powerW: number): Record<string, string> => ({
 describe("heatledger simulate (in process)", () => {
   // One RC stage (R = 1 K/W, tau = 0.5 s), 1 s pulses every 5 s: each pulse ends at
   // P·R·(1 − e^(−2))/(1 − e^(−10)) ≈ 0.8647·P·R above ambient, within 5e-5 of the first pulse's
-  // rise (lumped capacitance, Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed.
-  // (2011), §5.1 and §5.3). 40 W → 59.6 °C (pass), 80 W → 94.2 °C (inside the 10 K margin below
-  // 100 °C: warn, exit 0), 100 W → 111.5 °C (fail, exit 1). Each case is more than 4 K from a
-  // boundary.
+  // rise (lumped capacitance, Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed.,
+  // §5.2). 40 W → 59.6 °C (pass), 80 W → 94.2 °C (inside the 10 K margin below 100 °C: warn,
+  // exit 0), 100 W → 111.5 °C (fail, exit 1). Each case is more than 4 K from a boundary.
   test.each([
     [40, 0, "pass"],
     [80, 0, "warn"],
