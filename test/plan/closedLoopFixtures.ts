@@ -1,13 +1,13 @@
 // Helpers of the closed-loop tests (not a test file). A planner's answer is written back into a
 // bundled profile as YAML text: the profile's own parts, networks, limits and circuit, with the
 // answer's events (and a corner's or the answer's circuit values) substituted, and the result is
-// run through loadProfile and simulateProfile, the path `heatledger simulate` takes. Nothing here
-// calls the planners.
+// run through loadProfile and simulateProfile, the path `heatledger simulate` takes. The planners
+// are called only by planOf, once per bundled profile.
 import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { isMap, isSeq, parseDocument } from "yaml";
-import { type DutyProfile, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { type DutyProfile, type RetryPlanReport, defaultCircuitModels, loadProfile, planRetries, simulateProfile } from "../../src/index.js";
 
 const PROFILES = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "profiles");
 
@@ -34,6 +34,18 @@ export function bundledText(name: string): string {
 /** Load profile text as if it were the bundled file `name` (networks it names are read from profiles/). */
 export function loadAs(text: string, name: string): DutyProfile {
   return loadProfile(text, join("profiles", name), (path) => readFileSync(join(PROFILES, path), "utf8"));
+}
+
+const plans = new Map<string, RetryPlanReport>();
+
+/** The retry plan of a bundled profile, as `heatledger retries` computes it (once per file). */
+export function planOf(name: string): RetryPlanReport {
+  let plan = plans.get(name);
+  if (plan === undefined) {
+    plan = planRetries(loadAs(bundledText(name), name), defaultCircuitModels);
+    plans.set(name, plan);
+  }
+  return plan;
 }
 
 /** A value of the profile document at a path, as plain data (undefined when absent). */

@@ -1,13 +1,15 @@
 import { describe, expect, test } from "vitest";
-import { type RetryPlanReport, defaultCircuitModels, firstWaitCandidates, lockoutAfterBurst, planRetries, profileRetrySetup } from "../../src/index.js";
+import { defaultCircuitModels, firstWaitCandidates, lockoutAfterBurst, profileRetrySetup } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 import {
   DANGER_STEP,
   PEAK_TOLERANCE_K,
+  type SimulatedPeak,
   attemptsWithWaits,
   bundledText,
   endToStartTrain,
   loadAs,
+  planOf,
   retryBlockOf,
   simulateCorners,
   uniformRetry,
@@ -29,20 +31,10 @@ const HEAT_PUMP = "heat-pump-trip-retries.yaml";
 const ROBOT = "warehouse-robot-48v.yaml";
 const BOAT = "electric-boat-72v-supervision.yaml";
 
-const plans = new Map<string, RetryPlanReport>();
-function planOf(name: string): RetryPlanReport {
-  let plan = plans.get(name);
-  if (plan === undefined) {
-    plan = planRetries(loadAs(bundledText(name), name), defaultCircuitModels);
-    plans.set(name, plan);
-  }
-  return plan;
-}
-
 const faultOf = (text: string): unknown => retryBlockOf(text)["fault"];
 
 /** Peak of the burst at a uniform interval, written back in the answer's spacing. */
-function uniformBurst(name: string, attempts: number, intervalS: number, spacing: string): ReturnType<typeof simulateCorners> {
+function uniformBurstPeak(name: string, attempts: number, intervalS: number, spacing: string): SimulatedPeak {
   const text = bundledText(name);
   const events =
     spacing === "start-to-start" ? uniformRetry(faultOf(text), attempts, intervalS, 0) : attemptsWithWaits(faultOf(text), new Array<number>(attempts - 1).fill(intervalS));
@@ -54,7 +46,7 @@ function uniformBurst(name: string, attempts: number, intervalS: number, spacing
  * constants (what is left of the start is e^(−15) ≈ 3e-7 of it, far below the kelvins a 2 % move
  * changes), written in the answer's spacing.
  */
-function foreverTrain(name: string, intervalS: number, spacing: string, attemptS: number, slowestTauS: number): ReturnType<typeof simulateCorners> {
+function foreverTrain(name: string, intervalS: number, spacing: string, attemptS: number, slowestTauS: number): SimulatedPeak {
   const text = bundledText(name);
   const period = spacing === "start-to-start" ? intervalS : intervalS + attemptS;
   const count = Math.ceil((15 * slowestTauS) / period);
@@ -80,7 +72,7 @@ describe("answer 1, shortest uniform interval: written back as a burst, simulate
     expect(answer.bands.filter((b) => !b.openEnded)).toHaveLength(upper.length);
     expect(answer.minimumIntervalS).toBe(answer.bands[0]!.fromS);
     for (const band of answer.bands) {
-      const at = uniformBurst(name, n, band.fromS, answer.spacing);
+      const at = uniformBurstPeak(name, n, band.fromS, answer.spacing);
       expect(at.headroomK, `${name} at ${band.fromS} s`).toBeGreaterThanOrEqual(-PEAK_TOLERANCE_K);
       if (band.fromS === 0) {
         // the binding reason is the bound itself: 0 s × 0.98 is the same schedule; the attempts
@@ -88,13 +80,13 @@ describe("answer 1, shortest uniform interval: written back as a burst, simulate
         expect(answer.spacing).toBe("end-to-start");
         expect(at.headroomK).toBeGreaterThan(1);
       } else {
-        const closer = uniformBurst(name, n, band.fromS * (1 - DANGER_STEP), answer.spacing);
+        const closer = uniformBurstPeak(name, n, band.fromS * (1 - DANGER_STEP), answer.spacing);
         expect(closer.headroomK, `${name} at 0.98 × ${band.fromS} s`).toBeLessThan(-PEAK_TOLERANCE_K);
       }
       if (!band.openEnded) {
-        const end = uniformBurst(name, n, band.toS, answer.spacing);
+        const end = uniformBurstPeak(name, n, band.toS, answer.spacing);
         expect(end.headroomK, `${name} at ${band.toS} s`).toBeGreaterThanOrEqual(-PEAK_TOLERANCE_K);
-        const beyond = uniformBurst(name, n, band.toS * (1 + DANGER_STEP), answer.spacing);
+        const beyond = uniformBurstPeak(name, n, band.toS * (1 + DANGER_STEP), answer.spacing);
         expect(beyond.headroomK, `${name} at 1.02 × ${band.toS} s`).toBeLessThan(-PEAK_TOLERANCE_K);
       }
     }
