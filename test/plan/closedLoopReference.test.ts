@@ -102,7 +102,7 @@ describe("fastest safe schedule against an odex integration of the Foster networ
     const corner = plan.fastest.perCorner;
     expect(corner).toHaveLength(1);
     const waits = plan.fastest.schedule.slice(1).map((s) => s.waitS!);
-    const ref = integrateSchedule(part.stages, part.ambientC, part.powerW, part.timeoutS, waits, 30);
+    const ref = integrateSchedule(part.stages, part.ambientC, part.powerW, part.timeoutS, waits, 3);
     // Tolerance 1e-7 K: odex at 1e-12 on states of up to ~130 K, over some tens of stretches,
     // measured within 4e-10 K of the planner's closed-form modal sums; 1e-7 K leaves room for the
     // solver's error control and is far below the 0.2 K a 2 % shorter wait adds.
@@ -118,7 +118,7 @@ describe("fastest safe schedule against an odex integration of the Foster networ
     expect(ref.peakC).toBeLessThanOrEqual(part.allowedC + 1e-7);
     expectClose(ref.peakC, part.allowedC, { abs: 1e-7 });
     // and the same schedule with every wait 2 % shorter goes past limit − margin in the reference too
-    const sooner = integrateSchedule(part.stages, part.ambientC, part.powerW, part.timeoutS, waits.map((w) => w * (1 - DANGER_STEP)), 30);
+    const sooner = integrateSchedule(part.stages, part.ambientC, part.powerW, part.timeoutS, waits.map((w) => w * (1 - DANGER_STEP)), 3);
     expect(sooner.peakC).toBeGreaterThan(part.allowedC + 0.1);
   });
 });
