@@ -25,6 +25,16 @@ function si(q: string | number): number {
   return Number(value) * k;
 }
 
+/** An odex solver for an n-state reference: 1e-12 relative and absolute tolerance, dense output on. */
+function referenceSolver(n: number): ReturnType<typeof createOdexSolver> {
+  const solver = createOdexSolver(n);
+  solver.relativeTolerance = 1e-12;
+  solver.absoluteTolerance = 1e-12;
+  solver.maxSteps = 1e6;
+  solver.denseOutput = true;
+  return solver;
+}
+
 interface Reference {
   /** junction temperature at the end of each attempt [°C] */
   readonly attemptEndC: number[];
@@ -44,11 +54,7 @@ function integrateSchedule(stages: readonly { r: number; tau: number }[], ambien
   const attemptEndC: number[] = [];
   const stretch = (lengthS: number, p: number): void => {
     if (!(lengthS > 0)) return;
-    const solver = createOdexSolver(stages.length);
-    solver.relativeTolerance = 1e-12;
-    solver.absoluteTolerance = 1e-12;
-    solver.maxSteps = 1e6;
-    solver.denseOutput = true;
+    const solver = referenceSolver(stages.length);
     const f = (_x: number, y: number[]): number[] => stages.map((s, i) => (lengthS * (p * s.r - y[i]!)) / s.tau);
     const out = solver.solve(f, 0, [...theta], 1, (_n, xOld, x, y, dense) => {
       peakK = Math.max(peakK, y.reduce((a, b) => a + b, 0));
@@ -167,11 +173,7 @@ function heatPumpBurstPeakC(corner: HeatPumpCorner, stages: readonly { r: number
   const rise = (s: readonly number[]): number => s.slice(1).reduce((a, b) => a + b, 0);
   const stretch = (lengthS: number, dvdt: (v: number) => number, power: (v: number) => number): void => {
     if (!(lengthS > 0)) return;
-    const solver = createOdexSolver(y.length);
-    solver.relativeTolerance = 1e-12;
-    solver.absoluteTolerance = 1e-12;
-    solver.maxSteps = 1e6;
-    solver.denseOutput = true;
+    const solver = referenceSolver(y.length);
     const f = (_x: number, s: number[]): number[] => [lengthS * dvdt(s[0]!), ...stages.map((st, i) => (lengthS * (power(s[0]!) * st.r - s[i + 1]!)) / st.tau)];
     const out = solver.solve(f, 0, [...y], 1, (_n, xOld, x, s, dense) => {
       peakK = Math.max(peakK, rise(s));
