@@ -23,7 +23,7 @@ const PROFILES = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "prof
  */
 export const PEAK_TOLERANCE_K = 1e-6;
 
-/** The 2 % move toward danger the issue asks each answer to be tested with. */
+/** The move toward danger each answer is tested with: 2 % of the answer (shorter interval, wait or lockout; longer timeout). */
 export const DANGER_STEP = 0.02;
 
 /** A bundled profile's text. */
