@@ -9,7 +9,7 @@ import { DANGER_STEP, bundledText, planOf } from "./closedLoopFixtures.js";
 // extrapolation code, a general-purpose solver from the npm registry), with no project thermal
 // or circuit code. Each Foster stage i (R_i, τ_i) is the lumped first-order system
 //   dθ_i/dt = (P(t)·R_i − θ_i)/τ_i,   junction rise = Σ θ_i
-// (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, lumped
+// (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3, lumped
 // capacitance, one equation per stage). The power is worked out by hand from the profile's
 // circuit: into a shorted output the bus is held at 0 V, so the series resistor R carries
 // I = Vs/(R + Rsrc) and dissipates P = I²·R for the whole completion timeout (Ohm's and Joule's
@@ -134,7 +134,7 @@ describe("fastest safe schedule against an odex integration of the Foster networ
 // resistor R charges C from the bus Vs, dv/dt = (Vs − v)/(R·C), and dissipates P = (Vs − v)²/R;
 // it completes at v = 0.95·Vs (the profile's completion fraction), which from v0 takes
 // R·C·ln((Vs − v0)/(0.05·Vs)) (source-free and driven RC: Hayt, Kemmerly & Durbin, Engineering
-// Circuit Analysis, 8th ed. (2012), §8.4 and §8.7, section numbers from memory); the contactor
+// Circuit Analysis, 8th ed. (2012), §8.3 and §8.8, section numbers from memory); the contactor
 // then closes (bus at Vs, resistor bypassed) and the drive trips `after` later; between restarts
 // the active discharge resistor Rd drains the bus, dv/dt = −v/(Rd·C). Each stretch is one odex
 // run in stretch-local time scaled to [0, 1].
