@@ -201,6 +201,8 @@ export { minUniformInterval } from "./plan/minUniformInterval.js";
 export type { IntervalScanOptions, UniformIntervalAnswer } from "./plan/minUniformInterval.js";
 export { maxAttempts } from "./plan/maxAttempts.js";
 export type { MaxAttemptsAnswer } from "./plan/maxAttempts.js";
+export { firstUnsafeAttempt } from "./plan/firstUnsafeAttempt.js";
+export type { FirstUnsafeAttempt } from "./plan/firstUnsafeAttempt.js";
 export { attemptPeriodicSteadyState } from "./plan/attemptPeriodicSteadyState.js";
 export type { AttemptPeriodicState } from "./plan/attemptPeriodicSteadyState.js";
 export { retryForeverCheck } from "./plan/retryForeverCheck.js";
