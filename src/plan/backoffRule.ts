@@ -1,7 +1,7 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { AttemptCursor, type AttemptRecord } from "./AttemptCursor.js";
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
-import { checkAttempts } from "./minUniformInterval.js";
+import { checkAttempts, everyCorner } from "./minUniformInterval.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import { runBurst } from "./runBurst.js";
@@ -70,7 +70,15 @@ export function backoffRule(scenarios: readonly RetryScenario[], attempts: numbe
         const run = runBurst(cursor, { gapsS: gaps, spacing: "end-to-start" }, 0);
         return { c, cursor, run };
       });
-    const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null), grid);
+    let factor = 1;
+    const safe = everyCorner(corners.length, (i) => {
+      const gaps = Array.from({ length: attempts - 1 }, (_, k) => firstWaitS * factor ** k);
+      return runBurst(new AttemptCursor(corners[i]!), { gapsS: gaps, spacing: "end-to-start" }, 0, true).firstUnsafe === null;
+    });
+    const { bands } = scanFeasibleBands((g) => {
+      factor = g;
+      return safe();
+    }, grid);
     const g = bands[0]?.fromS ?? null;
     const runs = runAll(g ?? top);
     const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));

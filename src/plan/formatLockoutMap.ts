@@ -34,8 +34,9 @@ function seconds(s: number): string {
 
 /**
  * The lockout map as CSV, one row per cell: attempts, interval_s, spacing, worst_peak_c,
- * allowed_c, limit_c, used_fraction, status, governing_corner. Overlapping cells leave the
- * numbers empty. Cost O(cells).
+ * allowed_c, limit_c, used_fraction, status, governing_corner. Overlapping cells, and failing
+ * cells below a shorter burst that already crosses a limit (not simulated), leave the peak and
+ * used fraction empty. Cost O(cells).
  */
 export function lockoutMapCsv(map: LockoutMap): string {
   const rows: (string | number)[][] = [["attempts", "interval_s", "spacing", "worst_peak_c", "allowed_c", "limit_c", "used_fraction", "status", "governing_corner"]];

@@ -4,6 +4,7 @@ import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
 import type { BurstPlan } from "./RetrySchedule.js";
+import { everyCorner } from "./minUniformInterval.js";
 import { runBurst } from "./runBurst.js";
 import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
 
@@ -73,7 +74,15 @@ export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: Bu
     });
   const slowest = Math.max(...corners.map((c) => c.slowestTauS));
   const grid = scanGrid(0, options.scanToS ?? PLAN_DEFAULTS.scanSpanTauMultiple * slowest, options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
-  const { bands, evaluations } = scanFeasibleBands((l) => second(l).every((s) => s.run.firstUnsafe === null && s.run.overlapAt === null), grid);
+  let lockout = 0;
+  const safe = everyCorner(first.length, (i) => {
+    const run = runBurst(first[i]!.cursor.clone(), burst, burstEndS + lockout, true);
+    return run.firstUnsafe === null && run.overlapAt === null;
+  });
+  const { bands, evaluations } = scanFeasibleBands((l) => {
+    lockout = l;
+    return safe();
+  }, grid);
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const governing = governingCorner(second(at).map((s) => s.entry));
   let ambientReturnS = 0;
