@@ -1,9 +1,16 @@
+import type { SizeScaleScope } from "./SizeScaleScope.js";
+
 /**
  * Defaults of the sizing solvers (`heatledger size`), declared once: code, help text and README read
  * these. Bracketing steps by a factor, then bisection on the logarithm of the scale factor or the
  * circuit value; every number here is a choice of our own, with its reason.
  */
 export const SIZE_DEFAULTS = {
+  /**
+   * what is scaled (SizeScaleScope): the whole thermal body, the answer that holds when a larger
+   * part of the same construction is chosen (every capacity grows with the part's mass)
+   */
+  scale: "whole" as SizeScaleScope,
   /** bracketing step: the capacity scale or circuit value is multiplied or divided by this until the answer changes */
   bracketFactor: 4,
   /** smallest capacity scale tried: below it the capacity is taken not to matter (the peak is then R·P, set by the resistance) */
