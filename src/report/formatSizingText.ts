@@ -13,7 +13,7 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
  */
 export function formatSizingText(report: SizingReport, width = 100): string {
   const out: string[] = [];
-  out.push(`heatledger size: ${report.profileName}`, `profile ${report.file}`, "");
+  out.push(wrapText(`heatledger size: ${report.profileName}`, width), `profile ${report.file}`, "");
   const m = report.material;
   const whole = report.scope === "whole";
   out.push(

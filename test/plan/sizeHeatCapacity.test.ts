@@ -99,6 +99,94 @@ describe("sizeHeatCapacity: inversion of the whole profile", () => {
   });
 });
 
+describe("sizeHeatCapacity: element only (--scale element)", () => {
+  // Invented: an element (C1, R1) on a body (C2, R2 = 10 K/W to ambient); 5 pulses of P for t_p every 20 s.
+  const ladderText = (c1: number, c2: number, p: number, tp: number, r1: number): string => `name: element test
+ambient: 25 degC
+parts:
+  - id: p
+    network: { form: cauer, stages: [ { r: ${r1} K/W, c: ${c1} J/K }, { r: 10 K/W, c: ${c2} J/K } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - repeat:
+      count: 5
+      period: 20 s
+      events:
+        - power-trace: { part: p, points: [[0, ${p}], [${tp} s, ${p}]] }
+`;
+
+  test("regression: the whole-body answer's C1 on the original body runs past the target; the element answer holds", () => {
+    // The defect: the report gave k·C1 of a body whose every capacity is k times larger (here k ≈ 12)
+    // as if it were the element's capacity. Put that C1 on the original 2 J/K body and the part
+    // overheats; the element answer, re-simulated from a network file written by hand, holds.
+    const profile = loadProfile(ladderText(0.05, 2, 200, 0.5, 1), "t.yaml");
+    const whole = sizeHeatCapacity(profile, 0, { models, scope: "whole" });
+    const element = sizeHeatCapacity(profile, 0, { models, scope: "element" });
+    expect(whole.inversion.scale).toBeGreaterThan(1);
+    expect(peakOf(ladderText(whole.inversion.capacityJPerK, 2, 200, 0.5, 1))).toBeGreaterThan(150 + 10);
+    const c1 = element.inversion.capacityJPerK;
+    expectClose(c1, element.inversion.scale * 0.05, { rel: 1e-12 });
+    expect(c1).toBeGreaterThan(whole.inversion.capacityJPerK);
+    // SIZE_DEFAULTS.temperatureToleranceK: the sized peak lies at most 0.01 K under the target
+    const peak = peakOf(ladderText(c1, 2, 200, 0.5, 1));
+    expect(peak).toBeLessThanOrEqual(150);
+    expect(peak).toBeGreaterThan(150 - 0.01);
+    expect(peakOf(ladderText(0.98 * c1, 2, 200, 0.5, 1))).toBeGreaterThan(150);
+    expect(element.inversion.sizedNetwork).toEqual({ kind: "cauer", stages: [{ rKPerW: 1, cJPerK: c1 }, { rKPerW: 10, cJPerK: 2 }] });
+    expect(element.reason).toBe(`an element capacity C1 = ${Number(c1.toPrecision(4))} J/K (${Number(element.inversion.scale.toPrecision(4))} × the present 0.05 J/K, the rest of the network as it is) keeps the peak at ${element.inversion.peakTemperatureC.toFixed(2)} °C, at or under the 150 °C target`);
+  });
+
+  test("an element on a very large body: the one-lump closed form", () => {
+    // With C2 = 1e6 J/K the body does not warm (50 J raise it by 5e-5 K), so the element is one lump
+    // R1, k·C1 from ambient (Incropera et al., 7th ed., §5.2): rise = P·R1·(1 − e^(−t_p/(k·R1·C1)))
+    // at the pulse end; one pulse of 100 W for 0.5 s, R1 = 2 K/W, C1 = 0.25 J/K, ΔT = 125 K:
+    //   k = t_p / (R1·C1·ln(1/(1 − ΔT/(P·R1)))) = 0.5 / (0.5·ln(1/0.375)) = 1.01955...
+    const text = `name: lump on a large body
+ambient: 25 degC
+parts:
+  - id: p
+    network: { form: cauer, stages: [ { r: 2 K/W, c: 0.25 J/K }, { r: 1 K/W, c: 1e6 J/K } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - power-trace: { part: p, points: [[0, 100], [0.5 s, 100]] }
+`;
+    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, scope: "element" });
+    // the bracket is 1e-3 wide (SIZE_DEFAULTS.capacityRelativeWidth); the body's 5e-5 K moves k by under 1e-6
+    expectClose(answer.inversion.scale, 0.5 / (0.5 * Math.log(1 / 0.375)), { rel: 1e-3 });
+    expect((answer.inversion.sizedNetwork as { stages: { cJPerK: number }[] }).stages[1]!.cJPerK).toBe(1e6);
+  });
+
+  test("an element whose capacity does not matter: any, and the reason says the rest of the network sets the peak", () => {
+    // 100 W for 0.5 s through R1 = 0.2 K/W into a 10 J/K body: with no element capacity at all the
+    // element is at most P·R1 = 20 K above the body, and the body rises at most E/C2 = 50 J / 10 J/K
+    // = 5 K (no heat leaving, Q = m·c·ΔT): at most 25 K, far under the 125 K allowed
+    const text = `name: small R1
+ambient: 25 degC
+parts:
+  - id: p
+    network: { form: cauer, stages: [ { r: 0.2 K/W, c: 0.1 J/K }, { r: 5 K/W, c: 10 J/K } ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - power-trace: { part: p, points: [[0, 100], [0.5 s, 100]] }
+`;
+    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, scope: "element" });
+    expect(answer.inversion.status).toBe("any");
+    expect(answer.reason).toMatch(/^even [\d.e+-]+ × the element capacity C1 keeps the peak at [\d.]+ °C, under the 150 °C target: the rest of the network, not the element's capacity, sets this part's peak$/);
+  });
+
+  test("a part built from a modal model alone: element scaling refused, naming --scale", () => {
+    const profile = loadProfile(ladderText(0.05, 2, 200, 0.5, 1), "t.yaml");
+    const { network: _dropped, ...bare } = profile.parts[0]!;
+    const modalOnly = { ...profile, parts: [bare] };
+    expect(() => sizeHeatCapacity(modalOnly, 0, { models, scope: "element" })).toThrow(InputError);
+    try {
+      sizeHeatCapacity(modalOnly, 0, { models, scope: "element" });
+    } catch (error) {
+      expect((error as InputError).problems[0]).toMatchObject({ field: "--scale", expected: "whole for part p (element scaling needs its network as written: Foster, Cauer or graph)" });
+    }
+  });
+});
+
 describe("sizeHeatCapacity: adiabatic bound", () => {
   test("one power-up through a series resistor: C = E/ΔT, m = E/(c·ΔT), and the inversion agrees for a slow part", () => {
     // Energy in the resistor while C charges from 0 to V1 = f·Vs (Hayt et al., §8.4 RC charging;
@@ -124,7 +212,12 @@ circuit:
 events:
   - power-up: {}
 `;
-    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, material: materialPreset("copper") });
+    // one stage has one capacity: element and whole-body scaling are the same thing; only the
+    // element answer is given as a mass (a whole body is of several materials)
+    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, material: materialPreset("copper"), scope: "element" });
+    const whole = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, material: materialPreset("copper"), scope: "whole" });
+    expect(whole.inversion.massKg).toBeUndefined();
+    expectClose(whole.inversion.capacityJPerK, answer.inversion.capacityJPerK, { rel: 1e-3 }); // two bisections, each bracket 1e-3 wide
     // the charge model's energy is exact for a linear circuit: 1e-12 relative covers rounding
     expectClose(answer.worstEvent!.energyJ, 4.9875, { rel: 1e-12 });
     expectClose(answer.adiabatic!.capacityJPerK, 0.09975, { rel: 1e-12 });
