@@ -3,9 +3,8 @@ import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { MaterialPreset } from "../thermal/materials.js";
 import { type ChargingElementSizing, sizeChargingElement } from "./sizeChargingElement.js";
-import { SIZE_DEFAULTS } from "./sizeDefaults.js";
+import { SIZE_DEFAULTS, type SizeScaleScope } from "./sizeDefaults.js";
 import { type HeatCapacitySizing, sizeHeatCapacity } from "./sizeHeatCapacity.js";
-import type { SizeScaleScope } from "./SizeScaleScope.js";
 
 /** Options of {@link sizeProfile}. */
 export interface SizeProfileOptions {

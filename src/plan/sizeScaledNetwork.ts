@@ -3,7 +3,7 @@ import type { CauerLadder } from "../thermal/cauerLadder.js";
 import type { FosterNetwork } from "../thermal/fosterNetwork.js";
 import { fosterToCauer } from "../thermal/fosterToCauer.js";
 import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
-import type { SizeScaleScope } from "./SizeScaleScope.js";
+import type { SizeScaleScope } from "./sizeDefaults.js";
 
 /** A network with capacities scaled for sizing, and the element's capacity in it. */
 export interface ScaledNetwork {

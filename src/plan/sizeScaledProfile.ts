@@ -1,8 +1,7 @@
 import { inputError } from "../errors/InputError.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import { networkToModal } from "../thermal/ThermalNetwork.js";
-import { SIZE_DEFAULTS } from "./sizeDefaults.js";
-import type { SizeScaleScope } from "./SizeScaleScope.js";
+import { SIZE_DEFAULTS, type SizeScaleScope } from "./sizeDefaults.js";
 import { sizeScaledNetwork } from "./sizeScaledNetwork.js";
 
 /**
