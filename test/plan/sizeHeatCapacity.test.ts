@@ -1,6 +1,7 @@
 import { describe, expect, test } from "vitest";
-import { InputError, defaultCircuitModels, loadProfile, materialPreset, simulateProfile, sizeHeatCapacity, sizeProfile } from "../../src/index.js";
+import { defaultCircuitModels, loadProfile, materialPreset, simulateProfile, sizeHeatCapacity, sizeProfile } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { inputErrorMessage } from "../helpers/inputErrorMessage.js";
 
 // Invented test profiles: one part heated by rectangular power pulses (power-trace events), or a
 // series-resistor pre-charge. Networks are written as text so the re-simulation at a scaled
@@ -114,6 +115,16 @@ events:
       events:
         - power-trace: { part: p, points: [[0, ${p}], [${tp} s, ${p}]] }
 `;
+  /** one pulse of 100 W for 0.5 s into a Cauer ladder of [R K/W, C J/K] stages, limit 150 °C, no margin */
+  const onePulseOnLadder = (stages: readonly (readonly [number, number])[]): string => `name: one pulse
+ambient: 25 degC
+parts:
+  - id: p
+    network: { form: cauer, stages: [ ${stages.map(([r, c]) => `{ r: ${r} K/W, c: ${c} J/K }`).join(", ")} ] }
+    limits: { maxTemperature: 150 degC, margin: 0 K }
+events:
+  - power-trace: { part: p, points: [[0, 100], [0.5 s, 100]] }
+`;
 
   test("regression: the whole-body answer's C1 on the original body runs past the target; the element answer holds", () => {
     // The defect: the report gave k·C1 of a body whose every capacity is k times larger (here k ≈ 12)
@@ -141,16 +152,7 @@ events:
     // R1, k·C1 from ambient (Incropera et al., 7th ed., §5.2): rise = P·R1·(1 − e^(−t_p/(k·R1·C1)))
     // at the pulse end; one pulse of 100 W for 0.5 s, R1 = 2 K/W, C1 = 0.25 J/K, ΔT = 125 K:
     //   k = t_p / (R1·C1·ln(1/(1 − ΔT/(P·R1)))) = 0.5 / (0.5·ln(1/0.375)) = 1.01955...
-    const text = `name: lump on a large body
-ambient: 25 degC
-parts:
-  - id: p
-    network: { form: cauer, stages: [ { r: 2 K/W, c: 0.25 J/K }, { r: 1 K/W, c: 1e6 J/K } ] }
-    limits: { maxTemperature: 150 degC, margin: 0 K }
-events:
-  - power-trace: { part: p, points: [[0, 100], [0.5 s, 100]] }
-`;
-    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, scope: "element" });
+    const answer = sizeHeatCapacity(loadProfile(onePulseOnLadder([[2, 0.25], [1, 1e6]]), "t.yaml"), 0, { models, scope: "element" });
     // the bracket is 1e-3 wide (SIZE_DEFAULTS.capacityRelativeWidth); the body's 5e-5 K moves k by under 1e-6
     expectClose(answer.inversion.scale, 0.5 / (0.5 * Math.log(1 / 0.375)), { rel: 1e-3 });
     expect(answer.inversion.sizedNetwork).toEqual({ kind: "cauer", stages: [{ rKPerW: 2, cJPerK: answer.inversion.capacityJPerK }, { rKPerW: 1, cJPerK: 1e6 }] });
@@ -160,31 +162,11 @@ events:
     // 100 W for 0.5 s through R1 = 0.2 K/W into a 10 J/K body: with no element capacity at all the
     // element is at most P·R1 = 20 K above the body, and the body rises at most E/C2 = 50 J / 10 J/K
     // = 5 K (no heat leaving, Q = m·c·ΔT): at most 25 K, far under the 125 K allowed
-    const text = `name: small R1
-ambient: 25 degC
-parts:
-  - id: p
-    network: { form: cauer, stages: [ { r: 0.2 K/W, c: 0.1 J/K }, { r: 5 K/W, c: 10 J/K } ] }
-    limits: { maxTemperature: 150 degC, margin: 0 K }
-events:
-  - power-trace: { part: p, points: [[0, 100], [0.5 s, 100]] }
-`;
-    const answer = sizeHeatCapacity(loadProfile(text, "t.yaml"), 0, { models, scope: "element" });
+    const answer = sizeHeatCapacity(loadProfile(onePulseOnLadder([[0.2, 0.1], [5, 10]]), "t.yaml"), 0, { models, scope: "element" });
     expect(answer.inversion.status).toBe("any");
     expect(answer.reason).toMatch(/^even [\d.e+-]+ × the element capacity C1 keeps the peak at [\d.]+ °C, under the 150 °C target: the rest of the network, not the element's capacity, sets this part's peak$/);
   });
 
-  test("a part built from a modal model alone: element scaling refused, naming --scale", () => {
-    const profile = loadProfile(ladderText(0.05, 2, 200, 0.5, 1), "t.yaml");
-    const { network: _dropped, ...bare } = profile.parts[0]!;
-    const modalOnly = { ...profile, parts: [bare] };
-    expect(() => sizeHeatCapacity(modalOnly, 0, { models, scope: "element" })).toThrow(InputError);
-    try {
-      sizeHeatCapacity(modalOnly, 0, { models, scope: "element" });
-    } catch (error) {
-      expect((error as InputError).problems[0]).toMatchObject({ field: "--scale", expected: "whole for part p (element scaling needs its network as written: Foster, Cauer or graph)" });
-    }
-  });
 });
 
 describe("sizeHeatCapacity: adiabatic bound", () => {
@@ -233,19 +215,15 @@ events:
 
 describe("sizing: bad input", () => {
   const profile = loadProfile(pulseProfileText([{ r: 2, tau: 1 }], { powerW: 100, durationS: 0.5, count: 1, periodS: 10 }, 150), "t.yaml");
-  const message = (run: () => unknown): string => {
-    try {
-      run();
-    } catch (error) {
-      if (error instanceof InputError) return error.problems.map((p) => `${p.field}: expected ${p.expected}, found ${p.found}`).join("; ");
-      throw error;
-    }
-    throw new Error("no InputError");
-  };
   test.each([
     { name: "negative margin", run: () => sizeHeatCapacity(profile, 0, { models, marginK: -1 }), expected: "--margin: expected a margin ≥ 0 K, found -1" },
     { name: "unknown part", run: () => sizeProfile(profile, { models, partIds: ["q"] }), expected: '--part: expected one of the profile\'s parts (p), found "q"' },
+    {
+      name: "element scaling of a part built from a modal model alone",
+      run: () => sizeHeatCapacity({ ...profile, parts: profile.parts.map(({ network: _dropped, ...modalOnly }) => modalOnly) }, 0, { models, scope: "element" }),
+      expected: "--scale: expected whole for part p (element scaling needs its network as written: Foster, Cauer or graph), found element on a modal model alone",
+    },
   ])("$name", ({ run, expected }) => {
-    expect(message(run)).toBe(expected);
+    expect(inputErrorMessage(run)).toBe(expected);
   });
 });

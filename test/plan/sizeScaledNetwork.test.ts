@@ -1,7 +1,8 @@
 import { describe, expect, test } from "vitest";
-import { InputError, fosterToCauer, logSpacedTimes, networkToModal, sizeScaledNetwork, zth } from "../../src/index.js";
+import { fosterToCauer, logSpacedTimes, networkToModal, sizeScaledNetwork, zth } from "../../src/index.js";
 import type { CauerLadder, FosterNetwork, ThermalGraph } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { inputErrorMessage } from "../helpers/inputErrorMessage.js";
 
 // What `heatledger size --scale whole|element` does to a network. Invented networks.
 const foster: FosterNetwork = { kind: "foster", stages: [{ rKPerW: 0.35, tauS: 0.04 }, { rKPerW: 0.9, tauS: 1.8 }, { rKPerW: 1.6, tauS: 45 }] };
@@ -84,20 +85,11 @@ describe("sizeScaledNetwork: element only", () => {
 });
 
 describe("sizeScaledNetwork: bad input", () => {
-  const message = (run: () => unknown): string => {
-    try {
-      run();
-    } catch (error) {
-      if (error instanceof InputError) return error.problems.map((p) => `${p.field}: expected ${p.expected}, found ${p.found}`).join("; ");
-      throw error;
-    }
-    throw new Error("no InputError");
-  };
   test.each([
     { name: "a scale of zero", run: () => sizeScaledNetwork(ladder, "junction", "whole", 0), expected: "scale: expected a capacity scale > 0, found 0" },
     { name: "an infinite scale", run: () => sizeScaledNetwork(ladder, "junction", "element", Infinity), expected: "scale: expected a capacity scale > 0, found Infinity" },
     { name: "a graph without the source node", run: () => sizeScaledNetwork(graph, "gate", "element", 2, "parts[0].network"), expected: 'parts[0].network.sources: expected a node named "gate" (the part\'s heat source), found none' },
   ])("$name", ({ run, expected }) => {
-    expect(message(run)).toBe(expected);
+    expect(inputErrorMessage(run)).toBe(expected);
   });
 });
