@@ -226,8 +226,11 @@ export type { RetryPlanReport } from "./plan/planRetries.js";
 export { formatRetryPlanText, formatPlanDuration } from "./plan/formatRetryPlanText.js";
 export { retryPlanJson } from "./plan/retryPlanJson.js";
 // plan: sizing (heat capacity by the adiabatic bound and by inverting the profile; slowest charging element)
-export { SIZE_DEFAULTS } from "./plan/sizeDefaults.js";
+export { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "./plan/sizeDefaults.js";
+export type { SizeScaleScope } from "./plan/sizeDefaults.js";
 export { sizeScaledProfile } from "./plan/sizeScaledProfile.js";
+export { sizeScaledNetwork } from "./plan/sizeScaledNetwork.js";
+export type { ScaledNetwork } from "./plan/sizeScaledNetwork.js";
 export { sizeShortTimeCapacity } from "./plan/sizeShortTimeCapacity.js";
 export { sizeHeatCapacity } from "./plan/sizeHeatCapacity.js";
 export type { HeatCapacitySizing, HeatCapacitySizingOptions, SizingWorstEvent, AdiabaticBound, CapacityInversion } from "./plan/sizeHeatCapacity.js";

@@ -5,7 +5,7 @@ import { FieldReader, join } from "../format/FieldReader.js";
 import { parseStructuredText } from "../format/parseStructuredText.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { observedIndex, sourceIndex } from "../thermal/ModalModel.js";
-import { networkToModal } from "../thermal/ThermalNetwork.js";
+import { type ThermalNetwork, networkToModal } from "../thermal/ThermalNetwork.js";
 import { parseNetwork } from "../thermal/parseNetwork.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
@@ -70,7 +70,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const reader = new FieldReader();
   const input = parsed.data;
   const circuit = input.circuit === undefined ? undefined : resolveCircuit(reader, input.circuit, "circuit");
-  const networks = new Map<string, ModalModel | undefined>();
+  const networks = new Map<string, ResolvedNetwork | undefined>();
   const parts = input.parts.map((part, i) => resolvePart(reader, part, `parts[${i}]`, input.ambient, input.circuit?.topology, file, source.lineOf, readFile, networks));
   const used = new Set<string>();
   parts.forEach((p, i) => {
@@ -214,7 +214,7 @@ function resolvePart(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-  networks: Map<string, ModalModel | undefined>,
+  networks: Map<string, ResolvedNetwork | undefined>,
 ): ProfilePart | undefined {
   const role = part.role === undefined ? undefined : ROLE_NAMES[part.role];
   if (role !== undefined) {
@@ -228,15 +228,16 @@ function resolvePart(
   if (part.limits.maxTemperature <= (part.ambient ?? ambientC))
     reader.fail("out-of-range", join(field, "limits.maxTemperature"), `a limit above the ambient (${part.ambient ?? ambientC} °C)`, `${part.limits.maxTemperature} °C`);
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
-  const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
-  networks.set(networkKey, model);
+  const resolved = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
+  networks.set(networkKey, resolved);
   let stress: StressConfig | undefined;
   try {
     stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
   } catch (error) {
     reader.absorb(error);
   }
-  if (model === undefined) return undefined;
+  if (resolved === undefined) return undefined;
+  const { model, network } = resolved;
   try {
     const sourceAt = part.source === undefined ? 0 : sourceIndex(model, part.source, join(field, "source"));
     const observedAt = part.observe === undefined ? 0 : observedIndex(model, part.observe, join(field, "observe"));
@@ -245,6 +246,7 @@ function resolvePart(
       ...(role === undefined ? {} : { role }),
       model,
       networkKey,
+      network,
       sourceIndex: sourceAt,
       observedIndex: observedAt,
       ambientC: part.ambient ?? ambientC,
@@ -258,6 +260,12 @@ function resolvePart(
   }
 }
 
+/** A part's network as written and its modal form. */
+interface ResolvedNetwork {
+  readonly model: ModalModel;
+  readonly network: ThermalNetwork;
+}
+
 function resolveNetwork(
   reader: FieldReader,
   part: PartInput,
@@ -265,8 +273,9 @@ function resolveNetwork(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-): ModalModel | undefined {
+): ResolvedNetwork | undefined {
   const at = join(field, "network");
+  let network: ThermalNetwork;
   let model: ModalModel;
   try {
     if (typeof part.network === "string") {
@@ -284,14 +293,16 @@ function resolveNetwork(
       let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
         doc = parseStructuredText(text, readFile.displayName?.(part.network) ?? part.network);
-        model = networkToModal(parseNetwork(doc.data, ""), "");
+        network = parseNetwork(doc.data, "");
+        model = networkToModal(network, "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
         reader.absorb(withLocation(error, readFile.displayName?.(part.network) ?? part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {
-      model = networkToModal(parseNetwork(part.network, at), at);
+      network = parseNetwork(part.network, at);
+      model = networkToModal(network, at);
     }
   } catch (error) {
     if (error instanceof InputError) {
@@ -301,7 +312,7 @@ function resolveNetwork(
     }
     throw error;
   }
-  return model;
+  return { model, network };
 }
 
 /** Why a named file could not be read, in a few words ("no such file: /a/b.yaml"). */
