@@ -149,11 +149,11 @@ export class StressAssessment {
         if (cycle.maxC > this.highestC) this.highestC = cycle.maxC;
         if (cycle.minC < this.lowestC) this.lowestC = cycle.minC;
       },
-      { mode: options.mode ?? "repeating" },
+      { mode: options.mode ?? "repeating", levelBandK: config.cycleHysteresisK },
     );
-    this.filter = new TurningPointFilter((timeS, value) => {
+    this.filter = new TurningPointFilter((timeS, value, leaveS) => {
       this.turningPoints++;
-      this.counter.push(timeS, value);
+      this.counter.push(timeS, value, leaveS);
     }, config.cycleHysteresisK);
   }
 
