@@ -1,4 +1,5 @@
 import { wrapText } from "../report/cautions.js";
+import { CYCLE_QUANTITY_WORDS } from "./LifetimeModel.js";
 import type { StressReport } from "./assessStress.js";
 
 /** Most events with a failing or uncovered rating check the terminal section lists one by one. */
@@ -100,6 +101,14 @@ export function formatStressSection(partId: string, report: StressReport, histor
       }
       for (const [key, g] of grouped) lines.push(`      ${key} ×${g.count}: N_f ${num(g.cyclesToFailure)}, ${num(g.share * 100)} % of the damage`);
     }
+    for (const x of d.extrapolated)
+      lines.push(
+        ...paragraph(
+          "  extrapolated: ",
+          `${num(x.cycles)} of ${num(d.cyclesCounted)} counted cycles have a ${CYCLE_QUANTITY_WORDS[x.quantity]} of ${num(x.found[0], 4)}-${num(x.found[1], 4)} ${x.unit}, ` +
+            `outside the model's validity range ${num(x.range[0], 4)}-${num(x.range[1], 4)} ${x.unit} (${x.origin}); they carry ${num(x.damageShare * 100)} % of the damage`,
+        ),
+      );
     for (const w of d.warnings) lines.push(...paragraph("  warning: ", w));
   }
   for (const n of report.notes) lines.push(...paragraph("  note: ", n));

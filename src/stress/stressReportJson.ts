@@ -40,6 +40,16 @@ export interface StressJson {
     yearsToEndOfLife: number | null;
     cyclesCounted: number;
     topCycles: { rangeK: number; meanC: number; minC: number; maxC: number; count: number; heatingTimeS: number; cyclesToFailure: number | null; damage: number; share: number }[];
+    /** per cycle quantity, the cycles outside the model's validity range (their damage is extrapolated) */
+    extrapolated: {
+      quantity: string;
+      unit: string;
+      range: [number, number];
+      origin: string;
+      found: [number | null, number | null];
+      cycles: number;
+      damageShare: number;
+    }[];
     warnings: readonly string[];
   } | null;
   readonly notes: readonly string[];
@@ -104,6 +114,15 @@ export function stressReportJson(report: StressReport): StressJson {
               cyclesToFailure: safe(t.cyclesToFailure),
               damage: t.damage,
               share: t.share,
+            })),
+            extrapolated: d.extrapolated.map((x) => ({
+              quantity: x.quantity,
+              unit: x.unit,
+              range: [x.range[0], x.range[1]],
+              origin: x.origin,
+              found: [safe(x.found[0]), safe(x.found[1])],
+              cycles: x.cycles,
+              damageShare: x.damageShare,
             })),
             warnings: d.warnings,
           },

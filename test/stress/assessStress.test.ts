@@ -99,8 +99,11 @@ describe("assessStress on a pulse train", () => {
     // finite line, so the DC line holds: 10·0.1^(log10 4.8) = 1.46 A < 4 A -> fail.
     expect(report.ratingStatus).toBe("fail");
     expectClose(report.events[0]!.soa!.worst!.allowedA, 10 * 0.1 ** Math.log10(4.8), { rel: 1e-13 });
-    // LESIT cycles of ~10 K lie outside its fitted 30-80 K: a warning, not silence.
-    expect(report.damage!.warnings.some((w) => w.includes("outside the fitted 30-80 K"))).toBe(true);
+    // LESIT cycles of ~10 K lie outside its fitted 30-80 K: reported as extrapolated, not silence.
+    const outside = report.damage!.extrapolated.find((x) => x.quantity === "range")!;
+    expect(outside).toMatchObject({ range: [30, 80], unit: "K", cycles: pulses });
+    expectClose(outside.damageShare, 1, { rel: 1e-12 }); // every cycle outside: the same ten terms summed twice, rounding only
+    expect(formatStressSection("Q1", report)).toMatch(/extrapolated: 10 of 10 counted cycles have a range of [0-9.]+-[0-9.]+ K, outside the model's validity\s+range 30-80 K/);
   });
 });
 
