@@ -1,6 +1,8 @@
 import { wrapText } from "../report/cautions.js";
+import { formatNumber } from "../report/formatTable.js";
 import { CYCLE_QUANTITY_WORDS } from "./LifetimeModel.js";
-import type { StressReport } from "./assessStress.js";
+import type { EventRatingCheck, StressReport } from "./assessStress.js";
+import type { PulseEnergyCheck } from "./pulseEnergyRating.js";
 
 /** Most events with a failing or uncovered rating check the terminal section lists one by one. */
 export const STRESS_SECTION_MAX_EVENTS = 8;
@@ -8,10 +10,13 @@ export const STRESS_SECTION_MAX_EVENTS = 8;
 /** Width the section's prose (warnings, notes, cautions) is wrapped to. */
 export const STRESS_SECTION_WIDTH = 100;
 
-/** Wrap a paragraph to the section width, the first line after `lead`, the rest indented to match. */
-function paragraph(lead: string, text: string): string[] {
-  const pad = " ".repeat(lead.length);
-  return wrapText(text, STRESS_SECTION_WIDTH - lead.length)
+/**
+ * Wrap a paragraph to the section width, the first line after `lead`, the rest indented to match
+ * (or by `hang` more spaces than the lead's indentation, for list items).
+ */
+function paragraph(lead: string, text: string, hang?: number): string[] {
+  const pad = hang === undefined ? " ".repeat(lead.length) : " ".repeat(lead.length - lead.trimStart().length + hang);
+  return wrapText(text, STRESS_SECTION_WIDTH - Math.max(lead.length, pad.length))
     .split("\n")
     .map((line, i) => (i === 0 ? lead : pad) + line);
 }
@@ -36,6 +41,19 @@ export const PROFILE_HISTORY_WORDS: StressHistoryWords = { perRepetition: "per r
 
 const STATUS_WORDS = { pass: "pass", fail: "FAIL", "outside-table": "not covered by the table" } as const;
 
+/** ", from 151 °C" when the event's start temperature is known. */
+function startWords(e: EventRatingCheck): string {
+  return e.startTemperatureC === undefined ? "" : `, from ${num(e.startTemperatureC, 4)} °C`;
+}
+
+/** "62.6 % of 146 J allowed (150 J rated, derated to 97.4 %)", or that nothing is allowed at that start. */
+function allowanceWords(pe: PulseEnergyCheck): string {
+  const rated = `${num(pe.ratedEnergyJ ?? 0)} J rated`;
+  if (pe.allowedEnergyJ === undefined || !(pe.allowedEnergyJ > 0)) return `no energy allowed at that start temperature (${rated}, derated to 0 %)`;
+  const derated = pe.deratingFactor < 1 ? `${rated}, derated to ${num(pe.deratingFactor * 100)} %` : `${rated}, not derated`;
+  return `${num((pe.utilisation ?? 0) * 100)} % of ${num(pe.allowedEnergyJ)} J allowed (${derated})`;
+}
+
 /**
  * The terminal "stress" section of one part: rating checks per event (only the failing or
  * uncovered ones listed, plus a count of passes), the cycle summary, Miner damage with its
@@ -54,8 +72,12 @@ export function formatStressSection(partId: string, report: StressReport, histor
       const pe = e.pulseEnergy;
       if (pe !== undefined && pe.status !== "pass")
         lines.push(
-          `    event ${e.index} at ${num(e.startS)} s: pulse energy ${num(pe.energyJ)} J at t_eq ${num(pe.equivalentDurationS)} s: ` +
-            (pe.ratedEnergyJ === undefined ? `${STATUS_WORDS[pe.status]} (${pe.position})` : `${num((pe.utilisation ?? 0) * 100)} % of ${num(pe.ratedEnergyJ)} J, ${STATUS_WORDS[pe.status]}`),
+          ...paragraph(
+            "    ",
+            `event ${e.index} at ${formatNumber(e.startS, 7)} s${startWords(e)}: pulse energy ${num(pe.energyJ)} J at t_eq ${num(pe.equivalentDurationS)} s: ` +
+              (pe.ratedEnergyJ === undefined ? `${STATUS_WORDS[pe.status]} (${pe.position})` : `${allowanceWords(pe)}, ${STATUS_WORDS[pe.status]}`),
+            2,
+          ),
         );
       const soa = e.soa;
       if (soa !== undefined && soa.status !== "pass") {
@@ -70,17 +92,28 @@ export function formatStressSection(partId: string, report: StressReport, histor
     }
     if (flagged.length > STRESS_SECTION_MAX_EVENTS)
       lines.push(`    ... and ${flagged.length - STRESS_SECTION_MAX_EVENTS} more events outside their ratings (all of them in the JSON report)`);
-    const worstEnergy = Math.max(0, ...checked.map((e) => e.pulseEnergy?.utilisation ?? 0));
-    if (worstEnergy > 0) lines.push(`    highest pulse-energy use: ${num(worstEnergy * 100)} % of the rating`);
+    const worstEnergy = checked.reduce<EventRatingCheck | undefined>(
+      (w, e) => ((e.pulseEnergy?.utilisation ?? 0) > (w?.pulseEnergy?.utilisation ?? 0) ? e : w),
+      undefined,
+    );
+    const pe = worstEnergy?.pulseEnergy;
+    if (worstEnergy !== undefined && pe !== undefined)
+      lines.push(
+        ...paragraph("    ", `highest pulse-energy use: event ${worstEnergy.index} at ${formatNumber(worstEnergy.startS, 7)} s${startWords(worstEnergy)}: ${num(pe.energyJ)} J, ${allowanceWords(pe)}`, 2),
+      );
     const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
     if (worstSoa === Number.POSITIVE_INFINITY) lines.push("    highest SOA use: no current allowed (an event starts at or above the maximum junction temperature)");
     else if (worstSoa > 0) lines.push(`    highest SOA use: ${num(worstSoa * 100)} % of the allowed current`);
   } else lines.push("  ratings: no rating table applies");
   const c = report.cycleSummary;
   lines.push(
-    `  cycles (${c.mode === "repeating" ? "repeating history, ASTM E1049 §5.4.5" : "open history, ASTM E1049 §5.4.4"}, hysteresis ${num(c.hysteresisK)} K): ` +
-      `${c.fullCycles} full, ${c.halfCycles} half from ${c.turningPoints} turning points; largest range ${num(c.largestRangeK)} K` +
-      (c.lowestC === undefined || c.highestC === undefined ? "" : `, ${num(c.lowestC)} to ${num(c.highestC)} °C`),
+    ...paragraph(
+      "  ",
+      `cycles (${c.mode === "repeating" ? "repeating history, ASTM E1049 §5.4.5" : "open history, ASTM E1049 §5.4.4"}, hysteresis ${num(c.hysteresisK)} K): ` +
+        `${c.fullCycles} full, ${c.halfCycles} half from ${c.turningPoints} turning points; largest range ${num(c.largestRangeK)} K` +
+        (c.lowestC === undefined || c.highestC === undefined ? "" : `, ${num(c.lowestC)} to ${num(c.highestC)} °C`),
+      2,
+    ),
   );
   const d = report.damage;
   if (d !== undefined) {
