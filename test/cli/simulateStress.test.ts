@@ -201,6 +201,57 @@ describe("simulate with the stress layer (in process)", () => {
   });
 });
 
+describe("a short pulse after hours at ambient (heating time)", () => {
+  // Invented: one RC stage (R = 1 K/W, tau = 0.1 s) at 40 °C, a 100 W, 0.3 s pulse every 3 h after
+  // 3 h of waiting. Between pulses the part is back at 40 °C exactly, so each pulse rises from a
+  // flat stretch hours long; each rise heats for the 0.3 s of its pulse (lumped stage: Incropera
+  // et al., Fundamentals of Heat and Mass Transfer, 7th ed., §5.2, peak at the pulse end).
+  const profile = `name: short pulses after hours idle
+ambient: 40 degC
+parts:
+  - id: q
+    network: { form: foster, stages: [{ r: 1 K/W, tau: 100 ms }] }
+    limits: { maxTemperature: 175 degC }
+    lifetime: { model: cips2008, currentPerWire: 10 A, voltageClass: 600 V, wireDiameter: 300 um }
+events:
+  - wait: 3 h
+  - repeat:
+      count: 4
+      period: 3 h
+      events:
+        - power-trace: { part: q, points: [[0, 100], [0.3 s, 100], [0.300000001 s, 0]] }
+`;
+
+  test("JSON: the cycles heat for 0.3 s, and their heating time is reported as outside CIPS 2008's 1-15 s", async () => {
+    const io = memoryIo({ "dir/q.yaml": profile });
+    expect(await runCli(["simulate", "dir/q.yaml", "--json"], io)).toBe(0);
+    const damage = (
+      JSON.parse(io.stdout.join("")) as {
+        parts: { stress: { damage: { topCycles: { heatingTimeS: number; count: number }[]; extrapolated: { quantity: string; range: number[]; found: number[]; cycles: number; damageShare: number }[] } } }[];
+      }
+    ).parts[0]!.stress.damage;
+    expect(damage.topCycles.map((c) => c.count)).toEqual([1, 1, 1, 1]);
+    // the pulse is 0.3 s plus the 1 ns fall of the trace, during which power still exceeds the
+    // rise·1/R for 0.05 ns: 1e-9 s covers it and the rounding of times near 5e4 s
+    for (const c of damage.topCycles) expectClose(c.heatingTimeS, 0.3, { abs: 1e-9 });
+    const short = damage.extrapolated.find((x) => x.quantity === "heatingTime")!;
+    expect([short.range, short.cycles]).toEqual([[1, 15], 4]);
+    expectClose(short.damageShare, 1, { rel: 1e-12 }); // every cycle outside: the same terms summed twice
+  });
+
+  test("text: the cycles list says heating 0.3 s and an extrapolated line names the heating time", async () => {
+    const io = memoryIo({ "dir/q.yaml": profile });
+    expect(await runCli(["simulate", "dir/q.yaml", "--no-chart"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toMatch(/95 K \(40 to 135 °C, heating 0\.3 s\) ×4/);
+    const section = text.slice(text.indexOf("Stress — q"), text.indexOf("Rating checks"));
+    expect(section.replace(/\s+/g, " ")).toContain(
+      "extrapolated: 4 of 4 counted cycles have a heating time of 0.3-0.3 s, outside the model's validity range 1-15 s (Bayerer et al. 2008, from memory); they carry 100 % of the damage",
+    );
+    for (const line of section.split("\n")) expect(line.length).toBeLessThanOrEqual(100);
+  });
+});
+
 describe("bad stress keys in a profile: file:line, field, expected, found", () => {
   // Each message is pinned in full; the line is the line of the offending key in the profile
   // (line 3 of PROFILE holds the optional top-level keys, line 4 `parts:`, so the stress keys sit on line 8).
