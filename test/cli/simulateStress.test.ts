@@ -150,6 +150,31 @@ describe("simulate with the stress layer (in process)", () => {
     expectClose(pe.utilisation!, use, { rel: 1e-8 });
   });
 
+  // The same pulse from a hot start: two 60 W, 1 s pulses 1.5 s apart. The second starts 0.5 s
+  // after the first ends, at 25 + 60·(1 − e^(−2))·e^(−1) = 44.086 °C (lumped stage, Incropera
+  // et al. §5.2, as rangeOf), so its 66.7 J rating (stated from 25 °C, nothing left at the part's
+  // 150 °C limit; common practice for resistor pulse ratings) is derated to
+  // k = (150 − 44.086)/(150 − 25) = 0.8473: 56.5 J allowed, 60 J fails (106 %) where the cold first
+  // pulse passes (90 %). Closed forms against the exact engine: 1e-8 relative covers the trace's
+  // 1 ns linear fall (a 1e-9 share of the pulse).
+  test("a pulse that passes from ambient fails the same rating from a hot start", async () => {
+    const keys = `    ratings: { pulseEnergy: [{ duration: 10 ms, energy: 5 J }, { duration: 1 s, energy: 66.7 J }, { duration: 10 s, energy: 400 J }] }`;
+    const io = memoryIo({ "dir/p.yaml": PROFILE({ powerW: 60, pulses: 2, stressKeys: keys }).replace("period: 30 s", "period: 1.5 s"), "dir/net.yaml": NET });
+    expect(await runCli(["simulate", "dir/p.yaml", "--json"], io)).toBe(1);
+    const checks = (JSON.parse(io.stdout.join("")) as {
+      parts: { stress: { ratingChecks: { status: string; startTemperatureC: number; pulseEnergy: { deratingFactor: number; allowedEnergyJ: number; utilisation: number } }[] } }[];
+    }).parts[0]!.stress.ratingChecks;
+    expect(checks.map((c) => c.status)).toEqual(["pass", "fail"]);
+    expect(checks[0]!.startTemperatureC).toBe(25);
+    expect(checks[0]!.pulseEnergy.deratingFactor).toBe(1);
+    const startC = 25 + 60 * (1 - Math.exp(-2)) * Math.exp(-1);
+    const k = (150 - startC) / 125;
+    expectClose(checks[1]!.startTemperatureC, startC, { rel: 1e-8 });
+    expectClose(checks[1]!.pulseEnergy.deratingFactor, k, { rel: 1e-8 });
+    expectClose(checks[1]!.pulseEnergy.allowedEnergyJ, 66.7 * k, { rel: 1e-8 });
+    expectClose(checks[1]!.pulseEnergy.utilisation, 60 / (66.7 * k), { rel: 1e-8 });
+  });
+
   test("a pulse shorter than the table is outside it: a warning, exit 0", async () => {
     const keys = `    ratings: { pulseEnergy: [{ duration: 2 s, energy: 100 J }, { duration: 10 s, energy: 400 J }] }`;
     const { status, json } = await runJson({ powerW: 60, pulses: 2, stressKeys: keys });
