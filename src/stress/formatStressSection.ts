@@ -1,5 +1,4 @@
 import { wrapText } from "../report/cautions.js";
-import { formatNumber } from "../report/formatTable.js";
 import { CYCLE_QUANTITY_WORDS } from "./LifetimeModel.js";
 import type { EventRatingCheck, StressReport } from "./assessStress.js";
 import type { PulseEnergyCheck } from "./pulseEnergyRating.js";
@@ -26,6 +25,11 @@ function num(x: number, digits = 3): string {
   if (!Number.isFinite(x)) return "n/a";
   if (x !== 0 && (Math.abs(x) >= 1e6 || Math.abs(x) < 1e-3)) return x.toExponential(digits - 1);
   return String(Number(x.toPrecision(digits)));
+}
+
+/** An event's start time [s] to 7 significant digits, without exponent or trailing zeros (events seconds apart over days stay distinct). */
+function seconds(x: number): string {
+  return Number.isFinite(x) ? String(Number(x.toPrecision(7))) : "n/a";
 }
 
 /** How the damage lines name one pass of the history ("per repetition of the profile", "repetitions"). */
@@ -56,9 +60,11 @@ function allowanceWords(pe: PulseEnergyCheck): string {
 
 /**
  * The terminal "stress" section of one part: rating checks per event (only the failing or
- * uncovered ones listed, plus a count of passes), the cycle summary, Miner damage with its
- * projections and the most damaging cycles, warnings, notes and cautions. Plain text, lines of
- * at most about 100 characters; returns a string, prints nothing.
+ * uncovered ones listed, each with its start temperature and derated allowance, plus a count of
+ * passes and the event with the highest pulse-energy use), the cycle summary, Miner damage with
+ * its projections and the most damaging cycles, the cycles outside the model's validity range
+ * ("extrapolated", per quantity), warnings, notes and cautions. Plain text, lines of at most
+ * 100 characters; returns a string, prints nothing.
  * Cost O(events + top cycles + warnings).
  */
 export function formatStressSection(partId: string, report: StressReport, history: StressHistoryWords = PROFILE_HISTORY_WORDS): string {
@@ -74,7 +80,7 @@ export function formatStressSection(partId: string, report: StressReport, histor
         lines.push(
           ...paragraph(
             "    ",
-            `event ${e.index} at ${formatNumber(e.startS, 7)} s${startWords(e)}: pulse energy ${num(pe.energyJ)} J at t_eq ${num(pe.equivalentDurationS)} s: ` +
+            `event ${e.index} at ${seconds(e.startS)} s${startWords(e)}: pulse energy ${num(pe.energyJ)} J at t_eq ${num(pe.equivalentDurationS)} s: ` +
               (pe.ratedEnergyJ === undefined ? `${STATUS_WORDS[pe.status]} (${pe.position})` : `${allowanceWords(pe)}, ${STATUS_WORDS[pe.status]}`),
             2,
           ),
@@ -83,10 +89,14 @@ export function formatStressSection(partId: string, report: StressReport, histor
       if (soa !== undefined && soa.status !== "pass") {
         const w = soa.worst;
         lines.push(
-          `    event ${e.index} at ${num(e.startS)} s: SOA ${STATUS_WORDS[soa.status]}: ${soa.pointsOutside} of ${soa.pointsChecked} points past the boundary, ` +
-            `${soa.pointsNotCovered} not covered` +
-            (w === undefined ? "" : `; worst ${num(w.idA)} A at ${num(w.vdsV)} V (allowed ${num(w.allowedA)} A for ${num(soa.durationS)} s)`) +
-            (soa.deratingFactor < 1 ? `, boundaries derated to ${num(soa.deratingFactor * 100)} %` : ""),
+          ...paragraph(
+            "    ",
+            `event ${e.index} at ${seconds(e.startS)} s${startWords(e)}: SOA ${STATUS_WORDS[soa.status]}: ${soa.pointsOutside} of ${soa.pointsChecked} points past the boundary, ` +
+              `${soa.pointsNotCovered} not covered` +
+              (w === undefined ? "" : `; worst ${num(w.idA)} A at ${num(w.vdsV)} V (allowed ${num(w.allowedA)} A for ${num(soa.durationS)} s)`) +
+              (soa.deratingFactor < 1 ? `, boundaries derated to ${num(soa.deratingFactor * 100)} %` : ""),
+            2,
+          ),
         );
       }
     }
@@ -99,7 +109,7 @@ export function formatStressSection(partId: string, report: StressReport, histor
     const pe = worstEnergy?.pulseEnergy;
     if (worstEnergy !== undefined && pe !== undefined)
       lines.push(
-        ...paragraph("    ", `highest pulse-energy use: event ${worstEnergy.index} at ${formatNumber(worstEnergy.startS, 7)} s${startWords(worstEnergy)}: ${num(pe.energyJ)} J, ${allowanceWords(pe)}`, 2),
+        ...paragraph("    ", `highest pulse-energy use: event ${worstEnergy.index} at ${seconds(worstEnergy.startS)} s${startWords(worstEnergy)}: ${num(pe.energyJ)} J, ${allowanceWords(pe)}`, 2),
       );
     const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
     if (worstSoa === Number.POSITIVE_INFINITY) lines.push("    highest SOA use: no current allowed (an event starts at or above the maximum junction temperature)");

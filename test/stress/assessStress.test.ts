@@ -94,7 +94,10 @@ describe("assessStress on a pulse train", () => {
     const withPoints = events.map((e) => ({ ...e, operatingPoints: [{ timeS: e.startS, vdsV: 48, idA: 4 }, { timeS: e.startS + tp, vdsV: 5, idA: 4 }] }));
     const report = assessStress(config, withPoints, history(), { partKind: "mosfet", linearMode: true });
     expect(report.cautions).toContain(LINEAR_MOSFET_CAUTION);
-    expect(formatStressSection("Q1", report)).toContain("linear-mode MOSFET");
+    const text = formatStressSection("Q1", report);
+    expect(text).toContain("linear-mode MOSFET");
+    expect(text.replace(/\s+/g, " ")).toContain("event 1 at 2 s: SOA FAIL: 1 of 2 points past the boundary, 0 not covered; worst 4 A at 48 V (allowed 2.08 A for 0.05 s)");
+    for (const line of text.split("\n")) expect(line.length).toBeLessThanOrEqual(100);
     // allowed at 48 V on the 10 ms line: 50·0.1^(log10 4.8) = 7.3 A ≥ 4 A; 50 ms lies past the last
     // finite line, so the DC line holds: 10·0.1^(log10 4.8) = 1.46 A < 4 A -> fail.
     expect(report.ratingStatus).toBe("fail");
