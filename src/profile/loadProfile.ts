@@ -232,7 +232,7 @@ function resolvePart(
   networks.set(networkKey, resolved);
   let stress: StressConfig | undefined;
   try {
-    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
+    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role), limitC: part.limits.maxTemperature });
   } catch (error) {
     reader.absorb(error);
   }
