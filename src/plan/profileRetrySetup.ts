@@ -113,7 +113,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
         const conditions: ChargeConditions = { sourceVoltageV: c.busVoltageV, initialVoltageV: context.capacitorVoltageV, completion: c.completion, partTemperatureC };
         const r = models.charge(c, fault.load, conditions);
         const completed = r.outcome === "completed";
-        const durationS = r.durationS + (completed && fault.type === "trip-after-close" ? fault.afterS : 0);
+        const durationS = r.durationS + (completed ? (fault.tripAfterS ?? 0) : 0);
         const own: PowerTrace = part.role === undefined ? [] : (r.traces[part.role] ?? []);
         const otherTraces: Record<string, PowerTrace> = {};
         for (const h of sameNetwork) {

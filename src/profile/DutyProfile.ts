@@ -73,8 +73,11 @@ export interface FaultSpec {
   readonly type: "shorted-output" | "overloaded-bus" | "converter-early" | "trip-after-close";
   /** the load the bus presents during the attempt */
   readonly load: BusLoad;
-  /** trip-after-close: time from the contactor closing to the trip [s] */
-  readonly afterS: number;
+  /**
+   * time from the contactor closing to the trip [s] (trip-after-close; 0 is a trip at the moment
+   * the contactor closes); undefined: the fault does not trip the system, the bus stays on
+   */
+  readonly tripAfterS?: number;
 }
 
 /** One event of a profile, resolved to SI, with its field path for messages. */

@@ -496,7 +496,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
   switch (f.type) {
     case "shorted-output":
       forbid(["load", "power", "enableAt", "disableAt", "after"]);
-      return { type: f.type, load: { kind: "short" }, afterS: 0 };
+      return { type: f.type, load: { kind: "short" } };
     case "overloaded-bus": {
       forbid(["power", "enableAt", "disableAt", "after"]);
       if (f.load === undefined) {
@@ -504,7 +504,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, f.load, join(field, "load"), busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "converter-early": {
       forbid(["load", "after"]);
@@ -513,7 +513,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, { kind: "constant-power", power: f.power, enableAt: f.enableAt, disableAt: f.disableAt }, field, busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "trip-after-close":
       forbid(["power", "enableAt", "disableAt"]);
@@ -521,7 +521,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         ctx.reader.fail("bad-profile", join(field, "after"), 'the time from contactor closing to the trip, such as "200 ms"', "nothing");
         return undefined;
       }
-      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), afterS: f.after };
+      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), tripAfterS: f.after };
   }
 }
 
@@ -538,7 +538,7 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const at = join(field, "fault");
     needCircuit(ctx, at, "fault");
     const fault = resolveFault(ctx, e.fault, at);
-    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" }, afterS: 0 } };
+    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" } } };
   }
   if ("run" in e) return { kind: "run", field: join(field, "run"), durationS: e.run };
   if ("wait" in e) return { kind: "wait", field: join(field, "wait"), durationS: e.wait };
@@ -549,9 +549,9 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const r = e.retry;
     needCircuit(ctx, at, "retry block");
     const fault = r.fault === undefined ? undefined : resolveFault(ctx, r.fault, join(at, "fault"));
-    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.afterS ?? 0);
+    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.tripAfterS ?? 0);
     if (ctx.circuit !== undefined && r.interval < attemptS)
-      ctx.reader.fail("out-of-range", join(at, "interval"), `an interval (start to start) at least as long as an attempt can last (${attemptS} s: the completion timeout${fault?.afterS ? " plus the trip delay" : ""})`, `${r.interval} s`);
+      ctx.reader.fail("out-of-range", join(at, "interval"), `an interval (start to start) at least as long as an attempt can last (${attemptS} s: the completion timeout${fault?.tripAfterS === undefined ? "" : " plus the trip delay"})`, `${r.interval} s`);
     const maxIntervalS = r.maxInterval ?? Infinity;
     if (maxIntervalS < r.interval) ctx.reader.fail("out-of-range", join(at, "maxInterval"), `a longest interval at least the first interval (${r.interval} s)`, `${maxIntervalS} s`);
     const faultyAttempts = r.faultyAttempts ?? (r.fault === undefined ? 0 : r.attempts);
