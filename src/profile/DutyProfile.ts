@@ -6,6 +6,7 @@ import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
 import type { StressConfig } from "../stress/resolveStressConfig.js";
+import type { AttemptTiming } from "./attemptTiming.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -111,6 +112,11 @@ export interface DutyProfile {
   readonly events: readonly ProfileEvent[];
   /** the retry plan section (questions and corners for `heatledger retries`), when given */
   readonly retryPlan?: RetryPlanInput;
+  /**
+   * the relay's switching times and the firmware's timer resolution (`circuit.relay`,
+   * `firmware`), defaults filled in; undefined (a profile built by hand): ATTEMPT_TIMING_DEFAULTS
+   */
+  readonly timing?: AttemptTiming;
   /** the supervision section, when the profile has one (read by `heatledger supervise`) */
   readonly supervision?: SupervisionSpec;
   /** how many times a year the whole profile happens (for calendar life); undefined: not stated */
