@@ -2,7 +2,7 @@ import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../report/formatTable.js";
-import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "../profile/attemptTiming.js";
+import { ATTEMPT_TIMING_DEFAULTS, type AttemptTiming, shortestAttemptWaitS } from "../profile/attemptTiming.js";
 import { ceilToTimer } from "./alignToTimer.js";
 import { type MaxAttemptsAnswer, maxAttempts } from "./maxAttempts.js";
 import type { RetryScenario } from "./RetryScenario.js";
@@ -95,6 +95,8 @@ export interface SupervisionReport {
   readonly riseChecks: readonly RiseCheck[];
   readonly recommendedRise: RiseCheck | null;
   readonly policy: SupervisedRetryPolicy | null;
+  /** the relay's switching times and the firmware's timer resolution used (the profile's, or ATTEMPT_TIMING_DEFAULTS) */
+  readonly timing: AttemptTiming;
   readonly storm: RetryStorm;
   readonly envelope: SupervisionEnvelope;
   /** "pass": a safe timeout exists and the profile's timeout is inside it; "fail" otherwise */
@@ -234,6 +236,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     riseChecks: rises,
     recommendedRise,
     policy,
+    timing,
     storm: { timeoutS, backToBack, backToBackWaitS, atPolicyInterval },
     envelope: { timeS: timeGrid, lowV, highV, shortEnergyJ },
     verdict: problems.length === 0 ? "pass" : "fail",

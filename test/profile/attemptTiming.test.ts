@@ -130,6 +130,13 @@ describe("retry timing: relay switching times and the firmware timer", () => {
     }
   });
 
+  test("a profile's lockout shorter than the relay allows cannot be the policy: unsafe, with the reason", () => {
+    const profile = loadProfile(profileText("", "").replace("lockout: 2 min", "lockout: 10 ms"), "drive.yaml");
+    const plan = planRetries(profile, models);
+    expect(plan.policy.verdict).toBe("unsafe");
+    expect(plan.policy.reasons).toContain('corner "nominal": a 0.01 s lockout is shorter than the relay\'s release and operate times (0.03 s): the next burst cannot start that soon');
+  });
+
   test("a band too narrow for the timer is not proposed: rounding up into the gap between bands is caught by the re-check", () => {
     // on a 10 ms timer the quick band starts at 30 ms; on a 100 ms timer a naive round-up would
     // propose 100 ms, which lies between the bands (the bus is empty by then, the part still hot)
