@@ -12,6 +12,7 @@ import {
   supervisePrecharge,
   uniformBurst,
 } from "../../src/index.js";
+import { tripDriveProfileText } from "./tripDriveProfile.js";
 
 // Retry intervals a relay can do. An invented 420 V drive trips 20 ms after each completed
 // pre-charge and its active discharge empties the link in about 50 ms (τ = 47 ohm × 1.1 mF), so
@@ -20,26 +21,15 @@ import {
 // (release time) and close again (operate time) between attempts, and the firmware times waits in
 // whole steps of its timer.
 function profileText(relay: string, timer: string): string {
-  return `name: invented 420 V drive, restarts after a trip
-ambient: 40 degC
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 2 s }, { r: 3 K/W, tau: 60 s }] }
-    limits: { maxTemperature: 200 degC, margin: 20 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 420 V
-  capacitance: 1.1 mF
-  resistance: 20 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: active, resistance: 47 ohm }
-${relay === "" ? "" : `  relay: ${relay}\n`}${timer === "" ? "" : `firmware: { timerResolution: ${timer} }\n`}supervision:
-  corners: { capacitance: [1 mF, 1.2 mF] }
-events:
-  - retry: { attempts: 6, interval: 1 s, fault: { type: trip-after-close, after: 20 ms }, lockout: 2 min }
-retryPlan: { spacing: end-to-start, attempts: 12, interval: 300 ms, map: { attempts: 3, points: 3 } }
-`;
+  return tripDriveProfileText({
+    busVoltage: "420 V",
+    capacitance: "1.1 mF",
+    after: "20 ms",
+    supervisedCapacitance: "[1 mF, 1.2 mF]",
+    retryPlan: "{ spacing: end-to-start, attempts: 12, interval: 300 ms, map: { attempts: 3, points: 3 } }",
+    relay,
+    timer,
+  });
 }
 const load = (relay: string, timer: string) => loadProfile(profileText(relay, timer), "drive.yaml");
 const models = defaultCircuitModels;

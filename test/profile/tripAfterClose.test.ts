@@ -10,6 +10,7 @@ import {
   supervisePrecharge,
 } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { tripDriveProfileText } from "./tripDriveProfile.js";
 
 // A trip-after-close fault with `after: 0 s` trips the system at the moment the contactor closes:
 // the bus is disconnected and drained like after any other trip. It must not be read as "no
@@ -35,26 +36,7 @@ const DELAYS: readonly (readonly [string, number])[] = [
 ];
 
 function profileText(after: string): string {
-  return `name: invented 400 V drive that trips when its contactor closes
-ambient: 40 degC
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 2 s }, { r: 3 K/W, tau: 60 s }] }
-    limits: { maxTemperature: 200 degC, margin: 20 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 400 V
-  capacitance: 1 mF
-  resistance: 20 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: active, resistance: 47 ohm }
-supervision:
-  corners: { capacitance: [0.9 mF, 1.1 mF] }
-events:
-  - retry: { attempts: 6, interval: 1 s, fault: { type: trip-after-close, after: ${after} }, lockout: 2 min }
-retryPlan: { attempts: 4, map: { attempts: 3, points: 3 } }
-`;
+  return tripDriveProfileText({ busVoltage: "400 V", capacitance: "1 mF", after, supervisedCapacitance: "[0.9 mF, 1.1 mF]", retryPlan: "{ attempts: 4, map: { attempts: 3, points: 3 } }" });
 }
 const load = (after: string) => loadProfile(profileText(after), "trip.yaml");
 const models = defaultCircuitModels;
