@@ -17,10 +17,16 @@ export function ceilToTimer(valueS: number, resolutionS: number): number {
   return tidy(Math.max(0, Math.ceil(valueS / resolutionS - 1e-6)) * resolutionS);
 }
 
-/** `valueS` rounded down to a whole number of timer steps (see ceilToTimer). Cost O(1). */
+/**
+ * `valueS` rounded down to a whole number of timer steps, with no slack: used for the upper ends
+ * of bands, which are not re-checked, so the result never lies above `valueS` (a value a hair
+ * below a step goes down a whole step: the safe side). Cost O(1).
+ */
 export function floorToTimer(valueS: number, resolutionS: number): number {
   if (!(resolutionS > 0)) return valueS;
-  return tidy(Math.max(0, Math.floor(valueS / resolutionS + 1e-6)) * resolutionS);
+  const steps = Math.max(0, Math.floor(valueS / resolutionS));
+  const down = tidy(steps * resolutionS);
+  return down > valueS ? tidy((steps - 1) * resolutionS) : down;
 }
 
 /** The timer step after `valueS` (a whole number of steps). Cost O(1). */

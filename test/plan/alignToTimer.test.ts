@@ -10,6 +10,7 @@ describe("ceilToTimer / floorToTimer", () => {
     [0.03, 0.01, 0.03, 0.03],
     [0.07, 0.01, 0.07, 0.07], // 0.07/0.01 is 7.000000000000001 in doubles: still 7 steps
     [0.030000000003, 0.01, 0.03, 0.03], // bisection noise above a step counts as on it (re-checked)
+    [0.029999999997, 0.01, 0.03, 0.02], // a hair below a step: down goes a whole step (never above the value)
     [1.2345, 0.001, 1.235, 1.234],
     [0.0123, 0, 0.0123, 0.0123], // resolution 0: no rounding
   ])("%s s on a %s s timer: up %s s, down %s s", (value, step, up, down) => {
