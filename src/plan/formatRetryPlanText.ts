@@ -92,7 +92,7 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   const b = report.backoff;
   if (b?.rule != null) {
     out.push(
-      `   Firmware rule: wait ${formatPlanDuration(b.rule.firstWaitS)} after the first attempt ends, then multiply the wait by ${b.rule.growthFactor.toFixed(3)} after each attempt; checked by simulation: the burst ends at ${formatPlanDuration(b.burstEndS!)} (fastest: ${formatPlanDuration(s.burstEndS)}); ${corner(b.governing)}.`,
+      `   Firmware rule: wait ${formatPlanDuration(b.rule.firstWaitS)} after the first attempt ends, then multiply the wait by ${b.rule.growthFactor.toFixed(3)} after each attempt (rounded up to the timer); checked by simulation: the burst ends at ${formatPlanDuration(b.burstEndS!)} (fastest: ${formatPlanDuration(s.burstEndS)}); ${corner(b.governing)}.`,
     );
   } else if (b !== null) out.push(`   No first wait and growth factor up to the scanned range keeps all ${b.attempts} attempts safe.`);
   out.push("");

@@ -87,7 +87,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     m.unlimited
       ? `  ${label}: unlimited (the part stays within limit − margin for ever; ${m.governing.corner})`
       : `  ${label}: ${m.attempts}${m.capped ? " or more" : ""} attempt(s) stay within limit − margin; the next reaches ${m.firstUnsafePeakC === null ? "n/a" : `${formatNumber(m.firstUnsafePeakC, 4)} °C`} (${m.governing.corner}). Lock out after at most that many.`;
-  out.push(storm(`back to back (${dur(report.storm.backToBackWaitS)} between attempts: the relay's release and operate times)`, report.storm.backToBack));
+  out.push(storm(`back to back (${dur(report.storm.backToBackWaitS)} apart: relay)`, report.storm.backToBack));
   if (report.storm.atPolicyInterval !== null && report.policy !== null) out.push(storm(`${dur(report.policy.intervalS)} apart (the policy's interval)`, report.storm.atPolicyInterval));
   out.push("");
   out.push("Healthy corners");
