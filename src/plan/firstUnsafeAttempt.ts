@@ -13,7 +13,10 @@ export interface FirstUnsafeAttempt {
   readonly peakC: number | null;
   /** highest own peak of the safe attempts before it (or up to lastIndex) [°C]; −Infinity when there are none */
   readonly worstSafePeakC: number;
-  /** an attempt examined, or the one after the last examined, would start before the previous one ends */
+  /**
+   * an attempt examined, or the one after the last examined, cannot start when asked: before the
+   * previous one ends, or sooner after it than the corner's shortest wait (the relay)
+   */
   readonly overlap: boolean;
   /**
    * "closed-form": found by exponential search and bisection on the settled train (a few attempts
@@ -111,8 +114,7 @@ export function firstUnsafeAttempt(corner: ResolvedScenario, intervalS: number, 
       }
     }
   }
-  const overlap = spacing === "start-to-start" && cursor.lastStartS + intervalS < cursor.endS;
-  return { index: null, peakC: null, worstSafePeakC: worst, overlap, method: "simulated" };
+  return { index: null, peakC: null, worstSafePeakC: worst, overlap: !cursor.canStartAt(nextStart()), method: "simulated" };
 }
 
 /** The settled train in closed form. */
@@ -137,7 +139,8 @@ interface TrainPlan {
 function trainPlan(corner: ResolvedScenario, cursor: AttemptCursor, trial: AttemptTrial, j: number, intervalS: number, spacing: RetrySpacing, allSame: boolean, lastIndex: number): TrainPlan | null {
   const outcome = trial.outcome;
   const waitS = spacing === "start-to-start" ? intervalS - outcome.durationS : intervalS;
-  if (!(waitS >= 0)) return null;
+  // a wait the relay does not allow: the next attempt cannot start, which the caller's scan reports
+  if (!(waitS >= 0) || waitS < corner.minWaitS) return null;
   const steady = attemptPeriodicSteadyState(corner, outcome, waitS);
   if (!sameAttempt(steady.attempt.outcome, outcome)) return null;
   const periodS = outcome.durationS + waitS;

@@ -8,7 +8,7 @@ export const LOCKOUT_MAP_SYMBOLS = [
   { symbol: "=", meaning: "safe, uses 80-100 % of the allowed rise" },
   { symbol: "!", meaning: "eats into the design margin (above limit - margin, not above the limit)" },
   { symbol: "#", meaning: "above the part's limit" },
-  { symbol: "~", meaning: "impossible: an attempt would start before the previous one ends" },
+  { symbol: "~", meaning: "impossible: an attempt would start before the previous one ends and the relay has cycled" },
 ] as const;
 
 function symbolOf(cell: LockoutMapCell): string {

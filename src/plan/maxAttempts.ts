@@ -43,7 +43,9 @@ export interface MaxAttemptsAnswer {
  * Cost O(corners × (attempts to settle + log2 PLAN_DEFAULTS.attemptCap) × cost of one attempt)
  * when the closed form applies, else O(corners × attempts until the first failure × cost of one attempt).
  * @throws InputError `out-of-range` when the interval is shorter than an attempt that the answer
- *   depends on (start-to-start spacing), or is not a finite number ≥ 0
+ *   depends on (start-to-start spacing) plus the corners' shortest wait (the relay's release and
+ *   operate times), a wait (end-to-start) is shorter than that shortest wait, or the interval is
+ *   not a finite number ≥ 0
  */
 export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: number, spacing: RetrySpacing = PLAN_DEFAULTS.spacing): MaxAttemptsAnswer {
   const corners = resolveCorners(scenarios);
@@ -51,7 +53,7 @@ export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: numb
   const verdicts: ForeverVerdict[] = [];
   for (const c of corners) {
     const v = retryForeverCheck(c, intervalS, spacing);
-    if (v.overlap) throw overlapError(c, intervalS);
+    if (v.overlap) throw overlapError(c, intervalS, spacing);
     verdicts.push(v);
     if (!v.safe) break;
   }
@@ -72,7 +74,7 @@ export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: numb
     const v = verdicts[i];
     if (v !== undefined && v.safe && v.attemptsSimulated > last) continue;
     const found = firstUnsafeAttempt(c, intervalS, spacing, last);
-    if (found.overlap) throw overlapError(c, intervalS);
+    if (found.overlap) throw overlapError(c, intervalS, spacing);
     if (found.index === null && last < PLAN_DEFAULTS.attemptCap - 1) continue;
     const count = found.index ?? PLAN_DEFAULTS.attemptCap;
     const peakC = found.peakC ?? found.worstSafePeakC;
@@ -94,15 +96,20 @@ export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: numb
   };
 }
 
-/** The error for an interval shorter than an attempt in corner c, naming the longest attempt seen. */
-function overlapError(c: ResolvedScenario, intervalS: number): InputError {
+/**
+ * The error for an interval too short in corner c: shorter than the relay's shortest wait
+ * (end-to-start), or than an attempt plus that wait (start-to-start, naming the longest attempt seen).
+ */
+function overlapError(c: ResolvedScenario, intervalS: number, spacing: RetrySpacing): InputError {
+  if (spacing === "end-to-start") return inputError("out-of-range", "intervalS", `a wait between attempts of at least ${c.minWaitS} s (the relay's release and operate times)`, `${intervalS} s`);
+  const relay = c.minWaitS > 0 ? ` plus the ${c.minWaitS} s the relay needs to open and close again` : "";
   const cursor = new AttemptCursor(c);
   let longest = 0;
   for (let k = 0; k < 50; k++) {
-    const trial = cursor.tryAt(k === 0 ? 0 : cursor.lastStartS + Math.max(intervalS, cursor.endS - cursor.lastStartS));
+    const trial = cursor.tryAt(k === 0 ? 0 : Math.max(cursor.lastStartS + intervalS, cursor.earliestNextS));
     if (trial === null) break;
     longest = Math.max(longest, cursor.keep(trial).durationS);
-    if (longest > intervalS) break;
+    if (longest + c.minWaitS > intervalS) break;
   }
-  return inputError("out-of-range", "intervalS", `a start-to-start interval at least as long as an attempt (${longest} s in corner "${c.name}")`, `${intervalS} s`);
+  return inputError("out-of-range", "intervalS", `a start-to-start interval at least as long as an attempt${relay} (${longest + c.minWaitS} s in corner "${c.name}")`, `${intervalS} s`);
 }

@@ -1,5 +1,5 @@
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
-import { type IntervalScanOptions, everyCorner, firstAttempts, lowestInterval, resolveScan } from "./minUniformInterval.js";
+import { type IntervalScanOptions, everyCorner, firstAttempts, lowestInterval, onTimer, resolveScan } from "./minUniformInterval.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import type { RetrySpacing } from "./RetrySchedule.js";
 import { type ForeverVerdict, retryForeverCheck } from "./retryForeverCheck.js";
@@ -26,7 +26,8 @@ export interface ForeverIntervalAnswer {
 /**
  * The shortest interval at which the firmware may retry for ever, from the
  * periodic steady state in closed form (retryForeverCheck per corner), with every band of safe
- * intervals (scan, then bisection of each edge).
+ * intervals (scan from the shortest interval the relay allows, then bisection of each edge; with
+ * a timer resolution, whole timer steps re-checked as in minUniformInterval).
  * For one RC stage and rectangular attempts of power P and length t_on this reproduces
  *   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max)   (start-to-start spacing).
  * When a corner's first attempt alone is unsafe, no interval is, and the scan is skipped.
@@ -45,7 +46,7 @@ export function minForeverInterval(scenarios: readonly RetryScenario[], options:
     return safe();
   };
   // a first attempt unsafe on its own (the same at every interval) leaves no interval to scan
-  const { bands, evaluations } = first.every((f) => f.safe) ? scanFeasibleBands(safeAt, grid) : { bands: [], evaluations: 0 };
+  const { bands, evaluations } = first.every((f) => f.safe) ? onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt) : { bands: [], evaluations: 0 };
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const verdicts = corners.map((c) => retryForeverCheck(c, at, scan.spacing));
   const governing = governingCorner(

@@ -150,7 +150,7 @@ export function sizeChargingElement(circuit: ProfileCircuit, models: CircuitMode
           presentChargeS,
           timeoutS,
           runs,
-          reason: `no ${knob.name} within a factor ${d.circuitSearchFactor} of the profile's completes a healthy power-up within ${timeoutS} s: ${last.reason}`,
+          reason: `no ${knob.name} within a factor ${d.circuitSearchFactor} of the profile's completes a healthy power-up within ${Number(timeoutS.toPrecision(6))} s: ${last.reason}`,
         };
       }
     }
@@ -174,6 +174,6 @@ export function sizeChargingElement(circuit: ProfileCircuit, models: CircuitMode
     chargeS: fastDuration,
     timeoutS,
     runs,
-    reason: `the ${knob.direction} ${knob.name} that completes a healthy power-up from 0 V within ${timeoutS} s`,
+    reason: `the ${knob.direction} ${knob.name} that completes a healthy power-up from 0 V within ${Number(timeoutS.toPrecision(6))} s`,
   };
 }

@@ -5,7 +5,7 @@ import { FieldReader, join } from "../format/FieldReader.js";
 import { parseStructuredText } from "../format/parseStructuredText.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { observedIndex, sourceIndex } from "../thermal/ModalModel.js";
-import { networkToModal } from "../thermal/ThermalNetwork.js";
+import { type ThermalNetwork, networkToModal } from "../thermal/ThermalNetwork.js";
 import { parseNetwork } from "../thermal/parseNetwork.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
@@ -15,6 +15,7 @@ import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
 import { resolveSupervision } from "./resolveSupervision.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
 import { stressPartKind } from "./stressPartKind.js";
+import { ATTEMPT_TIMING_DEFAULTS, type AttemptTiming, shortestAttemptWaitS } from "./attemptTiming.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -70,7 +71,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const reader = new FieldReader();
   const input = parsed.data;
   const circuit = input.circuit === undefined ? undefined : resolveCircuit(reader, input.circuit, "circuit");
-  const networks = new Map<string, ModalModel | undefined>();
+  const networks = new Map<string, ResolvedNetwork | undefined>();
   const parts = input.parts.map((part, i) => resolvePart(reader, part, `parts[${i}]`, input.ambient, input.circuit?.topology, file, source.lineOf, readFile, networks));
   const used = new Set<string>();
   parts.forEach((p, i) => {
@@ -85,7 +86,12 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     if (first !== undefined) reader.fail("bad-profile", `parts[${i}].id`, `a part id not used before (parts[${first}] is "${p.id}")`, describeFound(p.id));
     else seen.set(p.id, i);
   });
-  const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile };
+  const timing: AttemptTiming = {
+    operateS: input.circuit?.relay?.operate ?? ATTEMPT_TIMING_DEFAULTS.operateS,
+    releaseS: input.circuit?.relay?.release ?? ATTEMPT_TIMING_DEFAULTS.releaseS,
+    timerResolutionS: input.firmware?.timerResolution ?? ATTEMPT_TIMING_DEFAULTS.timerResolutionS,
+  };
+  const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile, timing };
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));
   const supervision =
     input.supervision === undefined ? undefined : resolveSupervision(reader, input.supervision, "supervision", circuit, (l, f, busV) => resolveLoad(reader, l, f, busV));
@@ -107,6 +113,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     parts: parts as ProfilePart[],
     ...(circuit === undefined ? {} : { circuit }),
     events,
+    timing,
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
     ...(supervision === undefined ? {} : { supervision }),
     ...(input.occursPerYear === undefined ? {} : { occursPerYear: input.occursPerYear }),
@@ -214,7 +221,7 @@ function resolvePart(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-  networks: Map<string, ModalModel | undefined>,
+  networks: Map<string, ResolvedNetwork | undefined>,
 ): ProfilePart | undefined {
   const role = part.role === undefined ? undefined : ROLE_NAMES[part.role];
   if (role !== undefined) {
@@ -228,15 +235,16 @@ function resolvePart(
   if (part.limits.maxTemperature <= (part.ambient ?? ambientC))
     reader.fail("out-of-range", join(field, "limits.maxTemperature"), `a limit above the ambient (${part.ambient ?? ambientC} °C)`, `${part.limits.maxTemperature} °C`);
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
-  const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
-  networks.set(networkKey, model);
+  const resolved = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
+  networks.set(networkKey, resolved);
   let stress: StressConfig | undefined;
   try {
-    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
+    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role), limitC: part.limits.maxTemperature });
   } catch (error) {
     reader.absorb(error);
   }
-  if (model === undefined) return undefined;
+  if (resolved === undefined) return undefined;
+  const { model, network } = resolved;
   try {
     const sourceAt = part.source === undefined ? 0 : sourceIndex(model, part.source, join(field, "source"));
     const observedAt = part.observe === undefined ? 0 : observedIndex(model, part.observe, join(field, "observe"));
@@ -245,6 +253,7 @@ function resolvePart(
       ...(role === undefined ? {} : { role }),
       model,
       networkKey,
+      network,
       sourceIndex: sourceAt,
       observedIndex: observedAt,
       ambientC: part.ambient ?? ambientC,
@@ -258,6 +267,12 @@ function resolvePart(
   }
 }
 
+/** A part's network as written and its modal form. */
+interface ResolvedNetwork {
+  readonly model: ModalModel;
+  readonly network: ThermalNetwork;
+}
+
 function resolveNetwork(
   reader: FieldReader,
   part: PartInput,
@@ -265,8 +280,9 @@ function resolveNetwork(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-): ModalModel | undefined {
+): ResolvedNetwork | undefined {
   const at = join(field, "network");
+  let network: ThermalNetwork;
   let model: ModalModel;
   try {
     if (typeof part.network === "string") {
@@ -284,14 +300,16 @@ function resolveNetwork(
       let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
         doc = parseStructuredText(text, readFile.displayName?.(part.network) ?? part.network);
-        model = networkToModal(parseNetwork(doc.data, ""), "");
+        network = parseNetwork(doc.data, "");
+        model = networkToModal(network, "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
         reader.absorb(withLocation(error, readFile.displayName?.(part.network) ?? part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {
-      model = networkToModal(parseNetwork(part.network, at), at);
+      network = parseNetwork(part.network, at);
+      model = networkToModal(network, at);
     }
   } catch (error) {
     if (error instanceof InputError) {
@@ -301,7 +319,7 @@ function resolveNetwork(
     }
     throw error;
   }
-  return model;
+  return { model, network };
 }
 
 /** Why a named file could not be read, in a few words ("no such file: /a/b.yaml"). */
@@ -467,6 +485,7 @@ interface EventContext {
   readonly circuit: ProfileCircuit | undefined;
   readonly partIds: readonly string[];
   readonly readFile: ReadNamedFile | undefined;
+  readonly timing: AttemptTiming;
 }
 
 const NO_LOAD: BusLoad = { kind: "none" };
@@ -485,7 +504,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
   switch (f.type) {
     case "shorted-output":
       forbid(["load", "power", "enableAt", "disableAt", "after"]);
-      return { type: f.type, load: { kind: "short" }, afterS: 0 };
+      return { type: f.type, load: { kind: "short" } };
     case "overloaded-bus": {
       forbid(["power", "enableAt", "disableAt", "after"]);
       if (f.load === undefined) {
@@ -493,7 +512,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, f.load, join(field, "load"), busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "converter-early": {
       forbid(["load", "after"]);
@@ -502,7 +521,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, { kind: "constant-power", power: f.power, enableAt: f.enableAt, disableAt: f.disableAt }, field, busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "trip-after-close":
       forbid(["power", "enableAt", "disableAt"]);
@@ -510,7 +529,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         ctx.reader.fail("bad-profile", join(field, "after"), 'the time from contactor closing to the trip, such as "200 ms"', "nothing");
         return undefined;
       }
-      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), afterS: f.after };
+      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), tripAfterS: f.after };
   }
 }
 
@@ -527,7 +546,7 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const at = join(field, "fault");
     needCircuit(ctx, at, "fault");
     const fault = resolveFault(ctx, e.fault, at);
-    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" }, afterS: 0 } };
+    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" } } };
   }
   if ("run" in e) return { kind: "run", field: join(field, "run"), durationS: e.run };
   if ("wait" in e) return { kind: "wait", field: join(field, "wait"), durationS: e.wait };
@@ -538,9 +557,16 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const r = e.retry;
     needCircuit(ctx, at, "retry block");
     const fault = r.fault === undefined ? undefined : resolveFault(ctx, r.fault, join(at, "fault"));
-    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.afterS ?? 0);
-    if (ctx.circuit !== undefined && r.interval < attemptS)
-      ctx.reader.fail("out-of-range", join(at, "interval"), `an interval (start to start) at least as long as an attempt can last (${attemptS} s: the completion timeout${fault?.afterS ? " plus the trip delay" : ""})`, `${r.interval} s`);
+    // start to start, an interval must hold the longest attempt and the relay's opening and closing again
+    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.tripAfterS ?? 0);
+    const shortestS = attemptS + shortestAttemptWaitS(ctx.timing);
+    if (ctx.circuit !== undefined && r.interval < shortestS * (1 - 1e-12))
+      ctx.reader.fail(
+        "out-of-range",
+        join(at, "interval"),
+        `an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (${Number(shortestS.toPrecision(12))} s: the completion timeout${fault?.tripAfterS === undefined ? "" : ", the trip delay"} and ${Number(shortestAttemptWaitS(ctx.timing).toPrecision(12))} s for the relay)`,
+        `${r.interval} s`,
+      );
     const maxIntervalS = r.maxInterval ?? Infinity;
     if (maxIntervalS < r.interval) ctx.reader.fail("out-of-range", join(at, "maxInterval"), `a longest interval at least the first interval (${r.interval} s)`, `${maxIntervalS} s`);
     const faultyAttempts = r.faultyAttempts ?? (r.fault === undefined ? 0 : r.attempts);

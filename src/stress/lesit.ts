@@ -30,9 +30,9 @@ export interface LesitParameters {
 export const LESIT_PUBLISHED: LesitParameters = { coefficient: 640, rangeExponent: -5, activationEnergyJPerMol: 7.8e4 };
 
 /**
- * Cycles the LESIT tests covered, as we enforce them: ΔT 30-80 K and mean temperature
- * 60-120 °C (from memory, Held et
- * al. 1997; give `fitted` to override).
+ * Validity range of the LESIT fit: the cycles its tests covered, ΔT 30-80 K and mean temperature
+ * 60-120 °C (Held et al. 1997, from memory; give `fitted` to override). The model has no
+ * heating-time term and we recall no heating-time range from the source, so none is checked.
  */
 export const LESIT_FITTED: FittedRange = {
   range: { min: 30, max: 80, origin: "Held et al. 1997, from memory" },

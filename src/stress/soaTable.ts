@@ -1,5 +1,6 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import type { RatingStatus } from "./pulseEnergyRating.js";
+import { temperatureHeadroomFactor } from "./temperatureHeadroomFactor.js";
 
 /** One corner of a safe-operating-area boundary: at this drain-source voltage, this drain current. */
 export interface SoaPoint {
@@ -139,12 +140,11 @@ export interface SoaDerating {
  * T_ref). Applied to the allowed current at every voltage, which is conservative in the
  * current-limited corner. Using the junction (or observed-node) temperature at the event start
  * in place of the case temperature is conservative too, since the junction is the hotter.
- * Source: linear derating of power-limited SOA with case temperature is common practice.
- * Cost O(1).
+ * Source: linear derating of power-limited SOA with case temperature is common practice
+ * ({@link temperatureHeadroomFactor}). Cost O(1).
  */
 export function soaDeratingFactor(derating: SoaDerating, temperatureC: number): number {
-  const k = (derating.maxJunctionC - temperatureC) / (derating.maxJunctionC - derating.referenceC);
-  return Math.min(1, Math.max(0, k));
+  return temperatureHeadroomFactor(derating.referenceC, derating.maxJunctionC, temperatureC);
 }
 
 /** The worst operating point of an event against the SOA. */

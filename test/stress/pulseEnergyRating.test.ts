@@ -1,5 +1,13 @@
 import { describe, expect, test } from "vitest";
-import { InputError, checkPulseEnergy, equivalentPulseDurationS, interpolatePulseEnergy, validatePulseEnergyTable } from "../../src/index.js";
+import {
+  InputError,
+  type PulseEnergyDerating,
+  checkPulseEnergy,
+  equivalentPulseDurationS,
+  interpolatePulseEnergy,
+  pulseEnergyDeratingFactor,
+  validatePulseEnergyTable,
+} from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented rating table (demo data, not any maker's part). What the checks rest on:
@@ -110,5 +118,46 @@ describe("validatePulseEnergyTable: bad tables get clear messages", () => {
   ])("%j", (rows, message) => {
     expect(() => validatePulseEnergyTable(rows)).toThrow(InputError);
     expect(() => validatePulseEnergyTable(rows)).toThrow(message);
+  });
+});
+
+describe("pulse-energy derating at the event's start temperature", () => {
+  // E_allowed = E_rated·(T_max − T_start)/(T_max − T_ref), capped to [0, E_rated] (common practice
+  // for resistor pulse ratings; src/stress/pulseEnergyRating.ts). Invented rating: 400 J for a 1 s
+  // pulse from T_ref = 25 °C, nothing left at T_max = 180 °C. By hand:
+  //   from  25 °C: (180 − 25)/(180 − 25)  = 1      → 400 J allowed
+  //   from 102.5 °C: (180 − 102.5)/155     = 0.5    → 200 J allowed
+  //   from 149 °C: (180 − 149)/155         = 0.2    →  80 J allowed
+  //   from 180 °C (or hotter): 0                   →   0 J: any energy fails
+  // A 150 J, 1 s pulse (t_eq = 1 s, a table row: rated exactly 400 J) uses 37.5 %, 75 %, 187.5 %
+  // of the allowance and fails from 180 °C. Factors are one subtraction and one division of
+  // round numbers: 1e-15 relative.
+  const derating: PulseEnergyDerating = { referenceC: 25, maxTemperatureC: 180, referenceFrom: "profile", maxTemperatureFrom: "profile" };
+
+  test.each([
+    [25, 1, 400, 0.375, "pass"],
+    [102.5, 0.5, 200, 0.75, "pass"],
+    [149, 0.2, 80, 1.875, "fail"],
+  ] as const)("from %d °C: factor %d, %d J allowed, %d of it used: %s", (startC, factor, allowedJ, use, status) => {
+    const k = pulseEnergyDeratingFactor(derating, startC);
+    expectClose(k, factor, { rel: 1e-15 });
+    const check = checkPulseEnergy(table, 150, 150, "event", k);
+    expect(check.status).toBe(status);
+    expect(check.ratedEnergyJ).toBe(400);
+    expectClose(check.allowedEnergyJ!, allowedJ, { rel: 1e-15 });
+    expectClose(check.utilisation!, use, { rel: 1e-15 });
+  });
+
+  test("at or above T_max nothing is allowed: any energy fails, never a pass", () => {
+    for (const startC of [180, 195]) {
+      const k = pulseEnergyDeratingFactor(derating, startC);
+      expect(k).toBe(0);
+      const check = checkPulseEnergy(table, 1, 1, "event", k);
+      expect([check.status, check.allowedEnergyJ, check.utilisation]).toEqual(["fail", 0, Number.POSITIVE_INFINITY]);
+    }
+  });
+
+  test("below the reference no credit is taken: the factor stays 1", () => {
+    expect(pulseEnergyDeratingFactor(derating, -20)).toBe(1);
   });
 });

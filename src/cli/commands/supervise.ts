@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { SUPERVISE_DEFAULTS } from "../../plan/superviseDefaults.js";
+import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
 
 /** Options of `heatledger supervise`: one table drives the flags and their help. */
@@ -27,6 +28,9 @@ The profile's supervision section gives the healthy corner set (capacitance rang
 bus voltage, completion fraction and loads optional) and check times (default: ${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")}
 of the slowest healthy completion time). Check thresholds keep a margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin)
 and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage (minCheckVoltage).
+Attempts "back to back" are as close as the relay allows: its release plus operate time
+(circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms), rounded up to the firmware's timer
+(firmware.timerResolution, default ${ATTEMPT_TIMING_DEFAULTS.timerResolutionS * 1000} ms).
 Exit status: 0 a safe timeout exists and the profile's timeout is inside it, 1 no safe timeout
 exists or the profile's timeout is outside the window, 2 bad input. See README, "Reading the
 supervision answers".`,
