@@ -48,7 +48,7 @@ export function networkFromRatingAction(run: CliRun, file: string, options: Netw
       return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
     });
   }
-  const fit = fitTablePoints(points, table, file, options);
+  const fit = fitTablePoints(run.io, "network from-rating", points, table, file, options);
   const emitted = emitNetwork(run, fit.network, options);
   const riseK = maxC - startC;
   if (options.json) {
