@@ -1,4 +1,4 @@
-import { parse } from "csv-parse/sync";
+import { lazyCsv } from "./lazyCsv.js";
 import { InputError, describeFound } from "../errors/InputError.js";
 import { type Dimension, expectedWords } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parseQuantity.js";
@@ -51,7 +51,7 @@ export function parseQuantityTable(text: string, columns: readonly QuantityColum
   };
   let records: { record: string[]; info: { lines: number } }[];
   try {
-    records = parse(text, { comment: "#", skip_empty_lines: true, trim: true, relax_column_count: true, delimiter: [",", ";", "\t"], info: true }) as unknown as typeof records;
+    records = lazyCsv.parse(text, { comment: "#", skip_empty_lines: true, trim: true, relax_column_count: true, delimiter: [",", ";", "\t"], info: true }) as unknown as typeof records;
   } catch (error) {
     const e = error as { message?: string; lines?: number };
     return fail(e.lines ?? 0, "", "a CSV table", describeFound(e.message ?? String(error)));

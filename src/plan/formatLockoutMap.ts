@@ -1,4 +1,4 @@
-import { stringify } from "csv-stringify/sync";
+import { lazyCsv } from "../format/lazyCsv.js";
 import type { LockoutMap, LockoutMapCell } from "./lockoutMap.js";
 
 /** The heat map's cell characters, darkest last; the legend is built from this table. */
@@ -45,7 +45,7 @@ export function lockoutMapCsv(map: LockoutMap): string {
       rows.push([c.attempts, c.intervalS, map.spacing, c.peakC ?? "", c.allowedC, c.limitC, c.usedFraction ?? "", c.status, c.corner]);
     }
   }
-  return stringify(rows);
+  return lazyCsv.stringify(rows);
 }
 
 /**

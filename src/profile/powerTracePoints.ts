@@ -1,4 +1,4 @@
-import { parse } from "csv-parse/sync";
+import { lazyCsv } from "../format/lazyCsv.js";
 import { InputError, type InputProblem, describeFound } from "../errors/InputError.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 
@@ -22,7 +22,7 @@ export interface PowerTracePoints {
 export function powerTracePoints(text: string, file: string, field: string): PowerTracePoints {
   let rows: { record: unknown[]; info: { lines: number } }[];
   try {
-    rows = parse(text, { skip_empty_lines: true, trim: true, comment: "#", relax_column_count: true, info: true }) as unknown as { record: unknown[]; info: { lines: number } }[];
+    rows = lazyCsv.parse(text, { skip_empty_lines: true, trim: true, comment: "#", relax_column_count: true, info: true }) as unknown as { record: unknown[]; info: { lines: number } }[];
   } catch (error) {
     const line = typeof (error as { lines?: unknown }).lines === "number" ? ((error as { lines: number }).lines) : 0;
     throw new InputError({ code: "bad-file", file, line, field, expected: "CSV text with two columns (time in s, power in W)", found: error instanceof Error ? error.message.split("\n")[0]! : "unreadable text" });

@@ -1,4 +1,4 @@
-import { parse } from "csv-parse/sync";
+import { lazyCsv } from "../format/lazyCsv.js";
 import { InputError, describeFound } from "../errors/InputError.js";
 import { nearestKey } from "../errors/nearestKey.js";
 import type { EventLog, LogLine } from "./EventLog.js";
@@ -30,7 +30,7 @@ export function parseEventLog(text: string, file: string): EventLog {
     new InputError({ code: "bad-file", file, line, field, expected, found });
   let rows: { record: string[]; info: { lines: number } }[];
   try {
-    rows = parse(text, { info: true, comment: "#", skip_empty_lines: true, trim: true, relax_column_count: true, bom: true }) as unknown as typeof rows;
+    rows = lazyCsv.parse(text, { info: true, comment: "#", skip_empty_lines: true, trim: true, relax_column_count: true, bom: true }) as unknown as typeof rows;
   } catch (error) {
     const e = error as { lines?: number; message?: string };
     throw fail(e.lines ?? 0, "", "a CSV file (comma-separated, RFC 4180)", describeFound(String(e.message ?? error)));

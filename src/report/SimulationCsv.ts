@@ -1,4 +1,4 @@
-import { stringify } from "csv-stringify/sync";
+import { lazyCsv } from "../format/lazyCsv.js";
 
 /**
  * The `--csv` time series of a simulation, built as it streams: one row per step end and per
@@ -16,7 +16,7 @@ export class SimulationCsv {
 
   /** @param partIds the part ids, in profile order (column headings `<id>_C`) */
   constructor(partIds: readonly string[]) {
-    this.chunks.push(stringify([["time_s", "event", "point", ...partIds.map((id) => `${id}_C`)]]));
+    this.chunks.push(lazyCsv.stringify([["time_s", "event", "point", ...partIds.map((id) => `${id}_C`)]]));
   }
 
   /** Add one point. */
@@ -28,7 +28,7 @@ export class SimulationCsv {
 
   private flush(): void {
     if (this.rows.length === 0) return;
-    this.chunks.push(stringify(this.rows));
+    this.chunks.push(lazyCsv.stringify(this.rows));
     this.rows = [];
   }
 

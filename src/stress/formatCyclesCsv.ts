@@ -1,4 +1,4 @@
-import { stringify } from "csv-stringify/sync";
+import { lazyCsv } from "../format/lazyCsv.js";
 import type { RainflowCycle } from "./rainflowCounter.js";
 
 /** Column names of the cycles CSV, in order. */
@@ -28,5 +28,5 @@ export function formatCyclesCsv(parts: readonly { id: string; cycles: readonly R
       const d = part.damage?.[i];
       rows.push([part.id, c.startS, c.rangeK, c.meanC, c.minC, c.maxC, c.count, c.heatingTimeS, c.durationS, d === undefined ? "" : d]);
     });
-  return stringify(rows, { header: true, columns: [...CYCLES_CSV_COLUMNS] });
+  return lazyCsv.stringify(rows, { header: true, columns: [...CYCLES_CSV_COLUMNS] });
 }

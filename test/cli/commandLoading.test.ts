@@ -28,6 +28,9 @@ describe("runCli loads each command's implementation only when it runs", () => {
     expect(loads.dist).toContain("dist/cli/commands/simulateAction.js");
     expect(loads.packages).toEqual(expect.arrayContaining(["yaml", "zod"]));
     expect(loads.packages.filter((name) => FITTING_PACKAGES.includes(name))).toEqual([]);
+    // the profile's quantities ("51.2 V", "3.3 mF", "8 h") are read without mathjs, and no CSV
+    // is read or written, so neither mathjs nor the CSV packages load
+    expect(loads.packages.filter((name) => ["mathjs", "csv-parse", "csv-stringify"].includes(name))).toEqual([]);
     expect(loads.dist).not.toContain("dist/index.js");
     expect(loads.dist).not.toContain("dist/thermal/fitFosterNetwork.js");
     // of src/plan only the default tables the help texts print
