@@ -41,7 +41,7 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   );
   out.push("");
   out.push(
-    `Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${r.backoff > 1 ? `, back-off ×${r.backoff} up to ${formatPlanDuration(r.maxIntervalS)}` : ""}), then a ${formatPlanDuration(r.lockoutS)} lockout.`,
+    `Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${r.backoff > 1 ? `, back-off ×${r.backoff}${Number.isFinite(r.maxIntervalS) ? ` up to ${formatPlanDuration(r.maxIntervalS)}` : ", no upper bound"}` : ""}), then a ${formatPlanDuration(r.lockoutS)} lockout.`,
   );
   out.push(`  Verdict: ${policy.verdict === "safe" ? "SAFE" : "UNSAFE"}.`);
   out.push(`  One burst from a cold part: ${policy.burstSafe ? "safe" : "unsafe"}; ${corner(policy.burst)}.`);

@@ -88,4 +88,12 @@ describe("heatledger retries (in process)", () => {
     expect(rows[0]).toBe("attempts,interval_s,spacing,worst_peak_c,allowed_c,limit_c,used_fraction,status,governing_corner");
     expect(rows).toHaveLength(1 + 5 * 4);
   });
+
+  test("a back-off with no longest interval says so in words, never Infinity", async () => {
+    const io = memoryIo({ "p.yaml": PROFILE("      attempts: 3\n      interval: 2 s\n      backoff: 2\n      lockout: 60 s") });
+    await runCli(["retries", "p.yaml"], io);
+    const text = io.stdout.join("");
+    expect(text).toContain("back-off ×2, no upper bound");
+    expect(text).not.toMatch(/Infinity|NaN/);
+  });
 });
