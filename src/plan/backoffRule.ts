@@ -82,15 +82,11 @@ export function backoffRule(scenarios: readonly RetryScenario[], attempts: numbe
         return { c, cursor, run };
       });
     // a wait shorter than the relay allows makes the burst impossible (overlapAt), never safe
-    let factor = 1;
-    const safe = everyCorner(corners.length, (i) => {
-      const run = runBurst(new AttemptCursor(corners[i]!), { gapsS: backoffWaits(firstWaitS, factor, attempts - 1, resolutionS), spacing: "end-to-start" }, 0, true);
+    const safe = everyCorner(corners.length, (i, g) => {
+      const run = runBurst(new AttemptCursor(corners[i]!), { gapsS: backoffWaits(firstWaitS, g, attempts - 1, resolutionS), spacing: "end-to-start" }, 0, true);
       return run.firstUnsafe === null && run.overlapAt === null;
     });
-    const { bands } = scanFeasibleBands((g) => {
-      factor = g;
-      return safe();
-    }, grid);
+    const { bands } = scanFeasibleBands(safe, grid);
     const g = bands[0]?.fromS ?? null;
     const runs = runAll(g ?? top);
     const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));

@@ -90,15 +90,10 @@ export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: Bu
   const grid = scanGrid(minWaitS, Math.max(scanToS, minWaitS), options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
   const resolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
   if (!(resolutionS >= 0) || !Number.isFinite(resolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(resolutionS));
-  let lockout = 0;
-  const safe = everyCorner(first.length, (i) => {
-    const run = runBurst(first[i]!.cursor.clone(), burst, burstEndS + lockout, true);
+  const safeAfter = everyCorner(first.length, (i, lockoutS) => {
+    const run = runBurst(first[i]!.cursor.clone(), burst, burstEndS + lockoutS, true);
     return run.firstUnsafe === null && run.overlapAt === null;
   });
-  const safeAfter = (l: number): boolean => {
-    lockout = l;
-    return safe();
-  };
   // after an unsafe first burst no lockout makes the policy safe: the scan is skipped (no bands)
   const burstSafe = first.every((f) => f.run.firstUnsafe === null && f.run.overlapAt === null);
   const scanned = burstSafe ? scanFeasibleBands(safeAfter, grid) : { bands: [], evaluations: 0 };

@@ -39,12 +39,7 @@ export function minForeverInterval(scenarios: readonly RetryScenario[], options:
   const first = firstAttempts(corners);
   const from = lowestInterval(corners, scan.spacing, first);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
-  let t = 0;
-  const safe = everyCorner(corners.length, (i) => retryForeverCheck(corners[i]!, t, scan.spacing).safe);
-  const safeAt = (interval: number): boolean => {
-    t = interval;
-    return safe();
-  };
+  const safeAt = everyCorner(corners.length, (i, t) => retryForeverCheck(corners[i]!, t, scan.spacing).safe);
   // a first attempt unsafe on its own (the same at every interval) leaves no interval to scan
   const { bands, evaluations } = first.every((f) => f.safe) ? onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt) : { bands: [], evaluations: 0 };
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;

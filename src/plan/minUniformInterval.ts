@@ -93,16 +93,17 @@ export function lowestInterval(corners: readonly ResolvedScenario[], spacing: Re
 }
 
 /**
- * A test over every corner that stops at the first corner failing it, trying first the corner
- * that failed the previous call (scans ask about neighbouring values, where the same corner
- * usually binds). The answer is the plain conjunction; only the work changes.
+ * A test over every corner at a value `at` (an interval, a lockout, a growth factor) that stops at
+ * the first corner failing it, trying first the corner that failed the previous call (scans ask
+ * about neighbouring values, where the same corner usually binds). The answer is the plain
+ * conjunction; only the work changes.
  */
-export function everyCorner(count: number, holds: (corner: number) => boolean): () => boolean {
+export function everyCorner(count: number, holds: (corner: number, at: number) => boolean): (at: number) => boolean {
   let lead = 0;
-  return () => {
+  return (at) => {
     for (let k = 0; k < count; k++) {
       const i = (lead + k) % count;
-      if (!holds(i)) {
+      if (!holds(i, at)) {
         lead = i;
         return false;
       }
@@ -148,12 +149,7 @@ export function minUniformInterval(scenarios: readonly RetryScenario[], attempts
   const first = firstAttempts(corners);
   const from = lowestInterval(corners, scan.spacing, first);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
-  let t = 0;
-  const safe = everyCorner(corners.length, (i) => uniformBurstVerdict(corners[i]!, attempts, t, scan.spacing, true).safe);
-  const safeAt = (interval: number): boolean => {
-    t = interval;
-    return safe();
-  };
+  const safeAt = everyCorner(corners.length, (i, t) => uniformBurstVerdict(corners[i]!, attempts, t, scan.spacing, true).safe);
   const { bands, evaluations } = first.every((f) => f.safe) ? onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt) : { bands: [], evaluations: 0 };
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const governing = governingCorner(
