@@ -5,8 +5,8 @@ import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
 
 const RATING_WORDS = {
   pass: "every checked event is within its rating tables",
-  "outside-table": "some events fall outside the rating tables (not covered: a warning, not a failure)",
-  fail: "FAIL: an event exceeds a rating table (exit status 1)",
+  "outside-table": "some events fall outside the rating tables and were not checked (verdict warn)",
+  fail: "an event exceeds a rating table (verdict fail)",
 } as const;
 
 /** Options of {@link formatProfileStress}, for a command whose history is not one profile repetition (`replay`). */

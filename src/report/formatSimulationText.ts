@@ -5,6 +5,9 @@ import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "./Eve
 import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
 import { lineChart } from "./lineChart.js";
 import type { PeakEnvelope } from "./PeakEnvelope.js";
+import { simulationVerdict } from "./simulationVerdict.js";
+import type { RatingStatus } from "../stress/pulseEnergyRating.js";
+import { verdictLine } from "../stress/Verdict.js";
 
 /** A time on the profile's clock: "3 d 04:05:06.250" (milliseconds shown when not whole). */
 function clock(seconds: number): string {
@@ -25,13 +28,6 @@ function volts(v: number): string {
   return Math.abs(v) < 1e-3 ? "0" : formatNumber(v, 3);
 }
 
-/** Words for a verdict, shown in the terminal. */
-const VERDICT_WORDS = {
-  pass: "PASS: every part stays below its limit less its margin",
-  warn: "WARN: a part stays below its limit but inside its margin",
-  fail: "FAIL: a part passes its temperature limit",
-} as const;
-
 /** What a command other than `simulate` puts at the top of the report (`replay`: the log it read). */
 export interface SimulationTextHeader {
   /** the command named in the first line (default "simulate") */
@@ -44,7 +40,8 @@ export interface SimulationTextHeader {
  * The terminal report of a simulation: a header, one row per part (peak, when, limit, margin,
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
- * verdict, and the cautions of DESIGN §8 at the end. Returns a string; the CLI prints it.
+ * verdict (simulationVerdict: the temperature verdict and `ratingStatus`, the stress layer's rating
+ * checks), and the cautions at the end. Returns a string; the CLI prints it.
  * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
  * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).
@@ -57,6 +54,7 @@ export function formatSimulationText(
   width = 100,
   stressText = "",
   header: SimulationTextHeader = {},
+  ratingStatus: RatingStatus = "pass",
 ): string {
   const out: string[] = [];
   out.push(`heatledger ${header.command ?? "simulate"}: ${profile.name}`);
@@ -134,7 +132,8 @@ export function formatSimulationText(
   }
   // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
   if (stressText !== "") out.push(stressText);
-  out.push(`Verdict: ${VERDICT_WORDS[result.verdict]}.`);
+  const verdict = simulationVerdict(result.verdict, ratingStatus);
+  out.push(verdictLine(verdict.verdict, verdict.reason));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
   return out.join("\n");

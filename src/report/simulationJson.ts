@@ -2,8 +2,9 @@ import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./cautions.js";
 import type { EventDigest } from "./EventDigest.js";
+import type { Verdict } from "../stress/Verdict.js";
 
-/** One event of one part in the JSON report (DESIGN §6). */
+/** One event of one part in the JSON report. */
 export interface JsonPartEvent {
   readonly index: number;
   readonly kind: string;
@@ -14,11 +15,10 @@ export interface JsonPartEvent {
   readonly outcome: string;
 }
 
-/** The `simulate --json` object (DESIGN §6, with additions that never rename its fields). */
+/** The `simulate --json` object. */
 export interface SimulationJson {
-  readonly verdict: "pass" | "fail";
-  /** pass | warn | fail: warn is a pass inside a part's wanted margin */
-  readonly detailedVerdict: "pass" | "warn" | "fail";
+  /** pass | warn | fail (src/stress/Verdict.ts): here the temperature verdict, the worst part's */
+  readonly verdict: Verdict;
   readonly profile: { readonly name: string; readonly file: string };
   readonly eventCount: number;
   /** events not listed per part because the profile is longer than the listing limit */
@@ -31,7 +31,7 @@ export interface SimulationJson {
     readonly limitC: number;
     readonly marginK: number;
     readonly requiredMarginK: number;
-    readonly verdict: "pass" | "warn" | "fail";
+    readonly verdict: Verdict;
     readonly firstExceedanceS: number | null;
     readonly energyJ: number;
     readonly events: readonly JsonPartEvent[];
@@ -40,16 +40,15 @@ export interface SimulationJson {
 }
 
 /**
- * The machine-readable result of a simulation, as DESIGN §6 fixes it: `verdict` ("pass" | "fail"),
- * and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK and `events`
- * [{index, kind, startS, energyJ, peakTemperatureC, outcome}]. A "warn" (inside the margin, not past
- * the limit) is a pass for the exit status and `verdict`; `detailedVerdict` tells it apart.
+ * The machine-readable result of a simulation: `verdict` (pass | warn | fail, the temperature
+ * verdict; simulationStressJson adds the rating checks to it), and `parts`, each with id,
+ * peakTemperatureC, peakTimeS, limitC, marginK, its own verdict and `events`
+ * [{index, kind, startS, energyJ, peakTemperatureC, outcome}].
  * Cost O(parts × events listed).
  */
 export function simulationJson(profile: DutyProfile, result: SimulationResult, digest: EventDigest): SimulationJson {
   return {
-    verdict: result.verdict === "fail" ? "fail" : "pass",
-    detailedVerdict: result.verdict,
+    verdict: result.verdict,
     profile: { name: profile.name, file: profile.file },
     eventCount: result.eventCount,
     eventsOmitted: digest.count - digest.all.length,
