@@ -1,23 +1,26 @@
 import { stringify } from "csv-stringify/sync";
 import type { LockoutMap, LockoutMapCell } from "./lockoutMap.js";
 
-/** The heat map's cell characters, darkest last; the legend is built from this table. */
+/**
+ * The heat map's cell characters, darkest last, each with the cell status it shows (the word in
+ * the CSV and JSON); the legend is built from this table.
+ */
 export const LOCKOUT_MAP_SYMBOLS = [
-  { symbol: ".", meaning: "safe, uses under 50 % of the allowed rise" },
-  { symbol: ":", meaning: "safe, uses 50-80 % of the allowed rise" },
-  { symbol: "=", meaning: "safe, uses 80-100 % of the allowed rise" },
-  { symbol: "!", meaning: "eats into the design margin (above limit - margin, not above the limit)" },
-  { symbol: "#", meaning: "above the part's limit" },
-  { symbol: "~", meaning: "impossible: an attempt would start before the previous one ends" },
+  { symbol: ".", status: "pass", meaning: "safe, uses under 50 % of the allowed rise" },
+  { symbol: ":", status: "pass", meaning: "safe, uses 50-80 % of the allowed rise" },
+  { symbol: "=", status: "pass", meaning: "safe, uses 80-100 % of the allowed rise" },
+  { symbol: "!", status: "warn", meaning: "inside the design margin (above limit - margin, not above the limit)" },
+  { symbol: "#", status: "fail", meaning: "above the part's limit" },
+  { symbol: "~", status: "impossible", meaning: "an attempt would start before the previous one ends" },
 ] as const;
 
 function symbolOf(cell: LockoutMapCell): string {
   switch (cell.status) {
-    case "overlap":
+    case "impossible":
       return "~";
     case "fail":
       return "#";
-    case "margin":
+    case "warn":
       return "!";
     default: {
       const f = cell.usedFraction ?? 0;
@@ -33,12 +36,12 @@ function seconds(s: number): string {
 }
 
 /**
- * The lockout map as CSV, one row per cell: attempts, interval_s, spacing, worst_peak_c,
- * allowed_c, limit_c, used_fraction, status, governing_corner. Overlapping cells leave the
- * numbers empty. Cost O(cells).
+ * The lockout map as CSV, one row per cell: attempts, interval_s, spacing, worst_peak_C,
+ * allowed_C, limit_C, used_fraction, status (pass, warn, fail or impossible), governing_corner.
+ * Impossible cells leave the numbers empty. Cost O(cells).
  */
 export function lockoutMapCsv(map: LockoutMap): string {
-  const rows: (string | number)[][] = [["attempts", "interval_s", "spacing", "worst_peak_c", "allowed_c", "limit_c", "used_fraction", "status", "governing_corner"]];
+  const rows: (string | number)[][] = [["attempts", "interval_s", "spacing", "worst_peak_C", "allowed_C", "limit_C", "used_fraction", "status", "governing_corner"]];
   for (const row of map.cells) {
     for (const c of row) {
       rows.push([c.attempts, c.intervalS, map.spacing, c.peakC ?? "", c.allowedC, c.limitC, c.usedFraction ?? "", c.status, c.corner]);
@@ -76,6 +79,6 @@ export function lockoutMapHeatmap(map: LockoutMap): string {
   lines.push(`${"".padStart(labelWidth)}   ${ticks}`);
   lines.push(`${"".padStart(labelWidth)}   ${axis}  [s]`);
   lines.push("attempts in a burst down the side; each cell is the worst corner's highest temperature:");
-  for (const s of LOCKOUT_MAP_SYMBOLS) lines.push(`  ${s.symbol.repeat(2)}  ${s.meaning}`);
+  for (const s of LOCKOUT_MAP_SYMBOLS) lines.push(`  ${s.symbol.repeat(2)}  ${s.status.padEnd(10)}  ${s.meaning}`);
   return `${lines.join("\n")}\n`;
 }

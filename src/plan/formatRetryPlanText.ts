@@ -1,4 +1,5 @@
 import { formatCautions } from "../report/cautions.js";
+import { verdictLine } from "../stress/Verdict.js";
 import type { GoverningCorner } from "./GoverningCorner.js";
 import { lockoutMapHeatmap } from "./formatLockoutMap.js";
 import type { RetryPlanReport } from "./planRetries.js";
@@ -16,14 +17,21 @@ function corner(g: GoverningCorner): string {
   return `governing corner "${g.corner}": ${g.peakC.toFixed(1)} °C against limit − margin ${g.allowedC.toFixed(1)} °C (limit ${g.limitC.toFixed(1)} °C)`;
 }
 
+/** ", back-off ×1.5 up to 10 s" (", back-off ×2, no longest interval" when the profile sets none); "" without back-off. */
+export function backoffWords(backoff: number, maxIntervalS: number): string {
+  if (!(backoff > 1)) return "";
+  return Number.isFinite(maxIntervalS) ? `, back-off ×${backoff} up to ${formatPlanDuration(maxIntervalS)}` : `, back-off ×${backoff}, no longest interval`;
+}
+
 function bands(list: readonly FeasibleBand[]): string {
   return list.map((b) => (b.openEnded ? `${formatPlanDuration(b.fromS)} and longer` : `${formatPlanDuration(b.fromS)} to ${formatPlanDuration(b.toS)}`)).join("; ");
 }
 
 /**
- * The terminal report of `heatledger retries`: the profile's own policy verdict first, then
+ * The terminal report of `heatledger retries`: the profile's own policy verdict first (pass, warn
+ * or fail, src/stress/Verdict.ts; the burst and the repeated cycle each with its own word), then
  * every answer (items 1-6 of the retry planner) with a sentence on how to read it and the corner
- * that governs it, the lockout map as a heat map, and the cautions (DESIGN §8).
+ * that governs it, the lockout map as a heat map, and the cautions.
  * Cost O(attempts + map cells).
  */
 export function formatRetryPlanText(report: RetryPlanReport, width = 100): string {
@@ -32,14 +40,13 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   const r = setup.retry;
   out.push(`Retry plan for the fault "${setup.fault.type}" (${r.field})`);
   out.push(`Corners: ${setup.corners.join(", ")}. Parts watched: ${setup.parts.join(", ")}.`);
-  out.push("Safe means every attempt's peak stays at or below the part's limit minus its design margin, in every corner.");
+  out.push("Safe means: every attempt's peak at or below the part's limit less its design margin, in every");
+  out.push("corner. The profile's own policy gets a verdict: pass (safe), warn or fail, as in every command.");
   out.push("");
-  out.push(
-    `Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${r.backoff > 1 ? `, back-off ×${r.backoff} up to ${formatPlanDuration(r.maxIntervalS)}` : ""}), then a ${formatPlanDuration(r.lockoutS)} lockout.`,
-  );
-  out.push(`  Verdict: ${policy.verdict === "safe" ? "SAFE" : "UNSAFE"}.`);
-  out.push(`  One burst from a cold part: ${policy.burstSafe ? "safe" : "unsafe"}; ${corner(policy.burst)}.`);
-  out.push(`  Burst + lockout repeated while the fault persists: ${policy.cyclesSafe ? "safe" : "unsafe"}; ${corner(policy.cycles)}.`);
+  out.push(`Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${backoffWords(r.backoff, r.maxIntervalS)}), then a ${formatPlanDuration(r.lockoutS)} lockout.`);
+  out.push(`  ${verdictLine(policy.verdict)}`);
+  out.push(`  One burst from a cold part: ${policy.burstVerdict}; ${corner(policy.burst)}.`);
+  out.push(`  Burst + lockout repeated while the fault persists: ${policy.cyclesVerdict}; ${corner(policy.cycles)}.`);
   for (const reason of policy.reasons) out.push(`  - ${reason}`);
   out.push("");
 

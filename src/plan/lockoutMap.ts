@@ -5,6 +5,7 @@ import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import { type RetrySpacing, uniformBurst } from "./RetrySchedule.js";
 import { runBurst } from "./runBurst.js";
+import { type Verdict, peakVerdict } from "../stress/Verdict.js";
 
 /** One cell of the lockout map: a burst of `attempts` attempts at `intervalS`. */
 export interface LockoutMapCell {
@@ -18,8 +19,12 @@ export interface LockoutMapCell {
   readonly limitC: number;
   /** fraction of the allowed rise used by the worst corner: (peak − ambient)/(allowed − ambient); null on overlap */
   readonly usedFraction: number | null;
-  /** "pass": within limit − margin; "margin": above limit − margin, within the limit; "fail": above the limit; "overlap": impossible */
-  readonly status: "pass" | "margin" | "fail" | "overlap";
+  /**
+   * the verdict words of every command (src/stress/Verdict.ts): "pass" within limit − margin,
+   * "warn" above limit − margin and not above the limit, "fail" above the limit; and
+   * "impossible": an attempt would start before the previous one ends
+   */
+  readonly status: Verdict | "impossible";
   /** the corner with the least headroom */
   readonly corner: string;
 }
@@ -35,7 +40,7 @@ export interface LockoutMap {
 }
 
 /**
- * Issue 6, item 6: the lockout map, worst peak and verdict for every burst length 1..maxAttempts
+ * The lockout map: worst peak and verdict for every burst length 1..maxAttempts
  * and every interval. Each corner runs one burst of maxAttempts per interval; the peak of a
  * burst of n attempts is the highest own peak of its first n attempts (a shorter burst is a prefix
  * of the longer one, and own peaks do not depend on later attempts), so the whole column costs one
@@ -60,7 +65,7 @@ export function lockoutMap(scenarios: readonly RetryScenario[], maxAttempts: num
         const records = perCorner[ci]!;
         if (records.length < n) {
           if (worstHeadroom > -Infinity) {
-            worst = { attempts: n, intervalS: t, peakC: null, allowedC: c.allowedC, limitC: c.limitC, usedFraction: null, status: "overlap", corner: c.name };
+            worst = { attempts: n, intervalS: t, peakC: null, allowedC: c.allowedC, limitC: c.limitC, usedFraction: null, status: "impossible", corner: c.name };
             worstHeadroom = -Infinity;
           }
           return;
@@ -70,7 +75,7 @@ export function lockoutMap(scenarios: readonly RetryScenario[], maxAttempts: num
         const headroom = c.allowedC - peakC;
         if (headroom < worstHeadroom) {
           worstHeadroom = headroom;
-          const status = peakC <= c.allowedC ? "pass" : peakC <= c.limitC ? "margin" : "fail";
+          const status = peakVerdict(peakC, c.limitC, c.marginK);
           worst = { attempts: n, intervalS: t, peakC, allowedC: c.allowedC, limitC: c.limitC, usedFraction: (peakC - c.ambientC) / c.allowedRiseK, status, corner: c.name };
         }
       });

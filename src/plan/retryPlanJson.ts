@@ -1,8 +1,10 @@
 import type { RetryPlanReport } from "./planRetries.js";
+import { reportCautions } from "../report/cautions.js";
 
 /**
  * The machine form of `heatledger retries --json`: every answer as plain data (the corners'
- * attempt models are left out; numbers that are not finite become null). Cost O(report size).
+ * attempt models are left out; numbers that are not finite become null), with the policy's
+ * `verdict` (pass | warn | fail) first and the `cautions` last. Cost O(report size).
  */
 export function retryPlanJson(report: RetryPlanReport): unknown {
   const { setup } = report;
@@ -26,6 +28,7 @@ export function retryPlanJson(report: RetryPlanReport): unknown {
     backoff: report.backoff === null ? null : { ...report.backoff, perCorner: undefined },
     lockout: report.lockout,
     map: report.map,
+    cautions: reportCautions(setup.linearMosfet),
   };
   return JSON.parse(JSON.stringify(plain, (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? null : value)));
 }

@@ -4,6 +4,7 @@ import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { MaterialPreset } from "../thermal/materials.js";
 import { type ChargingElementSizing, sizeChargingElement } from "./sizeChargingElement.js";
 import { type HeatCapacitySizing, sizeHeatCapacity } from "./sizeHeatCapacity.js";
+import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 
 /** Options of {@link sizeProfile}. */
 export interface SizeProfileOptions {
@@ -26,8 +27,13 @@ export interface SizingReport {
   readonly circuit?: ChargingElementSizing;
   /** a linear-mode MOSFET is in the circuit (its caution goes into the report) */
   readonly linearMosfet: boolean;
-  /** "feasible": every sized part has a size and the circuit question (when it applies) an answer */
-  readonly verdict: "feasible" | "infeasible";
+  /**
+   * the verdict rule (src/stress/Verdict.ts) applied to the answers: "fail" when a part or the
+   * circuit question has no answer; "warn" when a part's size holds it above its own limit less
+   * the margin the profile wants (sized with a smaller --margin), not above the limit; "pass"
+   * when every sized part peaks at or below its limit less its own margin
+   */
+  readonly verdict: Verdict;
   /** why not, one sentence per failed answer */
   readonly infeasibleReasons: readonly string[];
 }
@@ -36,6 +42,8 @@ export interface SizingReport {
  * Size a duty profile: the heat capacity of each part (sizeHeatCapacity: adiabatic bound and
  * inversion of the whole profile) and the slowest charging element that still completes a healthy
  * power-up (sizeChargingElement). Parts are sized one at a time, the others kept as they are.
+ * The verdict judges the answers: each sized part's peak against its own limit and the margin
+ * its profile wants (peakVerdict), and fail when a question has no answer.
  * Cost: parts × (up to SIZE_DEFAULTS.maxSimulations simulations) plus one circuit search.
  * @throws InputError `bad-option` on `--part` naming an unknown part
  */
@@ -65,7 +73,10 @@ export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): 
     parts,
     ...(circuit === undefined ? {} : { circuit }),
     linearMosfet: profile.circuit?.topology === "linear-mosfet",
-    verdict: infeasibleReasons.length === 0 ? "feasible" : "infeasible",
+    verdict:
+      infeasibleReasons.length > 0
+        ? "fail"
+        : worstVerdict(parts.map((p) => peakVerdict(p.inversion.peakTemperatureC, p.limitC, profile.parts[p.partIndex]!.marginK))),
     infeasibleReasons,
   };
 }

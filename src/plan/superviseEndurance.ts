@@ -102,8 +102,8 @@ export function longestShortFromState(build: (timeoutS: number) => RetryScenario
  */
 export function longestShortUnderPolicy(build: (timeoutS: number) => RetryScenario, policy: SupervisedRetryPolicy): ShortEndurance {
   return longestSafeTimeout(build, (_corner, timeoutS) => {
-    const verdict = retryPolicyVerdict([build(timeoutS)], policy.burst, policy.lockoutS);
+    const verdict = retryPolicyVerdict([build(timeoutS)], policy.burst, policy.lockoutS, { verdictWords: false });
     const hottest = verdict.perCorner[0]!.attempts.reduce((m, r) => Math.max(m, r.startTemperatureC), -Infinity);
-    return { safe: verdict.verdict === "safe", startTemperatureC: hottest, binding: verdict.burstSafe ? "repeated bursts" : "first burst" };
+    return { safe: verdict.burstSafe && verdict.cyclesSafe, startTemperatureC: hottest, binding: verdict.burstSafe ? "repeated bursts" : "first burst" };
   });
 }

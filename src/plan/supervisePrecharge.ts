@@ -3,7 +3,10 @@ import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../report/formatTable.js";
 import { type MaxAttemptsAnswer, maxAttempts } from "./maxAttempts.js";
-import type { RetryScenario } from "./RetryScenario.js";
+import { type RetryScenario, resolveScenario } from "./RetryScenario.js";
+import { AttemptCursor } from "./AttemptCursor.js";
+import { retryPolicyVerdict } from "./retryPolicyVerdict.js";
+import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 import { type AbortCheck, type RiseCheck, abortChecks, riseChecks, traceEnergyUntil } from "./superviseChecks.js";
 import { healthyCorners } from "./superviseCorners.js";
 import { SUPERVISE_DEFAULTS } from "./superviseDefaults.js";
@@ -93,8 +96,18 @@ export interface SupervisionReport {
   readonly policy: SupervisedRetryPolicy | null;
   readonly storm: RetryStorm;
   readonly envelope: SupervisionEnvelope;
-  /** "pass": a safe timeout exists and the profile's timeout is inside it; "fail" otherwise */
-  readonly verdict: "pass" | "fail";
+  /**
+   * the profile's timeout into a short, judged by the verdict rule (src/stress/Verdict.ts): every
+   * attempt of the retry policy (or the one attempt from cold, without a policy) at that timeout,
+   * worst part and bus voltage
+   */
+  readonly timeoutVerdict: Verdict;
+  /**
+   * pass: the profile's timeout is inside the window; warn: it is longer than the window allows,
+   * and a short takes the part inside its margin but not above its limit; fail: above the limit,
+   * or a timeout shorter than the slowest healthy charge (healthy units would be stopped)
+   */
+  readonly verdict: Verdict;
   /** one sentence per problem */
   readonly problems: readonly string[];
 }
@@ -106,7 +119,9 @@ export interface SupervisionReport {
  *    run through the circuit model); the upper end the longest timeout the part survives into a
  *    shorted output, from cold (longestShortFromState) and through the profile's retry policy,
  *    burst and lockout repeated (longestShortUnderPolicy), worst over every heated part and both ends of the bus-voltage
- *    range. When the ends cross, no safe timeout exists (verdict "fail", with the reason).
+ *    range. When the ends cross, no safe timeout exists (with the reason). The verdict judges the
+ *    profile's own timeout: attempts into a short at that timeout through the retry policy, by the
+ *    verdict rule (pass, warn, fail), and fail when it is shorter than the slowest healthy charge.
  * 2. Early-abort and rise-too-fast checks at the profile's check times, or at
  *    SUPERVISE_DEFAULTS.autoCheckFractions of the slowest completion time.
  * 3. Retry storms through the retry planner (maxAttempts) at the profile's timeout: attempts back
@@ -164,6 +179,10 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
   const configuredInside = timeoutS >= lowerS && timeoutS <= upperS;
   if (exists && !configuredInside)
     problems.push(`the profile's timeout ${formatDuration(timeoutS)} is outside the window ${formatDuration(lowerS)} to ${Number.isFinite(upperS) ? formatDuration(upperS) : "unbounded"}`);
+  // the verdict: the profile's own timeout into a short, as firmware would run it
+  const timeoutVerdict = worstVerdict(builders.map((b) => shortVerdict(b(timeoutS), policy)));
+  let verdict = timeoutS > upperS ? worstVerdict([timeoutVerdict, "warn"]) : timeoutVerdict;
+  if (!(timeoutS >= lowerS)) verdict = "fail";
 
   // 2. checks; the short's power trace into the primary part at the highest bus voltage
   const base = Number.isFinite(lowerS) && lowerS < timeoutS ? lowerS : timeoutS;
@@ -228,7 +247,21 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     policy,
     storm: { timeoutS, backToBack, atPolicyInterval },
     envelope: { timeS: timeGrid, lowV, highV, shortEnergyJ },
-    verdict: problems.length === 0 ? "pass" : "fail",
+    timeoutVerdict,
+    verdict,
     problems,
   };
+}
+
+/**
+ * The verdict of attempts into a short at one timeout: through the retry policy
+ * (retryPolicyVerdict: the burst from cold and burst + lockout repeated), or, without a policy,
+ * one attempt from a cold part (its own peak against limit − margin and the limit).
+ * Cost: one retryPolicyVerdict, or one attempt.
+ */
+function shortVerdict(scenario: RetryScenario, policy: SupervisedRetryPolicy | null): Verdict {
+  if (policy !== null) return retryPolicyVerdict([scenario], policy.burst, policy.lockoutS).verdict;
+  const corner = resolveScenario(scenario);
+  const trial = new AttemptCursor(corner).tryAt(0)!;
+  return peakVerdict(trial.record.peakC, corner.limitC, corner.marginK);
 }

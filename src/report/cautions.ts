@@ -1,5 +1,6 @@
 /**
- * The cautions that close every human-readable report (DESIGN §8), declared once.
+ * The cautions that close every human-readable report and travel with every JSON report (as
+ * `cautions`, a list of strings), declared once.
  */
 export const GENERAL_CAUTION =
   "Caution: these results are only as good as the thermal network, circuit values and duty profile supplied. " +
@@ -11,10 +12,14 @@ export const LINEAR_MOSFET_CAUTION =
   "Caution (linear-mode MOSFET): at high drain-source voltage a MOSFET can fail from thermal instability " +
   "(hot-spotting) well inside its thermal rating; check the maker's DC/linear-mode SOA, not only the temperature.";
 
+/** The cautions of a report, for the JSON key `cautions`: the general one, and the linear-mode MOSFET one when it applies. */
+export function reportCautions(includeLinearMosfet: boolean): string[] {
+  return [GENERAL_CAUTION, ...(includeLinearMosfet ? [LINEAR_MOSFET_CAUTION] : [])];
+}
+
 /** The closing block of a report, wrapped to a width. */
 export function formatCautions(includeLinearMosfet: boolean, width = 100): string {
-  const blocks = [GENERAL_CAUTION, ...(includeLinearMosfet ? [LINEAR_MOSFET_CAUTION] : [])];
-  return blocks.map((b) => wrapText(b, width)).join("\n") + "\n";
+  return reportCautions(includeLinearMosfet).map((b) => wrapText(b, width)).join("\n") + "\n";
 }
 
 /** Greedy word wrap to a width. */

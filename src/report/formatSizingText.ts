@@ -1,5 +1,6 @@
 import type { SizingReport } from "../plan/sizeProfile.js";
 import { formatCautions, wrapText } from "./cautions.js";
+import { verdictLine } from "../stress/Verdict.js";
 import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
 
 const grams = (kg: number | undefined): string => (kg === undefined ? "" : formatNumber(kg * 1000));
@@ -7,7 +8,7 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
 /**
  * The terminal report of `heatledger size`: a table of heat capacities per part (adiabatic bound of
  * the worst event, then the whole-profile inversion), the charging-element answer, the verdict and
- * the cautions of DESIGN §8. Every number carries its unit in the column heading; no NaN.
+ * the cautions. Every number carries its unit in the column heading; no NaN.
  * Cost O(parts).
  */
 export function formatSizingText(report: SizingReport, width = 100): string {
@@ -120,9 +121,11 @@ export function formatSizingText(report: SizingReport, width = 100): string {
     out.push(wrapText(`${c.reason[0]!.toUpperCase()}${c.reason.slice(1)}.`, width));
   }
   out.push("");
-  if (report.verdict === "feasible") out.push("Verdict: a feasible size exists for every question asked.");
+  if (report.verdict === "pass") out.push(wrapText(verdictLine("pass", "a feasible size exists for every question asked; every sized part peaks at or below its limit less its margin"), width));
+  else if (report.verdict === "warn")
+    out.push(wrapText(verdictLine("warn", "a feasible size exists for every question asked, but a part sized to a smaller --margin than its profile wants peaks inside that margin, not above its limit"), width));
   else {
-    out.push("Verdict: NO FEASIBLE SIZE:");
+    out.push(verdictLine("fail", "no feasible size"));
     for (const r of report.infeasibleReasons) out.push(wrapText(`- ${r}`, width));
   }
   out.push("", formatCautions(report.linearMosfet, width));

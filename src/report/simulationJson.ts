@@ -1,6 +1,6 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./cautions.js";
+import { reportCautions } from "./cautions.js";
 import type { EventDigest } from "./EventDigest.js";
 import type { Verdict } from "../stress/Verdict.js";
 
@@ -72,6 +72,6 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
         outcome: e.outcome,
       })),
     })),
-    cautions: [GENERAL_CAUTION, ...(profile.circuit?.topology === "linear-mosfet" ? [LINEAR_MOSFET_CAUTION] : [])],
+    cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),
   };
 }

@@ -1,13 +1,15 @@
 import type { SizingReport } from "../plan/sizeProfile.js";
+import { reportCautions } from "./cautions.js";
 
 /** A number for JSON: non-finite values become null (JSON has no Infinity). */
 const num = (x: number | undefined): number | null | undefined => (x === undefined ? undefined : Number.isFinite(x) ? x : null);
 
 /**
- * The `heatledger size --json` object: verdict ("feasible"|"infeasible"), reasons, the material,
+ * The `heatledger size --json` object: verdict (pass | warn | fail), reasons, the material,
  * per part the target, present peak and capacity, worst event, adiabatic bound and inversion
  * (scale k, capacityJPerK, massKg, peakTemperatureC, crossingScale), and the circuit answer.
- * Every number is SI; Infinity is written as null. Cost O(parts).
+ * Every number is SI; Infinity is written as null; `cautions` closes it, as every JSON report.
+ * Cost O(parts).
  */
 export function sizingJson(report: SizingReport): object {
   return {
@@ -56,5 +58,6 @@ export function sizingJson(report: SizingReport): object {
             chargeS: num(report.circuit.chargeS) ?? null,
             timeoutS: report.circuit.timeoutS,
           },
+    cautions: reportCautions(report.linearMosfet),
   };
 }

@@ -39,7 +39,9 @@ describe("heatledger retries (in process)", () => {
     const io = memoryIo({ "p.yaml": PROFILE(SAFE) });
     expect(await runCli(["retries", "p.yaml", "--json"], io)).toBe(0);
     const json = JSON.parse(io.stdout.join("")) as Record<string, any>;
-    expect(json["verdict"]).toBe("safe");
+    expect(json["verdict"]).toBe("pass");
+    expect(json["policy"].burstVerdict).toBe("pass");
+    expect(json["cautions"]).toEqual([GENERAL_CAUTION]);
     // One stage (2 K/W, τ = 5 s), 48 W pulses of 0.5 s repeated every T (start to start): the
     // periodic steady state peaks at P·R·(1 − e^(−tp/τ))/(1 − e^(−T/τ)) (geometric series of the
     // stage's pulse responses, as derived in test/thermal/periodicSteadyState.test.ts); equal to the
@@ -53,11 +55,16 @@ describe("heatledger retries (in process)", () => {
     expect(JSON.stringify(json)).not.toContain("NaN");
   });
 
-  test("an unsafe policy exits 1 and the text report names the reason, each answer and the cautions", async () => {
+  // The burst alone: 20 pulses of 48 W × 0.5 s every 0.6 s on one stage (2 K/W, 5 s) rise by
+  // S·(1 − q^20)/(1 − q), S = 96·(1 − e^(−0.1)) K, q = e^(−0.12): 73.4 K, 98.4 °C, inside the 10 K
+  // margin (warn); the same burst repeated after a 1 s lockout settles higher, above 100 °C (fail).
+  test("a policy above its limit exits 1 and the text report names the reason, each answer and the cautions", async () => {
     const io = memoryIo({ "p.yaml": PROFILE(UNSAFE) });
     expect(await runCli(["retries", "p.yaml"], io)).toBe(1);
     const text = io.stdout.join("");
-    expect(text).toContain("Verdict: UNSAFE.");
+    expect(text).toContain("Verdict: fail (a peak above its limit).");
+    expect(text).toContain("One burst from a cold part: warn;");
+    expect(text).toContain("Burst + lockout repeated while the fault persists: fail;");
     expect(text).toMatch(/corner "nominal": attempt \d+ of the burst reaches [\d.]+ °C, above limit − margin 90\.0 °C/);
     for (const heading of ["1. Shortest uniform retry interval", "2. Most attempts", "3. Shortest interval for retrying for ever", "4. Fastest safe schedule", "5. Lockout after", "6. Lockout map"])
       expect(text).toContain(heading);
@@ -81,7 +88,7 @@ describe("heatledger retries (in process)", () => {
     const io = memoryIo({ "p.yaml": PROFILE(SAFE, "retryPlan:\n  map: { attempts: 5, from: 0.5 s, to: 50 s, points: 4 }\n") });
     await runCli(["retries", "p.yaml", "--csv", "map.csv"], io);
     const rows = io.files["map.csv"]!.trim().split("\n");
-    expect(rows[0]).toBe("attempts,interval_s,spacing,worst_peak_c,allowed_c,limit_c,used_fraction,status,governing_corner");
+    expect(rows[0]).toBe("attempts,interval_s,spacing,worst_peak_C,allowed_C,limit_C,used_fraction,status,governing_corner");
     expect(rows).toHaveLength(1 + 5 * 4);
   });
 });

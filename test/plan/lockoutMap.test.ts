@@ -16,7 +16,7 @@ describe("lockoutMap", () => {
       const passing = map.cells.filter((row) => row[i]!.status === "pass").length;
       if (T < 0.2) {
         // shorter than an attempt: only a single attempt is possible
-        expect(map.cells[1]![i]!.status).toBe("overlap");
+        expect(map.cells[1]![i]!.status).toBe("impossible");
         return;
       }
       const answer = maxAttempts(corners, T);
@@ -27,13 +27,25 @@ describe("lockoutMap", () => {
 
   test("CSV has a header and one row per cell; the heat map has a row per burst length and a legend", () => {
     const csv = lockoutMapCsv(map).trim().split("\n");
-    expect(csv[0]).toBe("attempts,interval_s,spacing,worst_peak_c,allowed_c,limit_c,used_fraction,status,governing_corner");
+    // temperatures in °C are suffixed _C, as in every CSV file heatledger writes
+    expect(csv[0]).toBe("attempts,interval_s,spacing,worst_peak_C,allowed_C,limit_C,used_fraction,status,governing_corner");
     expect(csv).toHaveLength(1 + 30 * intervals.length);
     expect(csv[1]!.startsWith("1,0.1,start-to-start,")).toBe(true);
     const text = lockoutMapHeatmap(map);
     const rows = text.split("\n").filter((l) => /^\s*\d+ \| /.test(l));
     expect(rows).toHaveLength(30);
-    for (const s of LOCKOUT_MAP_SYMBOLS) expect(text).toContain(`${s.symbol.repeat(2)}  ${s.meaning}`);
+    for (const s of LOCKOUT_MAP_SYMBOLS) expect(text).toContain(`${s.symbol.repeat(2)}  ${s.status.padEnd(10)}  ${s.meaning}`);
     expect(text).not.toContain("NaN");
+  });
+
+  test("one word per status everywhere: the CSV's status words are the legend's, and the verdict words", () => {
+    const statusColumn = 7;
+    const used = new Set(lockoutMapCsv(map).trim().split("\n").slice(1).map((row) => row.split(",")[statusColumn]!));
+    // the 0.1 s column (shorter than an attempt) is impossible past one attempt; the map also holds
+    // safe cells, cells inside the margin and cells above the limit
+    expect([...used].sort()).toEqual(["fail", "impossible", "pass", "warn"]);
+    const legend = lockoutMapHeatmap(map);
+    for (const word of used) expect(legend).toMatch(new RegExp(`^  \\S\\S  ${word} `, "m"));
+    expect(legend).not.toContain("overlap");
   });
 });

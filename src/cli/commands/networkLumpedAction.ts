@@ -1,5 +1,5 @@
 import { inputError } from "../../errors/InputError.js";
-import { formatCautions, GENERAL_CAUTION, wrapText } from "../../report/cautions.js";
+import { formatCautions, reportCautions, wrapText } from "../../report/cautions.js";
 import { describeNetwork } from "../../report/describeNetwork.js";
 import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
 import { lineChart } from "../../report/lineChart.js";
@@ -46,7 +46,7 @@ export function networkLumpedAction(run: CliRun, options: LumpedFlags): void {
       totalRthKPerW: described.totalRthKPerW,
       materials: presets,
       written: emitted.written,
-      caution: GENERAL_CAUTION,
+      cautions: reportCautions(false),
     };
     run.io.out(`${JSON.stringify(json, null, 2)}\n`);
     return;

@@ -1,12 +1,14 @@
 import type { Command } from "commander";
 import { PLAN_DEFAULTS } from "../../plan/planDefaults.js";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger retries`: one table drives the flags and their help. */
 export const RETRIES_OPTIONS = [
   { flags: "--json", help: "print every answer as one JSON object instead of the text report" },
   { flags: "--csv <file>", help: "write the lockout map (attempts x interval: worst peak, verdict, governing corner) to a CSV file" },
   { flags: "--force", help: "overwrite the --csv file if it exists" },
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger retries` parse to. */
@@ -14,6 +16,7 @@ export interface RetriesFlags {
   readonly json?: boolean;
   readonly csv?: string;
   readonly force?: boolean;
+  readonly strict?: boolean;
 }
 
 /** `heatledger retries PROFILE`: flags and help here; the run is loaded from retriesAction.ts when it starts. */
@@ -29,9 +32,8 @@ The profile's first retry block with a fault is the scenario; its optional retry
 sets the attempts and interval to ask about, the spacing (start-to-start or end-to-start), the
 "near ambient" distance (default ${PLAN_DEFAULTS.ambientReturnK} K), the lockout map and the corner set (busVoltage,
 ambient, capacitance, resistance). Safe means at or below the part's limit minus its margin.
-Exit status: 0 the profile's own retry policy is safe, 1 it is not (in some corner, a burst or
-burst + lockout repeated while the fault persists passes limit - margin), 2 bad input.
-See README, "Reading the retry plan".`,
+${verdictHelp("Here the verdict is that of the profile's own retry policy: its burst from a cold part and burst + lockout repeated while the fault persists, in every corner (pass: safe; an attempt that would start before the previous one ends fails).")}
+See README, "Reading the retry plan" and "Verdicts and exit status".`,
     );
   for (const option of RETRIES_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: RetriesFlags) => {

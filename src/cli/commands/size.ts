@@ -2,6 +2,7 @@ import type { Command } from "commander";
 import { SIZE_DEFAULTS } from "../../plan/sizeDefaults.js";
 import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger size`: one table drives the flags and their help. */
 export const SIZE_OPTIONS = [
@@ -9,6 +10,7 @@ export const SIZE_OPTIONS = [
   { flags: "--part <id>", help: "size only this part (repeat the flag for several; default every part)" },
   { flags: "--material <preset>", help: `give capacities as masses of a material preset: ${MATERIALS.map((m) => m.id).join(", ")}` },
   { flags: "--margin <K>", help: "size to this margin below each limit (default: each part's own margin from the profile)" },
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger size` parse to. */
@@ -17,6 +19,7 @@ export interface SizeFlags {
   readonly part?: string[];
   readonly material?: string;
   readonly margin?: string;
+  readonly strict?: boolean;
 }
 
 /** `heatledger size PROFILE`: flags and help here; the run is loaded from sizeAction.ts when it starts. */
@@ -33,8 +36,9 @@ every heat capacity of the part's network is scaled by k at fixed thermal resist
 tau -> k·tau), k bracketed by factors of ${SIZE_DEFAULTS.bracketFactor} and bisected until the peak is within
 ${SIZE_DEFAULTS.temperatureToleranceK} K under the limit less the margin. Charging element: the largest series (or source)
 resistance, or the smallest charging current or power, that completes a healthy power-up from
-0 V within the profile's timeout. Exit status: 0 a feasible size exists, 1 none (the report says
-why), 2 bad input. See README, "Sizing a pre-charge part".`,
+0 V within the profile's timeout.
+${verdictHelp("Here the verdict judges the answers: fail when a part or the charging element has no feasible size (the report says why); warn when a part sized to a smaller --margin than its profile wants peaks inside that margin; else pass.")}
+See README, "Sizing a pre-charge part" and "Verdicts and exit status".`,
     );
   for (const option of SIZE_OPTIONS) {
     if (option.flags === "--part <id>") command.option(option.flags, option.help, (value: string, previous: string[] | undefined) => [...(previous ?? []), value]);
