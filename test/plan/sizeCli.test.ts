@@ -20,7 +20,7 @@ describe("heatledger size (in process)", () => {
     const io = memoryIo(heatPump());
     expect(await runCli(["size", PROFILE, "--material", "copper"], io)).toBe(0);
     const text = io.stdout.join("");
-    for (const heading of ["Adiabatic bound", "worst event [J]", "C [J/K]", "m [g]", "Whole profile", "peak at k [°C]", "Charging element", "largest [Ω]", "Verdict: a feasible size exists"]) expect(text).toContain(heading);
+    for (const heading of ["Adiabatic bound", "worst event [J]", "C [J/K]", "m [g]", "Whole profile", "peak at k [°C]", "Charging element", "largest [Ω]", "Verdict: pass (a feasible size exists"]) expect(text).toContain(heading);
     expect(text).toContain(GENERAL_CAUTION.slice(0, 40));
     expect(text).not.toContain(LINEAR_MOSFET_CAUTION.slice(0, 30));
     expect(text).not.toMatch(/NaN|Infinity|undefined/);
@@ -34,7 +34,8 @@ describe("heatledger size (in process)", () => {
       parts: { targetC: number; inversion: { status: string; peakTemperatureC: number } }[];
       circuit: { value: number; field: string };
     };
-    expect(json.verdict).toBe("feasible");
+    expect(json.verdict).toBe("pass");
+    expect(json).toHaveProperty("cautions", [GENERAL_CAUTION]);
     const part = json.parts[0]!;
     expect(part.inversion.status).toBe("sized");
     // SIZE_DEFAULTS.temperatureToleranceK = 0.01 K below the target
@@ -90,13 +91,28 @@ events:
     const io = memoryIo(heatPump());
     expect(await runCli(["size", PROFILE, "--margin", "170 K"], io)).toBe(1);
     expect(io.stdout.join("")).toContain(
-      "Verdict: NO FEASIBLE SIZE:\n- precharge-resistor: the target 30 °C (limit 200 °C less 170 K margin) is not above the ambient 40",
+      "Verdict: fail (no feasible size).\n- precharge-resistor: the target 30 °C (limit 200 °C less 170 K margin) is not above the ambient 40",
     );
     const jsonIo = memoryIo(heatPump());
     expect(await runCli(["size", PROFILE, "--margin", "170", "--json"], jsonIo)).toBe(1);
     const json = JSON.parse(jsonIo.stdout.join("")) as { verdict: string; parts: { inversion: { scale: number | null } }[] };
-    expect(json.verdict).toBe("infeasible");
+    expect(json.verdict).toBe("fail");
     expect(json.parts[0]!.inversion.scale).toBeNull();
+  });
+
+  // The bundled heat-pump profile wants 20 K below the resistor's 200 °C limit. Sized to a 5 K
+  // margin the part peaks within 0.01 K under 195 °C: inside the profile's margin, not above the
+  // limit, so warn (exit 0, 1 with --strict); sized to 30 K it peaks under 170 °C: pass.
+  test.each([
+    ["5 K", "warn", 0, 1],
+    ["30 K", "pass", 0, 0],
+  ])("--margin %s against the profile's 20 K: verdict %s, exit %d (%d with --strict)", async (margin, verdict, status, strictStatus) => {
+    const io = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--margin", margin, "--json"], io)).toBe(status);
+    expect((JSON.parse(io.stdout.join("")) as { verdict: string }).verdict).toBe(verdict);
+    const text = memoryIo(heatPump());
+    expect(await runCli(["size", PROFILE, "--margin", margin, "--strict"], text)).toBe(strictStatus);
+    expect(text.stdout.join("")).toContain(`Verdict: ${verdict} (`);
   });
 
   test.each([

@@ -205,6 +205,31 @@ describe("supervisePrecharge: the timeout window and checks", () => {
   });
 });
 
+// The verdict on the profile's own timeout, no retry block: one attempt from cold into the short,
+// θ(t) = P·R_th·(1 − e^(−t/τ)) = 500 K·(1 − e^(−t/10 s)) at its end (the closed form above). With a
+// 20 K margin below 150 °C the allowed rise is 105 K and the limit's 125 K: 1 s gives 47.6 K
+// (pass), 2.6 s gives 114.5 K (inside the margin: warn), 3.2 s gives 136.9 K (fail); every case
+// more than 9 K from a boundary.
+describe("supervisePrecharge: the verdict on the profile's timeout", () => {
+  test.each([
+    [1, "pass", true],
+    [2.6, "warn", false],
+    [3.2, "fail", false],
+  ])("a %d s timeout: %s", (timeoutS, verdict, inside) => {
+    const report = supervisePrecharge(oneStageProfile({ ...BASE, marginK: 20, timeoutS }), MODELS);
+    expect(report.configuredInside).toBe(inside);
+    expect(report.timeoutVerdict).toBe(verdict);
+    expect(report.verdict).toBe(verdict);
+  });
+
+  test("a timeout shorter than the slowest healthy charge fails, however cool the part stays", () => {
+    // C up to 0.5 F: τ = 5 s, to 95 % from 5 V about 14.5 s; a 1 s timeout stops healthy units
+    const report = supervisePrecharge(oneStageProfile({ ...BASE, capacitanceF: [0.2, 0.5], marginK: 20 }), MODELS);
+    expect(report.timeoutVerdict).toBe("pass");
+    expect(report.verdict).toBe("fail");
+  });
+});
+
 describe("supervisePrecharge: no safe timeout", () => {
   test("the ends cross: reported with the reason, verdict fail", () => {
     // C up to 0.5 F: τ = 5 s, to 95 % from 5 V about 14.5 s, while the short is survivable 2.88 s

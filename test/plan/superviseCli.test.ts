@@ -15,7 +15,7 @@ describe("heatledger supervise (in process)", () => {
     const io = memoryIo({ "p.yaml": oneStageProfileText(BASE) });
     expect(await runCli(["supervise", "p.yaml"], io)).toBe(0);
     const text = io.stdout.join("");
-    for (const heading of ["Timeout window", "Early-abort checks", "Rise-too-fast checks", "Retry storms", "Healthy corners", "Summary (Markdown", "Verdict: pass"]) expect(text).toContain(heading);
+    for (const heading of ["Timeout window", "Early-abort checks", "Rise-too-fast checks", "Retry storms", "Healthy corners", "Summary (Markdown", "Verdict: pass ("]) expect(text).toContain(heading);
     expect(text).toContain(GENERAL_CAUTION.slice(0, 40));
     expect(text).not.toMatch(/NaN|Infinity/);
   });
@@ -31,6 +31,8 @@ describe("heatledger supervise (in process)", () => {
     const json = JSON.parse(jsonIo.stdout.join("")) as { verdict: string; window: { exists: boolean; lowerS: number; upperS: number } };
     expect(json.verdict).toBe("fail");
     expect(json.window.exists).toBe(false);
+    expect(json).toHaveProperty("cautions", [GENERAL_CAUTION]);
+    expect(json).not.toHaveProperty("caution");
     expect(json.window.lowerS).toBeGreaterThan(json.window.upperS);
   });
 
@@ -51,6 +53,7 @@ describe("heatledger supervise (in process)", () => {
     const io = memoryIo({ "p.yaml": oneStageProfileText({ ...BASE, timeoutS: 5 }) });
     expect(await runCli(["supervise", "p.yaml", "--no-chart"], io)).toBe(1);
     expect(io.stdout.join("")).toContain("is OUTSIDE the window");
+    expect(io.stdout.join("")).toContain("Verdict: fail (at the profile's timeout, 5.00 s, a short takes the part above its limit).");
   });
 
   test("the bundled profile runs and its answers are inside their window", async () => {
