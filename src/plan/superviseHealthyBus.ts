@@ -8,8 +8,10 @@ export interface HealthyBus {
   readonly corner: HealthyCorner;
   /** time from the start of the pre-charge to the completion threshold [s]; Infinity when it never gets there */
   readonly completionS: number;
-  /** "completed", or "stalled" / "timed-out" when the bus does not reach the threshold within the horizon */
+  /** "completed", or "timed-out" when the bus does not reach the threshold within the horizon */
   readonly outcome: CircuitOutcome;
+  /** timed out with the bus stalled below the threshold (it would never get there) */
+  readonly busStalled: boolean;
   /** the circuit model's one-sentence reason */
   readonly reason: string;
   /** bus (capacitor) voltage at a time after the start [V] */
@@ -37,6 +39,7 @@ export function healthyBus(models: CircuitModels, circuit: ProfileCircuit, corne
     corner,
     completionS: completed ? run.durationS : Infinity,
     outcome: run.outcome,
+    busStalled: run.busStalled,
     reason: run.reason,
     voltageAt: (timeS) => {
       if (!(timeS > 0)) return startVoltageV;

@@ -24,6 +24,8 @@ export interface HealthyCornerResult {
   /** time to the completion threshold [s]; Infinity when it never completes */
   readonly completionS: number;
   readonly outcome: string;
+  /** timed out with the bus stalled below the threshold */
+  readonly busStalled: boolean;
   readonly reason: string;
 }
 
@@ -232,6 +234,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
       thresholdV: b.corner.thresholdV,
       completionS: b.completionS,
       outcome: b.outcome,
+      busStalled: b.busStalled,
       reason: b.reason,
     })),
     window,

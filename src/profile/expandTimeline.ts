@@ -25,6 +25,8 @@ export interface TimelineEvent {
   readonly durationS: number;
   /** circuit outcome for charging events; "none" for the others */
   readonly outcome: CircuitOutcome | "none";
+  /** a charging event the timer ended with the bus stalled below the threshold (CircuitResult.busStalled) */
+  readonly busStalled: boolean;
   /** why it ended, in words */
   readonly reason: string;
   /** capacitor voltage at the start and at the end [V] (0 when the profile has no circuit) */
@@ -109,7 +111,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     advance(durationS, field);
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: "none", reason: "", startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: "none", busStalled: false, reason: "", startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
   };
 
   const gap = (durationS: number, field: string): TimelineGap => {
@@ -170,7 +172,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.voltageV = r.endVoltageV;
     }
     const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
   };
 
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per

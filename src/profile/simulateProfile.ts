@@ -47,8 +47,8 @@ export interface SimulationResult {
   readonly eventCount: number;
   readonly stepCount: number;
   readonly endTimeS: number;
-  /** charging events by outcome */
-  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "stalled", number>>;
+  /** charging events by outcome, and how many of the timed-out ones had the bus stalled below the threshold */
+  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "busStalled", number>>;
 }
 
 /** Options of {@link simulateProfile}. */
@@ -124,7 +124,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const energy = new Float64Array(count);
   const eventPeak = new Float64Array(count);
   const eventPeakTime = new Float64Array(count);
-  const outcomes = { completed: 0, "timed-out": 0, stalled: 0 };
+  const outcomes = { completed: 0, "timed-out": 0, busStalled: 0 };
   let current: TimelineEvent | undefined;
   let events = 0;
   let lastIndex = -1;
@@ -161,6 +161,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       energy[i] = energy[i]! + event.energyJ[i]!;
     }
     if (event.outcome !== "none") outcomes[event.outcome]++;
+    if (event.busStalled) outcomes.busStalled++;
   };
 
   const pointTemperatures = new Array<number>(count).fill(0);

@@ -9,6 +9,7 @@ export interface EventRecord {
   readonly startS: number;
   readonly durationS: number;
   readonly outcome: TimelineEvent["outcome"];
+  readonly busStalled: boolean;
   readonly reason: string;
   readonly startVoltageV: number;
   readonly endVoltageV: number;
@@ -65,6 +66,7 @@ export class EventDigest {
       startS: event.startS,
       durationS: event.durationS,
       outcome: event.outcome,
+      busStalled: event.busStalled,
       reason: event.reason,
       startVoltageV: event.startVoltageV,
       endVoltageV: event.endVoltageV,

@@ -60,8 +60,10 @@ export function formatSimulationText(
   out.push(`heatledger ${header.command ?? "simulate"}: ${profile.name}`);
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
-  const charges = result.outcomes.completed + result.outcomes["timed-out"] + result.outcomes.stalled;
-  if (charges > 0) out.push(`pre-charge attempts: ${charges} (${result.outcomes.completed} completed, ${result.outcomes["timed-out"]} timed out, ${result.outcomes.stalled} stalled)`);
+  const o = result.outcomes;
+  const charges = o.completed + o["timed-out"];
+  if (charges > 0)
+    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `: ${o.busStalled} of them with the bus stalled below the threshold` : ""})`);
   out.push("");
   out.push("Parts");
   out.push(
@@ -111,7 +113,7 @@ export function formatSimulationText(
         String(e.index),
         clock(e.startS),
         e.label,
-        e.outcome === "none" ? "" : e.outcome,
+        e.outcome === "none" ? "" : e.busStalled ? `${e.outcome} (bus stalled)` : e.outcome,
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),

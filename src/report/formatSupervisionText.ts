@@ -97,7 +97,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     indent(
       formatTable(
         [{ heading: "corner" }, { heading: "threshold [V]", align: "right" }, { heading: "completes in", align: "right" }],
-        report.corners.map((c) => [c.name, formatNumber(c.thresholdV, 4), Number.isFinite(c.completionS) ? dur(c.completionS) : `never (${c.outcome})`]),
+        report.corners.map((c) => [c.name, formatNumber(c.thresholdV, 4), Number.isFinite(c.completionS) ? dur(c.completionS) : `never (${c.busStalled ? "the bus stalls below it" : c.outcome})`]),
       ),
     ),
   );

@@ -11,8 +11,10 @@ export interface JsonPartEvent {
   readonly startS: number;
   readonly energyJ: number;
   readonly peakTemperatureC: number;
-  /** circuit outcome of a charging event; "none" for events that charge nothing */
+  /** circuit outcome of a charging event ("completed" or "timed-out"); "none" for events that charge nothing */
   readonly outcome: string;
+  /** a timed-out charging event whose bus had stalled below the completion threshold */
+  readonly busStalled: boolean;
 }
 
 /** The `simulate --json` object. */
@@ -70,6 +72,7 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
         energyJ: e.energyJ[i]!,
         peakTemperatureC: e.peakTemperatureC[i]!,
         outcome: e.outcome,
+        busStalled: e.busStalled,
       })),
     })),
     cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),

@@ -57,6 +57,44 @@ describe("heatledger simulate (in process)", () => {
     expect(text).not.toMatch(/NaN/);
   });
 
+  // An attempt into a shorted bus never completes: the firmware's timer ends it. The outcome says so
+  // ("timed-out"), and that the bus had stalled (held at 0 V) is a separate fact, busStalled.
+  test("an attempt into a short: timed out by the timer, the bus stalled as a separate fact", async () => {
+    const profile = `name: one short
+ambient: 25 degC
+parts:
+  - id: r
+    role: resistor
+    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
+    limits: { maxTemperature: 100 degC }
+circuit:
+  topology: series-resistor
+  busVoltage: 48 V
+  capacitance: 1 mF
+  resistance: 48 ohm
+  completion: { fraction: 0.95, timeout: 500 ms }
+  discharge: { kind: bleeder, resistance: 10 kohm }
+events:
+  - power-up: {}
+  - power-down: { off: 10 s }
+  - fault: { type: shorted-output }
+`;
+    const io = memoryIo({ "p.yaml": profile });
+    expect(await runCli(["simulate", "p.yaml", "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as { parts: { events: { outcome: string; busStalled: boolean }[] }[] };
+    expect(json.parts[0]!.events.map((e) => [e.outcome, e.busStalled])).toEqual([
+      ["completed", false],
+      ["none", false],
+      ["timed-out", true],
+    ]);
+    const text = memoryIo({ "p.yaml": profile });
+    await runCli(["simulate", "p.yaml"], text);
+    const report = text.stdout.join("");
+    expect(report).toContain("pre-charge attempts: 2 (1 completed, 1 timed out: 1 of them with the bus stalled below the threshold)");
+    expect(report).toMatch(/ timed-out \(bus stalled\) /);
+    expect(report).not.toMatch(/\bstalled\b(?! below)(?!\))/);
+  });
+
   test("--csv refuses to overwrite without --force, then writes with it", async () => {
     const io = memoryIo({ ...FILES(40), "out.csv": "old" });
     expect(await runCli(["simulate", "dir/p.yaml", "--csv", "out.csv"], io)).toBe(2);

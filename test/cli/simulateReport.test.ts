@@ -71,6 +71,7 @@ describe("EventDigest", () => {
     startS: index,
     durationS: 1,
     outcome: "completed",
+    busStalled: false,
     reason: "",
     startVoltageV: 0,
     endVoltageV: 48,

@@ -16,6 +16,7 @@ export function fakeModels(log: { initialV: number[] } = { initialV: [] }): Circ
       const role = circuit.topology === "series-resistor" ? "resistor" : circuit.topology === "converter" ? "switch" : "mosfet";
       return {
         outcome: fails ? "timed-out" : "completed",
+        busStalled: fails,
         reason: fails ? "timeout" : "charged",
         durationS,
         endVoltageV: fails ? 0 : conditions.sourceVoltageV,
