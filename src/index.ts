@@ -25,8 +25,10 @@ export { validateModalModel, sourceIndex, observedIndex, steadyStateResistance }
 export type { ModalModel } from "./thermal/ModalModel.js";
 export { fosterToModal, validateFoster } from "./thermal/fosterNetwork.js";
 export type { FosterNetwork, FosterStage } from "./thermal/fosterNetwork.js";
-export { cauerToModal, cauerToGraph, cauerNodeName } from "./thermal/cauerLadder.js";
+export { cauerToModal, cauerToGraph } from "./thermal/cauerLadder.js";
 export type { CauerLadder, CauerStage } from "./thermal/cauerLadder.js";
+export { NETWORK_PARTS, LADDER_NODE_NAMES, ladderNodeName } from "./thermal/NetworkPart.js";
+export type { NetworkPart } from "./thermal/NetworkPart.js";
 export { graphToModal, AMBIENT_NODE } from "./thermal/thermalGraph.js";
 export type { ThermalGraph, ThermalNode, ThermalLink } from "./thermal/thermalGraph.js";
 export { symmetricEigen } from "./thermal/symmetricEigen.js";
@@ -69,7 +71,7 @@ export { formatTable, formatNumber, formatDuration } from "./report/formatTable.
 export type { TableColumn } from "./report/formatTable.js";
 export { lineChart, CHART_DEFAULTS } from "./report/lineChart.js";
 export type { ChartSeries, LineChartOptions } from "./report/lineChart.js";
-export { formatCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
+export { formatCautions, reportCautions, wrapText, GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./report/cautions.js";
 export { describeNetwork } from "./report/describeNetwork.js";
 export type { NetworkDescription, NetworkPairDescription } from "./report/describeNetwork.js";
 
@@ -127,6 +129,8 @@ export { resolveStressConfig } from "./stress/resolveStressConfig.js";
 export type { StressConfig, StressPartKind } from "./stress/resolveStressConfig.js";
 export { LIFETIME_CAUTION } from "./stress/stressCautions.js";
 export { StressAssessment, assessStress, worseStatus } from "./stress/assessStress.js";
+export { VERDICTS, VERDICT_ORDER, peakVerdict, worstVerdict, verdictExitStatus, ratingVerdict, verdictLine } from "./stress/Verdict.js";
+export type { Verdict, VerdictRule } from "./stress/Verdict.js";
 export type { StressEvent, TemperaturePoint, StressOptions, EventRatingCheck, CycleSummary, StressReport } from "./stress/assessStress.js";
 export { formatStressSection, STRESS_SECTION_MAX_EVENTS, STRESS_SECTION_WIDTH, PROFILE_HISTORY_WORDS } from "./stress/formatStressSection.js";
 export type { StressHistoryWords } from "./stress/formatStressSection.js";
@@ -164,6 +168,8 @@ export { simulationJson } from "./report/simulationJson.js";
 export { formatProfileStress } from "./report/formatProfileStress.js";
 export type { ProfileStressTextOptions } from "./report/formatProfileStress.js";
 export { simulationStressJson } from "./report/simulationStressJson.js";
+export { simulationVerdict } from "./report/simulationVerdict.js";
+export type { SimulationVerdict } from "./report/simulationVerdict.js";
 export type { SimulationStressJson } from "./report/simulationStressJson.js";
 export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
 export { SimulationCsv } from "./report/SimulationCsv.js";

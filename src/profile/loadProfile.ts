@@ -1,11 +1,12 @@
 import type * as z from "zod";
-import { InputError, type InputProblem, describeFound, withLocation } from "../errors/InputError.js";
+import { InputError, type InputProblem, describeFound, inputError, withLocation } from "../errors/InputError.js";
 import { unknownKeyExpectation } from "../errors/nearestKey.js";
 import { FieldReader, join } from "../format/FieldReader.js";
 import { parseStructuredText } from "../format/parseStructuredText.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { observedIndex, sourceIndex } from "../thermal/ModalModel.js";
-import { networkToModal } from "../thermal/ThermalNetwork.js";
+import { type ThermalNetwork, networkToModal } from "../thermal/ThermalNetwork.js";
+import type { NetworkPart } from "../thermal/NetworkPart.js";
 import { parseNetwork } from "../thermal/parseNetwork.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
@@ -228,7 +229,7 @@ function resolvePart(
   if (part.limits.maxTemperature <= (part.ambient ?? ambientC))
     reader.fail("out-of-range", join(field, "limits.maxTemperature"), `a limit above the ambient (${part.ambient ?? ambientC} °C)`, `${part.limits.maxTemperature} °C`);
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
-  const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, field, file, lineOf, readFile);
+  const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, role, field, file, lineOf, readFile);
   networks.set(networkKey, model);
   let stress: StressConfig | undefined;
   try {
@@ -258,9 +259,27 @@ function resolvePart(
   }
 }
 
+/** The part a network of a circuit role describes: its nodes are named after it (src/thermal/NetworkPart.ts). */
+const ROLE_NETWORK_PARTS: Readonly<Record<CircuitRole, NetworkPart>> = { resistor: "resistor", sourceResistor: "resistor", mosfet: "semiconductor", switch: "semiconductor" };
+
+/**
+ * A ladder network named after the role of the part it heats: its `part` set from the role when
+ * the network does not say; refused when it says another part. Graphs name their own nodes.
+ * @throws InputError `bad-network` for a ladder whose `part` contradicts the role
+ */
+function namedForRole(network: ThermalNetwork, role: CircuitRole | undefined, field: string): ThermalNetwork {
+  if (network.kind === "graph" || role === undefined) return network;
+  const part = ROLE_NETWORK_PARTS[role];
+  if (network.part === undefined) return { ...network, part };
+  const roleWord = Object.entries(ROLE_NAMES).find(([, r]) => r === role)![0];
+  if (network.part !== part) throw inputError("bad-network", join(field, "part"), `part: ${part} (the network of a part whose role is ${roleWord}), or no part key`, describeFound(network.part));
+  return network;
+}
+
 function resolveNetwork(
   reader: FieldReader,
   part: PartInput,
+  role: CircuitRole | undefined,
   field: string,
   file: string,
   lineOf: (field: string) => number,
@@ -284,14 +303,14 @@ function resolveNetwork(
       let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
         doc = parseStructuredText(text, readFile.displayName?.(part.network) ?? part.network);
-        model = networkToModal(parseNetwork(doc.data, ""), "");
+        model = networkToModal(namedForRole(parseNetwork(doc.data, ""), role, ""), "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
         reader.absorb(withLocation(error, readFile.displayName?.(part.network) ?? part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {
-      model = networkToModal(parseNetwork(part.network, at), at);
+      model = networkToModal(namedForRole(parseNetwork(part.network, at), role, at), at);
     }
   } catch (error) {
     if (error instanceof InputError) {

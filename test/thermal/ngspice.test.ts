@@ -100,7 +100,8 @@ describe("engine against ngspice on a 60-pulse PWL train", () => {
   test("Cauer ladder: within 0.05 K at every ngspice time point", () => {
     const graph = cauerToGraph(cauer);
     const { lines, nodeName } = graphElements(graph);
-    const spice = runNgspice([...lines, pwlSource(nodeName("junction"))], nodeName("junction"), STOP_S, 2e-3);
+    const heated = nodeName(graph.sources[0]!);
+    const spice = runNgspice([...lines, pwlSource(heated)], heated, STOP_S, 2e-3);
     const { worstK, peakK } = compare(graphToModal(graph), spice);
     if (!(peakK > 10)) throw new Error(`the train should heat the part well above 10 K, got ${peakK}`);
     if (!(worstK <= 0.05)) throw new Error(`engine and ngspice differ by ${worstK} K (peak ${peakK} K)`);
@@ -112,7 +113,7 @@ describe("engine against ngspice on a 60-pulse PWL train", () => {
       heatsink: { kind: "cauer", stages: [{ rKPerW: 0.2, cJPerK: 5 }, { rKPerW: 0.8, cJPerK: 40 }] },
     });
     const { lines, nodeName } = graphElements(graph);
-    const junction = nodeName("q1.junction");
+    const junction = nodeName(graph.sources[0]!);
     const spice = runNgspice([...lines, pwlSource(junction)], junction, STOP_S, 2e-3);
     const { worstK, peakK } = compare(graphToModal(graph), spice);
     if (!(peakK > 10)) throw new Error(`the train should heat the part well above 10 K, got ${peakK}`);

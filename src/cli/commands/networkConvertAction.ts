@@ -17,7 +17,9 @@ import { CONVERT_TARGETS, type ConvertFlags } from "./networkConvert.js";
  */
 function convert(network: ThermalNetwork, to: (typeof CONVERT_TARGETS)[number], observe?: string, source?: string): ThermalNetwork {
   if (network.kind === to) return network;
-  const foster = network.kind === "foster" ? network : modalToFoster(networkToModal(network), observe, source, "network");
+  // a ladder keeps the part it describes (its node names); a graph's part is not known
+  const part = network.kind === "graph" || network.part === undefined ? {} : { part: network.part };
+  const foster = network.kind === "foster" ? network : { ...modalToFoster(networkToModal(network), observe, source, "network"), ...part };
   return to === "foster" ? foster : fosterToCauer(foster);
 }
 

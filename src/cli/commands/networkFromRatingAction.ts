@@ -48,7 +48,9 @@ export function networkFromRatingAction(run: CliRun, file: string, options: Netw
       return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
     });
   }
-  const fit = fitTablePoints(points, table, file, options);
+  // a single-pulse energy rating is a resistor's: the network's node is its element
+  const fitted = fitTablePoints(points, table, file, options);
+  const fit = { ...fitted, network: { ...fitted.network, part: "resistor" as const } };
   const emitted = emitNetwork(run, fit.network, options);
   const riseK = maxC - startC;
   if (options.json) {

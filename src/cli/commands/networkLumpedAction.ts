@@ -34,7 +34,7 @@ export function networkLumpedAction(run: CliRun, options: LumpedFlags): void {
   );
   const model = cauerToModal(ladder);
   const described = describeNetwork(ladder, model, 13).pairs[0]!;
-  const written: ThermalNetwork = form === "foster" ? { kind: "foster", stages: described.foster } : ladder;
+  const written: ThermalNetwork = form === "foster" ? { kind: "foster", part: "resistor", stages: described.foster } : ladder;
   const emitted = emitNetwork(run, written, options);
   const presets = [element.preset, body?.preset].filter((p): p is MaterialPreset => p !== undefined);
   if (options.json) {
