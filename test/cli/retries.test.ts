@@ -84,6 +84,17 @@ describe("heatledger retries (in process)", () => {
     expect(bad.stderr.join("")).toContain("humidity");
   });
 
+  test("a back-off with no longest interval says so, never \"up to Infinity\"", async () => {
+    const io = memoryIo({ "p.yaml": PROFILE("      attempts: 3\n      interval: 2 s\n      backoff: 2\n      lockout: 60 s") });
+    await runCli(["retries", "p.yaml"], io);
+    const text = io.stdout.join("");
+    expect(text).toContain("Profile policy: 3 attempts every 2 s (start to start, back-off ×2, no longest interval), then a 60 s lockout.");
+    expect(text).not.toContain("Infinity");
+    const capped = memoryIo({ "p.yaml": PROFILE("      attempts: 3\n      interval: 2 s\n      backoff: 2\n      maxInterval: 3 s\n      lockout: 60 s") });
+    await runCli(["retries", "p.yaml"], capped);
+    expect(capped.stdout.join("")).toContain("(start to start, back-off ×2 up to 3 s)");
+  });
+
   test("--csv writes the lockout map", async () => {
     const io = memoryIo({ "p.yaml": PROFILE(SAFE, "retryPlan:\n  map: { attempts: 5, from: 0.5 s, to: 50 s, points: 4 }\n") });
     await runCli(["retries", "p.yaml", "--csv", "map.csv"], io);

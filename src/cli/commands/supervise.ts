@@ -27,9 +27,10 @@ export function registerSupervise(program: Command, run: CliRun): void {
       "after",
       `
 The profile's supervision section gives the healthy corner set (capacitance range required;
-bus voltage, completion fraction and loads optional) and check times (default: ${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")}
-of the slowest healthy completion time). Check thresholds keep a margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin)
-and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage (minCheckVoltage).
+bus voltage, completion fraction and loads optional) and check times (default:
+${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")} of the slowest healthy completion time). Check thresholds keep a
+margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin) and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage
+(minCheckVoltage).
 ${verdictHelp("Here the verdict judges the profile's own timeout: attempts into a short at that timeout, through the profile's retry policy (burst and burst + lockout repeated), worst part and bus voltage; pass when it is inside the window. A timeout shorter than the slowest healthy charge fails (healthy units would be stopped).")}
 See README, "Reading the supervision answers" and "Verdicts and exit status".`,
     );

@@ -1,0 +1,63 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { describe, expect, test } from "vitest";
+import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION } from "../../src/index.js";
+import { memoryIo } from "../helpers/memoryIo.js";
+
+// Every JSON report carries its cautions under one key, `cautions`, a list of strings (before,
+// some reports had a `caution` string and `retries`, `size`, `network show` and `network convert`
+// had none).
+const PROFILE = `name: cautions everywhere
+ambient: 25 degC
+parts:
+  - id: r
+    role: resistor
+    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
+    limits: { maxTemperature: 100 degC, margin: 10 K }
+circuit:
+  topology: series-resistor
+  busVoltage: 48 V
+  capacitance: 1 mF
+  resistance: 48 ohm
+  completion: { fraction: 0.95, timeout: 500 ms }
+  discharge: { kind: bleeder, resistance: 10 kohm }
+events:
+  - retry:
+      attempts: 3
+      interval: 2 s
+      lockout: 60 s
+      fault: { type: shorted-output }
+supervision:
+  corners:
+    capacitance: [0.9 mF, 1.1 mF]
+`;
+const bundled = (name: string): string => readFileSync(join(import.meta.dirname, "../../profiles/networks", name), "utf8");
+const FILES = {
+  "p.yaml": PROFILE,
+  "n.yaml": "form: foster\nstages: [{ r: 1 K/W, tau: 1 s }, { r: 2 K/W, tau: 20 s }]\n",
+  "zth.csv": bundled("example-zth.csv"),
+  "rating.csv": bundled("example-pulse-rating.csv"),
+};
+
+describe("cautions in every JSON report", () => {
+  test.each([
+    [["simulate", "p.yaml"]],
+    [["retries", "p.yaml"]],
+    [["supervise", "p.yaml"]],
+    [["size", "p.yaml"]],
+    [["network", "show", "n.yaml"]],
+    [["network", "convert", "n.yaml", "--to", "cauer"]],
+    [["network", "fit", "zth.csv"]],
+    [["network", "from-rating", "rating.csv", "--start-temperature", "25 degC", "--max-temperature", "350 degC"]],
+    [["network", "lumped", "--mass", "0.5 g", "--material", "nichrome", "--r-ambient", "25 K/W"]],
+  ])("%j --json: cautions is a list holding the general caution; no caution key", async (args) => {
+    const io = memoryIo({ ...FILES });
+    expect(await runCli([...args, "--json"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as Record<string, unknown>;
+    expect(json).not.toHaveProperty("caution");
+    expect(Array.isArray(json["cautions"])).toBe(true);
+    expect(json["cautions"]).toContain(GENERAL_CAUTION);
+    for (const c of json["cautions"] as unknown[]) expect(typeof c).toBe("string");
+  });
+});
