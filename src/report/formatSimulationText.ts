@@ -1,6 +1,6 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { formatCautions } from "./cautions.js";
+import { formatCautions, wrapText } from "./cautions.js";
 import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "./EventDigest.js";
 import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
 import { lineChart } from "./lineChart.js";
@@ -27,6 +27,9 @@ function clock(seconds: number): string {
 function volts(v: number): string {
   return Math.abs(v) < 1e-3 ? "0" : formatNumber(v, 3);
 }
+
+/** Marks an attempt the timer ended whose bus had stalled below the threshold (busStalled), explained under the table. */
+const STALLED_MARK = "*";
 
 /** What a command other than `simulate` puts at the top of the report (`replay`: the log it read). */
 export interface SimulationTextHeader {
@@ -63,7 +66,7 @@ export function formatSimulationText(
   const o = result.outcomes;
   const charges = o.completed + o["timed-out"];
   if (charges > 0)
-    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `: ${o.busStalled} of them with the bus stalled below the threshold` : ""})`);
+    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`);
   out.push("");
   out.push("Parts");
   out.push(
@@ -113,13 +116,14 @@ export function formatSimulationText(
         String(e.index),
         clock(e.startS),
         e.label,
-        e.outcome === "none" ? "" : e.busStalled ? `${e.outcome} (bus stalled)` : e.outcome,
+        e.outcome === "none" ? "" : e.busStalled ? `${e.outcome}${STALLED_MARK}` : e.outcome,
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
       ]),
     ),
   );
+  if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
   if (envelope !== undefined) {
     profile.parts.forEach((p, i) => {
       out.push(`Temperature of ${p.id}`);
@@ -135,7 +139,7 @@ export function formatSimulationText(
   // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
   if (stressText !== "") out.push(stressText);
   const verdict = simulationVerdict(result.verdict, ratingStatus);
-  out.push(verdictLine(verdict.verdict, verdict.reason));
+  out.push(wrapText(verdictLine(verdict.verdict, verdict.reason), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
   return out.join("\n");

@@ -1,5 +1,5 @@
 import type { SupervisionReport } from "../plan/supervisePrecharge.js";
-import { formatCautions } from "./cautions.js";
+import { formatCautions, wrapText } from "./cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
 import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
 import { lineChart } from "./lineChart.js";
@@ -120,7 +120,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   out.push("Summary (Markdown, for a design note)");
   out.push(supervisionSummaryTable(report));
   for (const p of report.problems) out.push(`Problem: ${p}`);
-  out.push(verdictLine(report.verdict, verdictReason(report)));
+  out.push(wrapText(verdictLine(report.verdict, verdictReason(report)), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(report.linearMosfet, Math.min(width, 100)));
   return out.join("\n");
