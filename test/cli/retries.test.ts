@@ -3,6 +3,7 @@ import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { shortedBusProfile, shortedRetry } from "../helpers/shortedBusProfile.js";
 
 // In-process runs of `heatledger retries` on an invented profile: a 48 Ω pre-charge resistor
 // into a shorted bus at 48 V dissipates Vs²/R = 48 W until the 0.5 s timeout (series-resistor
@@ -11,25 +12,7 @@ import { memoryIo } from "../helpers/memoryIo.js";
 // et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, summed as a geometric
 // series; derivation in test/plan/minForeverInterval.test.ts): retrying for ever is safe from
 // T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max) ≈ 0.757 s.
-const PROFILE = (retry: string, plan = "") => `name: shorted bus retries
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
-    limits: { maxTemperature: 100 degC, margin: 10 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 1 mF
-  resistance: 48 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: bleeder, resistance: 10 kohm }
-events:
-  - retry:
-${retry}
-      fault: { type: shorted-output }
-${plan}`;
+const PROFILE = (retry: string, plan = ""): string => shortedBusProfile(shortedRetry(retry), plan);
 
 const SAFE = "      attempts: 3\n      interval: 2 s\n      lockout: 60 s";
 const UNSAFE = "      attempts: 20\n      interval: 0.6 s\n      lockout: 1 s";

@@ -2,6 +2,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/index.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { shortedBusProfile } from "../helpers/shortedBusProfile.js";
 
 // In-process runs of `heatledger simulate` through the CLI factory, on invented profiles.
 const PULSES = (powerW: number) => `name: pulses
@@ -60,25 +61,7 @@ describe("heatledger simulate (in process)", () => {
   // An attempt into a shorted bus never completes: the firmware's timer ends it. The outcome says so
   // ("timed-out"), and that the bus had stalled (held at 0 V) is a separate fact, busStalled.
   test("an attempt into a short: timed out by the timer, the bus stalled as a separate fact", async () => {
-    const profile = `name: one short
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
-    limits: { maxTemperature: 100 degC }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 1 mF
-  resistance: 48 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: bleeder, resistance: 10 kohm }
-events:
-  - power-up: {}
-  - power-down: { off: 10 s }
-  - fault: { type: shorted-output }
-`;
+    const profile = shortedBusProfile("  - power-up: {}\n  - power-down: { off: 10 s }\n  - fault: { type: shorted-output }");
     const io = memoryIo({ "p.yaml": profile });
     expect(await runCli(["simulate", "p.yaml", "--json"], io)).toBe(0);
     const json = JSON.parse(io.stdout.join("")) as { parts: { events: { outcome: string; busStalled: boolean }[] }[] };

@@ -2,6 +2,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { shortedBusProfile, shortedRetry } from "../helpers/shortedBusProfile.js";
 
 // One peak, three commands, one verdict. An invented 48 V pre-charge resistor (48 Ω, so 48 W into
 // a shorted bus, the bus held at 0 V) retries 17 times every 0.6 s (start to start) for the 0.5 s
@@ -11,30 +12,10 @@ import { memoryIo } from "../helpers/memoryIo.js";
 // §5.2, summed as a geometric series): 70.27 K, 95.27 °C. The limit is 100 °C with a 10 K margin,
 // so the peak is inside the margin, 5 K from either end: warn. Before one rule, `simulate` passed
 // this peak (exit 0) while `retries` called it unsafe (exit 1).
-const PROFILE = `name: one peak inside the margin
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
-    limits: { maxTemperature: 100 degC, margin: 10 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 1 mF
-  resistance: 48 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: bleeder, resistance: 10 kohm }
-events:
-  - retry:
-      attempts: 17
-      interval: 0.6 s
-      lockout: 10 min
-      fault: { type: shorted-output }
-supervision:
-  corners:
-    capacitance: [0.9 mF, 1.1 mF]
-`;
+const PROFILE = shortedBusProfile(
+  shortedRetry("      attempts: 17\n      interval: 0.6 s\n      lockout: 10 min"),
+  "supervision:\n  corners:\n    capacitance: [0.9 mF, 1.1 mF]\n",
+);
 
 const S = 48 * 2 * -Math.expm1(-0.5 / 5);
 const q = Math.exp(-0.6 / 5);

@@ -4,34 +4,15 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/index.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { shortedBusProfile, shortedRetry } from "../helpers/shortedBusProfile.js";
 
 // Every JSON report carries its cautions under one key, `cautions`, a list of strings (before,
 // some reports had a `caution` string and `retries`, `size`, `network show` and `network convert`
 // had none).
-const PROFILE = `name: cautions everywhere
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 2 K/W, tau: 5 s }] }
-    limits: { maxTemperature: 100 degC, margin: 10 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 1 mF
-  resistance: 48 ohm
-  completion: { fraction: 0.95, timeout: 500 ms }
-  discharge: { kind: bleeder, resistance: 10 kohm }
-events:
-  - retry:
-      attempts: 3
-      interval: 2 s
-      lockout: 60 s
-      fault: { type: shorted-output }
-supervision:
-  corners:
-    capacitance: [0.9 mF, 1.1 mF]
-`;
+const PROFILE = shortedBusProfile(
+  shortedRetry("      attempts: 3\n      interval: 2 s\n      lockout: 60 s"),
+  "supervision:\n  corners:\n    capacitance: [0.9 mF, 1.1 mF]\n",
+);
 const bundled = (name: string): string => readFileSync(join(import.meta.dirname, "../../profiles/networks", name), "utf8");
 const FILES = {
   "p.yaml": PROFILE,
