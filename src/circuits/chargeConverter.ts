@@ -35,9 +35,9 @@ export interface ConverterParams {
  * constant power (C·V·dV/dt = P: V² = V0² + 2·P·t/C with no load, solved by odex in general; the
  * loss is the constant P·(1/η − 1)).
  * Source: energy balance of a converter with efficiency η (input = output/η): Erickson &
- * Maksimović, Fundamentals of Power Electronics, 2nd ed. (2001), §1.1 and ch. 3 (efficiency),
- * from memory; capacitor charging by a current: Hayt, Kemmerly & Durbin, Engineering Circuit
- * Analysis, 8th ed. (2012), ch. 7.
+ * Maksimović, Fundamentals of Power Electronics, 2nd ed. (2001), §1.1 (section from memory);
+ * capacitor charged by a current, C·dV/dt = I, and its energy C·V²/2: Hayt, Kemmerly & Durbin,
+ * Engineering Circuit Analysis, 8th ed. (2012), §7.1 (section from memory).
  * Validity: an averaged model (no switching ripple); constant efficiency.
  * Cost: see {@link runChargeEvent}.
  * @throws InputError naming the field: `capacitanceF`, `mode`, `currentA` / `powerW` (> 0 for the

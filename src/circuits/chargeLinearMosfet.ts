@@ -48,8 +48,9 @@ export interface LinearMosfetParams {
  *
  * Source: Sedra & Smith, Microelectronic Circuits, 7th ed. (2015), §5.2 (MOSFET saturation
  * region; a current source with source degeneration, from memory); series RC response: Hayt,
- * Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), ch. 8; charging by a constant
- * current dV/dt = I/C: ch. 7 (capacitor v–i relation).
+ * Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.8 (driven RC circuit);
+ * charging by a constant current dV/dt = I/C: §7.1 (capacitor v–i relation) (section numbers
+ * from memory).
  * Validity: the gate-source voltage across the MOSFET is taken as Vth (square-law overdrive
  * neglected: a large-transconductance part); ideal source.
  * Cost: see {@link runChargeEvent}; O(1) for no or resistive loads.

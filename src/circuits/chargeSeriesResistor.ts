@@ -29,10 +29,11 @@ export interface SeriesResistorParams {
  * linear too (Vf = Vs − I·Rt); a constant-power load is integrated by odex. A short holds the bus
  * at 0 V: the resistor dissipates Vs²·R/Rt² until the timeout.
  *
- * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 and §8.7
- * (RC responses), §5.5 (Thévenin equivalent of source and load); the energy C·V²/2 lost in
- * charging through any resistance: Irwin & Nelms, Basic Engineering Circuit Analysis, 10th ed.
- * (2011), §6.1 and §7.2 (section numbers from memory).
+ * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.3 and §8.8
+ * (source-free and driven RC circuits), §5.3 (Thévenin equivalent of source and load), §7.1
+ * (capacitor energy C·V²/2) (section numbers from memory); the energy lost in charging through
+ * any resistance, C·(Vs − V0)²/2 shared as R/Rt, is ∫i²·Rt dt = ∫(Vs − V)·C dV (i = C·dV/dt,
+ * i·Rt = Vs − V), integrated here.
  * Validity: ideal source, resistor and capacitor (no ESR, no temperature dependence of R).
  * Cost: see {@link runChargeEvent}; O(1) for no, resistive or shorted loads.
  * @throws InputError naming the field: `resistanceOhm` (> 0), `sourceResistanceOhm` (≥ 0),

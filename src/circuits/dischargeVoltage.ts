@@ -34,8 +34,8 @@ function decay(v: number, t: number, tau: number): number {
  * V0 − I·t/C; with a bleeder, the driven first-order response (V0 + I·Rb)·e^(−t/τ) − I·Rb whose
  * zero crossing is at t0 = τ·ln((V0 + I·Rb)/(I·Rb)), τ = Rb·C; active discharge to `untilV`
  * reached at t1 = τ∥·ln(V0/untilV), τ∥ = (R∥Rb)·C, then bleeder decay from untilV.
- * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4
- * (source-free RC) and §8.7 (driven RC) (section numbers from memory).
+ * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.3
+ * (source-free RC) and §8.8 (driven RC) (section numbers from memory).
  * Validity: ideal linear parts; an initial voltage of any sign ≥ 0.
  * Cost O(1).
  * @param path the discharge path

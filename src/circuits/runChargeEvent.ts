@@ -89,8 +89,8 @@ function quadraticTerms(q: Quadratic, base: number, d: number, rate: number, k: 
  * One linear regime (h = 0) in closed form: C·dV/dt = g0 − g1·V gives
  * V(s) = Vf + (V0 − Vf)·e^(−s/τ) with Vf = g0/g1, τ = C/g1 (g1 > 0), or V(s) = V0 + (g0/C)·s
  * (g1 = 0); the time to a level L is τ·ln((V0 − Vf)/(L − Vf)) or (L − V0)·C/g0.
- * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 (the
- * source-free RC circuit) and §8.7 (driven RC circuits) (section numbers from memory).
+ * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.3 (the
+ * source-free RC circuit) and §8.8 (driven RC circuits) (section numbers from memory).
  */
 function linearStretch(r: BusRegime, c: number, v0: number, maxS: number, levels: readonly BusLevel[], wantSamples: boolean): RegimeStretch {
   const exp = r.g1 > 0;
@@ -212,7 +212,7 @@ function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusL
  *
  * Energy bookkeeping: source = ΔE_C + Σ parts + load, where a short across a charged capacitor
  * dumps C·V0²/2 into the load at t = 0.
- * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4 and §8.7
+ * Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.3 and §8.8
  * (first-order RC responses); the energy identity is Tellegen's theorem, Desoer & Kuh, Basic
  * Circuit Theory (1969), §9.5 (section numbers from memory).
  * Cost: O(regime changes × parts) for linear regimes, plus the ODE work for nonlinear ones

@@ -37,7 +37,8 @@ const HEADER_CELL = /^(.*?)\s*(?:\[([^\]]*)\]|\(([^)]*)\)|\s\/\s*(.+))?\s*$/;
  * or else the header; a column with neither is an error (a unit is never guessed: datasheets mix
  * ms and s). Every value is scaled to SI by its unit (units/parseQuantity). Every data row must
  * have as many cells as the header: a decimal comma would otherwise shift the columns silently.
- * Source: RFC 4180 (CSV); SI brochure, 9th ed. (BIPM 2019), §2 and table 8 for unit prefixes.
+ * Source: RFC 4180 (CSV); SI brochure, 9th ed. (BIPM 2019), §2.3 (units) and §3, Table 7 (unit
+ * prefixes) (section and table numbers from memory).
  * Cost O(cells); the first unit parsed loads mathjs (about 1 s).
  * @param text the file's text
  * @param columns the columns wanted, in order

@@ -63,10 +63,10 @@ export interface AttemptTrial {
  * history at every later time; within [t_k, t_k+1) the two coincide. Hence the highest own peak
  * over all attempts equals the history's peak, and a schedule is safe exactly when every
  * attempt's own peak is.
- * Source: superposition for linear heat conduction and the non-negative response of a passive
- * RC network to non-negative heat input (common practice; the linearity argument is that of
- * Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2 lumped
- * capacitance, applied mode by mode).
+ * Source: superposition in a linear time-invariant system (Oppenheim & Willsky, Signals and
+ * Systems, 2nd ed. (1997), §2.2), which splits the history into the attempts' own responses; the
+ * non-negative response of a passive RC network to non-negative heat input is common practice
+ * (C·dT/dt = −G·T + P: −C⁻¹·G has no negative entry off its diagonal, so e^(−C⁻¹·G·t) has none).
  * Cost per trial O(segments × sources × modes) plus the interior peak search.
  */
 export class AttemptCursor {

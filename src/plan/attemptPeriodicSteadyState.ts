@@ -30,9 +30,9 @@ export interface AttemptPeriodicState {
  * the sum of the geometric series f_m·Σ_k e^(−k·P/tau_m) (each earlier attempt's contribution
  * decayed by whole periods). The steady cycle's attempt is then simulated once from that state
  * (after the wait) to find its peak, interior peaks included.
- * Source: DESIGN §3 (periodic steady state: start-of-cycle state d_m/(1 − e^(−T/tau_m))); the
- * geometric series of decayed pulse responses is the superposition of Incropera et al.,
- * Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, per mode; the resulting
+ * Source: docs/design.md, "Periodic steady state" ( start-of-cycle state d_m/(1 − e^(−T/tau_m))); the
+ * geometric series of decayed pulse responses is superposition in a linear time-invariant system
+ * (Oppenheim & Willsky, Signals and Systems, 2nd ed. (1997), §2.2), mode by mode; the resulting
  * periodic-pulse-train form is common practice in power-semiconductor thermal design.
  * Validity: the attempt must be the same every cycle (same power trace and end voltage), which
  * holds once the capacitor's start voltage has settled (see retryForeverCheck).

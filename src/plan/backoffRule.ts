@@ -40,7 +40,7 @@ export interface BackoffRuleOptions {
 }
 
 /**
- * Issue 6, item 4 (the rule): a first wait and the smallest growth factor g such that waiting
+ * The back-off rule of the retry planner: a first wait and the smallest growth factor g such that waiting
  * firstWait·g^(k−1) after the end of attempt k keeps a burst of N attempts safe in every corner,
  * checked by simulating the whole burst. For each candidate first wait, growth factors from 1 to
  * maxGrowthFactor are scanned linearly and each band edge bisected (the burst is not always safer

@@ -44,7 +44,7 @@ export interface FastestScheduleAnswer {
 }
 
 /**
- * Issue 6, item 4: the fastest safe schedule: every attempt starts at the earliest moment at which
+ * The fastest safe schedule: every attempt starts at the earliest moment at which
  * its own peak stays at or below limit − margin in every corner.
  *
  * Attempt 1 starts at t = 0. For each later attempt the waits after the previous attempt's end

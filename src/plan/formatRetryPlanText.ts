@@ -31,7 +31,7 @@ function bands(list: readonly FeasibleBand[]): string {
  * The terminal report of `heatledger retries`: the profile's own policy verdict first (pass, warn
  * or fail, src/stress/Verdict.ts; the burst and the repeated cycle each with its own word), then
  * every answer (items 1-6 of the retry planner) with a sentence on how to read it and the corner
- * that governs it, the lockout map as a heat map, and the cautions.
+ * that governs it, the lockout map as a heat map, and the cautions (docs/design.md, "Cautions").
  * Cost O(attempts + map cells).
  */
 export function formatRetryPlanText(report: RetryPlanReport, width = 100): string {

@@ -41,7 +41,7 @@ export interface LockoutAnswer {
 }
 
 /**
- * Issue 6, item 5: after a burst, the shortest lockout before the same burst may run again, and
+ * After a burst, the shortest lockout before the same burst may run again, and
  * the time until the part is back within a set distance of ambient.
  *
  * The burst runs in every corner (its first attempt at t = 0). For a candidate lockout L, the

@@ -23,7 +23,7 @@ export interface MaxAttemptsAnswer {
 }
 
 /**
- * Issue 6, item 2: the largest number of attempts a burst may have at a given interval.
+ * The largest number of attempts a burst may have at a given interval.
  *
  * If retrying for ever at the interval is safe in every corner (retryForeverCheck, closed form),
  * the answer is "unlimited". Otherwise each corner runs attempts until the first whose own peak

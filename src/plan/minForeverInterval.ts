@@ -24,7 +24,7 @@ export interface ForeverIntervalAnswer {
 }
 
 /**
- * Issue 6, item 3: the shortest interval at which the firmware may retry for ever, from the
+ * The shortest interval at which the firmware may retry for ever, from the
  * periodic steady state in closed form (retryForeverCheck per corner), with every band of safe
  * intervals (scan, then bisection of each edge).
  * For one RC stage and rectangular attempts of power P and length t_on this reproduces

@@ -82,7 +82,7 @@ export function uniformBurstVerdict(c: ResolvedScenario, attempts: number, inter
 }
 
 /**
- * Issue 6, item 1: the shortest uniform retry interval for a burst of N attempts, for the worst
+ * The shortest uniform retry interval for a burst of N attempts, for the worst
  * corner, with every band of safe intervals.
  *
  * For a candidate interval T, every corner runs the burst (attempt 1 at t = 0, then every T from

@@ -33,7 +33,7 @@ export interface RetryPlanReport {
 }
 
 /**
- * Answer every retry-planning question for a profile's fault (issue 6, items 1-6) over its
+ * Answer every retry-planning question for a profile's fault (the six answers of `heatledger retries`) over its
  * corner set, and check the profile's own policy. See profileRetrySetup for how the profile
  * becomes corners. Cost: the sum of the solvers' costs (seconds at most for typical profiles).
  * @throws InputError for a profile the planner cannot work on (see profileRetrySetup)

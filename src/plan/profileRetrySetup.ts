@@ -63,7 +63,7 @@ const ATTEMPT_MEMO_SIZE = 512;
  * (the contactor closed, then tripped), as the profile's expansion does. The capacitor
  * discharges between attempts along the profile's discharge path (`models.discharge`). The
  * first attempt starts from an empty capacitor (the most energy).
- * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of DESIGN §4.
+ * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of docs/design.md ("Circuit bookkeeping").
  * Cost O(corners × parts).
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
  *   or a corner sets a resistance for a topology without a series resistor; `out-of-range` when

@@ -28,7 +28,7 @@ export interface ForeverVerdict {
 }
 
 /**
- * Issue 6, item 3 (one corner, one interval): is retrying for ever at this interval safe?
+ * One corner, one interval: is retrying for ever at this interval safe?
  *
  * 1. Attempts are simulated from the cold start (capacitor at its initial voltage) until the
  *    capacitor's start voltage settles (changes by less than PLAN_DEFAULTS.voltageSettleRelTol);
@@ -41,9 +41,9 @@ export interface ForeverVerdict {
  *    any later own peak (linearity). When steady peak + that bound is within the limit, every
  *    later attempt is safe: proven. Otherwise one more attempt is simulated and the bound
  *    recomputed (it shrinks geometrically).
- * Source: DESIGN §3 (periodic steady state, per-mode geometric series); superposition of the
- * linear modal form (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011),
- * §5.2, per mode).
+ * Source: docs/design.md, "Periodic steady state" (per-mode geometric series); the bound on what
+ * is left of the start is superposition in the linear modal form (Oppenheim & Willsky, Signals and
+ * Systems, 2nd ed. (1997), §2.2, mode by mode).
  * Validity: once settled, the attempt model must return the same attempt for the same start
  * voltage and wait.
  * Cost O(attempts to settle + attempts until the bound closes) × cost of one attempt.

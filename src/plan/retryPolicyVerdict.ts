@@ -56,8 +56,8 @@ export interface RetryPolicyVerdictOptions {
  * and compared with limit − margin and with the limit; the repeated cycle's check stops at the
  * first attempt above limit − margin, so a cycle found unsafe is checked again against the limit
  * itself (margin 0): safe there is "warn", not safe "fail". Overlapping attempts are "fail".
- * Source: periodic steady state (src/thermal/periodicSteadyState.ts) applied to the burst +
- * lockout cycle; verdict rule of our own (src/stress/Verdict.ts).
+ * Source: docs/design.md, "Periodic steady state" applied to the burst + lockout cycle, and
+ * "Verdicts" (src/stress/Verdict.ts).
  * Cost O(corners × (N + cycles to settle × N) × cost of one attempt), twice for the cycles of a
  * corner found unsafe (the check against the limit) unless `verdictWords` is false.
  * @throws InputError for bad corners or a lockout that is not finite and ≥ 0

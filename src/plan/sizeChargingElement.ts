@@ -81,8 +81,9 @@ function knobOf(circuit: ProfileCircuit): { knob: ChargingElementKnob; value: nu
  * For a series resistor with no load the answer has a closed form (used by the tests): the bus
  * reaches k·Vs at t = tau·ln((Vs − V0)/((1 − k)·Vs)), tau = (R + Rsrc)·C, so
  *   R_max = timeout / (C·ln((Vs − V0)/((1 − k)·Vs))) − Rsrc.
- * Source: RC charging, Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4
- * (section from memory); bisection, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
+ * Source: RC charging, Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.8
+ * (driven RC circuit; section from memory); bisection, Press et al., Numerical Recipes, 3rd ed.
+ * (2007), §9.1.
  * Validity: completion is monotone in the value (a slower element never completes sooner), true of
  * every model here with the loads it takes.
  * Cost: about 30 to 60 circuit runs, O(1) each for linear circuits.
@@ -149,7 +150,7 @@ export function sizeChargingElement(circuit: ProfileCircuit, models: CircuitMode
           presentChargeS,
           timeoutS,
           runs,
-          reason: `no ${knob.name} within a factor ${d.circuitSearchFactor} of the profile's completes a healthy power-up within ${timeoutS} s: ${last.reason}`,
+          reason: `no ${knob.name} within a factor ${d.circuitSearchFactor} of the profile's completes a healthy power-up within ${Number(timeoutS.toPrecision(6))} s: ${last.reason}`,
         };
       }
     }
@@ -173,6 +174,6 @@ export function sizeChargingElement(circuit: ProfileCircuit, models: CircuitMode
     chargeS: fastDuration,
     timeoutS,
     runs,
-    reason: `the ${knob.direction} ${knob.name} that completes a healthy power-up from 0 V within ${timeoutS} s`,
+    reason: `the ${knob.direction} ${knob.name} that completes a healthy power-up from 0 V within ${Number(timeoutS.toPrecision(6))} s`,
   };
 }

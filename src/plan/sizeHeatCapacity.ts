@@ -1,10 +1,12 @@
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
-import type { DutyProfile } from "../profile/DutyProfile.js";
+import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
 import { simulateProfile } from "../profile/simulateProfile.js";
 import { adiabaticMass } from "../thermal/lumpedNetwork.js";
 import type { MaterialPreset } from "../thermal/materials.js";
-import { SIZE_DEFAULTS } from "./sizeDefaults.js";
+import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
+import { SIZE_DEFAULTS, type SizeScaleScope } from "./sizeDefaults.js";
+import { sizeScaledNetwork } from "./sizeScaledNetwork.js";
 import { sizeScaledProfile } from "./sizeScaledProfile.js";
 import { sizeShortTimeCapacity } from "./sizeShortTimeCapacity.js";
 
@@ -12,8 +14,10 @@ import { sizeShortTimeCapacity } from "./sizeShortTimeCapacity.js";
 export interface HeatCapacitySizingOptions {
   /** the electrical models (defaultCircuitModels in the CLI) */
   readonly models: CircuitModels;
-  /** a material preset: the capacities are also given as a mass of it */
+  /** a material preset: the adiabatic capacity, and the element capacity of `element` scaling, are also given as a mass of it */
   readonly material?: MaterialPreset;
+  /** what is scaled: every capacity of the part's network or only its element's (default SIZE_DEFAULTS.scale) */
+  readonly scope?: SizeScaleScope;
   /** margin below the limit to size to [K]; default: the part's own margin from the profile */
   readonly marginK?: number;
 }
@@ -43,12 +47,16 @@ export interface CapacityInversion {
    * peak under the target (the resistance, not the capacity, limits the part); `none`: no scale works
    */
   readonly status: "sized" | "any" | "none";
-  /** k: every heat capacity of the part's network times k (Infinity for `none`, 0 for `any`) */
+  /** what k multiplies: every heat capacity of the part's network (`whole`) or the element's only (`element`) */
+  readonly scope: SizeScaleScope;
+  /** k: the scaled capacities times k (Infinity for `none`, 0 for `any`) */
   readonly scale: number;
-  /** the part's first capacity at that scale, k·C_first [J/K] */
+  /** the element's capacity (C1, see HeatCapacitySizing.presentCapacityJPerK) at that scale, k·C1 [J/K] */
   readonly capacityJPerK: number;
-  /** that capacity as a mass of the chosen material [kg] */
+  /** `element` scaling only: that capacity as a mass of the chosen material, C1/c [kg] (a whole body is of several materials) */
   readonly massKg?: number;
+  /** `sized` only, for a part given with its network: the sized network as a network file holds it (write it with formatNetworkFile) */
+  readonly sizedNetwork?: ThermalNetwork;
   /** the sized part's peak at that scale [°C] (at the smallest scale tried for `any`, the largest for `none`) */
   readonly peakTemperatureC: number;
   /** the lower end of the final bracket: a scale whose peak is above the target (undefined for `any`/`none`) */
@@ -66,12 +74,18 @@ export interface HeatCapacitySizing {
   readonly marginK: number;
   /** limit − margin: the temperature the part is sized to [°C] */
   readonly targetC: number;
-  /** the part's first capacity as the profile gives it [J/K] (see sizeShortTimeCapacity) */
+  /**
+   * the element's capacity C1 as the profile gives it [J/K]: C1 of a Cauer ladder, the part's
+   * source node of a graph, 1/Σ(R_i/tau_i) of a Foster network (C1 of its exact Cauer ladder);
+   * for a part built from a modal model alone, its short-time capacity (sizeShortTimeCapacity)
+   */
   readonly presentCapacityJPerK: number;
   /** the part's peak with its present network [°C] */
   readonly presentPeakC: number;
   /** other parts on the same network (one heatsink): scaling it scales theirs too, so each is held to its own target */
   readonly sharedWith: readonly string[];
+  /** what the inversion scales (the `scope` option) */
+  readonly scope: SizeScaleScope;
   /** the part on the network that sets the answer (closest to its target at the sized scale) */
   readonly governingPartId: string;
   /** undefined when no event puts energy into the part */
@@ -93,27 +107,35 @@ export interface HeatCapacitySizing {
  *    ambient, with no heat leaving: C = E/ΔT, m = E/(c·ΔT) (adiabaticMass), ΔT = target − ambient.
  *    Quick, and for one event from cold it is enough whatever the pulse shape (the rise is at most
  *    E/C_first, see sizeShortTimeCapacity); it knows nothing of heat left over from earlier events.
- * 2. Inversion of the whole profile: every heat capacity of the part's network is scaled by k at
- *    fixed thermal resistances (sizeScaledProfile: tau_m → k·tau_m, gains kept), the profile is
- *    simulated (simulateProfile) and k is bracketed by factors of SIZE_DEFAULTS.bracketFactor, then
- *    bisected on ln k until the peak is within `temperatureToleranceK` below the target and the
- *    bracket narrower than `capacityRelativeWidth`. The answer is reported as k, as the part's
- *    first capacity k·C_first and, with a material, as the mass k·C_first/c.
- *    Parts that share the network (a MOSFET and its source resistor on one heatsink) share the
- *    scaling, so a scale is accepted only when every one of them stays at or under its own target;
- *    the part that binds is reported as governing.
+ * 2. Inversion of the whole profile: the part's heat capacities are scaled by k at fixed thermal
+ *    resistances, over the scope asked (sizeScaledProfile): every capacity of its network
+ *    (`whole`: tau_m → k·tau_m, gains kept) or only its element's (`element`: C1 → k·C1, the rest
+ *    as it is). The profile is simulated (simulateProfile) and k is bracketed by factors of
+ *    SIZE_DEFAULTS.bracketFactor, then bisected on ln k until the peak is within
+ *    `temperatureToleranceK` below the target and the bracket narrower than
+ *    `capacityRelativeWidth`. The answer is reported as k, as the element capacity k·C1 and the
+ *    sized network; with a material and `element` scaling, as the element's mass k·C1/c. Under
+ *    `whole` scaling k·C1 is the element's share of a body whose every capacity is k times larger:
+ *    on the original body it is not enough when k > 1.
+ *    Parts that share the network (a MOSFET and its source resistor on one heatsink) share a
+ *    `whole` scaling, so a scale is accepted only when every one of them stays at or under its own
+ *    target; under `element` scaling only the part's own source node changes, and a scale is
+ *    accepted when the part and every neighbour that meets its target now stay at or under their
+ *    targets (a neighbour already over its target is sized in its own row). The part that binds
+ *    is reported as governing.
  *    Monotonicity: more capacity at the same resistances lowers the peak for a one-stage network
  *    exactly (a first-order low-pass with a longer time constant is an average of the shorter
  *    one's output); for several stages it holds for steps and pulse trains but is not proven for
  *    every power shape, so the answer keeps its bracket: `crossingScale` is a scale that was
  *    simulated and crosses the target.
- * Source: Q = m·c·ΔT, Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011),
- * §1.3.1 and §5.2; time scaling of linear RC networks (sizeScaledProfile); bisection on a bracket,
- * Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
+ * Source: the adiabatic bound Q = m·c·ΔT, Incropera et al., Fundamentals of Heat and Mass Transfer,
+ * 7th ed. (2011), §1.3.1; time scaling of linear RC networks (sizeScaledProfile); bisection on a
+ * bracket, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
  * Validity: the profile's power does not depend on the part's capacity (a MOSFET with a threshold
  * temperature coefficient makes it depend weakly; the inversion still runs the full model).
  * Cost: up to SIZE_DEFAULTS.maxSimulations runs of simulateProfile, usually about 20.
- * @throws InputError `bad-option` for an unknown part or a negative margin; the simulation's own InputErrors
+ * @throws InputError `bad-option` for an unknown part or a negative margin, or `element` scaling of
+ *   a part with no network as written; the simulation's own InputErrors
  */
 export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, options: HeatCapacitySizingOptions): HeatCapacitySizing {
   const part = profile.parts[partIndex];
@@ -121,24 +143,8 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
   const marginK = options.marginK ?? part.marginK;
   if (!Number.isFinite(marginK) || marginK < 0) throw inputError("bad-option", "--margin", "a margin ≥ 0 K", String(marginK));
   const targetC = part.limitC - marginK;
-  const group = profile.parts.map((p, i) => ({ p, i })).filter(({ p }) => p.networkKey === part.networkKey);
-  const targets = group.map(({ p }) => p.limitC - (options.marginK ?? p.marginK));
-  /** how far the hottest part of the group is over its target [K], and which one it is */
-  const excessOf = (peaks: readonly { peakTemperatureC: number }[]): { excess: number; governing: string } => {
-    let excess = -Infinity;
-    let governing = part.id;
-    group.forEach(({ p, i }, j) => {
-      const over = peaks[i]!.peakTemperatureC - targets[j]!;
-      if (over > excess) {
-        excess = over;
-        governing = p.id;
-      }
-    });
-    return { excess, governing };
-  };
-  const c = options.material?.specificHeatJPerKgK;
-  const massOf = (capacity: number): number | undefined => (c === undefined || !Number.isFinite(capacity) ? undefined : capacity / c);
-  const presentCapacity = sizeShortTimeCapacity(part.model, part.observedIndex, part.sourceIndex);
+  const scope = options.scope ?? SIZE_DEFAULTS.scale;
+  const targetOf = (p: ProfilePart): number => p.limitC - (options.marginK ?? p.marginK);
 
   let worst: SizingWorstEvent | undefined;
   const present = simulateProfile(profile, {
@@ -149,21 +155,47 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
     },
   });
   const presentPeakC = present.parts[partIndex]!.peakTemperatureC;
+  const group = profile.parts.map((p, i) => ({ p, i })).filter(({ p }) => p.networkKey === part.networkKey);
+  // the parts a scale must keep at or under their targets: the whole network's for `whole`; for
+  // `element` the part and the neighbours that meet their targets now (a neighbour already over
+  // its target is not this element's to mend: its own row sizes it)
+  const held = group.filter(({ p, i }) => scope === "whole" || i === partIndex || present.parts[i]!.peakTemperatureC <= targetOf(p));
+  /** how far the hottest held part is over its target [K], and which one it is */
+  const excessOf = (peaks: readonly { peakTemperatureC: number }[]): { excess: number; governing: string } => {
+    let excess = -Infinity;
+    let governing = part.id;
+    for (const { p, i } of held) {
+      const over = peaks[i]!.peakTemperatureC - targetOf(p);
+      if (over > excess) {
+        excess = over;
+        governing = p.id;
+      }
+    }
+    return { excess, governing };
+  };
+  const c = options.material?.specificHeatJPerKgK;
+  const massOf = (capacity: number): number | undefined => (c === undefined || !Number.isFinite(capacity) ? undefined : capacity / c);
+  const sourceNode = part.model.sources[part.sourceIndex]!;
+  const presentCapacity =
+    part.network === undefined ? sizeShortTimeCapacity(part.model, part.observedIndex, part.sourceIndex) : sizeScaledNetwork(part.network, sourceNode, "whole", 1, part.networkKey).elementCapacityJPerK;
+  const show = (x: number): number => Number(x.toPrecision(4)); // display only: no float noise in the sentences
+  /** what k multiplies, in the words of the reasons */
+  const scaled = scope === "whole" ? "every heat capacity of the part's network" : "the element capacity C1";
   const presentExcess = excessOf(present.parts);
   const sharedWith = group.filter(({ p }) => p.id !== part.id).map(({ p }) => p.id);
-  const base = { partId: part.id, partIndex, ambientC: part.ambientC, limitC: part.limitC, marginK, targetC, presentCapacityJPerK: presentCapacity, presentPeakC, sharedWith, ...(worst === undefined ? {} : { worstEvent: worst }) };
+  const base = { partId: part.id, partIndex, ambientC: part.ambientC, limitC: part.limitC, marginK, targetC, presentCapacityJPerK: presentCapacity, presentPeakC, sharedWith, scope, ...(worst === undefined ? {} : { worstEvent: worst }) };
 
   const riseK = targetC - part.ambientC;
-  const cold = group.find(({ p }, j) => !(targets[j]! - p.ambientC > 0));
+  const cold = held.find(({ p }) => !(targetOf(p) - p.ambientC > 0));
   if (cold !== undefined) {
-    const t = targets[group.indexOf(cold)]!;
-    const show = (x: number): number => Number(x.toPrecision(6)); // display only: no float noise in the sentence
+    const t = targetOf(cold.p);
+    const show6 = (x: number): number => Number(x.toPrecision(6)); // display only: no float noise in the sentence
     return {
       ...base,
       governingPartId: cold.p.id,
-      inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: presentPeakC, simulations: 1 },
+      inversion: { status: "none", scope, scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: presentPeakC, simulations: 1 },
       feasible: false,
-      reason: `${cold.p.id === part.id ? "the" : `${cold.p.id}, on the same network: its`} target ${show(t)} °C (limit ${show(cold.p.limitC)} °C less ${show(options.marginK ?? cold.p.marginK)} K margin) is not above the ambient ${show(cold.p.ambientC)} °C, so no heat capacity keeps the part under it`,
+      reason: `${cold.p.id === part.id ? "the" : `${cold.p.id}, on the same network: its`} target ${show6(t)} °C (limit ${show6(cold.p.limitC)} °C less ${show6(options.marginK ?? cold.p.marginK)} K margin) is not above the ambient ${show6(cold.p.ambientC)} °C, so no heat capacity keeps the part under it`,
     };
   }
   const adiabatic: AdiabaticBound =
@@ -174,7 +206,7 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
   let simulations = 1;
   const runAt = (scale: number): { excess: number; governing: string; peakC: number } => {
     simulations++;
-    const parts = simulateProfile(sizeScaledProfile(profile, partIndex, scale), { models: options.models }).parts;
+    const parts = simulateProfile(sizeScaledProfile(profile, partIndex, scale, scope), { models: options.models }).parts;
     return { ...excessOf(parts), peakC: parts[partIndex]!.peakTemperatureC };
   };
   const d = SIZE_DEFAULTS;
@@ -190,9 +222,9 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
           ...base,
           governingPartId: atHi.governing,
           adiabatic,
-          inversion: { status: "any", scale: 0, capacityJPerK: 0, ...(c === undefined ? {} : { massKg: 0 }), peakTemperatureC: atHi.peakC, simulations },
+          inversion: { status: "any", scope, scale: 0, capacityJPerK: 0, ...(c === undefined || scope === "whole" ? {} : { massKg: 0 }), peakTemperatureC: atHi.peakC, simulations },
           feasible: true,
-          reason: `even ${hi.toExponential(1)} × the present capacity keeps the peak at ${atHi.peakC.toFixed(2)} °C, under the ${Number(targetC.toPrecision(6))} °C target: the resistance to ambient, not the heat capacity, sets this part's peak`,
+          reason: `even ${hi.toExponential(1)} × ${scaled} keeps the peak at ${atHi.peakC.toFixed(2)} °C, under the ${Number(targetC.toPrecision(6))} °C target: ${scope === "whole" ? "the resistance to ambient, not the heat capacity," : "the rest of the network, not the element's capacity,"} sets this part's peak`,
         };
       }
       const r = runAt(k);
@@ -213,9 +245,9 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
           ...base,
           governingPartId: r.governing,
           adiabatic,
-          inversion: { status: "none", scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: r.peakC, simulations },
+          inversion: { status: "none", scope, scale: Infinity, capacityJPerK: Infinity, peakTemperatureC: r.peakC, simulations },
           feasible: false,
-          reason: `even ${lo.toExponential(1)} × the present capacity leaves ${r.governing} above its target`,
+          reason: `even ${lo.toExponential(1)} × ${scaled} leaves ${r.governing} above its target${scope === "whole" ? "" : ": the rest of the network sets its peak (scale the whole body instead)"}`,
         };
       }
       const r = runAt(k);
@@ -238,17 +270,22 @@ export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, option
     }
   }
   const peakHi = atHi.peakC;
-  const capacity = hi * presentCapacity;
-  const mass = massOf(capacity);
+  const sized = part.network === undefined ? undefined : sizeScaledNetwork(part.network, sourceNode, scope, hi, part.networkKey);
+  const capacity = sized?.elementCapacityJPerK ?? hi * presentCapacity;
+  const mass = scope === "element" ? massOf(capacity) : undefined;
+  const what =
+    scope === "whole"
+      ? `${show(hi)} × every heat capacity of the ${sharedWith.length === 0 ? "part's" : "shared"} network (whole body; C1 then ${show(capacity)} J/K)`
+      : `an element capacity C1 = ${show(capacity)} J/K (${show(hi)} × the present ${show(presentCapacity)} J/K, the rest of the network as it is)`;
   return {
     ...base,
     governingPartId: atHi.governing,
     adiabatic,
-    inversion: { status: "sized", scale: hi, capacityJPerK: capacity, ...(mass === undefined ? {} : { massKg: mass }), peakTemperatureC: peakHi, crossingScale: lo, simulations },
+    inversion: { status: "sized", scope, scale: hi, capacityJPerK: capacity, ...(mass === undefined ? {} : { massKg: mass }), ...(sized === undefined ? {} : { sizedNetwork: sized.network }), peakTemperatureC: peakHi, crossingScale: lo, simulations },
     feasible: true,
     reason:
       atHi.governing === part.id
-        ? `${hi.toPrecision(4)} × the present heat capacity keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${Number(targetC.toPrecision(6))} °C target`
-        : `${hi.toPrecision(4)} × the present heat capacity of the shared network keeps ${atHi.governing} at its target; this part then peaks at ${peakHi.toFixed(2)} °C (target ${Number(targetC.toPrecision(6))} °C)`,
+        ? `${what} keeps the peak at ${peakHi.toFixed(2)} °C, at or under the ${Number(targetC.toPrecision(6))} °C target`
+        : `${what} keeps ${atHi.governing} at its target; this part then peaks at ${peakHi.toFixed(2)} °C (target ${Number(targetC.toPrecision(6))} °C)`,
   };
 }

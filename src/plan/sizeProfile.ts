@@ -3,6 +3,7 @@ import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { MaterialPreset } from "../thermal/materials.js";
 import { type ChargingElementSizing, sizeChargingElement } from "./sizeChargingElement.js";
+import { SIZE_DEFAULTS, type SizeScaleScope } from "./sizeDefaults.js";
 import { type HeatCapacitySizing, sizeHeatCapacity } from "./sizeHeatCapacity.js";
 import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 
@@ -15,6 +16,8 @@ export interface SizeProfileOptions {
   readonly marginK?: number;
   /** size only these parts (ids); default every part */
   readonly partIds?: readonly string[];
+  /** what the capacity inversion scales: every capacity of each part's network, or its element's (default SIZE_DEFAULTS.scale) */
+  readonly scope?: SizeScaleScope;
 }
 
 /** Everything `heatledger size` answers for one profile. */
@@ -22,6 +25,8 @@ export interface SizingReport {
   readonly profileName: string;
   readonly file: string;
   readonly material?: MaterialPreset;
+  /** what the capacity inversion scaled */
+  readonly scope: SizeScaleScope;
   readonly parts: readonly HeatCapacitySizing[];
   /** undefined when the profile has no circuit */
   readonly circuit?: ChargingElementSizing;
@@ -40,7 +45,7 @@ export interface SizingReport {
 
 /**
  * Size a duty profile: the heat capacity of each part (sizeHeatCapacity: adiabatic bound and
- * inversion of the whole profile) and the slowest charging element that still completes a healthy
+ * inversion of the whole profile, scaling the whole body or the element as `scope` says) and the slowest charging element that still completes a healthy
  * power-up (sizeChargingElement). Parts are sized one at a time, the others kept as they are.
  * The verdict judges the answers: each sized part's peak against its own limit and the margin
  * its profile wants (peakVerdict), and fail when a question has no answer.
@@ -50,6 +55,7 @@ export interface SizingReport {
 export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): SizingReport {
   const ids = profile.parts.map((p) => p.id);
   const wanted = options.partIds ?? ids;
+  const scope = options.scope ?? SIZE_DEFAULTS.scale;
   for (const id of wanted) if (!ids.includes(id)) throw inputError("bad-option", "--part", `one of the profile's parts (${ids.join(", ")})`, describeFound(id));
   const parts = profile.parts
     .map((p, i) => ({ p, i }))
@@ -57,6 +63,7 @@ export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): 
     .map(({ i }) =>
       sizeHeatCapacity(profile, i, {
         models: options.models,
+        scope,
         ...(options.material === undefined ? {} : { material: options.material }),
         ...(options.marginK === undefined ? {} : { marginK: options.marginK }),
       }),
@@ -70,6 +77,7 @@ export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): 
     profileName: profile.name,
     file: profile.file,
     ...(options.material === undefined ? {} : { material: options.material }),
+    scope,
     parts,
     ...(circuit === undefined ? {} : { circuit }),
     linearMosfet: profile.circuit?.topology === "linear-mosfet",

@@ -10,8 +10,9 @@ import type { ModalModel } from "../thermal/ModalModel.js";
  * energy E raises the part by at most E/C_first, since dZth/dt = Σ (R_m/tau_m)·e^(−t/tau_m) ≤ 1/C_first.
  * Scaling the network's capacities by k scales C_first by k.
  * Source: initial slope of the step response of a first-order-sum (Foster) impedance,
- * Z(t) = Σ R_m·(1 − e^(−t/tau_m)); Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed.
- * (2011), §5.2 (lumped capacitance, initial rate q/(ρVc)).
+ * Z(t) = Σ R_m·(1 − e^(−t/tau_m)); the initial rate of a heated lump, dT/dt = q/(ρVc), is that of
+ * Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3 (lumped
+ * capacitance).
  * Validity: gains of the part's own source to its own node are ≥ 0 (always so for a passive network).
  * Cost O(modes).
  * @returns Infinity when the part has no mode from its source to its node (it never heats)

@@ -44,14 +44,15 @@ export function traceEnergyUntil(trace: PowerTrace, timeS: number): number {
 }
 
 /**
- * Issue 8, item 2: early-abort checks. At each check time t the lowest healthy bus voltage
+ * Early-abort checks. At each check time t the lowest healthy bus voltage
  * V_min(t) over the corner set gives the threshold (1 − m)·V_min(t), which no healthy corner can
  * trip (each is at or above V_min(t) > threshold); a shorted output holds the bus at 0 V and trips
  * it. A check is usable when its threshold is at least the measurement floor. The energy a short
  * puts into the part before the check fires is the short-circuit power trace integrated to t;
  * for a series resistor (Vs²·R/(R + Rsrc)²)·t, the Joule heating of a constant current
- * (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §1.4 power, §7.2
- * energy). The recommended check is the usable one with the least short-circuit energy (the
+ * (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §2.4, Joule heating
+ * p = i²R; section from memory). The recommended check is the usable one with the least
+ * short-circuit energy (the
  * earliest: the energy grows with t).
  * Cost O(checks × corners × one circuit run).
  * @param shortTrace the part's power into a short until (at least) the last check
@@ -83,7 +84,7 @@ export function abortChecks(buses: readonly HealthyBus[], timesS: readonly numbe
 }
 
 /**
- * Issue 8, item 2 (mirror): rise-too-fast checks. At each time t the highest healthy bus voltage
+ * Rise-too-fast checks (the mirror of the early-abort checks). At each time t the highest healthy bus voltage
  * V_max(t) gives the threshold max((1 + m)·V_max(t), floor), which no healthy corner reaches; a
  * bypassed or shorted pre-charge element charges the bus to the source voltage almost at once and
  * trips it when the threshold is at most (1 − m)·(lowest bus voltage) (usable). Recommended: the

@@ -66,7 +66,7 @@ function longestSafeTimeout(build: (timeoutS: number) => RetryScenario, check: (
 }
 
 /**
- * Issue 8, item 1 (upper end, one corner): the longest timeout of one attempt into a shorted
+ * The upper end of the timeout window, one corner: the longest timeout of one attempt into a shorted
  * output that keeps the part at or below limit − margin, starting from a given thermal state
  * (cold: all modes at zero, or the state a retry policy leaves).
  *
@@ -74,7 +74,7 @@ function longestSafeTimeout(build: (timeoutS: number) => RetryScenario, check: (
  *   θ(t) = P·R_th + (θ0 − P·R_th)·e^(−t/τ), so θ(t) = ΔT_max at
  *   t_max = −τ·ln((P·R_th − ΔT_max)/(P·R_th − θ0)), from cold t_max = −τ·ln(1 − ΔT_max/(P·R_th)),
  * unbounded when P·R_th ≤ ΔT_max (lumped capacitance, Incropera et al., Fundamentals of Heat and
- * Mass Transfer, 7th ed. (2011), §5.2). General networks and power traces are solved by
+ * Mass Transfer, 7th ed. (2011), §5.1 and §5.3). General networks and power traces are solved by
  * bisection on the exact modal history (AttemptCursor: own peak of the attempt, interior and
  * late peaks included).
  * Cost O(log(1/bisectionRelTol) × cost of one attempt).
@@ -90,7 +90,7 @@ export function longestShortFromState(build: (timeoutS: number) => RetryScenario
 }
 
 /**
- * Issue 8, item 1 (upper end from the hottest state the retry policy leaves, one corner): the
+ * The upper end of the timeout window from the hottest state the retry policy leaves, one corner: the
  * longest timeout for which the profile's retry policy into a shorted output stays at or below
  * limit − margin: the burst from a cold part, and the burst followed by the lockout repeated for
  * as long as the fault persists. Each attempt lasts exactly the timeout (a short never

@@ -115,7 +115,7 @@ export interface SupervisionReport {
 }
 
 /**
- * Issue 8: the supervision parameters firmware must choose, for the profile's circuit and its
+ * The supervision parameters firmware must choose, for the profile's circuit and its
  * supervision corner set.
  * 1. Timeout window: the lower end is the slowest healthy corner's completion time (every corner
  *    run through the circuit model); the upper end the longest timeout the part survives into a

@@ -2,6 +2,7 @@ import type { BusLoad } from "../circuits/BusLoad.js";
 import type { CompletionRule } from "../circuits/CircuitResult.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
+import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
 import type { StressConfig } from "../stress/resolveStressConfig.js";
@@ -50,6 +51,12 @@ export interface ProfilePart {
   readonly model: ModalModel;
   /** identifies the network: the file path as written, or the part's field for an inline network */
   readonly networkKey: string;
+  /**
+   * the network as written (Foster, Cauer or graph) before its modal reduction, shared like the
+   * model; `heatledger size --scale element` scales one of its capacities. Undefined for a part
+   * built from a modal model alone.
+   */
+  readonly network?: ThermalNetwork;
   /** the model source this part's power enters */
   readonly sourceIndex: number;
   /** the model node whose temperature is this part's */

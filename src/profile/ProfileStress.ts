@@ -1,7 +1,7 @@
 import { EVENT_DIGEST_DEFAULTS } from "../report/EventDigest.js";
 import type { RainflowMode } from "../stress/rainflowCounter.js";
 import { type EventRatingCheck, StressAssessment, type StressReport, worseStatus } from "../stress/assessStress.js";
-import { checkPulseEnergy } from "../stress/pulseEnergyRating.js";
+import { checkPulseEnergy, pulseEnergyDeratingFactor } from "../stress/pulseEnergyRating.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { pulseFromTrace } from "../stress/pulseFromTrace.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
@@ -62,6 +62,7 @@ interface PartState {
  * Rating checks run as each event closes (not at the end) so that a profile of a million events
  * keeps only `keepChecks` checks per part in memory: per event with power in the part, the
  * single-pulse energy at its equivalent duration E/P_peak (pulseFromTrace on the part's trace),
+ * against the rating derated at the part's temperature at the event start,
  * and for a MOSFET with an SOA table every operating point of the event (see mosfetOperatingPoints),
  * with the SOA derated at the part's temperature at the event start when the profile says how.
  * The per-event rule is the one of StressAssessment.finish, applied as events arrive.
@@ -125,21 +126,25 @@ export class ProfileStress {
     this.parts.forEach((part, i) => {
       const trace = event.traces[i];
       if (trace === undefined || !(event.energyJ[i]! > 0)) return;
-      const { pulseEnergy, soa, soaDerating } = part.config;
+      const { pulseEnergy, pulseEnergyDerating, soa, soaDerating } = part.config;
       // an SOA table is only read for the circuit's MOSFET (the note in finish says so for other parts)
       if (pulseEnergy === undefined && (soa === undefined || !part.isMosfet)) return;
       const pulse = pulseFromTrace(trace);
       const field = `events[${event.index}]`;
-      const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field);
+      const startC = start[i]!;
+      const energy =
+        pulseEnergy === undefined
+          ? undefined
+          : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field, pulseEnergyDerating === undefined ? 1 : pulseEnergyDeratingFactor(pulseEnergyDerating, startC));
       let soaCheck: EventRatingCheck["soa"];
       if (soa !== undefined && part.isMosfet) {
         const points = event.samples === undefined ? [] : mosfetOperatingPoints(event.samples, trace, this.profile.circuit?.busVoltageV ?? 0);
         if (points.length === 0 || !(pulse.durationS > 0)) part.eventsWithoutPoints++;
-        else soaCheck = checkSoa(soa, points, pulse.durationS, field, soaDerating === undefined ? 1 : soaDeratingFactor(soaDerating, start[i]!));
+        else soaCheck = checkSoa(soa, points, pulse.durationS, field, soaDerating === undefined ? 1 : soaDeratingFactor(soaDerating, startC));
       }
       const status = worseStatus(energy?.status ?? "pass", soaCheck?.status ?? "pass");
       part.status = worseStatus(part.status, status);
-      if (part.checks.length < this.keepChecks) part.checks.push({ index: event.index, startS: event.startS, pulseEnergy: energy, soa: soaCheck, status });
+      if (part.checks.length < this.keepChecks) part.checks.push({ index: event.index, startS: event.startS, startTemperatureC: startC, pulseEnergy: energy, soa: soaCheck, status });
       else part.omitted++;
     });
   }

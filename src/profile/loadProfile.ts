@@ -71,7 +71,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const reader = new FieldReader();
   const input = parsed.data;
   const circuit = input.circuit === undefined ? undefined : resolveCircuit(reader, input.circuit, "circuit");
-  const networks = new Map<string, ModalModel | undefined>();
+  const networks = new Map<string, ResolvedNetwork | undefined>();
   const parts = input.parts.map((part, i) => resolvePart(reader, part, `parts[${i}]`, input.ambient, input.circuit?.topology, file, source.lineOf, readFile, networks));
   const used = new Set<string>();
   parts.forEach((p, i) => {
@@ -215,7 +215,7 @@ function resolvePart(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-  networks: Map<string, ModalModel | undefined>,
+  networks: Map<string, ResolvedNetwork | undefined>,
 ): ProfilePart | undefined {
   const role = part.role === undefined ? undefined : ROLE_NAMES[part.role];
   if (role !== undefined) {
@@ -229,15 +229,16 @@ function resolvePart(
   if (part.limits.maxTemperature <= (part.ambient ?? ambientC))
     reader.fail("out-of-range", join(field, "limits.maxTemperature"), `a limit above the ambient (${part.ambient ?? ambientC} °C)`, `${part.limits.maxTemperature} °C`);
   const networkKey = typeof part.network === "string" ? part.network : join(field, "network");
-  const model = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, role, field, file, lineOf, readFile);
-  networks.set(networkKey, model);
+  const resolved = networks.has(networkKey) ? networks.get(networkKey) : resolveNetwork(reader, part, role, field, file, lineOf, readFile);
+  networks.set(networkKey, resolved);
   let stress: StressConfig | undefined;
   try {
-    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role) });
+    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role), limitC: part.limits.maxTemperature });
   } catch (error) {
     reader.absorb(error);
   }
-  if (model === undefined) return undefined;
+  if (resolved === undefined) return undefined;
+  const { model, network } = resolved;
   try {
     const sourceAt = part.source === undefined ? 0 : sourceIndex(model, part.source, join(field, "source"));
     const observedAt = part.observe === undefined ? 0 : observedIndex(model, part.observe, join(field, "observe"));
@@ -246,6 +247,7 @@ function resolvePart(
       ...(role === undefined ? {} : { role }),
       model,
       networkKey,
+      network,
       sourceIndex: sourceAt,
       observedIndex: observedAt,
       ambientC: part.ambient ?? ambientC,
@@ -276,6 +278,12 @@ function namedForRole(network: ThermalNetwork, role: CircuitRole | undefined, fi
   return network;
 }
 
+/** A part's network as written and its modal form. */
+interface ResolvedNetwork {
+  readonly model: ModalModel;
+  readonly network: ThermalNetwork;
+}
+
 function resolveNetwork(
   reader: FieldReader,
   part: PartInput,
@@ -284,8 +292,9 @@ function resolveNetwork(
   file: string,
   lineOf: (field: string) => number,
   readFile: ReadNamedFile | undefined,
-): ModalModel | undefined {
+): ResolvedNetwork | undefined {
   const at = join(field, "network");
+  let network: ThermalNetwork;
   let model: ModalModel;
   try {
     if (typeof part.network === "string") {
@@ -303,14 +312,16 @@ function resolveNetwork(
       let doc: ReturnType<typeof parseStructuredText> | undefined;
       try {
         doc = parseStructuredText(text, readFile.displayName?.(part.network) ?? part.network);
-        model = networkToModal(namedForRole(parseNetwork(doc.data, ""), role, ""), "");
+        network = namedForRole(parseNetwork(doc.data, ""), role, "");
+        model = networkToModal(network, "");
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
         reader.absorb(withLocation(error, readFile.displayName?.(part.network) ?? part.network, "", doc?.lineOf));
         return undefined;
       }
     } else {
-      model = networkToModal(namedForRole(parseNetwork(part.network, at), role, at), at);
+      network = namedForRole(parseNetwork(part.network, at), role, at);
+      model = networkToModal(network, at);
     }
   } catch (error) {
     if (error instanceof InputError) {
@@ -320,7 +331,7 @@ function resolveNetwork(
     }
     throw error;
   }
-  return model;
+  return { model, network };
 }
 
 /** Why a named file could not be read, in a few words ("no such file: /a/b.yaml"). */

@@ -12,8 +12,8 @@ import { type PowerTrace, powerAt } from "../thermal/powerTrace.js";
  *   Vds(t) = Vs − Vc(t)                       for Id = 0 (no current: nothing drops across the
  *                                             source resistor, the MOSFET holds the whole gap).
  * Source: P = V·I for a two-terminal element (Hayt, Kemmerly & Durbin, Engineering Circuit
- * Analysis, 8th ed. (2012), ch. 2, from memory); series circuit: the same current flows through
- * every element in series (ch. 3, from memory).
+ * Analysis, 8th ed. (2012), §2.2, section from memory); series circuit: the same current flows
+ * through every element of a single loop (§3.4, section from memory).
  * @param samples the circuit's samples of the event (absolute time, as TimelineEvent.samples)
  * @param trace the MOSFET's power trace of the event (absolute time)
  * @param sourceVoltageV the source (bus) voltage Vs [V]

@@ -220,7 +220,7 @@ export const circuitSchema = z.strictObject({
   discharge: dischargeSchema,
 });
 
-// ---- retry plan (issue 6, read by src/plan for `heatledger retries`; nothing else uses it) ----
+// ---- retry plan (read by src/plan for `heatledger retries`; nothing else uses it) ----
 
 /** One corner of the retry plan's corner set: the circuit and ambient values it changes. */
 const retryCornerSchema = z.strictObject({

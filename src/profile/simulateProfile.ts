@@ -111,7 +111,8 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
  * Temperatures are ambient + rise; each part's verdict compares its peak with its limit
  * (peakVerdict): fail when peak > limit, warn when limit − margin < peak ≤ limit, else pass; the
  * run's verdict is the worst part's.
- * Source: superposition of exact modal responses (src/thermal); verdict rule of our own (src/stress/Verdict.ts).
+ * Source: superposition of exact modal responses (docs/design.md, "Exact integration"); verdict
+ * rule of our own (docs/design.md, "Verdicts"; src/stress/Verdict.ts).
  * Cost O(events × steps per event × parts × modes); memory O(parts × modes).
  * @throws InputError for a circuit value the models reject or a repeat that overruns its period
  */

@@ -1,6 +1,6 @@
 /**
  * The cautions that close every human-readable report and travel with every JSON report (as
- * `cautions`, a list of strings), declared once.
+ * `cautions`, a list of strings; docs/design.md, "Cautions"), declared once.
  */
 export const GENERAL_CAUTION =
   "Caution: these results are only as good as the thermal network, circuit values and duty profile supplied. " +

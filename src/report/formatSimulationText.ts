@@ -44,7 +44,8 @@ export interface SimulationTextHeader {
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
  * verdict (simulationVerdict: the temperature verdict and `ratingStatus`, the stress layer's rating
- * checks), and the cautions at the end. Returns a string; the CLI prints it.
+ * checks), and the cautions (docs/design.md, "Cautions") at the end. Returns a string; the CLI
+ * prints it.
  * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
  * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).

@@ -7,26 +7,38 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
 
 /**
  * The terminal report of `heatledger size`: a table of heat capacities per part (adiabatic bound of
- * the worst event, then the whole-profile inversion), the charging-element answer, the verdict and
- * the cautions. Every number carries its unit in the column heading; no NaN.
- * Cost O(parts).
+ * the worst event, then the whole-profile inversion, its words and headings naming what was scaled:
+ * "whole body × k" or "element C1"), the charging-element answer, the verdict and the cautions
+ * (docs/design.md, "Cautions"). Every number carries its unit in the column heading; no NaN.
+ * Within 100 columns for part ids of up to 18 characters. Cost O(parts).
  */
 export function formatSizingText(report: SizingReport, width = 100): string {
   const out: string[] = [];
-  out.push(`heatledger size: ${report.profileName}`, `profile ${report.file}`, "");
+  out.push(wrapText(`heatledger size: ${report.profileName}`, width), `profile ${report.file}`, "");
   const m = report.material;
+  const whole = report.scope === "whole";
   out.push(
     wrapText(
-      "Heat capacity per part. C1 is the capacity the part's own power meets first (C1 of a ladder or lumped element, 1/Σ(R/tau) of a Foster network). " +
-        "k scales every heat capacity of the part's network at fixed thermal resistances (Foster: tau → k·tau).",
+      "Heat capacity per part. C1 is the element capacity, the one the part's own power meets first (C1 of a ladder or lumped element, " +
+        "the part's source node of a graph, 1/Σ(R/tau) of a Foster network: C1 of its exact Cauer ladder). " +
+        (whole
+          ? "Scaled: the whole body × k, every heat capacity of the part's network at fixed thermal resistances (Foster: tau → k·tau), as for a larger part of the same build. " +
+            "C1 at k is the element's share of that larger body: on the original body it is not enough when k > 1 (--scale element sizes the element alone)."
+          : "Scaled: the element capacity C1 only (a Foster network is taken as its exact Cauer ladder), every other capacity and every thermal resistance as they are."),
       width,
     ),
   );
-  if (m !== undefined) out.push(wrapText(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; value from memory).`, width));
+  if (m !== undefined) {
+    const of = whole ? " The whole body is of several materials, so its answer is given as capacities; --scale element gives the element's mass." : "";
+    out.push(wrapText(`Masses: ${m.name}, c = ${m.specificHeatJPerKgK} J/(kg·K) (${m.source}; value from memory).${of}`, width));
+  }
   out.push(
     "",
-    "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT). One lump of this capacity is",
-    "enough for that event by itself; compare it with the total capacity of a network, not with its first stage C1.",
+    wrapText(
+      "Adiabatic bound: the worst event alone, from ambient, no heat leaving (C = E/ΔT). One lump of this capacity is enough for that event by itself; " +
+        "compare it with the total capacity of a network, not with its first stage C1.",
+      width,
+    ),
   );
   out.push(
     formatTable(
@@ -48,37 +60,50 @@ export function formatSizingText(report: SizingReport, width = 100): string {
       ]),
     ),
   );
-  out.push("Whole profile: the simulation inverted for the smallest k (heat left over from earlier events included)");
   out.push(
-    formatTable(
-      [
-        { heading: "part" },
-        { heading: "now: peak [°C]", align: "right" },
-        { heading: "now: C1 [J/K]", align: "right" },
-        { heading: "k", align: "right" },
-        { heading: "C1 at k [J/K]", align: "right" },
-        ...(m === undefined ? [] : [{ heading: "m at k [g]", align: "right" as const }]),
-        { heading: "peak at k [°C]", align: "right" },
-        { heading: "governed by" },
-      ],
-      report.parts.map((p) => {
-        const inv = p.inversion;
-        return [
-          p.partId,
-          formatNumber(p.presentPeakC),
-          formatNumber(p.presentCapacityJPerK),
-          inv.status === "sized" ? formatNumber(inv.scale) : inv.status === "any" ? "any" : "none",
-          inv.status === "none" ? "none" : formatNumber(inv.capacityJPerK),
-          ...(m === undefined ? [] : [inv.status === "none" ? "none" : grams(inv.massKg)]),
-          formatNumber(inv.peakTemperatureC),
-          p.governingPartId,
-        ];
-      }),
+    wrapText(
+      `Whole profile, ${whole ? "whole body" : "element C1"} × k: the simulation inverted for the smallest k (earlier events' heat included)`,
+      width,
     ),
+  );
+  /** a number of the inversion, or "any" / "none" when it has none */
+  const answer = (p: SizingReport["parts"][number], text: () => string): string => (p.inversion.status === "sized" ? text() : p.inversion.status);
+  out.push(
+    whole
+      ? formatTable(
+          [
+            { heading: "part" },
+            { heading: "peak now [°C]", align: "right" },
+            { heading: "C1 now [J/K]", align: "right" },
+            { heading: "whole body × k", align: "right" },
+            { heading: "C1 at k [J/K]", align: "right" },
+            { heading: "peak at k [°C]", align: "right" },
+          ],
+          report.parts.map((p) => [p.partId, formatNumber(p.presentPeakC), formatNumber(p.presentCapacityJPerK), answer(p, () => formatNumber(p.inversion.scale)), answer(p, () => formatNumber(p.inversion.capacityJPerK)), formatNumber(p.inversion.peakTemperatureC)]),
+        )
+      : formatTable(
+          [
+            { heading: "part" },
+            { heading: "peak now [°C]", align: "right" },
+            { heading: "k (C1 only)", align: "right" },
+            { heading: "element C1 [J/K]", align: "right" },
+            ...(m === undefined ? [] : [{ heading: "element m [g]", align: "right" as const }]),
+            { heading: "peak at k [°C]", align: "right" },
+          ],
+          report.parts.map((p) => [
+            p.partId,
+            formatNumber(p.presentPeakC),
+            answer(p, () => formatNumber(p.inversion.scale)),
+            answer(p, () => formatNumber(p.inversion.capacityJPerK)),
+            ...(m === undefined ? [] : [answer(p, () => grams(p.inversion.massKg))]),
+            formatNumber(p.inversion.peakTemperatureC),
+          ]),
+        ),
   );
   for (const p of report.parts) {
     const worst = p.worstEvent === undefined ? "no event puts energy into it" : `worst event #${p.worstEvent.index} (${p.worstEvent.label}), ${formatNumber(p.worstEvent.energyJ)} J`;
-    const shared = p.sharedWith.length === 0 ? "" : ` Shares its network with ${p.sharedWith.join(", ")}: scaling it scales theirs, so each is held to its own target.`;
+    const scaling = whole ? "scaling the whole body scales theirs" : "only this part's element is scaled";
+    const shared = p.sharedWith.length === 0 ? "" : ` Shares its network with ${p.sharedWith.join(", ")}: ${scaling}, and each is held to its own target.`;
     out.push(wrapText(`${p.partId}: ${p.reason}. ${worst}; target = limit ${formatNumber(p.limitC)} °C less ${formatNumber(p.marginK)} K.${shared}${p.inversion.crossingScale === undefined ? "" : ` k = ${formatNumber(p.inversion.crossingScale)} crosses the target (${p.inversion.simulations} simulations).`}`, width));
   }
   out.push(
@@ -89,7 +114,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
     "",
   );
   const c = report.circuit;
-  out.push("Charging element (healthy power-up from 0 V, the circuit's own load, completion threshold and timeout)");
+  out.push(wrapText("Charging element (healthy power-up from 0 V, the circuit's own load, completion threshold and timeout)", width));
   if (c === undefined) out.push("no circuit in the profile");
   else if (c.knob === undefined) out.push(wrapText(`not applicable: ${c.reason}`, width));
   else {
@@ -98,8 +123,8 @@ export function formatSizingText(report: SizingReport, width = 100): string {
       formatTable(
         [
           { heading: "value" },
-          { heading: `profile [${unit}]`, align: "right" },
-          { heading: "profile charge", align: "right" },
+          { heading: `now [${unit}]`, align: "right" },
+          { heading: "charge now", align: "right" },
           { heading: `${c.knob.direction} [${unit}]`, align: "right" },
           ...(c.currentA === undefined ? [] : [{ heading: "current [A]", align: "right" as const }]),
           { heading: "charge at it", align: "right" },

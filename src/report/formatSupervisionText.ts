@@ -36,7 +36,8 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
  * The text report of `heatledger supervise`: the timeout window with both ends and the margin
  * (or "no safe timeout exists" and why), the early-abort and rise-too-fast check tables with the
  * recommendation, the retry storm counts, the healthy corners, a chart of the healthy envelope and
- * the short-circuit energy, the summary table, the verdict and the cautions.
+ * the short-circuit energy, the summary table, the verdict and the cautions (docs/design.md,
+ * "Cautions").
  * Cost O(corners + checks + chart width).
  */
 export function formatSupervisionText(report: SupervisionReport, width = 100, chart = true): string {

@@ -4,7 +4,7 @@ import { reportCautions } from "./cautions.js";
 import type { EventDigest } from "./EventDigest.js";
 import type { Verdict } from "../stress/Verdict.js";
 
-/** One event of one part in the JSON report. */
+/** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */
 export interface JsonPartEvent {
   readonly index: number;
   readonly kind: string;
@@ -17,7 +17,7 @@ export interface JsonPartEvent {
   readonly busStalled: boolean;
 }
 
-/** The `simulate --json` object. */
+/** The `simulate --json` object (docs/design.md, "The JSON contract", with additions that never rename its fields). */
 export interface SimulationJson {
   /** pass | warn | fail (src/stress/Verdict.ts): here the temperature verdict, the worst part's */
   readonly verdict: Verdict;
@@ -42,10 +42,10 @@ export interface SimulationJson {
 }
 
 /**
- * The machine-readable result of a simulation: `verdict` (pass | warn | fail, the temperature
- * verdict; simulationStressJson adds the rating checks to it), and `parts`, each with id,
- * peakTemperatureC, peakTimeS, limitC, marginK, its own verdict and `events`
- * [{index, kind, startS, energyJ, peakTemperatureC, outcome}].
+ * The machine-readable result of a simulation, as docs/design.md ("The JSON contract") fixes it:
+ * `verdict` (pass | warn | fail: the temperature verdict; simulationStressJson adds the rating
+ * checks to it), and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK, its own
+ * verdict and `events` [{index, kind, startS, energyJ, peakTemperatureC, outcome, busStalled}].
  * Cost O(parts × events listed).
  */
 export function simulationJson(profile: DutyProfile, result: SimulationResult, digest: EventDigest): SimulationJson {

@@ -6,7 +6,7 @@ import { LIFETIME_CAUTION } from "../stress/stressCautions.js";
 import type { Verdict } from "../stress/Verdict.js";
 import { simulationVerdict } from "./simulationVerdict.js";
 
-/** `simulate --json` with the stress layer's findings added. */
+/** `simulate --json` with the stress layer's findings added (the JSON contract's keys unchanged in name). */
 export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
   /** the temperature verdict alone (the primary check), the worst part's: pass | warn | fail */
   readonly temperatureVerdict: Verdict;

@@ -1,13 +1,17 @@
 import type { SizingReport } from "../plan/sizeProfile.js";
 import { reportCautions } from "./cautions.js";
+import { networkToDocument } from "../thermal/formatNetworkFile.js";
 
 /** A number for JSON: non-finite values become null (JSON has no Infinity). */
 const num = (x: number | undefined): number | null | undefined => (x === undefined ? undefined : Number.isFinite(x) ? x : null);
 
 /**
  * The `heatledger size --json` object: verdict (pass | warn | fail), reasons, the material,
- * per part the target, present peak and capacity, worst event, adiabatic bound and inversion
- * (scale k, capacityJPerK, massKg, peakTemperatureC, crossingScale), and the circuit answer.
+ * what was scaled (`scale`: "whole" every heat capacity of the part's network, "element" only its
+ * element capacity C1), per part the target, present peak and element capacity C1, worst event,
+ * adiabatic bound and inversion (scope, scale k, capacityJPerK = the element capacity at k, massKg
+ * of the element for "element" scaling, peakTemperatureC, crossingScale, sizedNetwork: the sized
+ * network as a network file holds it, units on every quantity), and the circuit answer.
  * Every number is SI; Infinity is written as null; `cautions` closes it, as every JSON report.
  * Cost O(parts).
  */
@@ -16,6 +20,7 @@ export function sizingJson(report: SizingReport): object {
     profile: report.profileName,
     file: report.file,
     verdict: report.verdict,
+    scale: report.scope,
     infeasibleReasons: report.infeasibleReasons,
     material: report.material === undefined ? null : { id: report.material.id, specificHeatJPerKgK: report.material.specificHeatJPerKgK, source: report.material.source, provenance: report.material.provenance },
     parts: report.parts.map((p) => ({
@@ -34,12 +39,14 @@ export function sizingJson(report: SizingReport): object {
       adiabatic: p.adiabatic === undefined ? null : { riseK: p.adiabatic.riseK, capacityJPerK: p.adiabatic.capacityJPerK, massKg: p.adiabatic.massKg ?? null },
       inversion: {
         status: p.inversion.status,
+        scope: p.inversion.scope,
         scale: num(p.inversion.scale),
         capacityJPerK: num(p.inversion.capacityJPerK),
         massKg: p.inversion.massKg ?? null,
         peakTemperatureC: num(p.inversion.peakTemperatureC),
         crossingScale: p.inversion.crossingScale ?? null,
         simulations: p.inversion.simulations,
+        sizedNetwork: p.inversion.sizedNetwork === undefined ? null : networkToDocument(p.inversion.sizedNetwork),
       },
     })),
     circuit:

@@ -44,7 +44,7 @@ export function cycleQuantity(load: CycleLoad, quantity: CycleQuantity): number 
   }
 }
 
-/** The interval of one quantity a model was fitted on (inclusive), and where that interval comes from. */
+/** The interval of one quantity a model was fitted on (inclusive: its validity range), and where that interval comes from. */
 export interface FittedInterval {
   readonly min: number;
   readonly max: number;
@@ -57,7 +57,8 @@ export type FittedRange = Readonly<Partial<Record<CycleQuantity, FittedInterval>
 
 /**
  * A cycling-lifetime model: cycles to failure of one temperature cycle, the range of cycles it
- * was fitted on (cycles outside it are still evaluated, and reported as a warning), and warnings
+ * was fitted on (its validity range; cycles outside it are still evaluated, and the damage
+ * report lists them as extrapolated, see MinerAccumulator), and warnings
  * about fixed parameters (a current or voltage outside the fitted range, a recalled parameter
  * set).
  */
@@ -75,5 +76,8 @@ export function mergeFittedRange(defaults: FittedRange, user: FittedRange | unde
   return { ...defaults, ...(user ?? {}) };
 }
 
-/** Offset from degrees Celsius to kelvin: T[K] = T[°C] + 273.15 (SI brochure, 9th ed., §2.3.1). */
+/**
+ * Offset from degrees Celsius to kelvin: T[K] = T[°C] + 273.15 (SI brochure, 9th ed. (BIPM 2019),
+ * §2.3.1, section from memory).
+ */
 export const CELSIUS_TO_KELVIN = 273.15;

@@ -1,6 +1,6 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { DEFAULT_TOP_CYCLES, MinerAccumulator, type MinerDamage } from "./minerDamage.js";
-import { type PulseEnergyCheck, type RatingStatus, checkPulseEnergy } from "./pulseEnergyRating.js";
+import { type PulseEnergyCheck, type PulseEnergyDerating, type RatingStatus, checkPulseEnergy, pulseEnergyDeratingFactor } from "./pulseEnergyRating.js";
 import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
 import type { StressConfig, StressPartKind } from "./resolveStressConfig.js";
 import { type OperatingPoint, type SoaCheck, checkSoa, soaDeratingFactor } from "./soaTable.js";
@@ -22,7 +22,7 @@ export interface StressEvent {
   readonly peakPowerW: number;
   /** MOSFET operating points (time, Vds, Id) during the event; needed for the SOA check */
   readonly operatingPoints?: readonly OperatingPoint[];
-  /** the part's temperature at the event start [°C]; used to derate the SOA when the config says how */
+  /** the part's temperature at the event start [°C]; derates the pulse-energy rating and the SOA (when the config says how) */
   readonly startTemperatureC?: number;
 }
 
@@ -54,6 +54,8 @@ export interface StressOptions {
 export interface EventRatingCheck {
   readonly index: number;
   readonly startS: number;
+  /** the part's temperature at the event start [°C], the ratings were derated at; undefined when not known */
+  readonly startTemperatureC: number | undefined;
   /** present when the part has a pulse-energy table */
   readonly pulseEnergy: PulseEnergyCheck | undefined;
   /** present when the part has an SOA table and the event has operating points */
@@ -94,6 +96,18 @@ export interface StressReport {
   /** stress-specific cautions for human-readable reports (lifetime estimate, linear-mode MOSFET); the
    *  general caution closes the whole report (src/report/cautions.ts) */
   readonly cautions: readonly string[];
+}
+
+/** The note that says how (or that not) a part's pulse-energy table was derated for a hot start. */
+function pulseEnergyDeratingNote(d: PulseEnergyDerating | undefined): string {
+  if (d === undefined)
+    return "Pulse-energy rating not derated for temperature: no maximum temperature is known (give ratings.pulseEnergyDerating.maxTemperature, or check through a profile, whose part limit is used).";
+  const ref = `${d.referenceC} °C${d.referenceFrom === "default" ? " (the default; ratings.pulseEnergyDerating.reference)" : ""}`;
+  const max = `${d.maxTemperatureC} °C${d.maxTemperatureFrom === "part limit" ? " (the part's limit; ratings.pulseEnergyDerating.maxTemperature)" : ""}`;
+  return (
+    `Pulse-energy rating derated at each event's start temperature: E_allowed = E_rated·(T_max − T_start)/(T_max − T_ref), ` +
+    `at most E_rated, with T_ref = ${ref} and T_max = ${max}. Common practice for resistor pulse ratings.`
+  );
 }
 
 const STATUS_ORDER: Record<RatingStatus, number> = { pass: 0, "outside-table": 1, fail: 2 };
@@ -149,11 +163,11 @@ export class StressAssessment {
         if (cycle.maxC > this.highestC) this.highestC = cycle.maxC;
         if (cycle.minC < this.lowestC) this.lowestC = cycle.minC;
       },
-      { mode: options.mode ?? "repeating" },
+      { mode: options.mode ?? "repeating", levelBandK: config.cycleHysteresisK },
     );
-    this.filter = new TurningPointFilter((timeS, value) => {
+    this.filter = new TurningPointFilter((timeS, value, leaveS) => {
       this.turningPoints++;
-      this.counter.push(timeS, value);
+      this.counter.push(timeS, value, leaveS);
     }, config.cycleHysteresisK);
   }
 
@@ -170,11 +184,14 @@ export class StressAssessment {
     const span = this.lastTimeS - this.firstTimeS;
     const periodS = this.options.periodS ?? (span > 0 ? span : undefined);
     this.counter.finish(periodS);
-    const { pulseEnergy, soa, soaDerating } = this.config;
+    const { pulseEnergy, pulseEnergyDerating, soa, soaDerating } = this.config;
     const kind = this.options.partKind ?? "other";
     const checks: EventRatingCheck[] = events.map((e, i) => {
       const field = `events[${i}]`;
-      const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, e.energyJ, e.peakPowerW, field);
+      const energy =
+        pulseEnergy === undefined
+          ? undefined
+          : checkPulseEnergy(pulseEnergy, e.energyJ, e.peakPowerW, field, pulseEnergyDerating === undefined || e.startTemperatureC === undefined ? 1 : pulseEnergyDeratingFactor(pulseEnergyDerating, e.startTemperatureC));
       const soaCheck =
         soa === undefined || e.operatingPoints === undefined || e.operatingPoints.length === 0 || !(e.durationS > 0)
           ? undefined
@@ -186,12 +203,13 @@ export class StressAssessment {
               soaDerating === undefined || e.startTemperatureC === undefined ? 1 : soaDeratingFactor(soaDerating, e.startTemperatureC),
             );
       const status = worseStatus(energy?.status ?? "pass", soaCheck?.status ?? "pass");
-      return { index: e.index, startS: e.startS, pulseEnergy: energy, soa: soaCheck, status };
+      return { index: e.index, startS: e.startS, startTemperatureC: e.startTemperatureC, pulseEnergy: energy, soa: soaCheck, status };
     });
     const notes: string[] = [];
-    if (pulseEnergy !== undefined)
+    if (pulseEnergy !== undefined) {
       notes.push("Pulse-energy check: each event is read at its equivalent rectangular duration E/P_peak (same energy, same peak power; common practice).");
-    else notes.push("No pulse-energy rating table given: events are not checked against a single-pulse rating.");
+      notes.push(pulseEnergyDeratingNote(pulseEnergyDerating));
+    } else notes.push("No pulse-energy rating table given: events are not checked against a single-pulse rating.");
     if (soa !== undefined)
       notes.push("SOA check: every operating point is held to the boundary for the whole event duration (conservative; common practice).");
     else if (kind === "mosfet") notes.push("No SOA table given: operating points are not checked against a safe operating area.");

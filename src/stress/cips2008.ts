@@ -47,7 +47,12 @@ export const CIPS2008_PUBLISHED: Cips2008Coefficients = {
 
 const ORIGIN = "Bayerer et al. 2008, from memory";
 
-/** Cycle ranges the CIPS 2008 data covered: ΔT 45-150 K, T_min 20-120 °C, t_on 1-15 s (from memory). */
+/**
+ * Validity range of CIPS 2008 by cycle quantity, the cycles its test data covered: ΔT 45-150 K,
+ * T_min 20-120 °C, heating time t_on 1-15 s (Bayerer et al. 2008, from memory). Cycles outside
+ * are still evaluated and reported as extrapolated; a short pulse (t_on well under 1 s) is the
+ * common case in pre-charge parts, where t_on^−0.463 is extrapolated.
+ */
 export const CIPS2008_FITTED: FittedRange = {
   range: { min: 45, max: 150, origin: ORIGIN },
   min: { min: 20, max: 120, origin: ORIGIN },

@@ -1,8 +1,14 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { CELSIUS_TO_KELVIN, type CycleLoad, type FittedRange, type LifetimeModel, mergeFittedRange } from "./LifetimeModel.js";
 
-/** Molar gas constant R [J/(mol·K)]. Source: CODATA 2018 (exact since the 2019 SI: N_A·k). */
-export const MOLAR_GAS_CONSTANT = 8.314462618;
+/**
+ * The gas constant R [J/(mol·K)] of the LESIT formula: 8.314, the value the published fit was
+ * made with (Held et al. 1997, from memory). A and Q were fitted together with it, so the
+ * published set gives the paper's lifetimes only with this R. The exact value of the 2019 SI
+ * (CODATA 2018, N_A·k = 8.314462618) is 5.6e-5 larger: Q/(R·T_m) ≈ 26.6 at 80 °C would fall by
+ * 1.5e-3 and the cycles to failure by 0.15 %, a shift the fit does not contain.
+ */
+export const LESIT_GAS_CONSTANT = 8.314;
 
 /** LESIT parameters: N_f = A·ΔT^α·exp(Q/(R·T_m)). */
 export interface LesitParameters {
@@ -16,7 +22,7 @@ export interface LesitParameters {
 }
 
 /**
- * The LESIT parameter set: A = 640, α = −5, Q = 7.8e4 J/mol (with R = 8.314 J/(mol·K)).
+ * The LESIT parameter set: A = 640, α = −5, Q = 7.8e4 J/mol (with R = {@link LESIT_GAS_CONSTANT}).
  * Source: Held, Jacob, Nicoletti, Scacco, Poech, "Fast power cycling test for IGBT modules in
  * traction application", Proc. PEDS 1997, pp. 425-430 (from memory). Fitted on IGBT modules with
  * aluminium bond wires on Al2O3 / AlN substrates (bond-wire lift-off).
@@ -24,9 +30,9 @@ export interface LesitParameters {
 export const LESIT_PUBLISHED: LesitParameters = { coefficient: 640, rangeExponent: -5, activationEnergyJPerMol: 7.8e4 };
 
 /**
- * Cycles the LESIT tests covered, as we enforce them: ΔT 30-80 K and mean temperature
- * 60-120 °C (from memory, Held et
- * al. 1997; give `fitted` to override).
+ * Validity range of the LESIT fit: the cycles its tests covered, ΔT 30-80 K and mean temperature
+ * 60-120 °C (Held et al. 1997, from memory; give `fitted` to override). The model has no
+ * heating-time term and we recall no heating-time range from the source, so none is checked.
  */
 export const LESIT_FITTED: FittedRange = {
   range: { min: 30, max: 80, origin: "Held et al. 1997, from memory" },
@@ -35,14 +41,15 @@ export const LESIT_FITTED: FittedRange = {
 
 /**
  * LESIT cycles to failure:
- *   N_f = A·ΔT^α·exp(Q/(R·T_m)),  ΔT [K], T_m = mean temperature [K] = mean [°C] + 273.15
+ *   N_f = A·ΔT^α·exp(Q/(R·T_m)),  ΔT [K], T_m = mean temperature [K] = mean [°C] + 273.15,
+ *   R = {@link LESIT_GAS_CONSTANT} = 8.314 J/(mol·K)
  * Source: Held et al. (1997), as {@link LESIT_PUBLISHED}, equation of the lifetime fit (from
  * memory). Validity: {@link LESIT_FITTED}. Cost O(1).
  */
 export function lesitCycles(p: LesitParameters, load: Pick<CycleLoad, "rangeK" | "meanC">): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;
   const tmK = load.meanC + CELSIUS_TO_KELVIN;
-  return p.coefficient * Math.pow(load.rangeK, p.rangeExponent) * Math.exp(p.activationEnergyJPerMol / (MOLAR_GAS_CONSTANT * tmK));
+  return p.coefficient * Math.pow(load.rangeK, p.rangeExponent) * Math.exp(p.activationEnergyJPerMol / (LESIT_GAS_CONSTANT * tmK));
 }
 
 /**

@@ -1,5 +1,5 @@
 import { describeFound, inputError } from "../errors/InputError.js";
-import { CYCLE_QUANTITY_UNITS, CYCLE_QUANTITY_WORDS, type CycleQuantity, type FittedInterval, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
+import { CYCLE_QUANTITY_UNITS, type CycleQuantity, type FittedInterval, type LifetimeModel, cycleQuantity } from "./LifetimeModel.js";
 import type { RainflowCycle } from "./rainflowCounter.js";
 
 /** Number of most damaging cycles a damage result lists, unless the caller asks otherwise. */
@@ -16,6 +16,26 @@ export interface DamagingCycle {
   readonly share: number;
 }
 
+/**
+ * Cycles whose value of one quantity lies outside the lifetime model's validity range (the
+ * range its parameters were fitted on): their damage is an extrapolation of the model.
+ */
+export interface ExtrapolatedQuantity {
+  readonly quantity: CycleQuantity;
+  /** unit of `range` and `found` ("K", "°C", "s", "Hz") */
+  readonly unit: string;
+  /** the validity range [lowest, highest] */
+  readonly range: readonly [number, number];
+  /** where the range comes from ("Bayerer et al. 2008, from memory", "given in the profile") */
+  readonly origin: string;
+  /** lowest and highest value found outside the range */
+  readonly found: readonly [number, number];
+  /** counted cycles outside (full cycles count 1, half cycles 0.5) */
+  readonly cycles: number;
+  /** their share of the damage per repetition, 0..1 */
+  readonly damageShare: number;
+}
+
 /** Miner's-rule damage of one repetition of a history, and what it projects to. */
 export interface MinerDamage {
   readonly model: string;
@@ -29,7 +49,9 @@ export interface MinerDamage {
   readonly cyclesCounted: number;
   /** the most damaging cycles, worst first */
   readonly topCycles: readonly DamagingCycle[];
-  /** cycles outside the fitted range, parameter cautions: returned, never printed here */
+  /** per quantity, the cycles outside the model's validity range (none: every cycle inside it) */
+  readonly extrapolated: readonly ExtrapolatedQuantity[];
+  /** cautions about the model's parameters, and a model with no validity range to check against */
   readonly warnings: readonly string[];
 }
 
@@ -48,8 +70,11 @@ interface OutsideTally {
  * lifetime model gives N_f,i cycles to failure uses the fraction c_i/N_f,i of the life, and the
  * fractions add:
  *   D = Σ c_i / N_f,i;  end of life at D = 1, so 1/D repetitions of the history.
- * Every cycle is checked against the model's fitted range; cycles outside are still evaluated
- * and reported as a warning with their count and their share of the damage. The sum is
+ * Every cycle is checked against the model's validity range (`fitted`, by quantity); cycles
+ * outside are still evaluated and reported in `extrapolated`, per quantity, with the values
+ * found, their count and their share of the damage. A model with no validity range at all
+ * (Coffin-Manson or Norris-Landzberg without `fittedRange`) gets a warning that its cycles
+ * could not be checked. The sum is
  * compensated (Neumaier), so millions of tiny contributions do not lose precision.
  *
  * Source: Miner, "Cumulative damage in fatigue", J. Appl. Mech. 12 (1945) A159-A164 (linear
@@ -123,15 +148,22 @@ export class MinerAccumulator {
     const d = this.damage;
     const repetitionsToEndOfLife = d > 0 ? 1 / d : Number.POSITIVE_INFINITY;
     const warnings = [...this.model.parameterWarnings];
-    for (const [quantity, tally] of this.outside) {
+    if (this.checks.length === 0)
+      warnings.push(`${this.model.name}: no validity range, published or given (lifetime.fittedRange), so the cycles cannot be checked against one`);
+    const extrapolated: ExtrapolatedQuantity[] = [];
+    for (const { quantity } of this.checks) {
+      const tally = this.outside.get(quantity);
+      if (tally === undefined) continue;
       const interval: FittedInterval = this.model.fitted[quantity]!;
-      const unit = CYCLE_QUANTITY_UNITS[quantity];
-      const share = d > 0 ? (100 * tally.damage) / d : 0;
-      warnings.push(
-        `${this.model.name}: ${tally.count} of ${this.counted} counted cycles have a ${CYCLE_QUANTITY_WORDS[quantity]} outside the fitted ` +
-          `${interval.min}-${interval.max} ${unit} (found ${round(tally.low)}-${round(tally.high)} ${unit}, ${interval.origin}); ` +
-          `they carry ${share.toFixed(1)} % of the damage, extrapolated`,
-      );
+      extrapolated.push({
+        quantity,
+        unit: CYCLE_QUANTITY_UNITS[quantity],
+        range: [interval.min, interval.max],
+        origin: interval.origin,
+        found: [tally.low, tally.high],
+        cycles: tally.count,
+        damageShare: d > 0 ? tally.damage / d : 0,
+      });
     }
     return {
       model: this.model.name,
@@ -140,11 +172,8 @@ export class MinerAccumulator {
       yearsToEndOfLife: repetitionsPerYear === undefined ? undefined : repetitionsToEndOfLife / repetitionsPerYear,
       cyclesCounted: this.counted,
       topCycles: this.worst.map((w) => ({ ...w, share: d > 0 ? w.damage / d : 0 })),
+      extrapolated,
       warnings,
     };
   }
-}
-
-function round(x: number): string {
-  return Number.isFinite(x) ? String(Number(x.toPrecision(4))) : String(x);
 }

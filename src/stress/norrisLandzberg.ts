@@ -34,7 +34,10 @@ export const NORRIS_LANDZBERG_SNPB = { exponent: 1.9, frequencyExponent: 1 / 3, 
  * with f = 1/(cycle duration) [Hz] (f_ref for a cycle of zero duration: no frequency credit),
  * T_max in K. Source: Norris and Landzberg (1969), as
  * {@link NORRIS_LANDZBERG_SNPB} (the acceleration-factor equation, from memory).
- * Validity: the user's fitted ranges, if given. Cost O(1).
+ * Validity: no published range is enforced (the test ranges behind the solder exponents are not
+ * recalled reliably, and the reference cycle is the user's); the ranges given in `fittedRange`
+ * are checked per cycle, and without them the damage report says the cycles could not be
+ * checked. Cost O(1).
  */
 export function norrisLandzbergCycles(p: NorrisLandzbergParameters, load: CycleLoad): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;

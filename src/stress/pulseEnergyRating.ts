@@ -1,5 +1,6 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { equivalentPulseDurationS } from "./equivalentPulseDuration.js";
+import { temperatureHeadroomFactor } from "./temperatureHeadroomFactor.js";
 
 /** One row of a single-pulse energy rating table: a rectangular pulse of this duration may carry this energy. */
 export interface PulseEnergyPoint {
@@ -59,7 +60,8 @@ export function validatePulseEnergyTable(table: readonly PulseEnergyPoint[], fie
  * which side): ratings are not extrapolated, because below the shortest row the curve flattens
  * toward the adiabatic limit and above the longest it bends toward steady state, neither of
  * which a straight line on log-log axes follows. Source: log-log interpolation of pulse ratings
- * is common practice (rating curves are drawn on log-log axes).
+ * is common practice: rating curves are drawn on log-log axes, where they run as near-straight
+ * lines between the points a maker gives (a power law E ∝ t^a between rows).
  * Cost O(log rows). Assumes a table that passed {@link validatePulseEnergyTable}.
  */
 export function interpolatePulseEnergy(table: readonly PulseEnergyPoint[], durationS: number): PulseEnergyLookup {
@@ -82,6 +84,39 @@ export function interpolatePulseEnergy(table: readonly PulseEnergyPoint[], durat
   return { energyJ: a.energyJ * Math.exp(f * Math.log(b.energyJ / a.energyJ)), position: "in-table" };
 }
 
+/**
+ * Defaults of the single-pulse energy derating, declared once (read by the profile resolver, the
+ * report notes and the docs): a table is taken to state pulses that start from 25 °C unless the
+ * profile says otherwise (`ratings.pulseEnergyDerating.reference`), the temperature single-pulse
+ * ratings are commonly stated from (common practice). The temperature at which nothing is left
+ * defaults to the part's own limit (`limits.maxTemperature`), not to a constant.
+ */
+export const PULSE_ENERGY_DERATING_DEFAULTS = { referenceC: 25 } as const;
+
+/** How a single-pulse energy table is derated for a part that starts an event hot. */
+export interface PulseEnergyDerating {
+  /** temperature the table's pulses start from, T_ref [°C] */
+  readonly referenceC: number;
+  /** temperature at which no energy is left, T_max [°C] (> T_ref) */
+  readonly maxTemperatureC: number;
+  /** where T_ref comes from: the profile, or {@link PULSE_ENERGY_DERATING_DEFAULTS} */
+  readonly referenceFrom: "profile" | "default";
+  /** where T_max comes from: the profile's rating key, or the part's temperature limit */
+  readonly maxTemperatureFrom: "profile" | "part limit";
+}
+
+/**
+ * Derating factor of a single-pulse energy rating for a part that starts an event at T_start [°C]:
+ *   E_allowed = E_rated·k,  k = (T_max − T_start) / (T_max − T_ref), capped to [0, 1]
+ * A rating table gives the energy that takes the part from T_ref to its maximum; a part that is
+ * already hot has only the headroom T_max − T_start left ({@link temperatureHeadroomFactor}).
+ * k = 0 at or above T_max: no energy is allowed. Source: common practice for resistor pulse
+ * ratings. Cost O(1).
+ */
+export function pulseEnergyDeratingFactor(derating: PulseEnergyDerating, startTemperatureC: number): number {
+  return temperatureHeadroomFactor(derating.referenceC, derating.maxTemperatureC, startTemperatureC);
+}
+
 /** Outcome of a rating check: within the rating, past it, or not covered by the table. */
 export type RatingStatus = "pass" | "fail" | "outside-table";
 
@@ -92,9 +127,13 @@ export interface PulseEnergyCheck {
   readonly energyJ: number;
   /** equivalent rectangular duration E/P_peak [s] */
   readonly equivalentDurationS: number;
-  /** rated energy at that duration [J], undefined outside the table */
+  /** rated energy at that duration, as the table states it (from its reference temperature) [J]; undefined outside the table */
   readonly ratedEnergyJ: number | undefined;
-  /** energy / rated energy (> 1 fails), undefined outside the table */
+  /** factor the rated energy was multiplied by for the event's start temperature (1: not derated) */
+  readonly deratingFactor: number;
+  /** the derated allowance ratedEnergyJ·deratingFactor [J]; undefined outside the table */
+  readonly allowedEnergyJ: number | undefined;
+  /** energy / allowance (> 1 fails; Infinity when nothing is allowed), undefined outside the table */
   readonly utilisation: number | undefined;
   readonly position: TablePosition;
 }
@@ -102,17 +141,22 @@ export interface PulseEnergyCheck {
 /**
  * Check one event against a single-pulse energy rating: the event's equivalent rectangular
  * duration t_eq = E/P_peak ({@link equivalentPulseDurationS}) selects the rated energy
- * ({@link interpolatePulseEnergy}); pass when E ≤ E_rated(t_eq), fail above it, "outside-table"
- * when t_eq lies outside the table. An event with no energy passes trivially.
+ * ({@link interpolatePulseEnergy}), the derating factor for the part's start temperature
+ * ({@link pulseEnergyDeratingFactor}) scales it to the allowance; pass when
+ * E ≤ E_rated(t_eq)·k, fail above it (always, with energy, when k = 0), "outside-table" when t_eq
+ * lies outside the table. An event with no energy passes trivially.
  * Cost O(log rows).
+ * @param deratingFactor k in [0, 1] (1: not derated)
  * @throws InputError for a negative energy or a non-positive peak power with positive energy
  */
-export function checkPulseEnergy(table: readonly PulseEnergyPoint[], energyJ: number, peakPowerW: number, field = "event"): PulseEnergyCheck {
-  if (energyJ === 0) return { status: "pass", energyJ, equivalentDurationS: 0, ratedEnergyJ: undefined, utilisation: 0, position: "in-table" };
+export function checkPulseEnergy(table: readonly PulseEnergyPoint[], energyJ: number, peakPowerW: number, field = "event", deratingFactor = 1): PulseEnergyCheck {
+  const base = { energyJ, deratingFactor };
+  if (energyJ === 0) return { ...base, status: "pass", equivalentDurationS: 0, ratedEnergyJ: undefined, allowedEnergyJ: undefined, utilisation: 0, position: "in-table" };
   const equivalentDurationS = equivalentPulseDurationS(energyJ, peakPowerW, field);
   const lookup = interpolatePulseEnergy(table, equivalentDurationS);
   if (lookup.energyJ === undefined)
-    return { status: "outside-table", energyJ, equivalentDurationS, ratedEnergyJ: undefined, utilisation: undefined, position: lookup.position };
-  const utilisation = energyJ / lookup.energyJ;
-  return { status: utilisation > 1 ? "fail" : "pass", energyJ, equivalentDurationS, ratedEnergyJ: lookup.energyJ, utilisation, position: "in-table" };
+    return { ...base, status: "outside-table", equivalentDurationS, ratedEnergyJ: undefined, allowedEnergyJ: undefined, utilisation: undefined, position: lookup.position };
+  const allowedEnergyJ = lookup.energyJ * deratingFactor;
+  const utilisation = allowedEnergyJ > 0 ? energyJ / allowedEnergyJ : Number.POSITIVE_INFINITY;
+  return { ...base, status: utilisation > 1 ? "fail" : "pass", equivalentDurationS, ratedEnergyJ: lookup.energyJ, allowedEnergyJ, utilisation, position: "in-table" };
 }

@@ -13,7 +13,7 @@ export interface RainflowCycle {
   readonly maxC: number;
   /** 1 for a full cycle, 0.5 for a half cycle */
   readonly count: 0.5 | 1;
-  /** time spent rising from min to max within the cycle [s] (see {@link RainflowCounter}) */
+  /** heating time: from the moment the history leaves the cycle's low level to its peak [s] (see {@link RainflowCounter}) */
   readonly heatingTimeS: number;
   /** duration of the closed cycle [s]; for a half cycle, twice its one-way time */
   readonly durationS: number;
@@ -34,6 +34,12 @@ export interface RainflowOptions {
   readonly mode?: RainflowMode;
   /** period of a repeating history [s]; default: last time − first time pushed */
   readonly periodS?: number;
+  /**
+   * band [K] within which the history counts as still at a point's level (the turning-point
+   * hysteresis the points were filtered with); default 0, the level itself. It moves a point's
+   * leave time later when points counted away after it came back within the band of its value.
+   */
+  readonly levelBandK?: number;
 }
 
 /**
@@ -56,12 +62,29 @@ export interface RainflowOptions {
  * analysis", Int. J. Fatigue 16(4), 1994, §3 (four-point method and residue), from memory; the
  * test suite checks the equivalence against the literal rotated count.
  *
- * Heating time and duration: the turning points carry times. A cycle whose first range rises
- * (valley then peak) heats for t_peak − t_valley; one that falls first heats on its closing
- * range until it regains its starting level, taken by linear interpolation on that range. The
- * cycle's duration adds that return time to its first range. Half cycles: heating time = their
- * one-way time, duration = twice it. (Common practice; turning points alone carry no finer
- * timing.)
+ * Heating time and duration. Each turning point carries the time the history reached it and
+ * the time it left it (`leaveS`, the last time within the hysteresis band of the extreme; see
+ * TurningPointFilter). A range from point p to point q travels from p's leave time to q's
+ * reach time. The heating time of a cycle is the time from the LAST moment the history is at
+ * its low level (within the hysteresis band) before the rise, to the peak:
+ * - a cycle whose first range rises (valley a, peak b): t_reach(b) − t_leave(a);
+ * - a cycle that falls first (peak a, valley b, closed by c): the history leaves b at t_leave(b)
+ *   and regains a's level on the closing range b→c, taken by linear interpolation on that
+ *   travel: (t_reach(c) − t_leave(b))·|a − b|/|c − b|.
+ * So a 0.3 s pulse after hours at ambient heats for 0.3 s, not for the hours spent at ambient
+ * (the time the power-cycling tests that lifetime models are fitted on call the heating or
+ * "on" time: the current flows and the junction rises from its low to its high temperature).
+ * The rule is common practice: no published source we can name states it for counted cycles.
+ * The cycle's duration runs from the time it first reached its starting point to the time it
+ * regains that level: t_reach(b) − t_reach(a) + (t_leave(b) − t_reach(b)) + the interpolated
+ * return on the closing travel. Half cycles: heating time = their one-way travel time
+ * t_reach(q) − t_leave(p), duration = twice it. (Turning points alone carry no finer timing.)
+ * Points counted away between a stack point and the next one (an inner cycle, or a point that
+ * did not reverse) belong to the travel between them; when such a point lies within
+ * `levelBandK` of the earlier stack point, the history was back at that level then, so the
+ * stack point's leave time moves to the removed point's leave time. Without this, a cycle
+ * closed around consumed inner cycles (a daily pulse counted against the history's largest
+ * peak, days later) would heat from the first day.
  *
  * Cost O(1) amortised per point; memory O(stack).
  * @throws InputError `not-finite` for non-finite points, `bad-trace` for points out of time order,
@@ -71,8 +94,10 @@ export class RainflowCounter {
   private readonly onCycle: (cycle: RainflowCycle) => void;
   private readonly mode: RainflowMode;
   private readonly periodS: number | undefined;
+  private readonly levelBandK: number;
   private values = new Float64Array(64);
   private times = new Float64Array(64);
+  private leaves = new Float64Array(64);
   private size = 0;
   private closed = false;
   private firstTimeS = Number.NaN;
@@ -90,6 +115,9 @@ export class RainflowCounter {
     if (options.periodS !== undefined && !(options.periodS > 0 && Number.isFinite(options.periodS)))
       throw inputError("out-of-range", "periodS", "a period > 0 s", describeFound(options.periodS));
     this.periodS = options.periodS;
+    const band = options.levelBandK ?? 0;
+    if (!(band >= 0) || !Number.isFinite(band)) throw inputError("out-of-range", "levelBandK", "a temperature difference ≥ 0 K", describeFound(band));
+    this.levelBandK = band;
   }
 
   /** Largest number of points the stack ever held: the memory bound actually used. */
@@ -99,28 +127,37 @@ export class RainflowCounter {
 
   /** The points still open (the residue), oldest first. */
   get residue(): TurningPoint[] {
-    return Array.from({ length: this.size }, (_, i) => ({ timeS: this.times[i]!, value: this.values[i]! }));
+    return Array.from({ length: this.size }, (_, i) => ({ timeS: this.times[i]!, value: this.values[i]!, leaveS: this.leaves[i]! }));
   }
 
-  /** Push the next point of the history (time [s], value [°C]). */
-  push(timeS: number, value: number): void {
+  /**
+   * Push the next point of the history: the time it was reached [s], its value [°C] and the time
+   * the history left it [s] (≥ timeS; default timeS, a point left at once).
+   */
+  push(timeS: number, value: number, leaveS: number = timeS): void {
     if (this.finished) throw inputError("bad-trace", "history", "no points after the end of the history", `${timeS} s`);
-    if (!Number.isFinite(timeS) || !Number.isFinite(value))
+    if (!Number.isFinite(timeS) || !Number.isFinite(value) || !Number.isFinite(leaveS))
       throw inputError("not-finite", "history", "finite times and temperatures", `(${describeFound(timeS)}, ${describeFound(value)})`);
     if (timeS < this.lastTimeS) throw inputError("bad-trace", "history", "points in time order", `${timeS} s after ${this.lastTimeS} s`);
+    if (leaveS < timeS) throw inputError("bad-trace", "history", "a point left no earlier than it was reached", `left at ${leaveS} s, reached at ${timeS} s`);
     if (Number.isNaN(this.firstTimeS)) this.firstTimeS = timeS;
-    this.lastTimeS = timeS;
-    this.add(timeS, value);
+    this.lastTimeS = leaveS;
+    this.add(timeS, value, leaveS);
   }
 
-  private add(timeS: number, value: number): void {
+  private add(timeS: number, value: number, leaveS: number): void {
     let n = this.size;
     const v = this.values;
     if (n >= 1) {
       const last = v[n - 1]!;
-      if (value === last) return;
+      if (value === last) {
+        // the history stays at the level: it leaves it later
+        this.leaves[n - 1] = leaveS;
+        return;
+      }
       if (n >= 2 && (last - v[n - 2]!) * (value - last) > 0) {
         // the previous top did not reverse: the new point extends its range
+        this.absorb(n - 2, n - 1);
         n--;
         this.size = n;
       }
@@ -128,6 +165,7 @@ export class RainflowCounter {
     if (n === v.length) this.grow();
     this.values[n] = value;
     this.times[n] = timeS;
+    this.leaves[n] = leaveS;
     this.size = n + 1;
     if (this.size > this.maxSize) this.maxSize = this.size;
     this.extract();
@@ -138,13 +176,17 @@ export class RainflowCounter {
     values.set(this.values);
     const times = new Float64Array(this.times.length * 2);
     times.set(this.times);
+    const leaves = new Float64Array(this.leaves.length * 2);
+    leaves.set(this.leaves);
     this.values = values;
     this.times = times;
+    this.leaves = leaves;
   }
 
   private extract(): void {
     const v = this.values;
     const t = this.times;
+    const l = this.leaves;
     for (;;) {
       const n = this.size;
       if (n < 3) return;
@@ -157,6 +199,7 @@ export class RainflowCounter {
           this.full(n - 3);
           v[0] = v[2]!;
           t[0] = t[2]!;
+          l[0] = l[2]!;
           this.size = 1;
           continue;
         }
@@ -165,30 +208,44 @@ export class RainflowCounter {
         this.half(0);
         v[0] = v[1]!;
         t[0] = t[1]!;
+        l[0] = l[1]!;
         v[1] = v[2]!;
         t[1] = t[2]!;
+        l[1] = l[2]!;
         this.size = 2;
         continue;
       }
       const z = Math.abs(v[n - 3]! - v[n - 4]!);
       if (z < y) return;
       this.full(n - 3);
+      this.absorb(n - 4, n - 3);
+      this.absorb(n - 4, n - 2);
       v[n - 3] = v[n - 1]!;
       t[n - 3] = t[n - 1]!;
+      l[n - 3] = l[n - 1]!;
       this.size = n - 2;
     }
+  }
+
+  /** Point `removed` is counted away after stack point `kept`: if it is within the level band of `kept`, the history was still at that level when it left it. */
+  private absorb(kept: number, removed: number): void {
+    if (Math.abs(this.values[removed]! - this.values[kept]!) <= this.levelBandK && this.leaves[removed]! > this.leaves[kept]!)
+      this.leaves[kept] = this.leaves[removed]!;
   }
 
   /** Count the range from point i to i+1 as one cycle, closed by point i+2. */
   private full(i: number): void {
     const v = this.values;
     const t = this.times;
+    const l = this.leaves;
     const a = v[i]!;
     const b = v[i + 1]!;
     const y = Math.abs(b - a);
     const x = Math.abs(v[i + 2]! - b);
+    // reach a → reach b, then the stay at b, then back to a's level on the travel from b to the next point
     const firstS = t[i + 1]! - t[i]!;
-    const returnS = (t[i + 2]! - t[i + 1]!) * (x > 0 ? y / x : 1);
+    const stayS = l[i + 1]! - t[i + 1]!;
+    const returnS = (t[i + 2]! - l[i + 1]!) * (x > 0 ? y / x : 1);
     const minC = Math.min(a, b);
     const maxC = Math.max(a, b);
     this.onCycle({
@@ -197,8 +254,8 @@ export class RainflowCounter {
       minC,
       maxC,
       count: 1,
-      heatingTimeS: b > a ? firstS : returnS,
-      durationS: firstS + returnS,
+      heatingTimeS: b > a ? t[i + 1]! - l[i]! : returnS,
+      durationS: firstS + stayS + returnS,
       startS: t[i]!,
     });
   }
@@ -207,7 +264,7 @@ export class RainflowCounter {
   private half(i: number): void {
     const a = this.values[i]!;
     const b = this.values[i + 1]!;
-    const oneWayS = this.times[i + 1]! - this.times[i]!;
+    const oneWayS = this.times[i + 1]! - this.leaves[i]!;
     const minC = Math.min(a, b);
     const maxC = Math.max(a, b);
     this.onCycle({
@@ -249,9 +306,13 @@ export class RainflowCounter {
     for (let i = 1; i < residue.length; i++) if (residue[i]!.value > residue[top]!.value) top = i;
     this.size = 0;
     this.closed = true;
-    for (let i = top; i < residue.length; i++) this.add(residue[i]!.timeS, residue[i]!.value);
+    for (let i = top; i < residue.length; i++) this.add(residue[i]!.timeS, residue[i]!.value, residue[i]!.leaveS!);
     // shifted into the next period; never before the history's end (first + (last − first) can round below last)
-    for (let i = 0; i <= top; i++) this.add(Math.max(residue[i]!.timeS + periodS, this.lastTimeS), residue[i]!.value);
+    for (let i = 0; i <= top; i++) {
+      const p = residue[i]!;
+      const timeS = Math.max(p.timeS + periodS, this.lastTimeS);
+      this.add(timeS, p.value, Math.max(p.leaveS! + periodS, timeS));
+    }
   }
 }
 
@@ -264,7 +325,7 @@ export class RainflowCounter {
 export function rainflow(points: Iterable<TurningPoint>, options: RainflowOptions = {}): RainflowCycle[] {
   const cycles: RainflowCycle[] = [];
   const counter = new RainflowCounter((c) => cycles.push(c), options);
-  for (const p of points) counter.push(p.timeS, p.value);
+  for (const p of points) counter.push(p.timeS, p.value, p.leaveS ?? p.timeS);
   counter.finish();
   return cycles;
 }

@@ -6,7 +6,7 @@ import { coffinMansonModel } from "./coffinManson.js";
 import { LESIT_PUBLISHED, lesitModel } from "./lesit.js";
 import type { CycleQuantity, FittedInterval, FittedRange, LifetimeModel } from "./LifetimeModel.js";
 import { NORRIS_LANDZBERG_SNPB, norrisLandzbergModel } from "./norrisLandzberg.js";
-import { type PulseEnergyPoint, validatePulseEnergyTable } from "./pulseEnergyRating.js";
+import { PULSE_ENERGY_DERATING_DEFAULTS, type PulseEnergyDerating, type PulseEnergyPoint, validatePulseEnergyTable } from "./pulseEnergyRating.js";
 import { type SoaDerating, type SoaTable, validateSoaTable } from "./soaTable.js";
 import { type StressKeysInput, stressKeysSchema } from "./stressKeysSchema.js";
 import { DEFAULT_CYCLE_HYSTERESIS_K } from "./turningPoints.js";
@@ -18,6 +18,12 @@ export type StressPartKind = "resistor" | "mosfet" | "other";
 export interface StressConfig {
   /** single-pulse energy rating, rows in increasing duration; undefined: none given */
   readonly pulseEnergy: readonly PulseEnergyPoint[] | undefined;
+  /**
+   * how the pulse-energy rating is derated at a hot start; undefined when there is no table, or
+   * when no maximum temperature is known (neither `pulseEnergyDerating.maxTemperature` nor the
+   * part's limit)
+   */
+  readonly pulseEnergyDerating: PulseEnergyDerating | undefined;
   /** SOA boundaries (MOSFETs); undefined: none given */
   readonly soa: SoaTable | undefined;
   /** how to derate the SOA for temperature; undefined: not derated */
@@ -145,13 +151,17 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
  * monotonicity, the lifetime model built with published defaults filled in where the source is
  * named (LESIT, CIPS 2008 coefficients, Norris-Landzberg exponents). Resistors may only use
  * Coffin-Manson with the user's parameters: no cycling model is published for them.
+ * A pulse-energy table is always derated for the part's temperature at each event start
+ * (`pulseEnergyDerating`): from `reference` (default {@link PULSE_ENERGY_DERATING_DEFAULTS})
+ * to nothing at `maxTemperature` (default: the part's limit, `options.limitC`).
  * Cost O(table sizes).
  * @param raw the part object (or just its stress keys) as read from the profile
- * @param options field prefix for messages (such as `parts[1]`) and the part's kind
+ * @param options field prefix for messages (such as `parts[1]`), the part's kind and its
+ *   temperature limit [°C] (where the pulse-energy allowance reaches zero unless the rating says)
  * @throws InputError with the field path, what was expected and what was found, for every
  *   schema problem (all at once) or the first value problem
  */
-export function resolveStressConfig(raw: unknown, options: { field?: string; partKind?: StressPartKind } = {}): StressConfig {
+export function resolveStressConfig(raw: unknown, options: { field?: string; partKind?: StressPartKind; limitC?: number } = {}): StressConfig {
   const prefix = options.field ?? "";
   const parsed = stressKeysSchema.safeParse(raw);
   if (!parsed.success) {
@@ -181,6 +191,7 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
     }));
     validatePulseEnergyTable(pulseEnergy, f);
   }
+  const pulseEnergyDerating = pulseEnergy === undefined ? undefined : resolvePulseEnergyDerating(keys, `${ratingsField}.pulseEnergyDerating`, options.limitC);
   if (keys.ratings?.soa !== undefined) {
     const f = `${ratingsField}.soa`;
     soa = keys.ratings.soa.map((curve, k) => ({
@@ -219,5 +230,29 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
       : parseQuantity(keys.cycleHysteresis, "temperatureDifference", at(prefix, "cycleHysteresis"));
   if (!(cycleHysteresisK >= 0))
     throw inputError("out-of-range", at(prefix, "cycleHysteresis"), "a temperature difference ≥ 0 K", describeFound(keys.cycleHysteresis));
-  return { pulseEnergy, soa, soaDerating, lifetime, cycleHysteresisK };
+  return { pulseEnergy, pulseEnergyDerating, soa, soaDerating, lifetime, cycleHysteresisK };
+}
+
+/** The pulse-energy derating of a part with a table: profile keys over the defaults; undefined with no maximum temperature known. */
+function resolvePulseEnergyDerating(keys: StressKeysInput, f: string, limitC: number | undefined): PulseEnergyDerating | undefined {
+  const given = keys.ratings?.pulseEnergyDerating;
+  const referenceC = given?.reference === undefined ? PULSE_ENERGY_DERATING_DEFAULTS.referenceC : parseQuantity(given.reference, "temperature", `${f}.reference`);
+  const maxTemperatureC = given?.maxTemperature === undefined ? limitC : parseQuantity(given.maxTemperature, "temperature", `${f}.maxTemperature`);
+  if (maxTemperatureC === undefined) return undefined;
+  if (!(maxTemperatureC > referenceC)) {
+    if (given?.maxTemperature !== undefined)
+      throw inputError("out-of-range", `${f}.maxTemperature`, `a temperature above the reference ${referenceC} °C`, describeFound(given.maxTemperature));
+    throw inputError(
+      "out-of-range",
+      `${f}.reference`,
+      `a temperature below the part's limit ${maxTemperatureC} °C, where the allowance reaches zero (or a maxTemperature of the rating above it)`,
+      `${referenceC} °C${given?.reference === undefined ? " (the default)" : ""}`,
+    );
+  }
+  return {
+    referenceC,
+    maxTemperatureC,
+    referenceFrom: given?.reference === undefined ? "default" : "profile",
+    maxTemperatureFrom: given?.maxTemperature === undefined ? "part limit" : "profile",
+  };
 }

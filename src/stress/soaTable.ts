@@ -1,5 +1,6 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import type { RatingStatus } from "./pulseEnergyRating.js";
+import { temperatureHeadroomFactor } from "./temperatureHeadroomFactor.js";
 
 /** One corner of a safe-operating-area boundary: at this drain-source voltage, this drain current. */
 export interface SoaPoint {
@@ -59,8 +60,10 @@ function allowedOnCurve(curve: SoaCurve, vdsV: number): number | undefined {
  * Shorter than the shortest boundary: that boundary (a shorter pulse is allowed at least as
  * much). Longer than the longest finite boundary: the DC boundary if the table has one, else
  * undefined. Between the longest finite boundary and DC: the DC boundary (conservative).
- * Source: log-log reading of SOA charts is common practice; the choices outside the table are
- * ours and always err toward the lower current.
+ * Source: log-log interpolation of SOA charts is common practice: the boundaries are drawn on
+ * log-log axes, where each segment between corners is a straight line (a power law, I ∝ V^−1 on
+ * the power-limited segment); the choices outside the table are ours and always err toward the
+ * lower current.
  * Cost O(curves + corners). Assumes a table that passed {@link validateSoaTable}.
  * @returns the allowed current [A], or undefined where the table does not cover (V, t)
  */
@@ -137,12 +140,11 @@ export interface SoaDerating {
  * T_ref). Applied to the allowed current at every voltage, which is conservative in the
  * current-limited corner. Using the junction (or observed-node) temperature at the event start
  * in place of the case temperature is conservative too, since the junction is the hotter.
- * Source: linear derating of power-limited SOA with case temperature is common practice.
- * Cost O(1).
+ * Source: linear derating of power-limited SOA with case temperature is common practice
+ * ({@link temperatureHeadroomFactor}). Cost O(1).
  */
 export function soaDeratingFactor(derating: SoaDerating, temperatureC: number): number {
-  const k = (derating.maxJunctionC - temperatureC) / (derating.maxJunctionC - derating.referenceC);
-  return Math.min(1, Math.max(0, k));
+  return temperatureHeadroomFactor(derating.referenceC, derating.maxJunctionC, temperatureC);
 }
 
 /** The worst operating point of an event against the SOA. */

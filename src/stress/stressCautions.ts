@@ -1,5 +1,5 @@
 /**
- * Caution carried by every stress report that computes damage (DESIGN §8 in spirit): lifetime
+ * Caution carried by every stress report that computes damage (in the spirit of docs/design.md, "Cautions"): lifetime
  * figures are fitted-model estimates. The general caution and the linear-mode MOSFET caution
  * are declared once in src/report/cautions.ts and reused, not repeated here.
  */

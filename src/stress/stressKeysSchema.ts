@@ -74,7 +74,8 @@ export const LIFETIME_MODEL_NAMES = ["coffin-manson", "norris-landzberg", "lesit
 
 /**
  * zod 4 schema of the part keys the stress layer owns, to be merged into the profile's part
- * schema (`partSchema.extend(stressKeysSchema.shape)`): `ratings` (pulse-energy and SOA tables),
+ * schema (`partSchema.extend(stressKeysSchema.shape)`): `ratings` (pulse-energy and SOA tables
+ * and how each is derated for a hot part),
  * `lifetime` (a cycling model and its parameters) and `cycleHysteresis`. Quantities stay raw
  * here (number in SI or string with a unit); {@link resolveStressConfig} parses them with
  * parseQuantity and checks the tables, with field paths in every error.
@@ -94,6 +95,7 @@ export const stressKeysSchema = z.object({
         )
         .optional(),
       soaDerating: z.object({ reference: quantity, maxJunction: quantity }).strict().optional(),
+      pulseEnergyDerating: z.object({ reference: quantity.optional(), maxTemperature: quantity.optional() }).strict().optional(),
     })
     .strict()
     .optional(),

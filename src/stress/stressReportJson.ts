@@ -11,8 +11,22 @@ export interface StressJson {
   readonly ratingChecks: readonly {
     index: number;
     startS: number;
+    /** the part's temperature at the event start [°C], the ratings were derated at; null when not known */
+    startTemperatureC: number | null;
     status: string;
-    pulseEnergy: { status: string; energyJ: number; equivalentDurationS: number; ratedEnergyJ: number | null; utilisation: number | null } | null;
+    pulseEnergy: {
+      status: string;
+      energyJ: number;
+      equivalentDurationS: number;
+      /** the table's energy at the equivalent duration, from its reference temperature */
+      ratedEnergyJ: number | null;
+      /** factor for the start temperature, (T_max − T_start)/(T_max − T_ref) in [0, 1] */
+      deratingFactor: number;
+      /** the derated allowance, ratedEnergyJ·deratingFactor */
+      allowedEnergyJ: number | null;
+      /** energy / allowance; null outside the table or when nothing is allowed */
+      utilisation: number | null;
+    } | null;
     soa: {
       status: string;
       durationS: number;
@@ -40,6 +54,16 @@ export interface StressJson {
     yearsToEndOfLife: number | null;
     cyclesCounted: number;
     topCycles: { rangeK: number; meanC: number; minC: number; maxC: number; count: number; heatingTimeS: number; cyclesToFailure: number | null; damage: number; share: number }[];
+    /** per cycle quantity, the cycles outside the model's validity range (their damage is extrapolated) */
+    extrapolated: {
+      quantity: string;
+      unit: string;
+      range: [number, number];
+      origin: string;
+      found: [number | null, number | null];
+      cycles: number;
+      damageShare: number;
+    }[];
     warnings: readonly string[];
   } | null;
   readonly notes: readonly string[];
@@ -56,6 +80,7 @@ export function stressReportJson(report: StressReport): StressJson {
     ratingChecks: report.events.map((e) => ({
       index: e.index,
       startS: e.startS,
+      startTemperatureC: safe(e.startTemperatureC),
       status: e.status,
       pulseEnergy:
         e.pulseEnergy === undefined
@@ -65,6 +90,8 @@ export function stressReportJson(report: StressReport): StressJson {
               energyJ: e.pulseEnergy.energyJ,
               equivalentDurationS: e.pulseEnergy.equivalentDurationS,
               ratedEnergyJ: safe(e.pulseEnergy.ratedEnergyJ),
+              deratingFactor: e.pulseEnergy.deratingFactor,
+              allowedEnergyJ: safe(e.pulseEnergy.allowedEnergyJ),
               utilisation: safe(e.pulseEnergy.utilisation),
             },
       soa:
@@ -104,6 +131,15 @@ export function stressReportJson(report: StressReport): StressJson {
               cyclesToFailure: safe(t.cyclesToFailure),
               damage: t.damage,
               share: t.share,
+            })),
+            extrapolated: d.extrapolated.map((x) => ({
+              quantity: x.quantity,
+              unit: x.unit,
+              range: [x.range[0], x.range[1]],
+              origin: x.origin,
+              found: [safe(x.found[0]), safe(x.found[1])],
+              cycles: x.cycles,
+              damageShare: x.damageShare,
             })),
             warnings: d.warnings,
           },

@@ -26,8 +26,8 @@ export interface LumpedDescription {
  *   two stages: C1 = m_e·c_e, R1 = R_element_to_body; C2 = m_b·c_b, R2 = R_body_to_ambient
  * The ladder's nodes are physical and named so (`part: resistor`: "element", "body"), so it can be
  * chained; its exact Foster form comes from cauerToModal.
- * Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2 (lumped
- * capacitance method, eq. 5.2-5.7: rho·V·c·dT/dt = −(T − T_inf)/R_t, tau_t = R_t·C_t) and §5.3
+ * Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 (lumped
+ * capacitance method, eq. 5.2-5.7: rho·V·c·dT/dt = −(T − T_inf)/R_t, tau_t = R_t·C_t) and §5.2
  * (validity: Biot number Bi = h·L_c/k < 0.1, eq. 5.10).
  * Validity: each lump must be nearly isothermal (Bi < 0.1): a thin wire or a small ceramic core
  * is, a long rod heated at one end is not. Constant properties (c at 300 K, see MATERIALS).
@@ -64,8 +64,8 @@ export function lumpedNetwork(description: LumpedDescription, field = "lumped"):
  * Any heat lost during the pulse only lowers the rise, so this mass is enough for a pulse much
  * shorter than the part's time constant to ambient, and the bound is conservative for longer ones.
  * Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §1.3.1 (energy
- * balance, stored thermal energy ΔE_st = m·c·ΔT for a solid of constant specific heat) and §5.2
- * (lumped capacitance with no outflow).
+ * balance, stored thermal energy ΔE_st = m·c·ΔT for a solid of constant specific heat) and §5.3
+ * (lumped capacitance with heat input and no outflow).
  * Validity: the mass heats uniformly (small Biot number), constant c; ΔT > 0.
  * Cost O(1).
  * @param energyJ pulse energy E [J] > 0

@@ -398,7 +398,9 @@ function turnInside(n: number, h: number, lo: number, hi: number, x: number): nu
  * finer than the 0.01 K the reports need). Endpoints are not returned: the caller sees them as
  * step ends.
  * Source: bracketing a maximum with derivative information, Press et al., Numerical Recipes, 3rd
- * ed. (2007), §9.1–9.2, §9.4 (Newton with bracketing) and §10.3; the Illinois method, Dowell & Jarratt, BIT 11 (1971) 168–174.
+ * ed. (2007), §9.1–9.2 (bracketing, false position), §9.4 (Newton with bracketing) and §10.4
+ * (one-dimensional search with first derivatives; section from memory); the Illinois method,
+ * Dowell & Jarratt, BIT 11 (1971) 168–174.
  * Cost O(grid × sources × modes × terms), or O(sources × modes) when provably monotone.
  * @returns the interior peaks in time order (usually none or one)
  */

@@ -38,8 +38,9 @@ export interface ThermalGraph {
  *   tau_m = 1/λ_m,   gain[o][s][m] = V[o][m]·V[s][m] / (sqrt(C_o·C_s)·λ_m)   [K/W],
  * which is exactly the Foster expansion of every transfer impedance (the exact Cauer → Foster
  * conversion when the graph is a ladder).
- * Source: Ogata, System Dynamics, 4th ed. (2004), §5 (thermal systems) for the RC equations;
- * Golub & Van Loan (2013) §8.1 for the symmetric eigen-decomposition; JEDEC JESD51-14 (2010)
+ * Source: Ogata, System Dynamics, 4th ed. (2004), ch. 7 (thermal systems; chapter from memory) for
+ * the RC equations; Golub & Van Loan, Matrix Computations, 4th ed. (2013), §8.1 for the symmetric
+ * eigen-decomposition; JEDEC JESD51-14 (2010)
  * annex on Cauer/Foster equivalence.
  * Cost O(n³) in the number of nodes.
  * @throws InputError `bad-network` for unknown node names, non-positive values, or a node with no

@@ -36,8 +36,8 @@ export const PULSE_RATING_ASSUMPTIONS: readonly string[] = [
  * at time t; Zth rises monotonically, so the peak is at the end of the pulse, and the rated
  * energy is the one for which that peak equals ΔT_allowed.
  * Source: JEDEC JESD51-1 (1995), §3 (Zth as the response to a power step); Incropera et al.,
- * Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2 (lumped capacitance: for short
- * pulses E = C·ΔT, so Zth(t_p) → t_p/C, the adiabatic limit).
+ * Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3 (lumped capacitance: for
+ * short pulses E = C·ΔT, so Zth(t_p) → t_p/C, the adiabatic limit).
  * Validity: the assumptions in PULSE_RATING_ASSUMPTIONS. Two consistency checks follow from them
  * (Zth of a passive RC network rises with t and Zth/t falls): E_max must not fall as t_p grows,
  * and the rated power E_max/t_p must not rise; a table breaking either by more than 1e-6 relative

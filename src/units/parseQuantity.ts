@@ -56,7 +56,8 @@ function dimensionOf(unit: { equalBase(other: unknown): boolean }, math: ReturnT
  * no expression is evaluated. A temperature difference must be written in K (or mK): "10 degC"
  * is an absolute temperature, and the message says so.
  *
- * Source: SI brochure, 9th edition (BIPM 2019), section 2 and table 8 (prefixes).
+ * Source: SI brochure, 9th ed. (BIPM 2019), §2.3 (base and coherent derived units) and §3,
+ * Table 7 (prefixes) (section and table numbers from memory).
  * Cost: O(length of the string); the first string parsed loads mathjs (about 1 s).
  * @param value the raw value from the file
  * @param dimension the dimension the field expects

@@ -1,4 +1,4 @@
-// Benchmark (issue 5 wiring): what the stress layer adds to a long `simulate` run. The same
+// Benchmark: what the stress layer adds to a long `simulate` run. The same
 // profile (a shuttle that power-cycles every 20 minutes with a monthly fault burst, real
 // series-resistor model, a pulse-energy table and a Coffin-Manson model on the resistor) is
 // simulated without and with ProfileStress fed from the visitor, as the CLI feeds it. Prints

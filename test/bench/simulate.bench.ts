@@ -1,4 +1,4 @@
-// Benchmark (issue 4): a profile that expands to about 1,000,000 events — a shuttle that power-
+// Benchmark: a profile that expands to about 1,000,000 events — a shuttle that power-
 // cycles every 20 minutes, day after day for years, with a fault burst every month — simulated
 // with the real series-resistor model, (1) as the library call simulateProfile and (2) as a user
 // runs it, `heatledger simulate FILE` in a fresh process (start-up, profile loading, the stress

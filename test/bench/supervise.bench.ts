@@ -1,4 +1,4 @@
-// Supervision speed figures (issue 8): the whole answer for the bundled electric-boat profile
+// Supervision speed figures: the whole answer for the bundled electric-boat profile
 // (16 healthy corners, two bus-voltage ends into a short, a 3-attempt retry policy with lockout)
 // and its parts. Printed, never asserted (`npm run bench -- supervise`).
 import { readFileSync } from "node:fs";

@@ -1,4 +1,4 @@
-// Thermal engine benchmarks (issue 2 item 6), printed side by side by `npm run bench`; nothing is
+// Thermal engine benchmarks , printed side by side by `npm run bench`; nothing is
 // asserted here. (a) the engine on 1,000,000 segments × 6 modes, streaming, with its heap growth
 // against 100,000 segments; (b) the O(N²) reference superposition at 10,000 segments as a ratio
 // to the engine; (c) ngspice on the same 10,000-pulse train (PULSE source), at its measured

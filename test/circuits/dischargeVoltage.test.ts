@@ -41,7 +41,7 @@ function odexDischarge(current: (v: number) => number, cF: number, v0: number, t
 
 describe("dischargeVoltage", () => {
   // Source-free RC: V0·e^(−t/RC). Source: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis,
-  // 8th ed. (2012), ch. 8, source-free RC circuit (§8.4, section number from memory).
+  // 8th ed. (2012), §8.3, source-free RC circuit (section number from memory).
   test.each([
     [{ kind: "none" } as DischargePath, 5, 400],
     [{ kind: "bleeder", resistanceOhm: 1000 } as DischargePath, 1, 400 / Math.E],

@@ -4,13 +4,14 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
 import { type CircuitResult, chargeLinearMosfet, chargeSeriesResistor, powerAt } from "../../src/index.js";
+import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 
 // Outside reference: ngspice (Debian package `ngspice`, installed by .ci/run), a general-purpose
 // circuit simulator, runs the same circuit as a netlist; we compare the capacitor voltage and the
-// dissipated power at ngspice's own time points. Tolerance 0.1 % of the quantity's peak: ngspice
-// at reltol 1e-6 writes 9 significant digits and its integration error is far below that, so
-// 0.1 % (the brief's bound) is loose for an independent solver: measured agreement is at most
-// 9e-7 of the peak (MOSFET power next to the knee), 2e-7 for voltages.
+// dissipated power at ngspice's own time points. Tolerance 5e-6 of the quantity's peak: measured
+// agreement (worstRelative below, printed once when the test was written) is at most 9e-7 of the
+// peak for powers (MOSFET power next to the knee) and 2e-7 for voltages; ngspice at reltol 1e-6
+// writes 9 significant digits. 5e-6 is about 5x the worst measured error.
 
 const work = mkdtempSync(join(tmpdir(), "heatledger-ngspice-"));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
@@ -21,7 +22,7 @@ function runNgspice(name: string, netlist: string, tstop: number): Record<string
   const run = spawnSync("ngspice", ["-b", `${name}.cir`], { cwd: work, encoding: "utf8" });
   // ngspice's exit status says nothing reliable (1 after a good batch run with a .control block,
   // 0 after some aborts): check that it ran, its log, and that the data reaches tstop
-  expect(run.error).toBeUndefined();
+  requireNgspiceRan(run);
   expect(`${run.stdout}${run.stderr}`).not.toMatch(/error|abort|too small|singular/i);
   const [header, ...rows] = readFileSync(join(work, `${name}.dat`), "utf8").trim().split("\n");
   const names = header!.trim().split(/\s+/);
@@ -61,7 +62,7 @@ run
 `;
 
 describe("ngspice cross-check", () => {
-  test("series resistor with a resistive load, from a partly charged capacitor: Vc and resistor power within 0.1 %", () => {
+  test("series resistor with a resistive load, from a partly charged capacitor: Vc and resistor power within 5e-6 of the peak", () => {
     const tstop = 0.5;
     const spice = runNgspice(
       "rload",
@@ -83,12 +84,12 @@ ${header}wrdata rload.dat v(bus)
     );
     const times = spice.time!;
     const spicePower = spice["v(bus)"]!.map((v) => (400 - v) ** 2 / 100);
-    expect(worstRelative(times.map((t) => traceAt(r, "resistor", t)), spicePower)).toBeLessThan(1e-3);
+    expect(worstRelative(times.map((t) => traceAt(r, "resistor", t)), spicePower)).toBeLessThan(5e-6);
     const samples = r.samples!.filter((s) => s.timeS >= times[0]!);
-    expect(worstRelative(samples.map((s) => s.voltageV), samples.map((s) => interpolate(times, spice["v(bus)"]!, s.timeS)))).toBeLessThan(1e-3);
+    expect(worstRelative(samples.map((s) => s.voltageV), samples.map((s) => interpolate(times, spice["v(bus)"]!, s.timeS)))).toBeLessThan(5e-6);
   });
 
-  test("linear-mode MOSFET as a behavioural current source with Rs and a resistive load: Vc and MOSFET power within 0.1 %", () => {
+  test("linear-mode MOSFET as a behavioural current source with Rs and a resistive load: Vc and MOSFET power within 5e-6 of the peak", () => {
     // I = min((Vg − Vth)/Rs, (Vs − Vc)/(Rs + Rds(on))) = min(2 A, v(src,bus)/54 Ω): current source
     // until the knee at 292 V, then the fully-on resistance, toward the divider 400·2000/2054 V
     const tstop = 0.6;
@@ -115,9 +116,9 @@ ${header}wrdata mosfet.dat v(bus) v(s)
     // MOSFET power v(src, s)·i with i = (v(s) − v(bus))/Rs
     const spiceMosfet = times.map((_, i) => (400 - spice["v(s)"]![i]!) * ((spice["v(s)"]![i]! - spice["v(bus)"]![i]!) / 4));
     const spiceRs = times.map((_, i) => (spice["v(s)"]![i]! - spice["v(bus)"]![i]!) ** 2 / 4);
-    expect(worstRelative(times.map((t) => traceAt(r, "mosfet", t)), spiceMosfet)).toBeLessThan(1e-3);
-    expect(worstRelative(times.map((t) => traceAt(r, "sourceResistor", t)), spiceRs)).toBeLessThan(1e-3);
+    expect(worstRelative(times.map((t) => traceAt(r, "mosfet", t)), spiceMosfet)).toBeLessThan(5e-6);
+    expect(worstRelative(times.map((t) => traceAt(r, "sourceResistor", t)), spiceRs)).toBeLessThan(5e-6);
     const samples = r.samples!.filter((s) => s.timeS >= times[0]!);
-    expect(worstRelative(samples.map((s) => s.voltageV), samples.map((s) => interpolate(times, spice["v(bus)"]!, s.timeS)))).toBeLessThan(1e-3);
+    expect(worstRelative(samples.map((s) => s.voltageV), samples.map((s) => interpolate(times, spice["v(bus)"]!, s.timeS)))).toBeLessThan(5e-6);
   });
 });

@@ -1,6 +1,7 @@
 import { spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { describe, expect, test } from "vitest";
+import { expectClose } from "../helpers/expectClose.js";
 
 // End to end: spawn the built bin (dist/ is built by vitest's global setup) on the bundled field
 // log, an invented returned irrigation pump drive whose firmware restarted the pre-charge every
@@ -51,6 +52,46 @@ describe("heatledger replay, the built bin, on the bundled log", () => {
     expect(json.replay.parts[0]!.firstExceedanceS).toBe(json.parts[0]!.firstExceedanceS);
     expect(json.replay.parts[0]!.firstExceedanceLine.line).toBe(80);
     expect(json.replay.parts[0]!.damageToDate).toBeGreaterThan(0);
+  });
+
+  // The attempt during which the resistor passes its 180 °C limit starts hot, about 146 °C, so its
+  // single-pulse rating (the profile's table, stated from 25 °C by default) is derated to
+  // (180 − T_start)/(180 − 25), about 22 % (common practice for resistor pulse ratings): its 92 J
+  // fails where the underated table allowed it comfortably (197 J, 47 %). Every quantity is read
+  // back from the report and checked against the formula: 1e-12 relative, a few roundings.
+  test("the attempt that passes the limit fails its pulse-energy rating, derated for its hot start", () => {
+    const run = heatledger("replay", LOG, "--profile", PROFILE, "--json");
+    expect(run.status).toBe(1);
+    const json = JSON.parse(run.stdout) as {
+      parts: {
+        firstExceedanceS: number;
+        events: { index: number; startS: number }[];
+        stress: { ratingChecks: { index: number; status: string; startTemperatureC: number; pulseEnergy: { status: string; energyJ: number; ratedEnergyJ: number; deratingFactor: number; allowedEnergyJ: number; utilisation: number } }[] };
+      }[];
+    };
+    const part = json.parts[0]!;
+    const crossing = part.events.filter((e) => e.startS <= part.firstExceedanceS).at(-1)!;
+    const check = part.stress.ratingChecks.find((c) => c.index === crossing.index)!;
+    expect(check.status).toBe("fail");
+    const pe = check.pulseEnergy;
+    expect(pe.status).toBe("fail");
+    expect(check.startTemperatureC).toBeGreaterThan(100); // the storm has heated the part
+    const k = (180 - check.startTemperatureC) / (180 - 25);
+    expectClose(pe.deratingFactor, k, { rel: 1e-12 });
+    expectClose(pe.allowedEnergyJ, pe.ratedEnergyJ * k, { rel: 1e-12 });
+    expectClose(pe.utilisation, pe.energyJ / (pe.ratedEnergyJ * k), { rel: 1e-12 });
+    expect(pe.utilisation).toBeGreaterThan(1);
+    expect(pe.energyJ / pe.ratedEnergyJ).toBeLessThan(0.5); // the table alone would have passed it at under half
+    // the first attempt of the log starts cold, at the 35 °C ambient: (180 − 35)/155 = 0.935
+    const first = part.stress.ratingChecks[0]!;
+    expect(first.startTemperatureC).toBe(35);
+    expectClose(first.pulseEnergy.deratingFactor, 145 / 155, { rel: 1e-15 });
+    const text = heatledger("replay", LOG, "--profile", PROFILE, "--no-chart").stdout;
+    expect(text).toContain("ratings: FAIL");
+    const highest = /highest pulse-energy use: event \d+ at [0-9.]+ s, from ([0-9.]+) °C: [0-9.]+ J, ([0-9.]+) % of [0-9.]+ J allowed \([0-9.]+ J rated, derated to [0-9.]+ %\)/.exec(text.replace(/\s+/g, " "));
+    expect(highest).not.toBeNull();
+    expect(Number(highest![1])).toBeGreaterThan(100);
+    expect(Number(highest![2])).toBeGreaterThan(100);
   });
 
   test("bad input: exit 2, one line naming the file, line and column, no stack trace", () => {

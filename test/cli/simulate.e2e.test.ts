@@ -6,7 +6,7 @@ import { fileURLToPath } from "node:url";
 import { afterAll, describe, expect, test } from "vitest";
 
 // End to end: spawn the built bin (dist/ is built by vitest's global setup) on every bundled
-// profile and on invented broken and failing ones; check the JSON contract of DESIGN §6, the CSV
+// profile and on invented broken and failing ones; check the JSON contract (docs/design.md), the CSV
 // columns and the exit codes 0 / 1 / 2.
 const root = fileURLToPath(new URL("../..", import.meta.url));
 const temp = mkdtempSync(join(tmpdir(), "heatledger-e2e-"));

@@ -8,7 +8,7 @@ import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
 
 // End to end: spawn the built bin (dist/ is built by vitest's global setup) on the bundled
 // profiles that carry stress keys; check the JSON's stress additions (damage, cycles, rating
-// checks per event, DESIGN §6's keys unchanged), the --cycles CSV and the exit codes.
+// checks per event, the JSON contract's keys unchanged), the --cycles CSV and the exit codes.
 const root = fileURLToPath(new URL("../..", import.meta.url));
 const temp = mkdtempSync(join(tmpdir(), "heatledger-stress-e2e-"));
 afterAll(() => rmSync(temp, { recursive: true, force: true }));
@@ -45,7 +45,7 @@ describe("heatledger simulate with stress keys, the built bin", () => {
     expect(run.status).toBe(json.verdict === "fail" ? 1 : 0);
     expect(json.occursPerYear).toBe(perYear);
     const part = json.parts.find((p) => p.id === partId)!;
-    // DESIGN §6's keys are still there, beside the new `stress`
+    // the JSON contract's keys are still there, beside the new `stress`
     for (const key of ["peakTemperatureC", "peakTimeS", "limitC", "marginK"] as const) expect(Number.isFinite(part[key])).toBe(true);
     expect(part.stress.ratingChecks.length).toBeGreaterThan(0);
     for (const c of part.stress.ratingChecks) expect(c[table]).not.toBeNull();
@@ -80,7 +80,8 @@ describe("heatledger simulate with stress keys, the built bin", () => {
     const file = join(temp, "rated.yaml");
     // 50 W for 2 s: 100 J at t_eq = 2 s against an invented 80 J row at 2 s (the 1 ns fall puts
     // t_eq a hair past the row, still inside the table: about 80 J, 125 %); the peak rise
-    // 50·2·(1 − e^−2) = 86.5 K stays under the 150 °C limit from 25 °C (lumped stage, Incropera §5.2)
+    // 50·2·(1 − e^−2) = 86.5 K stays under the 150 °C limit from 25 °C (lumped stage, Incropera
+    // §5.1 and §5.3)
     writeFileSync(
       file,
       "name: rated\nambient: 25 degC\nparts:\n  - id: r\n    network: { form: foster, stages: [{ r: 2 K/W, tau: 1 s }] }\n    limits: { maxTemperature: 150 degC }\n" +

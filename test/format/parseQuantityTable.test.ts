@@ -8,7 +8,8 @@ const COLUMNS: readonly QuantityColumn[] = [
 ];
 
 describe("parseQuantityTable", () => {
-  // Unit factors per the SI brochure, 9th ed. (BIPM 2019), table 7 (prefixes m = 1e-3, µ = 1e-6);
+  // Unit factors per the SI brochure, 9th ed. (BIPM 2019), §3, Table 7 (prefixes m = 1e-3, µ = 1e-6;
+  // table number from memory);
   // 1e-15 relative: one multiplication's rounding.
   test.each([
     ["brackets", "time [ms], Zth [K/W]\n1, 0.5\n", 1e-3],

@@ -1,6 +1,6 @@
 // Brute-force references for the planner tests (not a test file). They share no code with
 // src/plan: rectangular pulse trains are superposed from step responses Zth(t) (the O(N²)
-// convolution DESIGN §3 keeps as the reference), and general traces are simulated in one piece
+// convolution kept as the reference (docs/design.md, "Exact integration")), and general traces are simulated in one piece
 // with runThermalHistory over traceSteps.
 import { type ModalModel, type PowerTrace, runThermalHistory, traceSteps, zth } from "../../src/index.js";
 

@@ -4,7 +4,7 @@ import { superposedPeak, uniformPulses } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";
 
 // One RC stage: the n-th of a train of pulses every T ends at S·(1 − q^n)/(1 − q), S = P·R·(1 − e^(−t_on/τ)),
-// q = e^(−T/τ) (lumped capacitance, Incropera et al., 7th ed. (2011), §5.2, eq. 5.6, summed as a
+// q = e^(−T/τ) (lumped capacitance, Incropera et al., 7th ed. (2011), §5.1 and §5.3, summed as a
 // geometric series). The largest safe n is therefore floor(ln(1 − ΔT·(1 − q)/S)/ln q).
 describe("maxAttempts", () => {
   const R = 2;

@@ -3,7 +3,7 @@ import { backoffBurst, fosterToModal, retryPolicyVerdict, uniformBurst } from ".
 import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 
-// One RC stage (lumped capacitance, Incropera et al., 7th ed. (2011), §5.2, eq. 5.6). A burst of N
+// One RC stage (lumped capacitance, Incropera et al., 7th ed. (2011), §5.1 and §5.3). A burst of N
 // pulses every T, then a lockout L, repeated for ever: with S_k = S·(1 − q^k)/(1 − q),
 // S = P·R·(1 − e^(−t_on/τ)), q = e^(−T/τ) and the cycle length Pc = (N − 1)·T + t_on + L, the rise
 // at a cycle's start repeats as θs = S_N·e^(−L/τ)/(1 − e^(−Pc/τ)) (geometric series over cycles),

@@ -10,7 +10,8 @@ const common = { load: { kind: "none" as const }, discharge: { kind: "none" as c
 
 describe("sizeChargingElement: series resistor", () => {
   // RC charging from V0 through Rt = R + Rsrc (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis,
-  // 8th ed., §8.4, from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C. Setting V = k·Vs:
+  // 8th ed. (2012), §8.8, section from memory): V(t) = Vs − (Vs − V0)·e^(−t/τ), τ = Rt·C.
+  // Setting V = k·Vs:
   //   (1 − k)·Vs = (Vs − V0)·e^(−t/τ)  ⇒  t = τ·ln((Vs − V0)/((1 − k)·Vs)).
   // Completion within the timeout T needs t ≤ T, so the largest total resistance is
   //   Rt_max = T / (C·ln((Vs − V0)/((1 − k)·Vs))),  R_max = Rt_max − Rsrc   (here V0 = 0).
@@ -52,7 +53,7 @@ describe("sizeChargingElement: series resistor", () => {
 
 describe("sizeChargingElement: converter and linear MOSFET", () => {
   test("constant-current converter: I_min = C·k·Vs / T", () => {
-    // C·dV/dt = I (Hayt et al., ch. 7, capacitor charged by a constant current): V = I·t/C, so
+    // C·dV/dt = I (Hayt et al., §7.1, capacitor charged by a constant current): V = I·t/C, so
     // reaching k·Vs by T needs I ≥ C·k·Vs/T = 2e-3 · 0.95 · 400 / 0.8 = 0.95 A.
     const circuit: ProfileCircuit = { ...common, topology: "converter", busVoltageV: 400, capacitanceF: 2e-3, mode: "constant-current", currentA: 3, efficiency: 0.9, completion: { fraction: 0.95, timeoutS: 0.8 } };
     const answer = sizeChargingElement(circuit, defaultCircuitModels);
@@ -76,7 +77,7 @@ describe("sizeChargingElement: converter and linear MOSFET", () => {
   });
 
   test("linear MOSFET with a source resistor: Rs_max = (Vgate − Vth)·T / (C·k·Vs) while headroom lasts", () => {
-    // I = (Vgate − Vth)/Rs is constant while the MOSFET has headroom (DESIGN §4), so V = I·t/C as for
+    // I = (Vgate − Vth)/Rs is constant while the MOSFET has headroom (the linear-mode model of src/circuits/chargeLinearMosfet.ts), so V = I·t/C as for
     // a current source; at k = 0.5 the MOSFET keeps Vds ≥ 200 V ≫ I·(Rs + RdsOn) until completion.
     // Rs_max = 1.1 V · 2 s / (1.5e-3 F · 200 V) = 7.3333 Ω.
     const circuit: ProfileCircuit = {

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "../../src/index.js";
+import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION, parseNetwork } from "../../src/index.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
@@ -42,7 +42,8 @@ describe("heatledger size (in process)", () => {
     expect(part.inversion.peakTemperatureC).toBeLessThanOrEqual(part.targetC);
     expect(part.inversion.peakTemperatureC).toBeGreaterThan(part.targetC - 0.1);
     // RC charging to 95 % of 400 V from 0 V with 1 mF in 500 ms, no source resistance (Hayt et al.,
-    // Engineering Circuit Analysis, 8th ed., §8.4): R_max = 0.5 / (1e-3·ln 20) = 166.90 Ω
+    // Engineering Circuit Analysis, 8th ed. (2012), §8.8, section from memory):
+    // R_max = 0.5 / (1e-3·ln 20) = 166.90 Ω
     expect(json.circuit.field).toBe("circuit.resistance");
     expectClose(json.circuit.value, 0.5 / (1e-3 * Math.log(20)), { rel: 1e-6 });
   });
@@ -56,6 +57,41 @@ describe("heatledger size (in process)", () => {
     const text = memoryIo(bundled("home-storage-400v.yaml", "networks/mosfet-on-heatsink-graph.yaml"));
     expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--part", "source-resistor"], text)).toBe(0);
     expect(text.stdout.join("")).toContain(LINEAR_MOSFET_CAUTION.slice(0, 30));
+  });
+
+  test("--scale: the headings and words say what was scaled, the element answer comes with its mass and its network", async () => {
+    const files = (): Record<string, string> => bundled("home-storage-400v.yaml", "networks/mosfet-on-heatsink-graph.yaml");
+    const whole = memoryIo(files());
+    expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--material", "copper"], whole)).toBe(0);
+    const wholeText = whole.stdout.join("");
+    for (const words of ["Whole profile, whole body × k", "whole body × k", "C1 at k [J/K]", "every heat capacity of the shared network (whole body; C1 then", "--scale element gives the element's mass"]) expect(wholeText.replace(/\s+/g, " ")).toContain(words);
+    expect(wholeText).not.toContain("element m [g]");
+    const element = memoryIo(files());
+    expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--material", "copper", "--scale", "element"], element)).toBe(0);
+    const elementText = element.stdout.join("");
+    for (const words of ["Whole profile, element C1 × k", "k (C1 only)", "element C1 [J/K]", "element m [g]", "precharge-mosfet: an element capacity C1 = "]) expect(elementText.replace(/\s+/g, " ")).toContain(words);
+    expect(elementText).not.toContain("whole body × k");
+    // piped reports stay within 100 columns (memoryIo has 100)
+    for (const line of [...wholeText.split("\n"), ...elementText.split("\n")]) expect([...line].length).toBeLessThanOrEqual(100);
+
+    const json = memoryIo(files());
+    expect(await runCli(["size", "profiles/home-storage-400v.yaml", "--material", "copper", "--scale", "element", "--json"], json)).toBe(0);
+    const answer = JSON.parse(json.stdout.join("")) as {
+      scale: string;
+      parts: { id: string; inversion: { scope: string; status: string; capacityJPerK: number; massKg: number | null; sizedNetwork: unknown } }[];
+    };
+    expect(answer.scale).toBe("element");
+    const mosfet = answer.parts[0]!.inversion;
+    expect(mosfet.scope).toBe("element");
+    expect(mosfet.status).toBe("sized");
+    // m = C/c with copper c = 385 J/(kg·K) (MATERIALS; Incropera Table A.1, from memory); same doubles: 1e-12
+    expectClose(mosfet.massKg!, mosfet.capacityJPerK / 385, { rel: 1e-12 });
+    // the sized network reads back as a network file: only the die's capacity changed, to the element answer
+    const network = parseNetwork(mosfet.sizedNetwork);
+    expect(network.kind).toBe("graph");
+    const nodes = network.kind === "graph" ? network.nodes : [];
+    expectClose(nodes.find((n) => n.id === "die")!.cJPerK, mosfet.capacityJPerK, { rel: 1e-9 }); // 10 significant digits in the file
+    expect(nodes.filter((n) => n.id !== "die").map((n) => n.cJPerK)).toEqual([0.9, 0.6, 85]);
   });
 
   test("a profile with no circuit, two parts, --part twice: one sized, one any, the circuit section says there is none", async () => {
@@ -123,6 +159,7 @@ events:
     },
     { args: ["--margin", "5 degC"], message: 'heatledger: --margin: expected a temperature difference such as "10 K" (or a number in K); write differences in K, found "5 degC" (an absolute temperature)\n' },
     { args: ["--margin=-3"], message: "heatledger: --margin: expected a margin ≥ 0 K, found -3\n" },
+    { args: ["--scale", "body"], message: 'heatledger: --scale: expected whole or element, found "body"\n' },
     { args: ["--part", "nope"], message: 'heatledger: --part: expected one of the profile\'s parts (precharge-resistor), found "nope"\n' },
   ])("bad input $args: exit 2 with one line naming the flag", async ({ args, message }) => {
     const io = memoryIo(heatPump());

@@ -6,7 +6,7 @@ import { MODELS, oneStageProfile } from "./superviseFixtures.js";
 
 // Invariants of the check thresholds over random corner sets of a series resistor with no load.
 // Reference for every corner's bus voltage: Vc(t) = Vs − (Vs − V0)·e^(−t/RC) (Hayt, Kemmerly &
-// Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.4).
+// Durbin, Engineering Circuit Analysis, 8th ed. (2012), §8.8, driven RC circuit, section from memory).
 describe("abortChecks / riseChecks invariants", () => {
   test("no healthy corner trips an early-abort or a rise-too-fast threshold, whatever the corner set", () => {
     fc.assert(

@@ -7,7 +7,8 @@ import { expectClose } from "../helpers/expectClose.js";
 // 1.5 mF, gate 4.6 V, threshold 3.5 V, source resistor 2.2 ohm, so the MOSFET is a current source
 // I = (4.6 − 3.5)/2.2 = 0.5 A (source degeneration: Sedra & Smith, Microelectronic Circuits, 7th
 // ed., §5.2, from memory, the model's own statement). With no load the capacitor charges at
-// dVc/dt = I/C (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 7), so at a
+// dVc/dt = I/C (Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed. (2012), §7.1,
+// section from memory), so at a
 // time s into the charge Vds = Vs − Vc − I·Rs = 400 − (0.5/1.5e-3)·s − 1.1 V. The bus reaches
 // 390 V (completion "within 10 V") after 390·1.5e-3/0.5 = 1.17 s, before the MOSFET runs out of
 // headroom at 400 − 0.5·(2.2 + 0.12) = 398.84 V. SOA tables here are invented for the test.
@@ -154,7 +155,7 @@ describe("mosfetOperatingPoints", () => {
   });
 
   // With no current nothing drops across the source resistor: Vds = Vs − Vc (Kirchhoff's voltage
-  // law around the loop; Hayt et al., ch. 3). Exact arithmetic.
+  // law around the loop; Hayt et al., §3.3, section from memory). Exact arithmetic.
   test("at zero current Vds is the whole gap Vs − Vc", () => {
     const points = mosfetOperatingPoints([{ timeS: 0.5, voltageV: 120, currentA: 0 }], [], 400);
     expect(points).toEqual([{ timeS: 0.5, vdsV: 280, idA: 0 }]);

@@ -3,7 +3,7 @@ import { describe, expect, test } from "vitest";
 import { stringify } from "yaml";
 import { InputError, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
 
-// Fuzzing (issue 4): thousands of random and garbled profiles, made by mutating valid ones (wrong
+// Fuzzing: thousands of random and garbled profiles, made by mutating valid ones (wrong
 // types, huge and tiny numbers, missing keys, unknown keys, deep repeats with big counts, text
 // noise), go through the loader and the simulator. Every one must end in a result whose numbers
 // are all finite, or in an InputError with at least one problem; never another exception, a hang

@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { InputError, loadProfile } from "../../src/index.js";
 
 // Bad input: every broken profile gets one exact message per problem, naming file:line, the field
-// path, what was expected and what was found (DESIGN §6; issue 4 "Validation").
+// path, what was expected and what was found (the bad-input rule of README and DEVELOPERS.md).
 const BASE = `name: bad input base
 ambient: 25 degC
 parts:

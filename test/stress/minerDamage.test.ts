@@ -46,11 +46,25 @@ describe("MinerAccumulator (Miner 1945, linear damage rule)", () => {
   });
 
   test("cycles outside the fitted range are counted and reported with their share of the damage", () => {
+    // Repeating history 25, 125, 115, 120, 25: cycles 100 K (N_f = 1e4) and 5 K (N_f = 4e6, outside
+    // 20-150 K). Share of the 5 K cycle: (1/4e6)/(1/1e4 + 1/4e6) = 1/401.
     const acc = new MinerAccumulator(model);
     for (const c of rainflow(pts([25, 125, 115, 120, 25]), { mode: "repeating" })) acc.add(c);
-    const w = acc.result().warnings;
-    expect(w).toHaveLength(1);
-    expect(w[0]).toMatch(/^Coffin-Manson: 1 of 2 counted cycles have a range outside the fitted 20-150 K \(found 5-5 K, test\); they carry 0\.2 % of the damage/);
+    const r = acc.result();
+    expect(r.warnings).toEqual([]);
+    expect(r.extrapolated).toHaveLength(1);
+    const x = r.extrapolated[0]!;
+    expect([x.quantity, x.unit, x.range, x.origin, x.found, x.cycles]).toEqual(["range", "K", [20, 150], "test", [5, 5], 1]);
+    expectClose(x.damageShare, 1 / 401, { rel: 1e-14 }); // two terms, rounding only
+  });
+
+  test("a model with no validity range says its cycles could not be checked", () => {
+    const bare = coffinMansonModel({ referenceCycles: 1e4, referenceRangeK: 100, exponent: 2 });
+    const acc = new MinerAccumulator(bare);
+    for (const c of rainflow(pts([25, 125, 25]), { mode: "repeating" })) acc.add(c);
+    const r = acc.result();
+    expect(r.extrapolated).toEqual([]);
+    expect(r.warnings).toEqual(["Coffin-Manson: no validity range, published or given (lifetime.fittedRange), so the cycles cannot be checked against one"]);
   });
 
   test("a compensated sum keeps a million tiny damages exact to rounding", () => {

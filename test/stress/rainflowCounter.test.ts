@@ -220,6 +220,27 @@ describe("TurningPointFilter", () => {
     expect(run(values, h)).toEqual(expected);
   });
 
+  // Leave times: the last point within the hysteresis band of the extreme before the history
+  // moves out of it for good (the rule stated in src/stress/turningPoints.ts; common practice).
+  const runWithLeave = (values: readonly number[], h: number) => {
+    const out: [number, number, number][] = [];
+    const f = new TurningPointFilter((t, v, leave) => out.push([t, v, leave]), h);
+    values.forEach((v, i) => f.push(i, v));
+    f.finish();
+    return out;
+  };
+
+  test.each([
+    // [history, hysteresis, turning points (reached, value, left)]
+    [[40, 40, 40.3, 148, 40], 0.5, [[0, 40, 2], [3, 148, 3], [4, 40, 4]]], // hours at ambient, then a pulse: left at t = 2
+    [[50, 45, 40, 40.2, 39.9, 40.1, 120, 60], 0.5, [[0, 50, 0], [4, 39.9, 5], [6, 120, 6], [7, 60, 7]]], // settling within the band
+    [[20, 30, 30, 30, 25], 1, [[0, 20, 0], [1, 30, 3], [4, 25, 4]]], // plateau: reached first, left last
+    [[40, 40.4, 40, 41, 40], 0, [[0, 40, 0], [1, 40.4, 1], [2, 40, 2], [3, 41, 3], [4, 40, 4]]], // no band: the level itself
+    [[20, 20.5, 20.2], 1, [[0, 20, 2]]], // never leaves the band: only the start, left at the end
+  ] as const)("filter(%j, %d K) gives reached/value/left %j", (values, h, expected) => {
+    expect(runWithLeave(values, h)).toEqual(expected);
+  });
+
   test("bad input names the field", () => {
     expect(() => new TurningPointFilter(() => {}, -1)).toThrow("cycleHysteresis: expected a temperature difference ≥ 0 K, found -1");
     const f = new TurningPointFilter(() => {});
@@ -246,6 +267,48 @@ describe("rainflow timing", () => {
         }
       }),
     );
+  });
+
+  // Heating time runs from the last moment at the cycle's low level to its peak (rule stated in
+  // src/stress/rainflowCounter.ts; common practice). The cases are invented histories whose
+  // answers are differences of the given times: exact up to the rounding of one subtraction of
+  // numbers near 1e5 s, 1e-10 s.
+  test("a cycle that rises first heats from the time its valley was left", () => {
+    // 40 °C from t = 0, left at 10 800 s (3 h), peak 148 °C at 10 800.3 s, back to 40 °C at 14 400 s
+    const cycles = rainflow([{ timeS: 0, value: 40, leaveS: 10800 }, { timeS: 10800.3, value: 148 }, { timeS: 14400, value: 40 }], { mode: "open" });
+    const rise = cycles.find((c) => c.startS === 0)!;
+    expect(rise.count).toBe(0.5);
+    expectClose(rise.heatingTimeS, 0.3, { abs: 1e-10 });
+    expectClose(rise.durationS, 0.6, { abs: 1e-10 }); // a half cycle lasts twice its one-way travel
+  });
+
+  test("a cycle that falls first heats on its closing travel, from the time its valley was left", () => {
+    // peak 100 at 0, valley 60 reached at 10 s and left at 100 s, rising to 140 at 101 s:
+    // the closing travel 60 → 140 regains 100 half-way, 0.5 s after leaving the valley.
+    const [cycle] = rainflow([{ timeS: 0, value: 20 }, { timeS: 1, value: 100 }, { timeS: 10, value: 60, leaveS: 100 }, { timeS: 101, value: 140 }], { mode: "open" }).filter((c) => c.count === 1);
+    expect([cycle!.minC, cycle!.maxC]).toEqual([60, 100]);
+    expectClose(cycle!.heatingTimeS, 0.5, { abs: 1e-12 });
+    expectClose(cycle!.durationS, 9 + 90 + 0.5, { abs: 1e-12 }); // down 9 s, 90 s at the valley, back up 0.5 s
+  });
+
+  test("daily pulses closed on the largest peak each heat for the pulse alone, not for the days between", () => {
+    // Three days of a 0.3 s pulse to about 148 °C from 40 °C, each left at the moment its pulse
+    // starts; the peaks differ in the last digits, as computed peaks do, and the valleys by less
+    // than the 0.5 K band. Closing the repeating history on its largest peak (§5.4.5) pairs the
+    // first day's valley with the last peak: the valleys counted away in between (back within the
+    // band) move its leave time to the last pulse's start.
+    const day = 86400;
+    const points = [0, 1, 2].flatMap((k) => [
+      { timeS: k * day, value: 40 + 0.1 * k, leaveS: k * day },
+      { timeS: k * day + 0.3, value: 148 + 1e-12 * k },
+    ]);
+    points.push({ timeS: 2 * day + 3600, value: 40.05, leaveS: 3 * day });
+    const cycles: RainflowCycle[] = [];
+    const counter = new RainflowCounter((c) => cycles.push(c), { mode: "repeating", levelBandK: 0.5 });
+    for (const p of points) counter.push(p.timeS, p.value, p.leaveS);
+    counter.finish(3 * day);
+    expect(cycles).toHaveLength(3);
+    for (const c of cycles) expectClose(c.heatingTimeS, 0.3, { abs: 1e-10 });
   });
 
   test("a repeating history cannot be closed with a period shorter than itself", () => {

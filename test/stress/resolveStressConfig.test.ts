@@ -52,6 +52,43 @@ describe("resolveStressConfig", () => {
     );
   });
 
+  test("a pulse-energy table is derated from 25 °C by default to the part's limit, or as the rating says", () => {
+    const pulseEnergy = [{ duration: "1 s", energy: "100 J" }];
+    expect(resolveStressConfig({ ratings: { pulseEnergy } }, { limitC: 180 }).pulseEnergyDerating).toEqual({
+      referenceC: 25,
+      maxTemperatureC: 180,
+      referenceFrom: "default",
+      maxTemperatureFrom: "part limit",
+    });
+    const given = resolveStressConfig({ ratings: { pulseEnergy, pulseEnergyDerating: { reference: "70 degC", maxTemperature: "623.15 K" } } }, { limitC: 180 });
+    expect(given.pulseEnergyDerating).toMatchObject({ referenceC: 70, referenceFrom: "profile", maxTemperatureFrom: "profile" });
+    expect(given.pulseEnergyDerating!.maxTemperatureC).toBeCloseTo(350, 12);
+    // no table: nothing to derate; no limit and no maxTemperature (a library call): not derated, and the note says so
+    expect(resolveStressConfig({}, { limitC: 180 }).pulseEnergyDerating).toBeUndefined();
+    const bare = resolveStressConfig({ ratings: { pulseEnergy } });
+    expect(bare.pulseEnergyDerating).toBeUndefined();
+  });
+
+  test.each([
+    [
+      { pulseEnergyDerating: { maxTemperature: "20 degC" } },
+      180,
+      'parts[0].ratings.pulseEnergyDerating.maxTemperature: expected a temperature above the reference 25 °C, found "20 degC"',
+    ],
+    [
+      {},
+      20,
+      "parts[0].ratings.pulseEnergyDerating.reference: expected a temperature below the part's limit 20 °C, where the allowance reaches zero (or a maxTemperature of the rating above it), found 25 °C (the default)",
+    ],
+    [
+      { pulseEnergyDerating: { reference: "5 s" } },
+      180,
+      'parts[0].ratings.pulseEnergyDerating.reference: expected a temperature such as "40 degC" (or a number in degC), found "5 s" (a time)',
+    ],
+  ])("pulse-energy derating %j with a part limit of %d °C is refused: %s", (keys, limitC, expected) => {
+    expect(message({ ratings: { pulseEnergy: [{ duration: "1 s", energy: "100 J" }], ...keys } }, { field: "parts[0]", limitC })).toBe(expected);
+  });
+
   test("CIPS 2008 reads a wire diameter with a unit", () => {
     const c = resolveStressConfig({ lifetime: { model: "cips2008", currentPerWire: "10 A", voltageClass: "600 V", wireDiameter: "300 um" } });
     expect(c.lifetime!.parameterWarnings.some((w) => w.includes("from memory"))).toBe(true);

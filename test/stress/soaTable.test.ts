@@ -3,6 +3,8 @@ import { InputError, allowedDrainCurrentA, checkSoa, soaDeratingFactor, validate
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented SOA table (demo data): a current limit, then power-limited lines on log-log axes.
+// Log-log interpolation between corners and between durations is common practice (SOA charts are
+// drawn on log-log axes, straight between corners): the expected values are that rule's algebra.
 const soa = [
   { durationS: 1e-4, points: [{ vdsV: 10, idA: 100 }, { vdsV: 100, idA: 20 }] },
   { durationS: 1e-2, points: [{ vdsV: 10, idA: 40 }, { vdsV: 100, idA: 2 }] },

@@ -33,10 +33,11 @@ function worstRelativeGap(a: FosterNetwork, b: FosterNetwork): number {
 }
 
 describe("fitFosterNetwork", () => {
-  // The recovery check of issue 7: 40 log-spaced points of a known 4-stage network with 1 % normal
+  // The recovery check: 40 log-spaced points of a known 4-stage network with 1 % normal
   // noise (σ = 1 % of Zth, so single points stray up to ~3 %); the fitted Zth stays within 2 % of
   // the known Zth over the data range. Measured over seeds 1-30: worst gap 1.4 % (seed 30), 1.3 %
-  // for seeds 1-10; 2 % is the issue's bound.
+  // for seeds 1-10; 2 % is about 1.5x the worst measured gap, and finer than a curve read off a
+  // datasheet plot (common practice: a few per cent).
   test.each([1, 2, 3, 4, 5, 6, 7, 8, 9, 10])("fitFosterNetwork recovers a known 4-stage network from 40 points with 1 per cent noise, seed %i", (seed) => {
     const fit = fitFosterNetwork(noisyPoints(seed, 0.01));
     expect(worstRelativeGap(fit.network, KNOWN)).toBeLessThan(0.02);
@@ -62,15 +63,16 @@ describe("fitFosterNetwork", () => {
   });
 
   test("fitFosterNetwork on exact points returns the known network itself", () => {
-    // Exact data: the refinement reaches rounding level (measured max relative error 4e-16);
-    // 1e-9 on Zth and 1e-6 on each R and tau leaves room for other platforms' libm.
+    // Exact data: the refinement reaches rounding level. Measured when the tolerances were set:
+    // largest relative Zth error 3.9e-16, largest relative error of an R or a tau 8.9e-16; the
+    // bounds below are about 5x those (Node's Math functions are V8's own on every platform).
     const points = logSpacedTimes(DATA_FROM_S, DATA_TO_S, 40).map((t) => ({ timeS: t, zthKPerW: zth(knownModel, t) }));
     const fit = fitFosterNetwork(points);
     expect(fit.network.stages.length).toBe(4);
-    expect(fit.errors.maxRelativeError).toBeLessThan(1e-9);
+    expect(fit.errors.maxRelativeError).toBeLessThan(2e-15);
     fit.network.stages.forEach((s, i) => {
-      expectClose(s.rKPerW, KNOWN.stages[i]!.rKPerW, { rel: 1e-6 });
-      expectClose(s.tauS, KNOWN.stages[i]!.tauS, { rel: 1e-6 });
+      expectClose(s.rKPerW, KNOWN.stages[i]!.rKPerW, { rel: 4e-15 });
+      expectClose(s.tauS, KNOWN.stages[i]!.tauS, { rel: 4e-15 });
     });
     expect(fit.warnings).toEqual([]);
   });

@@ -6,7 +6,7 @@ describe("lumpedNetwork", () => {
   test("one lump: C = m·c, tau = R·C, Zth = R·(1 − e^(−t/tau))", () => {
     // 3 g of nichrome (c = 420 J/(kg K), Incropera 7th ed. Table A.1, from memory) to ambient
     // through 40 K/W: C = 0.003·420 = 1.26 J/K, tau = 50.4 s.
-    // Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, eq. 5.6.
+    // Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1, eq. 5.6-5.7.
     const ladder = lumpedNetwork({ element: { massKg: 0.003, specificHeatJPerKgK: materialPreset("nichrome").specificHeatJPerKgK }, rToAmbientKPerW: 40 });
     expect(ladder).toEqual({ kind: "cauer", part: "resistor", stages: [{ cJPerK: 0.003 * 420, rKPerW: 40 }] });
     const model = cauerToModal(ladder);
@@ -18,7 +18,7 @@ describe("lumpedNetwork", () => {
   test("two lumps: steady Zth is R1 + R2 and the early slope is 1/C_element", () => {
     // Element 0.5 g of nichrome (C1 = 0.21 J/K) on a 20 g alumina core (C2 = 0.02·765 = 15.3 J/K),
     // 2 K/W between them and 25 K/W to ambient. Series resistances add at steady state, and for
-    // t ≪ every tau the element heats adiabatically, Zth(t) ≈ t/C1 (Incropera 7th ed. §5.2).
+    // t ≪ every tau the element heats adiabatically, Zth(t) ≈ t/C1 (Incropera 7th ed. §5.1 and §5.3).
     const ladder = lumpedNetwork({
       element: { massKg: 0.0005, specificHeatJPerKgK: 420 },
       body: { massKg: 0.02, specificHeatJPerKgK: 765, rElementToBodyKPerW: 2 },

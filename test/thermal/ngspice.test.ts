@@ -18,9 +18,9 @@ import { fosterElements, graphElements, runNgspice, spiceNumber } from "./ngspic
 // running the same network as an RC netlist (thermal analogy: K/W as ohms, J/K as farads, W as
 // amperes, K as volts) under a PWL current source of 60 trapezoidal pulses. The engine is given the
 // identical power (linear edges as ramp terms a + b·s), so only ngspice's own integration error
-// separates the two. Tolerance 0.05 K (issue 2): with reltol=1e-5, abstol=1e-10, vntol=1e-8
-// ngspice's error is of order 1e-3..1e-2 K on peaks of tens of K (TOOLCHAIN.md measured 4e-3 K on
-// a 9.5 K peak), so 0.05 K is a real bound that a wrong gain, tau or chaining would break. This
+// separates the two. Tolerance 0.05 K, about twice the worst difference measured below: with
+// reltol=1e-5, abstol=1e-10, vntol=1e-8 ngspice's error is of order 1e-3..1e-2 K on peaks of tens
+// of K, so 0.05 K is a real bound that a wrong gain, tau or chaining would break. This
 // test fails, never skips, when ngspice is missing (runNgspice throws).
 // Measured (2026-12, ngspice 39): worst differences 1.2e-2 K (Foster, 39.7 K peak), 1.5e-2 K
 // (Cauer, 25.2 K peak), 2.2e-2 K (chained, 43.8 K peak); with reltol=1e-7 they fall to about

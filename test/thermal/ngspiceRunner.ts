@@ -7,6 +7,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { FosterNetwork, ThermalGraph } from "../../src/index.js";
+import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 
 /** Plain exponent notation: SPICE reads "1M" as milli and "2F" as femto, so never emit suffixes. */
 export function spiceNumber(x: number): string {
@@ -75,8 +76,7 @@ export function runNgspice(elements: readonly string[], node: string, stopS: num
     // Through bash so that its `times` builtin reports ngspice's own CPU time (the machine may be shared).
     const result = spawnSync("bash", ["-c", "ngspice -b net.cir; status=$?; echo '@@times'; times; exit $status"], { cwd: dir, encoding: "utf8", maxBuffer: 1 << 26 });
     const wallS = Number(process.hrtime.bigint() - started) / 1e9;
-    if (result.error !== undefined) throw new Error(`ngspice could not be run: ${result.error.message}`);
-    if (result.status === 127) throw new Error("ngspice is not installed (Debian package ngspice): the outside-reference checks cannot run");
+    requireNgspiceRan(result);
     const [output, timesText] = result.stdout.split("@@times");
     const log = `${output}\n${result.stderr}`;
     const childLine = (timesText ?? "").trim().split("\n")[1] ?? "";

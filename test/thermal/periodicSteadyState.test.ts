@@ -23,7 +23,7 @@ import { expectClose } from "../helpers/expectClose.js";
 //   and as n → ∞, u_∞ = P·R·(1 − a)/(1 − q).
 // The peak of pulse n is Σ_i u_n (every branch rises during the pulse, so the end of the pulse is the
 // maximum). Source: lumped RC step response, Incropera et al., Fundamentals of Heat and Mass Transfer,
-// 7th ed. (2011), §5.2; geometric series and first-order difference equations, Boyce & DiPrima,
+// 7th ed. (2011), §5.1 and §5.3; geometric series and first-order difference equations, Boyce & DiPrima,
 // Elementary Differential Equations, 10th ed. (2012), §2.9.
 function pulsePeak(network: FosterNetwork, P: number, tp: number, T: number, n: number): number {
   let sum = 0;

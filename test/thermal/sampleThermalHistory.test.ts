@@ -13,7 +13,8 @@ import {
 import { expectClose } from "../helpers/expectClose.js";
 
 // Single RC stage, R = 2 K/W, tau = 0.5 s: heating P·R·(1 − e^(−t/tau)), cooling θ0·e^(−t/tau).
-// Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.2, eq. 5.6.
+// Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3
+// (lumped capacitance).
 const R = 2;
 const TAU = 0.5;
 const single = fosterToModal({ kind: "foster", stages: [{ rKPerW: R, tauS: TAU }] });
@@ -60,7 +61,7 @@ describe("sampleThermalHistory local maxima", () => {
 
   test("decaying pulses on a Cauer ladder: the maxima equal those of dense sampling within 0.01 K", () => {
     // Dense brute force: 40,001 exact samples; each local maximum of the sampled sequence must have
-    // a reported peak within 0.01 K (DESIGN §3 peak accuracy) and vice versa.
+    // a reported peak within 0.01 K (docs/design.md, "Peak accuracy") and vice versa.
     const ladder = cauerToModal({ kind: "cauer", stages: [{ rKPerW: 0.2, cJPerK: 0.005 }, { rKPerW: 0.5, cJPerK: 0.1 }, { rKPerW: 1, cJPerK: 4 }] });
     const trace: PowerSegment[] = Array.from({ length: 4 }, (_, k) => ({ startS: k * 0.5, durationS: 0.25, terms: [{ a: 500, b: 0, lambda: 30 }] }));
     const end = 2;

@@ -16,7 +16,7 @@ import { expectClose } from "../helpers/expectClose.js";
 // interiorPeaks against dense brute-force sampling: the rise is evaluated exactly (closed form)
 // at 200,001 evenly spaced points of the step and the largest is taken. The brute force's own
 // error is below (h/200000)·max|slope|, about 1e-4 K in these cases, so agreement within 0.01 K
-// (the accuracy DESIGN §3 asks of the peak search) is a real check.
+// (docs/design.md, "Peak accuracy") is a real check.
 const foster = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.1, tauS: 5e-4 }, { rKPerW: 0.4, tauS: 0.01 }, { rKPerW: 0.8, tauS: 0.3 }, { rKPerW: 1.5, tauS: 6 }] });
 const cauer = cauerToModal({ kind: "cauer", stages: [{ rKPerW: 0.2, cJPerK: 0.005 }, { rKPerW: 0.5, cJPerK: 0.1 }, { rKPerW: 1, cJPerK: 4 }] });
 

@@ -4,7 +4,7 @@ import { expectClose } from "../helpers/expectClose.js";
 
 // One RC stage driven by a power step: rise(t) = P·R·(1 − e^(−t/τ)); cooling from θ0:
 // θ0·e^(−t/τ). Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011),
-// §5.2 (lumped capacitance method), eq. 5.6 and its heated form.
+// §5.1 (lumped capacitance method, eq. 5.6) and §5.3 (the heated form).
 describe("single RC stage (lumped capacitance)", () => {
   const R = 2.5;
   const tau = 0.8;

@@ -2,7 +2,8 @@ import { describe, expect, test } from "vitest";
 import { InputError, parseQuantity } from "../../src/index.js";
 
 describe("parseQuantity", () => {
-  // SI prefixes and coherent units: SI brochure, 9th ed. (BIPM 2019), table 8 and §2.3.
+  // SI prefixes and coherent units: SI brochure, 9th ed. (BIPM 2019), §3, Table 7 and §2.3 (section
+  // and table numbers from memory).
   test.each([
     ["4.7 mF", "capacitance", 4.7e-3],
     ["350 ms", "time", 0.35],

@@ -1,5 +1,5 @@
 import type { Command } from "commander";
-import { SIZE_DEFAULTS } from "../../plan/sizeDefaults.js";
+import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../plan/sizeDefaults.js";
 import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
@@ -8,7 +8,11 @@ import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 export const SIZE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (verdict, parts, circuit) instead of the text report" },
   { flags: "--part <id>", help: "size only this part (repeat the flag for several; default every part)" },
-  { flags: "--material <preset>", help: `give capacities as masses of a material preset: ${MATERIALS.map((m) => m.id).join(", ")}` },
+  {
+    flags: "--scale <what>",
+    help: `what the capacity answer scales: ${SIZE_SCALE_SCOPES.join(" or ")} (default ${SIZE_DEFAULTS.scale}); whole: every heat capacity of the part's network (a larger part of the same build), element: only its element capacity C1, the rest as it is`,
+  },
+  { flags: "--material <preset>", help: `give the adiabatic and element capacities as masses of a material preset: ${MATERIALS.map((m) => m.id).join(", ")}` },
   { flags: "--margin <K>", help: "size to this margin below each limit (default: each part's own margin from the profile)" },
   STRICT_OPTION,
 ] as const;
@@ -18,6 +22,7 @@ export interface SizeFlags {
   readonly json?: boolean;
   readonly part?: string[];
   readonly material?: string;
+  readonly scale?: string;
   readonly margin?: string;
   readonly strict?: boolean;
 }
@@ -31,10 +36,14 @@ export function registerSize(program: Command, run: CliRun): void {
     .addHelpText(
       "after",
       `
-Heat capacity: the adiabatic bound C = E/ΔT of the worst event, then the whole profile inverted:
-every heat capacity of the part's network is scaled by k at fixed thermal resistances (Foster:
-tau -> k·tau), k bracketed by factors of ${SIZE_DEFAULTS.bracketFactor} and bisected until the peak is within
-${SIZE_DEFAULTS.temperatureToleranceK} K under the limit less the margin. Charging element: the largest series (or source)
+Heat capacity: the adiabatic bound C = E/ΔT of the worst event, then the whole profile inverted
+for the smallest k at fixed thermal resistances, bracketed by factors of ${SIZE_DEFAULTS.bracketFactor} and bisected until the
+peak is within ${SIZE_DEFAULTS.temperatureToleranceK} K under the limit less the margin. --scale whole (the default) multiplies every
+heat capacity of the part's network by k (Foster: tau -> k·tau): the whole body grows, and C1 at k
+is only the element's share of it. --scale element multiplies only the element capacity C1 (first
+capacity of a Cauer ladder, the part's source node of a graph; a Foster network is turned into its
+exact Cauer ladder first) and gives it as C1 and, with --material, as the element's mass C1/c.
+--json includes the sized network as a network file holds it. Charging element: the largest series (or source)
 resistance, or the smallest charging current or power, that completes a healthy power-up from
 0 V within the profile's timeout.
 ${verdictHelp("Here the verdict judges the answers: fail when a part or the charging element has no feasible size (the report says why); warn when a part sized to a smaller --margin than its profile wants peaks inside that margin; else pass.")}

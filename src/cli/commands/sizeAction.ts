@@ -1,4 +1,6 @@
+import { describeFound, inputError } from "../../errors/InputError.js";
 import { sizeProfile } from "../../plan/sizeProfile.js";
+import { SIZE_SCALE_SCOPES, type SizeScaleScope } from "../../plan/sizeDefaults.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSizingText } from "../../report/formatSizingText.js";
 import { sizingJson } from "../../report/sizingJson.js";
@@ -14,19 +16,28 @@ import type { SizeFlags } from "./size.js";
  * only when the command runs): size every part (or the --part ones) and the charging element and
  * print the report; the exit status follows the verdict (verdictExitStatus: 1 when no feasible
  * size exists).
- * @throws InputError for a bad profile, a file it names, --material or --margin
+ * @throws InputError for a bad profile, a file it names, --material, --margin or --scale
  */
 export function sizeAction(run: CliRun, file: string, options: SizeFlags): void {
   const material = options.material === undefined ? undefined : materialPreset(options.material, "--material");
   const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
+  const scope = options.scale === undefined ? undefined : scaleScope(options.scale);
   const profile = readProfileFile(run.io, file);
   const report = sizeProfile(profile, {
     models: defaultCircuitModels,
     ...(material === undefined ? {} : { material }),
     ...(marginK === undefined ? {} : { marginK }),
     ...(options.part === undefined ? {} : { partIds: options.part }),
+    ...(scope === undefined ? {} : { scope }),
   });
   if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
   else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
   run.status = verdictExitStatus(report.verdict, options.strict === true);
+}
+
+/** The value of --scale, checked. */
+function scaleScope(value: string): SizeScaleScope {
+  const scope = SIZE_SCALE_SCOPES.find((s) => s === value.trim().toLowerCase());
+  if (scope === undefined) throw inputError("bad-option", "--scale", SIZE_SCALE_SCOPES.join(" or "), describeFound(value));
+  return scope;
 }
