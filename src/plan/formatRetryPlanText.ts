@@ -1,4 +1,4 @@
-import { formatCautions } from "../report/cautions.js";
+import { formatCautions, wrapText } from "../report/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
 import type { GoverningCorner } from "./GoverningCorner.js";
 import { lockoutMapHeatmap } from "./formatLockoutMap.js";
@@ -23,6 +23,14 @@ export function backoffWords(backoff: number, maxIntervalS: number): string {
   return Number.isFinite(maxIntervalS) ? `, back-off ×${backoff} up to ${formatPlanDuration(maxIntervalS)}` : `, back-off ×${backoff}, no longest interval`;
 }
 
+/** A paragraph wrapped to `width`, its first line after `lead` and the others under its text. */
+function wrapped(lead: string, text: string, width: number): string {
+  return wrapText(text, width - lead.length)
+    .split("\n")
+    .map((line, i) => (i === 0 ? lead : " ".repeat(lead.length)) + line)
+    .join("\n");
+}
+
 function bands(list: readonly FeasibleBand[]): string {
   return list.map((b) => (b.openEnded ? `${formatPlanDuration(b.fromS)} and longer` : `${formatPlanDuration(b.fromS)} to ${formatPlanDuration(b.toS)}`)).join("; ");
 }
@@ -43,11 +51,13 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push("Safe means: every attempt's peak at or below the part's limit less its design margin, in every");
   out.push("corner. The profile's own policy gets a verdict: pass (safe), warn or fail, as in every command.");
   out.push("");
-  out.push(`Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${backoffWords(r.backoff, r.maxIntervalS)}), then a ${formatPlanDuration(r.lockoutS)} lockout.`);
-  out.push(`  ${verdictLine(policy.verdict)}`);
-  out.push(`  One burst from a cold part: ${policy.burstVerdict}; ${corner(policy.burst)}.`);
-  out.push(`  Burst + lockout repeated while the fault persists: ${policy.cyclesVerdict}; ${corner(policy.cycles)}.`);
-  for (const reason of policy.reasons) out.push(`  - ${reason}`);
+  out.push(
+    wrapped("", `Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${backoffWords(r.backoff, r.maxIntervalS)}), then a ${formatPlanDuration(r.lockoutS)} lockout.`, width),
+  );
+  out.push(wrapped("  ", verdictLine(policy.verdict), width));
+  out.push(wrapped("  ", `One burst from a cold part: ${policy.burstVerdict}; ${corner(policy.burst)}.`, width));
+  out.push(wrapped("  ", `Burst + lockout repeated while the fault persists: ${policy.cyclesVerdict}; ${corner(policy.cycles)}.`, width));
+  for (const reason of policy.reasons) out.push(wrapped("  - ", reason, width));
   out.push("");
 
   const u = report.uniformInterval;
