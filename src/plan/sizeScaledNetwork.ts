@@ -55,13 +55,14 @@ export function sizeScaledNetwork(network: ThermalNetwork, sourceNode: string, s
       if (scope === "whole") {
         let slope = 0;
         for (const s of network.stages) slope += s.rKPerW / s.tauS;
-        return { network: { kind: "foster", stages: network.stages.map((s) => ({ rKPerW: s.rKPerW, tauS: s.tauS * scale })) }, elementCapacityJPerK: scale / slope };
+        return { network: { ...network, stages: network.stages.map((s) => ({ rKPerW: s.rKPerW, tauS: s.tauS * scale })) }, elementCapacityJPerK: scale / slope };
       }
       return sizeScaledNetwork(ladderOf(network, field), sourceNode, scope, scale, field);
     }
     case "cauer": {
       const stages = network.stages.map((s, j) => ({ rKPerW: s.rKPerW, cJPerK: scope === "whole" || j === 0 ? s.cJPerK * scale : s.cJPerK }));
-      return { network: { kind: "cauer", stages }, elementCapacityJPerK: stages[0]?.cJPerK ?? 0 };
+      // the same part (its `part`, so its node names) with other capacities
+      return { network: { ...network, stages }, elementCapacityJPerK: stages[0]?.cJPerK ?? 0 };
     }
     case "graph": {
       const element = network.nodes.find((n) => n.id === sourceNode);

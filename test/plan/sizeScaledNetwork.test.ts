@@ -4,9 +4,10 @@ import type { CauerLadder, FosterNetwork, ThermalGraph } from "../../src/index.j
 import { expectClose } from "../helpers/expectClose.js";
 import { inputErrorMessage } from "../helpers/inputErrorMessage.js";
 
-// What `heatledger size --scale whole|element` does to a network. Invented networks.
-const foster: FosterNetwork = { kind: "foster", stages: [{ rKPerW: 0.35, tauS: 0.04 }, { rKPerW: 0.9, tauS: 1.8 }, { rKPerW: 1.6, tauS: 45 }] };
-const ladder: CauerLadder = { kind: "cauer", stages: [{ rKPerW: 0.4, cJPerK: 0.8 }, { rKPerW: 1.5, cJPerK: 6 }, { rKPerW: 2.5, cJPerK: 60 }] };
+// What `heatledger size --scale whole|element` does to a network. Invented networks; the Foster
+// and Cauer ones describe a semiconductor, so their heated node is named "junction".
+const foster: FosterNetwork = { kind: "foster", part: "semiconductor", stages: [{ rKPerW: 0.35, tauS: 0.04 }, { rKPerW: 0.9, tauS: 1.8 }, { rKPerW: 1.6, tauS: 45 }] };
+const ladder: CauerLadder = { kind: "cauer", part: "semiconductor", stages: [{ rKPerW: 0.4, cJPerK: 0.8 }, { rKPerW: 1.5, cJPerK: 6 }, { rKPerW: 2.5, cJPerK: 60 }] };
 const graph: ThermalGraph = {
   kind: "graph",
   nodes: [{ id: "die", cJPerK: 0.012 }, { id: "case", cJPerK: 0.9 }, { id: "resistor", cJPerK: 0.6 }, { id: "sink", cJPerK: 85 }],
@@ -62,6 +63,10 @@ describe("sizeScaledNetwork: element only", () => {
     const scaled = sizeScaledNetwork(foster, "junction", "element", 5).network as CauerLadder;
     expect(scaled.stages.map((s) => s.cJPerK)).toEqual(ladderOfFoster.stages.map((s, j) => (j === 0 ? s.cJPerK * 5 : s.cJPerK)));
     expect(scaled.stages.map((s) => s.rKPerW)).toEqual(ladderOfFoster.stages.map((s) => s.rKPerW));
+  });
+
+  test("a scaled ladder or Foster network is the same part: its part key, so its node names, are kept", () => {
+    for (const scope of ["whole", "element"] as const) for (const network of [foster, ladder]) expect(sizeScaledNetwork(network, "junction", scope, 2).network).toHaveProperty("part", "semiconductor");
   });
 
   test("the scaled element sets the initial slope of Zth: dZ/dt(0) = 1/(k·C1)", () => {

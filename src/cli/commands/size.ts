@@ -43,9 +43,9 @@ heat capacity of the part's network by k (Foster: tau -> k·tau): the whole body
 is only the element's share of it. --scale element multiplies only the element capacity C1 (first
 capacity of a Cauer ladder, the part's source node of a graph; a Foster network is turned into its
 exact Cauer ladder first) and gives it as C1 and, with --material, as the element's mass C1/c.
---json includes the sized network as a network file holds it. Charging element: the largest series (or source)
-resistance, or the smallest charging current or power, that completes a healthy power-up from
-0 V within the profile's timeout.
+--json includes the sized network as a network file holds it. Charging element: the largest
+series (or source) resistance, or the smallest charging current or power, that completes a
+healthy power-up from 0 V within the profile's timeout.
 ${verdictHelp("Here the verdict judges the answers: fail when a part or the charging element has no feasible size (the report says why); warn when a part sized to a smaller --margin than its profile wants peaks inside that margin; else pass.")}
 See README, "Sizing a pre-charge part" and "Verdicts and exit status".`,
     );
