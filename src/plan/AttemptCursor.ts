@@ -99,6 +99,14 @@ export class AttemptCursor {
     return this.lastEndS ?? 0;
   }
 
+  /**
+   * The earliest start the next attempt may have [s]: the end of the last kept attempt plus the
+   * corner's shortest wait (the relay opening and closing again); 0 before the first attempt.
+   */
+  get earliestNextS(): number {
+    return this.lastEndS === null ? 0 : this.lastEndS + (this.count > 0 ? this.corner.minWaitS : 0);
+  }
+
   /** Start of the last kept attempt [s] (0 before the first attempt). */
   get lastStartS(): number {
     return this.records[this.records.length - 1]?.startS ?? 0;
@@ -141,12 +149,15 @@ export class AttemptCursor {
 
   /**
    * Try an attempt starting at absolute time startS, without keeping it.
-   * @returns null when startS is before the end of the last kept attempt (the attempts would overlap)
+   * @returns null when startS is before the end of the last kept attempt, or (after an attempt)
+   *   sooner after it than the corner's shortest wait (the attempts would overlap, or the relay
+   *   could not open and close again in time); a start short of it by rounding only (1e-12 of the
+   *   time) counts as on time
    * @throws InputError `bad-trace` / `not-finite` when the attempt or discharge model returns bad values
    */
   tryAt(startS: number): AttemptTrial | null {
     const waitS = this.lastEndS === null ? Infinity : startS - this.lastEndS;
-    if (waitS < 0) return null;
+    if (waitS < 0 || (this.count > 0 && waitS < this.corner.minWaitS - 1e-12 * Math.max(1, Math.abs(startS)))) return null;
     const c = this.corner;
     const field = `corners.${c.name}`;
     const start = createModalState(c.model);
@@ -191,7 +202,8 @@ export class AttemptCursor {
   /**
    * A cursor that continues from a given state, as if `attempts` attempts had been kept and the
    * last one ended at `endS` with the capacitor at `endVoltageV` (used for the periodic steady
-   * state). The history list starts empty.
+   * state). With `attempts` 0 the state is a starting state with no attempt before it, so the
+   * corner's shortest wait does not apply to the first attempt. The history list starts empty.
    */
   static resume(corner: ResolvedScenario, at: { state: ModalState; endS: number; endVoltageV: number; attempts: number }): AttemptCursor {
     const cursor = new AttemptCursor(corner);

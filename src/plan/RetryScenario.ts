@@ -64,6 +64,13 @@ export interface RetryScenario {
   readonly attempt: AttemptModel;
   /** the capacitor between attempts */
   readonly discharge: DischargeModel;
+  /**
+   * the shortest time from an attempt's end to the next attempt's start that the hardware allows
+   * (the relay's release plus operate time, shortestAttemptWaitS) [s]; default 0. An attempt asked
+   * to start sooner cannot happen: the solvers treat it like an attempt that would start before
+   * the previous one ends.
+   */
+  readonly minWaitS?: number;
 }
 
 /** A corner with its defaults resolved and its limits checked: what the solvers work with. */
@@ -82,6 +89,8 @@ export interface ResolvedScenario {
   readonly initialVoltageV: number;
   readonly attempt: AttemptModel;
   readonly discharge: DischargeModel;
+  /** shortest wait between attempts the hardware allows [s] */
+  readonly minWaitS: number;
   /** slowest thermal time constant [s] */
   readonly slowestTauS: number;
 }
@@ -90,7 +99,7 @@ export interface ResolvedScenario {
  * Check one corner and resolve its defaults.
  * @throws InputError `bad-network` for a bad thermal model or an unknown source/observed node;
  *   `out-of-range` for a limit minus margin that is not above ambient, a negative margin, a
- *   non-finite temperature or voltage
+ *   non-finite temperature or voltage, a shortest wait that is not finite and ≥ 0
  */
 export function resolveScenario(scenario: RetryScenario, field = `corners.${scenario.name}`): ResolvedScenario {
   validateModalModel(scenario.model, `${field}.network`);
@@ -99,6 +108,8 @@ export function resolveScenario(scenario: RetryScenario, field = `corners.${scen
   for (const key of ["ambientC", "limitC", "marginK", "initialVoltageV"] as const) {
     if (!Number.isFinite(scenario[key])) throw inputError("not-finite", `${field}.${key}`, "a finite number", describeFound(scenario[key]));
   }
+  const minWaitS = scenario.minWaitS ?? 0;
+  if (!(minWaitS >= 0) || !Number.isFinite(minWaitS)) throw inputError("out-of-range", `${field}.minWaitS`, "a finite shortest wait ≥ 0 s", describeFound(minWaitS));
   if (scenario.marginK < 0) throw inputError("out-of-range", `${field}.marginK`, "a design margin ≥ 0 K", describeFound(scenario.marginK));
   const allowedC = scenario.limitC - scenario.marginK;
   if (!(allowedC > scenario.ambientC)) {
@@ -122,6 +133,7 @@ export function resolveScenario(scenario: RetryScenario, field = `corners.${scen
     initialVoltageV: scenario.initialVoltageV,
     attempt: scenario.attempt,
     discharge: scenario.discharge,
+    minWaitS,
     slowestTauS: Math.max(...scenario.model.tauS),
   };
 }

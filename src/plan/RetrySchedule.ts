@@ -16,8 +16,9 @@ export interface BurstPlan {
   /**
    * start-to-start only: what happens when an attempt outlasts its gap. "forbid" (default): the
    * burst is impossible (solvers treat it as unsafe); "start-at-end": the next attempt starts as
-   * soon as the previous one ends (how a firmware timer that is checked after the attempt behaves,
-   * and how duty profiles expand retry blocks).
+   * soon as the previous one ends and the relay has opened and closed again (the scenario's
+   * minWaitS; how a firmware timer that is checked after the attempt behaves, and how duty
+   * profiles expand retry blocks).
    */
   readonly overrun?: "forbid" | "start-at-end";
 }

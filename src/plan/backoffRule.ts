@@ -7,8 +7,12 @@ import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import { runBurst } from "./runBurst.js";
 import { type FeasibleBand, scanFeasibleBands } from "./scanFeasibleBands.js";
 import type { FastestScheduleAnswer } from "./fastestSchedule.js";
+import { ceilToTimer } from "./alignToTimer.js";
 
-/** A back-off rule firmware can implement: wait_k = firstWait × growth^(k − 1) after attempt k's end. */
+/**
+ * A back-off rule firmware can implement: wait_k = firstWait × growth^(k − 1) after attempt k's
+ * end, each wait rounded up to a whole step of the firmware's timer.
+ */
 export interface BackoffRule {
   /** wait after the first attempt ends [s] */
   readonly firstWaitS: number;
@@ -37,6 +41,8 @@ export interface BackoffRuleOptions {
   readonly maxGrowthFactor?: number;
   /** growth factor scan points (default PLAN_DEFAULTS.growthScanPoints) */
   readonly scanPoints?: number;
+  /** the firmware timer's resolution [s]: each wait is rounded up to it before the burst is simulated (default PLAN_DEFAULTS.timerResolutionS, 0: no rounding) */
+  readonly timerResolutionS?: number;
 }
 
 /**
@@ -46,7 +52,9 @@ export interface BackoffRuleOptions {
  * maxGrowthFactor are scanned linearly and each band edge bisected (the burst is not always safer
  * with a larger factor: the capacitor's charge makes peak against wait non-monotone); of the
  * candidates, the rule whose burst ends first is returned. Candidates usually come from the
- * fastest schedule's waits (firstWaitCandidates).
+ * fastest schedule's waits (firstWaitCandidates). With a timer resolution the first wait and
+ * every later wait are rounded up to whole timer steps (backoffWaits) and the burst is simulated
+ * with the rounded waits, so the rule reported is checked as firmware would run it.
  * Cost O(candidates × (scan points + edges × log2(1/relTol)) × corners × N × cost of one attempt).
  * @throws InputError for bad corners, no candidate, a negative first wait or a growth factor range below 1
  */
@@ -61,16 +69,20 @@ export function backoffRule(scenarios: readonly RetryScenario[], attempts: numbe
   if (!(top >= 1) || !Number.isFinite(top)) throw inputError("out-of-range", "maxGrowthFactor", "a finite growth factor ≥ 1", describeFound(top));
   const points = options.scanPoints ?? PLAN_DEFAULTS.growthScanPoints;
   const grid = [...new Set(Array.from({ length: points }, (_, i) => 1 + ((top - 1) * i) / Math.max(1, points - 1)))];
+  const resolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
+  if (!(resolutionS >= 0) || !Number.isFinite(resolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(resolutionS));
   let best: BackoffRuleAnswer | null = null;
-  for (const firstWaitS of firstWaitCandidatesS) {
+  for (const candidateS of firstWaitCandidatesS) {
+    const firstWaitS = ceilToTimer(candidateS, resolutionS);
     const runAll = (g: number) =>
       corners.map((c) => {
-        const gaps = Array.from({ length: attempts - 1 }, (_, k) => firstWaitS * g ** k);
+        const gaps = backoffWaits(firstWaitS, g, attempts - 1, resolutionS);
         const cursor = new AttemptCursor(c);
         const run = runBurst(cursor, { gapsS: gaps, spacing: "end-to-start" }, 0);
         return { c, cursor, run };
       });
-    const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null), grid);
+    // a wait shorter than the relay allows makes the burst impossible (overlapAt), never safe
+    const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null && r.run.overlapAt === null), grid);
     const g = bands[0]?.fromS ?? null;
     const runs = runAll(g ?? top);
     const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));
@@ -85,6 +97,14 @@ export function backoffRule(scenarios: readonly RetryScenario[], attempts: numbe
     if (best === null || (answer.burstEndS !== null && (best.burstEndS === null || answer.burstEndS < best.burstEndS))) best = answer;
   }
   return best!;
+}
+
+/**
+ * The waits of a back-off rule as firmware runs it: firstWait·growth^k for k = 0, 1, ..., each
+ * rounded up to a whole step of the timer (ceilToTimer). Cost O(count).
+ */
+export function backoffWaits(firstWaitS: number, growthFactor: number, count: number, timerResolutionS: number): number[] {
+  return Array.from({ length: count }, (_, k) => ceilToTimer(firstWaitS * growthFactor ** k, timerResolutionS));
 }
 
 /**

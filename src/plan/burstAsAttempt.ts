@@ -9,12 +9,15 @@ import type { BurstPlan } from "./RetrySchedule.js";
  * persists is safe, in closed form (the super-cycle's periodic steady state).
  *
  * Inside the burst, attempt k + 1 starts its gap after attempt k's start or end (plan.spacing,
- * plan.overrun), the capacitor discharging over each wait. The inner attempts are told the part
+ * plan.overrun; never sooner than the scenario's minWaitS after attempt k's end), the capacitor
+ * discharging over each wait. The composite keeps the scenario's minWaitS: a lockout shorter
+ * than it cannot follow the burst. The inner attempts are told the part
  * temperature at the burst's start (the composite cannot know the temperature between its own
  * attempts); attempt models that depend on temperature are therefore approximated here.
  * Cost per call O(attempts × cost of the inner attempt model).
  */
 export function burstAsAttempt(scenario: RetryScenario, plan: BurstPlan): RetryScenario {
+  const minWaitS = scenario.minWaitS ?? 0;
   const attempt = (context: { attemptIndex: number; waitS: number; capacitorVoltageV: number; partTemperatureC: number }): AttemptOutcome => {
     const own: PowerSegment[] = [];
     const others = new Map<string, PowerSegment[]>();
@@ -25,9 +28,10 @@ export function burstAsAttempt(scenario: RetryScenario, plan: BurstPlan): RetryS
     for (let k = 0; k <= plan.gapsS.length; k++) {
       if (k > 0) {
         let next = (plan.spacing === "start-to-start" ? startS : endS) + plan.gapsS[k - 1]!;
-        // an attempt that outlasts its gap: the next one starts at its end (a plan that forbids
-        // overruns is checked by the solvers' own burst runs, which report it)
-        if (next < endS) next = endS;
+        // an attempt that outlasts its gap: the next one starts at its end and the relay's
+        // shortest wait (a plan that forbids overruns is checked by the solvers' own burst runs,
+        // which report it)
+        if (next < endS + minWaitS) next = endS + minWaitS;
         wait = next - endS;
         voltage = scenario.discharge(voltage, wait);
         startS = next;

@@ -5,6 +5,7 @@ import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
 import { scanGrid } from "./scanFeasibleBands.js";
+import { ceilToTimer, earliestOnTimer } from "./alignToTimer.js";
 
 /** Options of {@link fastestSchedule}; every field has a default (PLAN_DEFAULTS). */
 export interface FastestScheduleOptions {
@@ -12,6 +13,8 @@ export interface FastestScheduleOptions {
   readonly maxWaitS?: number;
   /** wait scan points (default PLAN_DEFAULTS.scanPoints) */
   readonly scanPoints?: number;
+  /** the firmware timer's resolution [s]: every wait is a whole number of steps (default PLAN_DEFAULTS.timerResolutionS, 0: no rounding) */
+  readonly timerResolutionS?: number;
 }
 
 /** One row of the fastest schedule. */
@@ -39,6 +42,8 @@ export interface FastestScheduleAnswer {
   readonly impliedBackoffRatio: number | null;
   /** end of the last attempt (latest over corners) [s] */
   readonly burstEndS: number;
+  /** the shortest wait any attempt could have: the corners' shortest wait (relay) rounded up to the timer [s] */
+  readonly shortestWaitS: number;
   /** each corner's attempts as simulated on the schedule */
   readonly perCorner: readonly { readonly corner: string; readonly attempts: readonly AttemptRecord[] }[];
 }
@@ -49,7 +54,8 @@ export interface FastestScheduleAnswer {
  *
  * Attempt 1 starts at t = 0. For each later attempt the waits after the previous attempt's end
  * (each corner from its own end, as a firmware timer started at the end or trip would) are
- * scanned upward from 0 on the scan grid, stopping at the first
+ * scanned upward from the shortest wait the relay allows (the corners' minWaitS) on the scan
+ * grid, stopping at the first
  * wait that is safe in every corner; the edge between it and the unsafe wait before it is
  * bisected (relative tolerance PLAN_DEFAULTS.bisectionRelTol), keeping the safe side. Scanning
  * upward from 0 finds the earliest safe moment even when peak against wait is not monotone
@@ -57,6 +63,9 @@ export interface FastestScheduleAnswer {
  * attempt is placed at its own earliest safe moment and later attempts only add heat after it,
  * no attempt of the finished schedule is above the limit, and starting any of them earlier makes
  * it exceed (to within the bisection tolerance, and for waits on the unsafe side of the edge).
+ * With a timer resolution every wait is a whole number of timer steps: the earliest safe wait is
+ * rounded up and the attempt simulated again at the rounded wait (stepping up while it is not
+ * safe), so the schedule kept is the rounded one.
  * Cost O(attempts × (scan points up to the answer + log2(1/relTol)) × corners × cost of one attempt).
  * @throws InputError for bad corners or options
  */
@@ -65,7 +74,10 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
   const corners = resolveCorners(scenarios);
   const maxWaitS = options.maxWaitS ?? PLAN_DEFAULTS.scanSpanTauMultiple * Math.max(...corners.map((c) => c.slowestTauS));
   if (!(maxWaitS > 0) || !Number.isFinite(maxWaitS)) throw inputError("out-of-range", "maxWaitS", "a finite longest wait > 0 s", describeFound(maxWaitS));
-  const grid = scanGrid(0, maxWaitS, options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
+  const resolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
+  if (!(resolutionS >= 0) || !Number.isFinite(resolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(resolutionS));
+  const minWaitS = Math.max(...corners.map((c) => c.minWaitS));
+  const grid = scanGrid(minWaitS, Math.max(maxWaitS, minWaitS), options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
   const cursors = corners.map((c) => new AttemptCursor(c));
   const schedule: ScheduledAttempt[] = [];
   let stoppedBecause: string | null = null;
@@ -86,16 +98,8 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
       // Each corner waits from its own attempt's end (a firmware timer started when the attempt
       // ends or trips), so the wait is common and the start times may differ between corners.
       const after = (w: number) => (cursor: AttemptCursor) => cursor.endS + w;
-      let previous = -1;
-      for (const w of grid) {
-        trials = trialsAt(after(w));
-        if (trials !== null) {
-          waitS = previous < 0 ? w : refine(previous, w, (x) => trialsAt(after(x)) !== null);
-          if (waitS !== w) trials = trialsAt(after(waitS));
-          break;
-        }
-        previous = w;
-      }
+      waitS = earliestWait(grid, (w) => trialsAt(after(w)) !== null, resolutionS);
+      trials = waitS === null ? null : trialsAt(after(waitS));
     }
     if (trials === null) {
       stoppedBecause =
@@ -124,6 +128,7 @@ export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: n
     stoppedBecause,
     impliedBackoffRatio,
     burstEndS: Math.max(...cursors.map((c) => c.endS)),
+    shortestWaitS: ceilToTimer(minWaitS, resolutionS),
     perCorner: cursors.map((c) => ({ corner: c.corner.name, attempts: c.history })),
   };
 }
@@ -138,6 +143,37 @@ function firstUnsafeCorner(cursors: readonly AttemptCursor[], startS: number): s
     if (t === null || !t.safe) return c.corner.name;
   }
   return cursors[0]!.corner.name;
+}
+
+/**
+ * The earliest safe wait: the grid scanned upward to its first safe point and the edge below it
+ * bisected (continuous answer); with a timer resolution, that answer rounded up to a whole timer
+ * step and re-checked, stepping up while it fails (earliestOnTimer), and when the steps give up,
+ * the scan resumes above the last step tried. null when no wait on the grid is safe.
+ */
+function earliestWait(grid: readonly number[], safe: (w: number) => boolean, resolutionS: number): number | null {
+  let from = 0;
+  let unsafeBelow = -1;
+  for (;;) {
+    let continuous: number | null = null;
+    let previous = unsafeBelow;
+    for (let i = from; i < grid.length; i++) {
+      const w = grid[i]!;
+      if (safe(w)) {
+        continuous = previous < 0 ? w : refine(previous, w, safe);
+        break;
+      }
+      previous = w;
+    }
+    if (continuous === null) return null;
+    const top = grid[grid.length - 1]!;
+    const onTimer = earliestOnTimer(continuous, resolutionS, top, safe);
+    if (onTimer !== null) return onTimer;
+    // no whole timer step passed near the continuous answer: look again above the last one tried
+    unsafeBelow = ceilToTimer(continuous, resolutionS) + (PLAN_DEFAULTS.timerAlignSteps - 1) * resolutionS;
+    from = grid.findIndex((w) => w > unsafeBelow);
+    if (from < 0) return null;
+  }
 }
 
 /** Bisect between an unsafe lo and a safe hi; returns the safe side. */

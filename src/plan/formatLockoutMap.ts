@@ -11,7 +11,7 @@ export const LOCKOUT_MAP_SYMBOLS = [
   { symbol: "=", status: "pass", meaning: "safe, uses 80-100 % of the allowed rise" },
   { symbol: "!", status: "warn", meaning: "inside the design margin (above limit - margin, not above the limit)" },
   { symbol: "#", status: "fail", meaning: "above the part's limit" },
-  { symbol: "~", status: "impossible", meaning: "an attempt would start before the previous one ends" },
+  { symbol: "~", status: "impossible", meaning: "an attempt would start before the previous one ends and the relay has cycled" },
 ] as const;
 
 function symbolOf(cell: LockoutMapCell): string {

@@ -50,6 +50,12 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push(`Corners: ${setup.corners.join(", ")}. Parts watched: ${setup.parts.join(", ")}.`);
   out.push("Safe means: every attempt's peak at or below the part's limit less its design margin, in every");
   out.push("corner. The profile's own policy gets a verdict: pass (safe), warn or fail, as in every command.");
+  const t = setup.timing;
+  out.push(
+    `Relay: operate ${formatPlanDuration(t.operateS)}, release ${formatPlanDuration(t.releaseS)}; firmware timer ${t.timerResolutionS > 0 ? formatPlanDuration(t.timerResolutionS) : "not rounded"}.`,
+    `No wait between attempts is shorter than ${formatPlanDuration(setup.shortestWaitS)}; every interval, wait and lockout below`,
+    "is a whole number of timer steps, checked by simulation at that value.",
+  );
   out.push("");
   out.push(
     wrapped("", `Profile policy: ${r.attempts} attempt${r.attempts === 1 ? "" : "s"} every ${formatPlanDuration(r.intervalS)} (start to start${backoffWords(r.backoff, r.maxIntervalS)}), then a ${formatPlanDuration(r.lockoutS)} lockout.`, width),
@@ -71,7 +77,8 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
 
   const m = report.maxAttempts;
   out.push(`2. Most attempts at an interval of ${formatPlanDuration(setup.intervalS)} (${setup.spacing}):`);
-  if (m === null) out.push("   not defined: the interval is shorter than one attempt.");
+  if (m === null)
+    out.push(`   not defined: ${setup.spacing === "start-to-start" ? "the interval is shorter than one attempt plus" : "the wait is shorter than"} the ${formatPlanDuration(setup.shortestWaitS)} the relay needs.`);
   else if (m.unlimited) out.push(`   unlimited: retrying for ever at this interval is safe; ${corner(m.governing)}.`);
   // a capped count has no unsafe attempt to name (firstUnsafePeakC is null)
   else if (m.firstUnsafePeakC === null) out.push(`   ${m.attempts} or more (the count was capped); ${corner(m.governing)}.`);
@@ -96,13 +103,13 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
     );
   }
   if (s.stoppedBecause !== null) out.push(`   Stopped: ${s.stoppedBecause}.`);
-  if (s.schedule.length === s.requestedAttempts && s.schedule.every((a) => a.waitS === null || a.waitS === 0))
-    out.push("   Every attempt may start as soon as the previous one ends: no wait or back-off is needed for this many attempts.");
+  if (s.schedule.length === s.requestedAttempts && s.schedule.every((a) => a.waitS === null || a.waitS <= s.shortestWaitS))
+    out.push(`   Every attempt may start as soon as the relay allows, ${formatPlanDuration(s.shortestWaitS)} after the previous one ends:`, "   no longer wait or back-off is needed for this many attempts.");
   if (s.impliedBackoffRatio !== null) out.push(`   Implied back-off: the positive waits grow by ×${s.impliedBackoffRatio.toFixed(3)} per attempt on average.`);
   const b = report.backoff;
   if (b?.rule != null) {
     out.push(
-      `   Firmware rule: wait ${formatPlanDuration(b.rule.firstWaitS)} after the first attempt ends, then multiply the wait by ${b.rule.growthFactor.toFixed(3)} after each attempt; checked by simulation: the burst ends at ${formatPlanDuration(b.burstEndS!)} (fastest: ${formatPlanDuration(s.burstEndS)}); ${corner(b.governing)}.`,
+      `   Firmware rule: wait ${formatPlanDuration(b.rule.firstWaitS)} after the first attempt ends, then multiply the wait by ${b.rule.growthFactor.toFixed(3)} after each attempt (rounded up to the timer); checked by simulation: the burst ends at ${formatPlanDuration(b.burstEndS!)} (fastest: ${formatPlanDuration(s.burstEndS)}); ${corner(b.governing)}.`,
     );
   } else if (b !== null) out.push(`   No first wait and growth factor up to the scanned range keeps all ${b.attempts} attempts safe.`);
   out.push("");
@@ -111,9 +118,9 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push(`5. Lockout after the profile's burst (${r.attempts} attempts):`);
   if (!l.burstSafe) out.push(`   the burst itself is unsafe (${corner(l.burst)}); no lockout makes it safe.`);
   else if (l.minimumLockoutS === null) out.push("   no lockout in the scanned range makes a second burst safe.");
-  else if (l.minimumLockoutS === 0 && l.bands.length > 1)
-    out.push(`   0 s is safe (the next burst finds the bus still charged), but longer lockouts are not all safe: use one inside a band below; ${corner(l.governing)}.`);
-  else if (l.minimumLockoutS === 0) out.push(`   none needed: the same burst may start again as soon as this one ends; ${corner(l.governing)}.`);
+  else if (l.minimumLockoutS <= setup.shortestWaitS && l.bands.length > 1)
+    out.push(`   ${formatPlanDuration(l.minimumLockoutS)} (the shortest the relay allows) is safe (the next burst finds the bus still charged), but longer lockouts are not all safe: use one inside a band below; ${corner(l.governing)}.`);
+  else if (l.minimumLockoutS <= setup.shortestWaitS) out.push(`   none needed: the same burst may start again as soon as the relay allows (${formatPlanDuration(l.minimumLockoutS)}); ${corner(l.governing)}.`);
   else out.push(`   at least ${formatPlanDuration(l.minimumLockoutS)} before the same burst may run again; ${corner(l.governing)}.`);
   if (l.bands.length > 1) out.push(`   Safe lockouts form separate bands: ${bands(l.bands)}.`);
   out.push(`   Back within ${l.ambientReturnK} K of ambient ${formatPlanDuration(l.ambientReturnS)} after the burst ends (slowest corner "${l.ambientReturnCorner}").`);

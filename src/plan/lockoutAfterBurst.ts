@@ -6,6 +6,7 @@ import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./Ret
 import type { BurstPlan } from "./RetrySchedule.js";
 import { runBurst } from "./runBurst.js";
 import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
+import { alignBandsToTimer } from "./alignToTimer.js";
 
 /** Options of {@link lockoutAfterBurst}; every field has a default (PLAN_DEFAULTS). */
 export interface LockoutOptions {
@@ -15,6 +16,8 @@ export interface LockoutOptions {
   readonly scanToS?: number;
   /** scan points (default PLAN_DEFAULTS.scanPoints) */
   readonly scanPoints?: number;
+  /** the firmware timer's resolution [s]: lockouts are whole timer steps, each re-checked (default PLAN_DEFAULTS.timerResolutionS, 0: no rounding) */
+  readonly timerResolutionS?: number;
 }
 
 /** The answer to "how long must the lockout after a burst be?". */
@@ -47,7 +50,9 @@ export interface LockoutAnswer {
  * The burst runs in every corner (its first attempt at t = 0). For a candidate lockout L, the
  * second burst starts L after the latest end of the first, with the capacitor discharged over
  * the wait, and is safe when every attempt's own peak stays at or below limit − margin in every
- * corner. Lockouts are scanned from 0 and each band edge bisected (scanFeasibleBands). The return
+ * corner. Lockouts are scanned from the shortest wait the relay allows (the corners' minWaitS)
+ * and each band edge bisected (scanFeasibleBands); with a timer resolution the bands are moved
+ * onto the timer's grid and their lower ends re-checked (alignBandsToTimer). The return
  * to ambient is the last time the free cooling rise Σ c_m·e^(−t/tau_m) is above the threshold,
  * bracketed on a grid up to the time at which Σ|c_m|·e^(−t/tau_max) falls below it, and bisected.
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × N × cost of one attempt).
@@ -72,8 +77,17 @@ export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: Bu
       return { f, run, entry: { corner: f.c.name, peakC: run.peakC, allowedC: f.c.allowedC, limitC: f.c.limitC, headroomK: run.overlapAt === null ? run.worstHeadroomK : -Infinity } };
     });
   const slowest = Math.max(...corners.map((c) => c.slowestTauS));
-  const grid = scanGrid(0, options.scanToS ?? PLAN_DEFAULTS.scanSpanTauMultiple * slowest, options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
-  const { bands, evaluations } = scanFeasibleBands((l) => second(l).every((s) => s.run.firstUnsafe === null && s.run.overlapAt === null), grid);
+  // the second burst cannot start sooner than the relay allows after the first one's end
+  const minWaitS = Math.max(...corners.map((c) => c.minWaitS));
+  const scanToS = options.scanToS ?? PLAN_DEFAULTS.scanSpanTauMultiple * slowest;
+  const grid = scanGrid(minWaitS, Math.max(scanToS, minWaitS), options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
+  const resolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
+  if (!(resolutionS >= 0) || !Number.isFinite(resolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(resolutionS));
+  const safeAfter = (l: number): boolean => second(l).every((s) => s.run.firstUnsafe === null && s.run.overlapAt === null);
+  const scanned = scanFeasibleBands(safeAfter, grid);
+  const aligned = alignBandsToTimer(scanned.bands, resolutionS, safeAfter);
+  const bands = aligned.bands;
+  const evaluations = scanned.evaluations + aligned.evaluations;
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const governing = governingCorner(second(at).map((s) => s.entry));
   let ambientReturnS = 0;

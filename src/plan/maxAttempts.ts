@@ -31,7 +31,8 @@ export interface MaxAttemptsAnswer {
  * is the smallest count over the corners.
  * Cost O(corners × attempts until the first failure × cost of one attempt).
  * @throws InputError `out-of-range` when the interval is shorter than an attempt (start-to-start
- *   spacing), or is not a finite number ≥ 0
+ *   spacing) plus the corners' shortest wait (the relay's release and operate times), a wait
+ *   (end-to-start) is shorter than that shortest wait, or the interval is not a finite number ≥ 0
  */
 export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: number, spacing: RetrySpacing = PLAN_DEFAULTS.spacing): MaxAttemptsAnswer {
   const corners = resolveCorners(scenarios);
@@ -40,15 +41,17 @@ export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: numb
   const overlapping = verdicts.findIndex((v) => v.overlap);
   if (overlapping >= 0) {
     const c = corners[overlapping]!;
+    const relay = c.minWaitS > 0 ? ` plus the ${c.minWaitS} s the relay needs to open and close again` : "";
+    if (spacing === "end-to-start") throw inputError("out-of-range", "intervalS", `a wait between attempts of at least ${c.minWaitS} s (the relay's release and operate times)`, `${intervalS} s`);
     const cursor = new AttemptCursor(c);
     let longest = 0;
     for (let k = 0; k < 50; k++) {
-      const trial = cursor.tryAt(k === 0 ? 0 : cursor.lastStartS + Math.max(intervalS, cursor.endS - cursor.lastStartS));
+      const trial = cursor.tryAt(k === 0 ? 0 : Math.max(cursor.lastStartS + intervalS, cursor.earliestNextS));
       if (trial === null) break;
       longest = Math.max(longest, cursor.keep(trial).durationS);
-      if (longest > intervalS) break;
+      if (longest + c.minWaitS > intervalS) break;
     }
-    throw inputError("out-of-range", "intervalS", `a start-to-start interval at least as long as an attempt (${longest} s in corner "${c.name}")`, `${intervalS} s`);
+    throw inputError("out-of-range", "intervalS", `a start-to-start interval at least as long as an attempt${relay} (${longest + c.minWaitS} s in corner "${c.name}")`, `${intervalS} s`);
   }
   if (verdicts.every((v) => v.safe)) {
     const governing = governingCorner(

@@ -1,5 +1,5 @@
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
-import { type IntervalScanOptions, lowestInterval, resolveScan } from "./minUniformInterval.js";
+import { type IntervalScanOptions, lowestInterval, onTimer, resolveScan } from "./minUniformInterval.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import type { RetrySpacing } from "./RetrySchedule.js";
 import { type ForeverVerdict, retryForeverCheck } from "./retryForeverCheck.js";
@@ -26,7 +26,8 @@ export interface ForeverIntervalAnswer {
 /**
  * The shortest interval at which the firmware may retry for ever, from the
  * periodic steady state in closed form (retryForeverCheck per corner), with every band of safe
- * intervals (scan, then bisection of each edge).
+ * intervals (scan from the shortest interval the relay allows, then bisection of each edge; with
+ * a timer resolution, whole timer steps re-checked as in minUniformInterval).
  * For one RC stage and rectangular attempts of power P and length t_on this reproduces
  *   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max)   (start-to-start spacing).
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × attempts to prove each verdict).
@@ -37,7 +38,7 @@ export function minForeverInterval(scenarios: readonly RetryScenario[], options:
   const from = lowestInterval(corners, scan.spacing);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
   const safeAt = (t: number): boolean => corners.every((c) => retryForeverCheck(c, t, scan.spacing).safe);
-  const { bands, evaluations } = scanFeasibleBands(safeAt, grid);
+  const { bands, evaluations } = onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt);
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const verdicts = corners.map((c) => retryForeverCheck(c, at, scan.spacing));
   const governing = governingCorner(

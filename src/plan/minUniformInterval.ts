@@ -5,7 +5,8 @@ import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
 import { type RetrySpacing, uniformBurst } from "./RetrySchedule.js";
 import { runBurst } from "./runBurst.js";
-import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
+import { type BandScan, type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
+import { alignBandsToTimer } from "./alignToTimer.js";
 
 /** Scan options shared by the interval solvers; every field has a default (PLAN_DEFAULTS). */
 export interface IntervalScanOptions {
@@ -15,6 +16,11 @@ export interface IntervalScanOptions {
   readonly scanToS?: number;
   /** scan points (default PLAN_DEFAULTS.scanPoints) */
   readonly scanPoints?: number;
+  /**
+   * the firmware timer's resolution [s]: answers and band ends are whole timer steps, each
+   * re-checked (alignBandsToTimer); default PLAN_DEFAULTS.timerResolutionS (0: no rounding)
+   */
+  readonly timerResolutionS?: number;
 }
 
 /** The answer to "how far apart must N attempts be?". */
@@ -39,6 +45,7 @@ export interface ResolvedScan {
   readonly spacing: RetrySpacing;
   readonly scanToS: number;
   readonly scanPoints: number;
+  readonly timerResolutionS: number;
 }
 
 /** Resolve scan options against a corner set. */
@@ -48,7 +55,15 @@ export function resolveScan(corners: readonly ResolvedScenario[], options: Inter
   if (!(scanToS > 0) || !Number.isFinite(scanToS)) throw inputError("out-of-range", "scanToS", "a finite scan end > 0 s", describeFound(scanToS));
   const scanPoints = options.scanPoints ?? PLAN_DEFAULTS.scanPoints;
   if (!Number.isInteger(scanPoints) || scanPoints < 2) throw inputError("out-of-range", "scanPoints", "an integer ≥ 2", describeFound(scanPoints));
-  return { spacing: options.spacing ?? PLAN_DEFAULTS.spacing, scanToS, scanPoints };
+  const timerResolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
+  if (!(timerResolutionS >= 0) || !Number.isFinite(timerResolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(timerResolutionS));
+  return { spacing: options.spacing ?? PLAN_DEFAULTS.spacing, scanToS, scanPoints, timerResolutionS };
+}
+
+/** A band scan moved onto the timer's grid (alignBandsToTimer), its evaluations added. */
+export function onTimer(scan: BandScan, timerResolutionS: number, feasible: (x: number) => boolean): BandScan {
+  const aligned = alignBandsToTimer(scan.bands, timerResolutionS, feasible);
+  return { bands: aligned.bands, evaluations: scan.evaluations + aligned.evaluations };
 }
 
 /** Check an attempt count. */
@@ -56,13 +71,17 @@ export function checkAttempts(attempts: number, field = "attempts"): void {
   if (!Number.isInteger(attempts) || attempts < 1) throw inputError("out-of-range", field, "a whole number of attempts ≥ 1", describeFound(attempts));
 }
 
-/** Shortest interval that could work: the first attempt's own length for start-to-start spacing, else 0. */
+/**
+ * Shortest interval that could work: the corners' shortest wait between attempts (the relay's
+ * release and operate times), plus the first attempt's own length for start-to-start spacing.
+ */
 export function lowestInterval(corners: readonly ResolvedScenario[], spacing: RetrySpacing): number {
-  if (spacing === "end-to-start") return 0;
+  const minWaitS = Math.max(...corners.map((c) => c.minWaitS));
+  if (spacing === "end-to-start") return minWaitS;
   let longest = 0;
   for (const c of corners) {
     const trial = new AttemptCursor(c).tryAt(0);
-    if (trial !== null) longest = Math.max(longest, trial.record.durationS);
+    if (trial !== null) longest = Math.max(longest, trial.record.durationS + minWaitS);
   }
   return longest;
 }
@@ -88,8 +107,9 @@ export function uniformBurstVerdict(c: ResolvedScenario, attempts: number, inter
  * For a candidate interval T, every corner runs the burst (attempt 1 at t = 0, then every T from
  * the previous start or end) with the capacitor discharging between attempts, and the burst is
  * safe when every attempt's own peak stays at or below limit − margin in every corner. Intervals
- * are scanned (scanFeasibleBands) and each band edge is bisected; the answer is the lower edge of
- * the first band.
+ * are scanned (scanFeasibleBands) from the shortest the relay allows (lowestInterval) and each
+ * band edge is bisected; with a timer resolution the bands are moved onto the timer's grid and
+ * their lower ends re-checked (alignBandsToTimer). The answer is the lower end of the first band.
  * Cost O((scanPoints + bands × 2·log2(1/relTol)) × corners × N × cost of one attempt).
  * @throws InputError for bad corners or options
  */
@@ -100,7 +120,8 @@ export function minUniformInterval(scenarios: readonly RetryScenario[], attempts
   const from = lowestInterval(corners, scan.spacing);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
   const safeAt = (t: number): boolean => corners.every((c) => uniformBurstVerdict(c, attempts, t, scan.spacing, true).safe);
-  const { bands, evaluations } = scanFeasibleBands(safeAt, grid);
+  const scanned = scanFeasibleBands(safeAt, grid);
+  const { bands, evaluations } = onTimer(scanned, scan.timerResolutionS, safeAt);
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const governing = governingCorner(
     corners.map((c) => {

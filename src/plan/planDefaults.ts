@@ -25,6 +25,13 @@ export const PLAN_DEFAULTS = {
   maxGrowthFactor: 10,
   /** points of the growth factor scan of the firmware back-off rule */
   growthScanPoints: 120,
+  /**
+   * timer resolution of the solvers when none is given [s]: 0, answers on a continuous time axis
+   * (a profile always gives one: ATTEMPT_TIMING_DEFAULTS.timerResolutionS unless it says otherwise)
+   */
+  timerResolutionS: 0,
+  /** timer steps tried above a rounded-up answer before its band is given up (each is one check by simulation) */
+  timerAlignSteps: 64,
   /** default spacing of a uniform retry policy: measured from one attempt's start to the next one's */
   spacing: "start-to-start" as const,
 } as const;

@@ -35,14 +35,17 @@ export interface RetryPlanReport {
 /**
  * Answer every retry-planning question for a profile's fault (the six answers of `heatledger retries`) over its
  * corner set, and check the profile's own policy. See profileRetrySetup for how the profile
- * becomes corners. Cost: the sum of the solvers' costs (seconds at most for typical profiles).
+ * becomes corners. No interval, wait or lockout proposed is shorter than the relay allows (the
+ * corners' minWaitS), and each is a whole number of the firmware's timer steps, checked again by
+ * simulation at that value (setup.timing). Cost: the sum of the solvers' costs (seconds at most for typical profiles).
  * @throws InputError for a profile the planner cannot work on (see profileRetrySetup)
  */
 export function planRetries(profile: DutyProfile, models: CircuitModels): RetryPlanReport {
   const setup = profileRetrySetup(profile, models);
   const corners = setup.scenarios;
   const policy = retryPolicyVerdict(corners, setup.policy, setup.lockoutS);
-  const uniformInterval = minUniformInterval(corners, setup.attempts, { spacing: setup.spacing });
+  const timerResolutionS = setup.timing.timerResolutionS;
+  const uniformInterval = minUniformInterval(corners, setup.attempts, { spacing: setup.spacing, timerResolutionS });
   let max: MaxAttemptsAnswer | null = null;
   try {
     max = maxAttempts(corners, setup.intervalS, setup.spacing);
@@ -50,11 +53,11 @@ export function planRetries(profile: DutyProfile, models: CircuitModels): RetryP
     // an interval shorter than an attempt has no attempt count (max stays null); the report says so
     if (!(error instanceof InputError)) throw error;
   }
-  const forever = minForeverInterval(corners, { spacing: setup.spacing });
-  const fastest = fastestSchedule(corners, setup.attempts);
+  const forever = minForeverInterval(corners, { spacing: setup.spacing, timerResolutionS });
+  const fastest = fastestSchedule(corners, setup.attempts, { timerResolutionS });
   const candidates = firstWaitCandidates(fastest);
-  const backoff = setup.attempts >= 2 && candidates.length > 0 ? backoffRule(corners, setup.attempts, candidates) : null;
-  const lockout = lockoutAfterBurst(corners, setup.policy, { ambientReturnK: setup.nearAmbientK });
+  const backoff = setup.attempts >= 2 && candidates.length > 0 ? backoffRule(corners, setup.attempts, candidates, { timerResolutionS }) : null;
+  const lockout = lockoutAfterBurst(corners, setup.policy, { ambientReturnK: setup.nearAmbientK, timerResolutionS });
   const intervals = scanGrid(setup.map.fromS, setup.map.toS, setup.map.points, Math.log10(setup.map.toS / setup.map.fromS)).slice(-setup.map.points);
   const map = lockoutMap(corners, setup.map.attempts, intervals, setup.spacing);
   return { setup, policy, uniformInterval, maxAttempts: max, forever, fastest, backoff, lockout, map };

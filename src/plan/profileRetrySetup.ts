@@ -3,6 +3,8 @@ import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, FaultSpec, ProfileCircuit } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
+import { ATTEMPT_TIMING_DEFAULTS, type AttemptTiming, shortestAttemptWaitS } from "../profile/attemptTiming.js";
+import { ceilToTimer } from "./alignToTimer.js";
 import { type RetryBlock, firstRetryBlock } from "./firstRetryBlock.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import type { AttemptOutcome, RetryScenario } from "./RetryScenario.js";
@@ -37,6 +39,10 @@ export interface ProfileRetrySetup {
   readonly map: { readonly attempts: number; readonly fromS: number; readonly toS: number; readonly points: number };
   /** the circuit is a linear-mode MOSFET (its report carries the extra caution) */
   readonly linearMosfet: boolean;
+  /** the relay's switching times and the firmware's timer resolution (the profile's, or ATTEMPT_TIMING_DEFAULTS) */
+  readonly timing: AttemptTiming;
+  /** shortest wait between attempts the relay allows, rounded up to the timer [s]: no answer proposes less */
+  readonly shortestWaitS: number;
 }
 
 /** Defaults of the profile's retryPlan section, declared once. */
@@ -62,7 +68,10 @@ const ATTEMPT_MEMO_SIZE = 512;
  * leaves the bus at its full voltage and, for a trip-after-close fault, lasts `after` longer
  * (the contactor closed, then tripped), as the profile's expansion does. The capacitor
  * discharges between attempts along the profile's discharge path (`models.discharge`). The
- * first attempt starts from an empty capacitor (the most energy).
+ * first attempt starts from an empty capacitor (the most energy). No attempt may start sooner
+ * after the previous one's end than the relay's release plus operate time (`circuit.relay`, the
+ * scenarios' minWaitS); the firmware's timer resolution (`firmware.timerResolution`) is handed
+ * to the solvers through `timing`.
  * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of docs/design.md ("Circuit bookkeeping").
  * Cost O(corners × parts).
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
@@ -76,6 +85,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
   if (retry === undefined) throw inputError("bad-profile", "events", "a retry block with a fault (the fault the planner retries into)", "none");
   const fault = retry.fault!;
   const plan = profile.retryPlan ?? {};
+  const timing = profile.timing ?? ATTEMPT_TIMING_DEFAULTS;
   const heated = profile.parts.filter((p) => p.role !== undefined);
   const keys = new Set(heated.map((p) => p.networkKey));
   const watched = profile.parts.filter((p) => keys.has(p.networkKey));
@@ -113,7 +123,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
         const conditions: ChargeConditions = { sourceVoltageV: c.busVoltageV, initialVoltageV: context.capacitorVoltageV, completion: c.completion, partTemperatureC };
         const r = models.charge(c, fault.load, conditions);
         const completed = r.outcome === "completed";
-        const durationS = r.durationS + (completed && fault.type === "trip-after-close" ? fault.afterS : 0);
+        const durationS = r.durationS + (completed ? (fault.tripAfterS ?? 0) : 0);
         const own: PowerTrace = part.role === undefined ? [] : (r.traces[part.role] ?? []);
         const otherTraces: Record<string, PowerTrace> = {};
         for (const h of sameNetwork) {
@@ -134,6 +144,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
         initialVoltageV: 0,
         attempt,
         discharge: (v, waitS) => models.discharge(c.discharge, c.capacitanceF, v, waitS),
+        minWaitS: shortestAttemptWaitS(timing),
       });
     }
   });
@@ -161,5 +172,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
       points: plan.map?.points ?? RETRY_PLAN_DEFAULTS.mapPoints,
     },
     linearMosfet: circuit.topology === "linear-mosfet",
+    timing,
+    shortestWaitS: ceilToTimer(shortestAttemptWaitS(timing), timing.timerResolutionS),
   };
 }

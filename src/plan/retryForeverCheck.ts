@@ -8,7 +8,7 @@ import type { RetrySpacing } from "./RetrySchedule.js";
 export interface ForeverVerdict {
   readonly corner: string;
   readonly safe: boolean;
-  /** an attempt would start before the previous one ended (start-to-start interval too short) */
+  /** an attempt would start before the previous one ended, or sooner after it than the corner's shortest wait (interval too short) */
   readonly overlap: boolean;
   /** own peak of an attempt in the periodic steady state [°C]; null when the start voltage never settled */
   readonly steadyPeakC: number | null;
@@ -80,7 +80,7 @@ export function retryForeverCheck(corner: ResolvedScenario, intervalS: number, s
         continue;
       }
       const waitS = spacing === "start-to-start" ? intervalS - trial.outcome.durationS : intervalS;
-      if (waitS < 0) return verdict(false, true, "closed-form");
+      if (waitS < 0 || waitS < corner.minWaitS - 1e-12 * Math.max(1, intervalS)) return verdict(false, true, "closed-form");
       steady = attemptPeriodicSteadyState(corner, trial.outcome, waitS);
       if (!steady.attempt.safe) return verdict(false, false, "closed-form");
     }

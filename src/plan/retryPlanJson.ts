@@ -13,6 +13,7 @@ export function retryPlanJson(report: RetryPlanReport): unknown {
     fault: { type: setup.fault.type, field: setup.retry.field },
     corners: setup.corners,
     parts: setup.parts,
+    timing: { ...setup.timing, shortestWaitS: setup.shortestWaitS },
     policy: {
       attempts: setup.retry.attempts,
       intervalS: setup.retry.intervalS,

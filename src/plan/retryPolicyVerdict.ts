@@ -71,7 +71,8 @@ export function retryPolicyVerdict(scenarios: readonly RetryScenario[], burst: B
   const burstVerdicts = runs.map(({ c, run }): Verdict => (run.overlapAt !== null ? "fail" : peakVerdict(run.peakC, c.limitC, c.marginK)));
   const burstEntries = runs.map(({ c, run }) => ({ corner: c.name, peakC: run.peakC, allowedC: c.allowedC, limitC: c.limitC, headroomK: run.overlapAt === null ? run.worstHeadroomK : -Infinity }));
   for (const { c, run } of runs) {
-    if (run.overlapAt !== null) reasons.push(`corner "${c.name}": attempt ${run.overlapAt + 1} would start before attempt ${run.overlapAt} ends`);
+    if (run.overlapAt !== null)
+      reasons.push(`corner "${c.name}": attempt ${run.overlapAt + 1} would start before attempt ${run.overlapAt} ends${c.minWaitS > 0 ? ` and the relay has opened and closed again (${c.minWaitS} s)` : ""}`);
     else if (run.firstUnsafe !== null) {
       const first = run.records[run.firstUnsafe]!;
       reasons.push(`corner "${c.name}": attempt ${run.firstUnsafe + 1} of the burst reaches ${first.peakC.toFixed(1)} °C, above limit − margin ${c.allowedC.toFixed(1)} °C${limitWords(first.peakC, c.limitC)}`);
@@ -90,7 +91,8 @@ export function retryPolicyVerdict(scenarios: readonly RetryScenario[], burst: B
   // each corner's hottest point of the repeated cycle: the way in (transient) or the settled cycle
   const cyclePeaksC = cycleVerdicts.map((v) => Math.max(v.transientPeakC, v.steadyPeakC ?? -Infinity));
   cycleVerdicts.forEach((v, i) => {
-    if (!v.safe && !v.overlap)
+    if (v.overlap) reasons.push(`corner "${v.corner}": a ${lockoutS} s lockout is shorter than the relay's release and operate times (${corners[i]!.minWaitS} s): the next burst cannot start that soon`);
+    else if (!v.safe)
       reasons.push(
         `corner "${v.corner}": repeating burst + ${lockoutS} s lockout while the fault persists reaches ${cyclePeaksC[i]!.toFixed(1)} °C, above limit − margin ${v.allowedC.toFixed(1)} °C` +
           (!words ? "" : cycleWords[i] === "warn" ? `, not above the limit ${v.limitC.toFixed(1)} °C` : `; it passes the limit ${v.limitC.toFixed(1)} °C`),

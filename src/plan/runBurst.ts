@@ -28,7 +28,7 @@ export function runBurst(cursor: AttemptCursor, plan: BurstPlan, firstStartS: nu
   let peakC = -Infinity;
   for (let i = 0; i <= plan.gapsS.length; i++) {
     let startS = i === 0 ? firstStartS : (plan.spacing === "start-to-start" ? cursor.lastStartS : cursor.endS) + plan.gapsS[i - 1]!;
-    if (i > 0 && plan.overrun === "start-at-end" && startS < cursor.endS) startS = cursor.endS;
+    if (i > 0 && plan.overrun === "start-at-end" && startS < cursor.earliestNextS) startS = cursor.earliestNextS;
     const trial = cursor.tryAt(startS);
     if (trial === null) return { records, firstUnsafe, overlapAt: i, worstHeadroomK, peakC };
     records.push(cursor.keep(trial));

@@ -2,6 +2,8 @@ import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../report/formatTable.js";
+import { ATTEMPT_TIMING_DEFAULTS, type AttemptTiming, shortestAttemptWaitS } from "../profile/attemptTiming.js";
+import { ceilToTimer } from "./alignToTimer.js";
 import { type MaxAttemptsAnswer, maxAttempts } from "./maxAttempts.js";
 import { type RetryScenario, resolveScenario } from "./RetryScenario.js";
 import { AttemptCursor } from "./AttemptCursor.js";
@@ -66,8 +68,10 @@ export interface SupervisionEnvelope {
 export interface RetryStorm {
   /** the timeout every attempt runs into [s] (the profile's) */
   readonly timeoutS: number;
-  /** restart at once after each timeout */
+  /** restart as soon as the relay allows after each timeout */
   readonly backToBack: MaxAttemptsAnswer;
+  /** the wait between attempts back to back: the relay's release plus operate time, rounded up to the firmware timer [s] */
+  readonly backToBackWaitS: number;
   /** restart at the retry policy's first interval (start to start); null without a policy */
   readonly atPolicyInterval: MaxAttemptsAnswer | null;
 }
@@ -96,6 +100,8 @@ export interface SupervisionReport {
   readonly riseChecks: readonly RiseCheck[];
   readonly recommendedRise: RiseCheck | null;
   readonly policy: SupervisedRetryPolicy | null;
+  /** the relay's switching times and the firmware's timer resolution used (the profile's, or ATTEMPT_TIMING_DEFAULTS) */
+  readonly timing: AttemptTiming;
   readonly storm: RetryStorm;
   readonly envelope: SupervisionEnvelope;
   /**
@@ -127,7 +133,8 @@ export interface SupervisionReport {
  * 2. Early-abort and rise-too-fast checks at the profile's check times, or at
  *    SUPERVISE_DEFAULTS.autoCheckFractions of the slowest completion time.
  * 3. Retry storms through the retry planner (maxAttempts) at the profile's timeout: attempts back
- *    to back, and at the policy's interval.
+ *    to back (as soon as the relay can open and close again, on the firmware's timer), and at the
+ *    policy's interval.
  * 4. The healthy envelope and the short-circuit energy curve for the plot.
  * Cost O(corners × (checks + envelope points)) circuit runs plus O(parts × 2 × bisection steps ×
  * burst length) attempts.
@@ -201,8 +208,11 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
 
   // 3. retry storms at the profile's timeout, through the retry planner
   const stormScenarios = heated.flatMap((part) => busEnds.map((v) => shortedScenario(profile, part, v, timeoutS, models)));
-  const backToBack = maxAttempts(stormScenarios, 0, "end-to-start");
-  const atPolicyInterval = policy === null ? null : maxAttempts(stormScenarios, Math.max(0, policy.intervalS - timeoutS), "end-to-start");
+  // back to back is as soon as the relay can open and close again, on the firmware's timer
+  const timing = profile.timing ?? ATTEMPT_TIMING_DEFAULTS;
+  const backToBackWaitS = ceilToTimer(shortestAttemptWaitS(timing), timing.timerResolutionS);
+  const backToBack = maxAttempts(stormScenarios, backToBackWaitS, "end-to-start");
+  const atPolicyInterval = policy === null ? null : maxAttempts(stormScenarios, Math.max(shortestAttemptWaitS(timing), policy.intervalS - timeoutS), "end-to-start");
 
   // 4. envelope
   const n = SUPERVISE_DEFAULTS.envelopePoints;
@@ -248,7 +258,8 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     riseChecks: rises,
     recommendedRise,
     policy,
-    storm: { timeoutS, backToBack, atPolicyInterval },
+    timing,
+    storm: { timeoutS, backToBack, backToBackWaitS, atPolicyInterval },
     envelope: { timeS: timeGrid, lowV, highV, shortEnergyJ },
     timeoutVerdict,
     verdict,

@@ -1,6 +1,7 @@
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
+import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "../profile/attemptTiming.js";
 import type { AttemptOutcome, RetryScenario } from "./RetryScenario.js";
 
 /**
@@ -9,6 +10,8 @@ import type { AttemptOutcome, RetryScenario } from "./RetryScenario.js";
  * bus voltage. The observed part is `part`; parts of the same network heated by other circuit roles
  * (a MOSFET's source resistor on its heatsink) heat it through the network.
  * For a series resistor the part dissipates the constant Vs²·R/(R + Rsrc)² for the whole timeout.
+ * Attempts cannot follow each other sooner than the relay's release plus operate time
+ * (`circuit.relay`, the scenario's minWaitS).
  * Cost: one circuit run (per attempt when the model reads the part temperature).
  */
 export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVoltageV: number, timeoutS: number, models: CircuitModels): RetryScenario {
@@ -48,5 +51,6 @@ export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVolt
       return cached;
     },
     discharge: () => 0,
+    minWaitS: shortestAttemptWaitS(profile.timing ?? ATTEMPT_TIMING_DEFAULTS),
   };
 }

@@ -6,6 +6,7 @@ import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
 import type { StressConfig } from "../stress/resolveStressConfig.js";
+import type { AttemptTiming } from "./attemptTiming.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -73,8 +74,11 @@ export interface FaultSpec {
   readonly type: "shorted-output" | "overloaded-bus" | "converter-early" | "trip-after-close";
   /** the load the bus presents during the attempt */
   readonly load: BusLoad;
-  /** trip-after-close: time from the contactor closing to the trip [s] */
-  readonly afterS: number;
+  /**
+   * time from the contactor closing to the trip [s] (trip-after-close; 0 is a trip at the moment
+   * the contactor closes); undefined: the fault does not trip the system, the bus stays on
+   */
+  readonly tripAfterS?: number;
 }
 
 /** One event of a profile, resolved to SI, with its field path for messages. */
@@ -108,6 +112,11 @@ export interface DutyProfile {
   readonly events: readonly ProfileEvent[];
   /** the retry plan section (questions and corners for `heatledger retries`), when given */
   readonly retryPlan?: RetryPlanInput;
+  /**
+   * the relay's switching times and the firmware's timer resolution (`circuit.relay`,
+   * `firmware`), defaults filled in; undefined (a profile built by hand): ATTEMPT_TIMING_DEFAULTS
+   */
+  readonly timing?: AttemptTiming;
   /** the supervision section, when the profile has one (read by `heatledger supervise`) */
   readonly supervision?: SupervisionSpec;
   /** how many times a year the whole profile happens (for calendar life); undefined: not stated */

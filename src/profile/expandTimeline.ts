@@ -137,7 +137,9 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     return energyJ;
   };
 
-  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, afterS: number): TimelineEvent => {
+  // tripAfterS: the system trips that long after the contactor closes on a completed charge (0:
+  // at the moment it closes); undefined: no trip, the bus stays on
+  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined): TimelineEvent => {
     const c = circuit!;
     const temps = temperatureOf();
     const partTemperatureC: Record<string, number> = {};
@@ -161,11 +163,11 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     if (r.outcome === "completed") {
       state.busOn = true;
       state.voltageV = c.busVoltageV;
-      if (afterS > 0) {
-        advance(afterS, field);
-        durationS += afterS;
+      if (tripAfterS !== undefined) {
+        advance(tripAfterS, field);
+        durationS += tripAfterS;
         state.busOn = false;
-        reason = `${reason}; the system tripped ${afterS} s after the contactor closed`;
+        reason = `${reason}; the system tripped ${tripAfterS} s after the contactor closed`;
       }
     } else {
       state.busOn = false;
@@ -209,10 +211,10 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const e = frame.events[frame.index++]!;
     switch (e.kind) {
       case "power-up":
-        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, 0);
+        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined);
         break;
       case "fault":
-        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.afterS);
+        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.tripAfterS);
         break;
       case "run":
         yield plain("run", e.field, e.label ?? "run", e.durationS);
@@ -245,9 +247,9 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
           const startS = state.timeS;
           const faulty = e.fault !== undefined && k <= e.faultyAttempts;
           const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
-          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.afterS) : charge("power-up", e.field, label, circuit!.load, 0);
+          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.tripAfterS) : charge("power-up", e.field, label, circuit!.load, undefined);
           yield event;
-          if (event.outcome === "completed" && !(faulty && e.fault!.type === "trip-after-close")) {
+          if (event.outcome === "completed" && !(faulty && e.fault!.tripAfterS !== undefined)) {
             done = true;
             break;
           }

@@ -16,6 +16,7 @@ import { pointsToSegments, powerTracePoints } from "./powerTracePoints.js";
 import { resolveSupervision } from "./resolveSupervision.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
 import { stressPartKind } from "./stressPartKind.js";
+import { ATTEMPT_TIMING_DEFAULTS, type AttemptTiming, shortestAttemptWaitS } from "./attemptTiming.js";
 
 /** Defaults of the profile format, declared once (code, docs and help read them here). */
 export const PROFILE_DEFAULTS = {
@@ -86,7 +87,12 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     if (first !== undefined) reader.fail("bad-profile", `parts[${i}].id`, `a part id not used before (parts[${first}] is "${p.id}")`, describeFound(p.id));
     else seen.set(p.id, i);
   });
-  const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile };
+  const timing: AttemptTiming = {
+    operateS: input.circuit?.relay?.operate ?? ATTEMPT_TIMING_DEFAULTS.operateS,
+    releaseS: input.circuit?.relay?.release ?? ATTEMPT_TIMING_DEFAULTS.releaseS,
+    timerResolutionS: input.firmware?.timerResolution ?? ATTEMPT_TIMING_DEFAULTS.timerResolutionS,
+  };
+  const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile, timing };
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));
   const supervision =
     input.supervision === undefined ? undefined : resolveSupervision(reader, input.supervision, "supervision", circuit, (l, f, busV) => resolveLoad(reader, l, f, busV));
@@ -108,6 +114,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     parts: parts as ProfilePart[],
     ...(circuit === undefined ? {} : { circuit }),
     events,
+    timing,
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
     ...(supervision === undefined ? {} : { supervision }),
     ...(input.occursPerYear === undefined ? {} : { occursPerYear: input.occursPerYear }),
@@ -497,6 +504,7 @@ interface EventContext {
   readonly circuit: ProfileCircuit | undefined;
   readonly partIds: readonly string[];
   readonly readFile: ReadNamedFile | undefined;
+  readonly timing: AttemptTiming;
 }
 
 const NO_LOAD: BusLoad = { kind: "none" };
@@ -515,7 +523,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
   switch (f.type) {
     case "shorted-output":
       forbid(["load", "power", "enableAt", "disableAt", "after"]);
-      return { type: f.type, load: { kind: "short" }, afterS: 0 };
+      return { type: f.type, load: { kind: "short" } };
     case "overloaded-bus": {
       forbid(["power", "enableAt", "disableAt", "after"]);
       if (f.load === undefined) {
@@ -523,7 +531,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, f.load, join(field, "load"), busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "converter-early": {
       forbid(["load", "after"]);
@@ -532,7 +540,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, { kind: "constant-power", power: f.power, enableAt: f.enableAt, disableAt: f.disableAt }, field, busV);
-      return load === undefined ? undefined : { type: f.type, load, afterS: 0 };
+      return load === undefined ? undefined : { type: f.type, load };
     }
     case "trip-after-close":
       forbid(["power", "enableAt", "disableAt"]);
@@ -540,7 +548,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         ctx.reader.fail("bad-profile", join(field, "after"), 'the time from contactor closing to the trip, such as "200 ms"', "nothing");
         return undefined;
       }
-      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), afterS: f.after };
+      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), tripAfterS: f.after };
   }
 }
 
@@ -557,7 +565,7 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const at = join(field, "fault");
     needCircuit(ctx, at, "fault");
     const fault = resolveFault(ctx, e.fault, at);
-    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" }, afterS: 0 } };
+    return { kind: "fault", field: at, ...label(e.fault), fault: fault ?? { type: "shorted-output", load: { kind: "short" } } };
   }
   if ("run" in e) return { kind: "run", field: join(field, "run"), durationS: e.run };
   if ("wait" in e) return { kind: "wait", field: join(field, "wait"), durationS: e.wait };
@@ -568,9 +576,16 @@ function resolveEvent(ctx: EventContext, e: EventInput, field: string): ProfileE
     const r = e.retry;
     needCircuit(ctx, at, "retry block");
     const fault = r.fault === undefined ? undefined : resolveFault(ctx, r.fault, join(at, "fault"));
-    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.afterS ?? 0);
-    if (ctx.circuit !== undefined && r.interval < attemptS)
-      ctx.reader.fail("out-of-range", join(at, "interval"), `an interval (start to start) at least as long as an attempt can last (${attemptS} s: the completion timeout${fault?.afterS ? " plus the trip delay" : ""})`, `${r.interval} s`);
+    // start to start, an interval must hold the longest attempt and the relay's opening and closing again
+    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.tripAfterS ?? 0);
+    const shortestS = attemptS + shortestAttemptWaitS(ctx.timing);
+    if (ctx.circuit !== undefined && r.interval < shortestS * (1 - 1e-12))
+      ctx.reader.fail(
+        "out-of-range",
+        join(at, "interval"),
+        `an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (${Number(shortestS.toPrecision(12))} s: the completion timeout${fault?.tripAfterS === undefined ? "" : ", the trip delay"} and ${Number(shortestAttemptWaitS(ctx.timing).toPrecision(12))} s for the relay)`,
+        `${r.interval} s`,
+      );
     const maxIntervalS = r.maxInterval ?? Infinity;
     if (maxIntervalS < r.interval) ctx.reader.fail("out-of-range", join(at, "maxInterval"), `a longest interval at least the first interval (${r.interval} s)`, `${maxIntervalS} s`);
     const faultyAttempts = r.faultyAttempts ?? (r.fault === undefined ? 0 : r.attempts);

@@ -206,7 +206,13 @@ const dischargeSchema = z.strictObject({
   bleeder: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "47 kohm"' }).optional(),
 });
 
-/** The pre-charge circuit: topology, bus, capacitor, load, completion rule and discharge path. */
+/** The relay (or contactor) that starts and ends each pre-charge attempt: its switching times. */
+const relaySchema = z.strictObject({
+  operate: quantity("time", { min: 0, words: 'an operate time ≥ 0 such as "15 ms"' }).optional(),
+  release: quantity("time", { min: 0, words: 'a release time ≥ 0 such as "8 ms"' }).optional(),
+});
+
+/** The pre-charge circuit: topology, bus, capacitor, load, completion rule, discharge path and relay. */
 export const circuitSchema = z.strictObject({
   topology: z.enum(["series-resistor", "linear-mosfet", "converter"]),
   busVoltage: quantity("voltage", { above: 0, words: 'a bus voltage > 0 such as "48 V"' }),
@@ -218,6 +224,12 @@ export const circuitSchema = z.strictObject({
   load: loadSchema.optional(),
   completion: completionSchema,
   discharge: dischargeSchema,
+  relay: relaySchema.optional(),
+});
+
+/** The firmware that runs the pre-charge: the resolution of the timer it times waits with. */
+const firmwareSchema = z.strictObject({
+  timerResolution: quantity("time", { min: 0, words: 'a timer resolution ≥ 0 such as "1 ms" (0: no rounding)' }).optional(),
 });
 
 // ---- retry plan (read by src/plan for `heatledger retries`; nothing else uses it) ----
@@ -328,6 +340,7 @@ export const profileSchema = z.strictObject({
   events: z.array(eventSchema).min(1),
   retryPlan: retryPlanSchema.optional(),
   supervision: supervisionSchema.optional(),
+  firmware: firmwareSchema.optional(),
   /** how many times a year the whole profile happens, for calendar life (stress layer) */
   occursPerYear: quantity("dimensionless", { above: 0, words: "a number of times per year > 0 such as 52" }).optional(),
 });

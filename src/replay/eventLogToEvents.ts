@@ -44,7 +44,7 @@ export function eventLogToEvents(profile: DutyProfile, log: EventLog): ProfileEv
       if (profile.circuit === undefined) throw fail(line, `a profile with a circuit for a pre-charge attempt (${profile.file} has none)`);
       let attempt: ProfileEvent;
       if (line.word === "power-up") attempt = { kind: "power-up", field, label };
-      else if (line.word === "short") attempt = { kind: "fault", field, label, fault: { type: "shorted-output", load: { kind: "short" }, afterS: 0 } };
+      else if (line.word === "short") attempt = { kind: "fault", field, label, fault: { type: "shorted-output", load: { kind: "short" } } };
       else {
         const type = BORROWED[line.word]!;
         const fault = firstFault(profile.events, type);

@@ -24,7 +24,7 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
   rows.push(["rise too fast", r === null ? "none usable" : `bus > ${volts(r.thresholdV)} at ${dur(r.timeS)}`, r === null ? "" : `fastest healthy corner ${volts(r.highestHealthyV)}`]);
   const s = report.storm;
   const count = (m: typeof s.backToBack): string => (m.unlimited ? "unlimited" : `${m.attempts}${m.capped ? "+" : ""}`);
-  rows.push(["attempts back to back before the limit", count(s.backToBack), `at the ${dur(s.timeoutS)} timeout`]);
+  rows.push(["attempts back to back before the limit", count(s.backToBack), `at the ${dur(s.timeoutS)} timeout, ${dur(s.backToBackWaitS)} apart (relay)`]);
   if (s.atPolicyInterval !== null && report.policy !== null)
     rows.push([`attempts ${dur(report.policy.intervalS)} apart before the limit`, count(s.atPolicyInterval), `policy: ${report.policy.attempts} attempts, lockout ${dur(report.policy.lockoutS)}`]);
   const widths = [0, 1, 2].map((j) => Math.max(["quantity", "value", "basis"][j]!.length, ...rows.map((row) => row[j]!.length)));
@@ -90,7 +90,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     m.unlimited
       ? `  ${label}: unlimited (the part stays within limit − margin for ever; ${m.governing.corner})`
       : `  ${label}: ${m.attempts}${m.capped ? " or more" : ""} attempt(s) stay within limit − margin; the next reaches ${m.firstUnsafePeakC === null ? "n/a" : `${formatNumber(m.firstUnsafePeakC, 4)} °C`} (${m.governing.corner}). Lock out after at most that many.`;
-  out.push(storm("back to back", report.storm.backToBack));
+  out.push(storm(`back to back (${dur(report.storm.backToBackWaitS)} apart: relay)`, report.storm.backToBack));
   if (report.storm.atPolicyInterval !== null && report.policy !== null) out.push(storm(`${dur(report.policy.intervalS)} apart (the policy's interval)`, report.storm.atPolicyInterval));
   out.push("");
   out.push("Healthy corners");

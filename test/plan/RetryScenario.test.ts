@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, cornerScenarios, fosterToModal, minForeverInterval, resolveScenario } from "../../src/index.js";
+import { AttemptCursor, InputError, cornerScenarios, createModalState, fosterToModal, minForeverInterval, resolveScenario } from "../../src/index.js";
 import { rectangularFault } from "./scenarios.js";
 
 describe("corner checks", () => {
@@ -24,6 +24,23 @@ describe("corner checks", () => {
       'corners[1].humidity: expected one of the corner parameters powerW, ambientC, found "humidity"',
     );
     expect(() => cornerScenarios(nominal, [{ name: "a", values: {} }, { name: "a", values: {} }], build)).toThrow('corners[1].name: expected a corner name used once, found "a"');
+  });
+
+  test("a shortest wait that is negative is bad input naming it", () => {
+    const corner = { ...rectangularFault("relay", model, 50, 1, { ambientC: 25, limitC: 90, marginK: 5 }), minWaitS: -0.01 };
+    expect(() => resolveScenario(corner, "c")).toThrow("c.minWaitS: expected a finite shortest wait ≥ 0 s, found -0.01");
+  });
+
+  test("an attempt sooner than the shortest wait after the previous one cannot happen; the first attempt and a resumed start are free", () => {
+    const corner = resolveScenario({ ...rectangularFault("relay", model, 50, 1, { ambientC: 25, limitC: 90, marginK: 5 }), minWaitS: 0.05 });
+    const cursor = new AttemptCursor(corner);
+    expect(cursor.earliestNextS).toBe(0);
+    cursor.keep(cursor.tryAt(0)!);
+    expect(cursor.earliestNextS).toBe(1.05);
+    expect(cursor.tryAt(1.04)).toBeNull();
+    expect(cursor.tryAt(1.05)).not.toBeNull();
+    const resumed = AttemptCursor.resume(corner, { state: createModalState(model), endS: 0, endVoltageV: 0, attempts: 0 });
+    expect(resumed.tryAt(0)).not.toBeNull();
   });
 
   test("an attempt model returning a bad trace is reported, not simulated", () => {

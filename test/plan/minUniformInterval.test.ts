@@ -37,6 +37,23 @@ describe("minUniformInterval", () => {
     expect(answer.bands[0]!.openEnded).toBe(true);
   });
 
+  test.each([
+    // spacing, timer step, expected answer: a pulse train that is safe back to back (P·R = 20 K,
+    // under the 65 K allowed rise, so any interval is safe and the unconstrained answer is the
+    // shortest the scan allows), held apart by a 50 ms relay dead time and rounded up to the timer
+    ["end-to-start", 0, 0.05],
+    ["end-to-start", 0.02, 0.06],
+    ["start-to-start", 0, 0.15],
+    ["start-to-start", 0.02, 0.16],
+  ] as const)("a %s interval never undercuts the relay's dead time (timer step %s s)", (spacing, timerResolutionS, expected) => {
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 2, tauS: 10 }] });
+    const corner = { ...rectangularFault("relay", model, 10, 0.1, { ambientC: 25, limitC: 100, marginK: 10 }), minWaitS: 0.05 };
+    const answer = minUniformInterval([corner], 5, { spacing, timerResolutionS });
+    // the scan starts at the dead time (plus the 0.1 s pulse start to start): exact to rounding
+    expectClose(answer.minimumIntervalS!, expected, { rel: 1e-12 });
+    expect(minUniformInterval([{ ...corner, minWaitS: 0 }], 5, { spacing }).minimumIntervalS).toBe(spacing === "end-to-start" ? 0 : 0.1);
+  });
+
   test("a three-stage Cauer ladder agrees with brute-force superposition on a fine grid", () => {
     // Invented ladder; brute force: Zth superposition (no modal stepping) on 3000 intervals.
     const model = cauerToModal({ kind: "cauer", stages: [{ rKPerW: 0.2, cJPerK: 0.5 }, { rKPerW: 0.8, cJPerK: 4 }, { rKPerW: 1.5, cJPerK: 40 }] });

@@ -196,8 +196,12 @@ describe("supervisePrecharge: the timeout window and checks", () => {
   test("retry storm back to back: floor(t_max / timeout) attempts (back-to-back attempts are one long pulse)", () => {
     // zero wait between attempts of constant power P: N attempts of T are one pulse of N·T, safe
     // while N·T ≤ t_max = 2.877 s, so N = 2 at T = 1 s; the retry planner (maxAttempts) must agree.
+    // Back to back is as soon as the default relay allows (30 ms apart): the two gaps cool the
+    // part by θ·(1 − e^(−0.03/10)) at θ ≈ 48 K and 91 K, under 0.5 K in all, far less than the
+    // (P·R_th − ΔT_max)/τ × (3 s − t_max) ≈ 4.6 K by which a third attempt passes the limit: N stays 2.
     expect(report.storm.backToBack.attempts).toBe(Math.floor(-10 * Math.log(1 - DT / PR) / 1));
     expect(report.storm.backToBack.unlimited).toBe(false);
+    expect(report.storm.backToBackWaitS).toBe(0.03);
   });
 
   test("envelope: low ≤ high everywhere, energy rises linearly into the short", () => {

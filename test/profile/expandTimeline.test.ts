@@ -74,6 +74,22 @@ describe("expandTimeline", () => {
     expect(list[0]!.reason).toMatch(/tripped 0.5 s after/);
   });
 
+  test.each([
+    ["0 s", 0],
+    ["1 ns", 1e-9],
+    ["1 ms", 1e-3],
+  ])("a trip %s after closing disconnects the bus: the next attempt starts from what the drain left", (after, afterS) => {
+    const log = { initialV: [] as number[] };
+    const list = events(`  - retry: { attempts: 2, interval: 2 s, fault: { type: trip-after-close, after: ${after} }, lockout: 1 min }\n`, log);
+    expect(list.map((e) => e.kind)).toEqual(["trip-after-close", "trip-after-close", "lockout"]);
+    expectClose(list[0]!.durationS, FAKE_COMPLETE_S + afterS, { abs: 1e-12 });
+    // the fake drain (10 s time constant) runs from the trip to the next start 2 s after the first:
+    // 48·e^(−(2 − 0.2 − after)/10), computed the same way, so exact to rounding; a trip at 0 s
+    // read as "no trip" would leave the bus on at 48 V
+    expectClose(log.initialV[1]!, 48 * Math.exp(-(2 - FAKE_COMPLETE_S - afterS) / 10), { rel: 1e-12 });
+    expect(list[0]!.reason).toMatch(new RegExp(`tripped ${afterS} s after`));
+  });
+
   test("a repetition longer than its period is refused, naming the field", () => {
     expect(() => events(`  - repeat: { count: 2, period: 1 s, events: [{ run: 2 s }] }\n`)).toThrow(
       "events[0].repeat.period: expected a period at least as long as one repetition (repetition 1 took 2 s), found 1 s",

@@ -60,7 +60,7 @@ describe("loadProfile: bad input, exact messages", () => {
     [
       "unknown key, with the nearest valid key",
       edit("resistance: 10 ohm", "resistence: 10 ohm"),
-      'p.yaml:12: circuit.resistence: expected one of the keys topology, busVoltage, capacitance, resistance, sourceResistance, mosfet, converter, load, completion, discharge (did you mean "resistance"?), found an unknown key',
+      'p.yaml:12: circuit.resistence: expected one of the keys topology, busVoltage, capacitance, resistance, sourceResistance, mosfet, converter, load, completion, discharge, relay (did you mean "resistance"?), found an unknown key',
     ],
     ["missing key", edit("  busVoltage: 48 V\n", ""), 'p.yaml:9: circuit.busVoltage: expected a voltage such as "48 V" (or a number in V) (required), found nothing'],
     ["negative time", edit("run: 10 s", "run: -3 s"), 'p.yaml:17: events[1].run: expected a run time ≥ 0 such as "10 s", found "-3 s"'],
@@ -78,8 +78,25 @@ describe("loadProfile: bad input, exact messages", () => {
     [
       "retry interval shorter than the attempt",
       edit("- run: 10 s", "- retry: { attempts: 3, interval: 0.5 s, lockout: 1 min }"),
-      "p.yaml:17: events[1].retry.interval: expected an interval (start to start) at least as long as an attempt can last (1 s: the completion timeout), found 0.5 s",
+      "p.yaml:17: events[1].retry.interval: expected an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (1.03 s: the completion timeout and 0.03 s for the relay), found 0.5 s",
     ],
+    [
+      // the default relay (20 ms operate + 10 ms release) cannot open and close again between
+      // attempts 1.02 s apart that each last up to the 1 s timeout
+      "retry interval with no time left for the relay",
+      edit("- run: 10 s", "- retry: { attempts: 3, interval: 1.02 s, lockout: 1 min }"),
+      "p.yaml:17: events[1].retry.interval: expected an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (1.03 s: the completion timeout and 0.03 s for the relay), found 1.02 s",
+    ],
+    [
+      "the profile's own slower relay and a trip delay",
+      edit("discharge: { kind: bleeder, resistance: 5 kohm }", "discharge: { kind: bleeder, resistance: 5 kohm }\n  relay: { operate: 45 ms, release: 25 ms }").replace(
+        "- run: 10 s",
+        "- retry: { attempts: 3, interval: 1.2 s, fault: { type: trip-after-close, after: 150 ms }, lockout: 1 min }",
+      ),
+      "p.yaml:18: events[1].retry.interval: expected an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (1.22 s: the completion timeout, the trip delay and 0.07 s for the relay), found 1.2 s",
+    ],
+    ["negative relay time", edit("discharge: { kind: bleeder, resistance: 5 kohm }", "discharge: { kind: bleeder, resistance: 5 kohm }\n  relay: { operate: -5 ms }"), 'p.yaml:15: circuit.relay.operate: expected an operate time ≥ 0 such as "15 ms", found "-5 ms"'],
+    ["timer resolution not a time", edit("events:", "firmware: { timerResolution: 10 V }\nevents:"), 'p.yaml:15: firmware.timerResolution: expected a time such as "350 ms" (or a number in s), found "10 V" (a voltage)'],
     ["role not in the topology", edit("role: resistor", "role: mosfet"), 'p.yaml:5: parts[0].role: expected a role of a series-resistor circuit (resistor), found "mosfet"'],
     ["misspelt topology", edit("topology: series-resistor", "topology: series-resistr"), 'p.yaml:9: circuit.topology: expected one of series-resistor, linear-mosfet, converter (did you mean "series-resistor"?), found "series-resistr"'],
     ["fractional attempts", edit("- run: 10 s", "- retry: { attempts: 2.5, interval: 2 s, lockout: 1 min }"), "p.yaml:17: events[1].retry.attempts: expected a whole number of attempts ≥ 1, found 2.5"],

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { PLAN_DEFAULTS } from "../../plan/planDefaults.js";
+import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
@@ -19,6 +20,9 @@ export interface RetriesFlags {
   readonly strict?: boolean;
 }
 
+/** A duration in s written in ms for the help text. */
+const ms = (s: number): string => `${Number((s * 1000).toPrecision(6))} ms`;
+
 /** `heatledger retries PROFILE`: flags and help here; the run is loaded from retriesAction.ts when it starts. */
 export function registerRetries(program: Command, run: CliRun): void {
   const command = program
@@ -32,6 +36,10 @@ The profile's first retry block with a fault is the scenario; its optional retry
 sets the attempts and interval to ask about, the spacing (start-to-start or end-to-start), the
 "near ambient" distance (default ${PLAN_DEFAULTS.ambientReturnK} K), the lockout map and the corner set (busVoltage,
 ambient, capacitance, resistance). Safe means at or below the part's limit minus its margin.
+The relay that starts each attempt must open and close again between attempts (circuit.relay:
+operate, default ${ms(ATTEMPT_TIMING_DEFAULTS.operateS)}; release, default ${ms(ATTEMPT_TIMING_DEFAULTS.releaseS)}): no wait proposed is shorter than
+their sum, and every interval, wait and lockout is a whole number of the firmware's timer steps
+(firmware.timerResolution, default ${ms(ATTEMPT_TIMING_DEFAULTS.timerResolutionS)}), rounded up and checked again by simulation.
 ${verdictHelp("Here the verdict is that of the profile's own retry policy: its burst from a cold part and burst + lockout repeated while the fault persists, in every corner (pass: safe; an attempt that would start before the previous one ends fails).")}
 See README, "Reading the retry plan" and "Verdicts and exit status".`,
     );

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { SUPERVISE_DEFAULTS } from "../../plan/superviseDefaults.js";
+import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
@@ -31,6 +32,9 @@ bus voltage, completion fraction and loads optional) and check times (default:
 ${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")} of the slowest healthy completion time). Check thresholds keep a
 margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin) and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage
 (minCheckVoltage).
+Attempts "back to back" are as close as the relay allows: its release plus operate time
+(circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms), rounded up to the firmware's timer
+(firmware.timerResolution, default ${ATTEMPT_TIMING_DEFAULTS.timerResolutionS * 1000} ms).
 ${verdictHelp("Here the verdict judges the profile's own timeout: attempts into a short at that timeout, through the profile's retry policy (burst and burst + lockout repeated), worst part and bus voltage; pass when it is inside the window. A timeout shorter than the slowest healthy charge fails (healthy units would be stopped).")}
 See README, "Reading the supervision answers" and "Verdicts and exit status".`,
     );
