@@ -1,5 +1,5 @@
 import { ProgressLine } from "../report/ProgressLine.js";
-import { formatDuration } from "../report/formatTable.js";
+import { formatDuration } from "../text/formatTable.js";
 import type { CliIo } from "./CliIo.js";
 
 /**

@@ -71,7 +71,7 @@ export interface ExpandOptions {
  * is min(interval·backoff^(k−1), maxInterval).
  * Because the stream is lazy, `temperatureOf` sees the parts' temperatures after every earlier
  * item has been integrated, so temperature-dependent circuit models read the true state.
- * Source: event semantics of our own (DEVELOPERS.md, "Profile format"); capacitor charge
+ * Source: event semantics of our own (docs/profile-format.md); capacitor charge
  * bookkeeping per docs/design.md ("Circuit bookkeeping").
  * Cost O(events × (circuit model + parts)); memory O(nesting depth + parts).
  * @throws InputError when a repetition overruns its period or the profile exceeds the longest time

@@ -53,7 +53,7 @@ const TOPOLOGY_ROLES: Record<CircuitInput["topology"], readonly CircuitRole[]> =
  * outlast an attempt, power traces name a part), and resolve thermal networks and power-trace
  * CSV files through `readFile` (the core never touches the file system itself). Every problem
  * is reported at once, each with file, line, field path, what was expected and what was found.
- * Source: profile format of our own, described in DEVELOPERS.md ("Profile format").
+ * Source: profile format of our own, described in docs/profile-format.md.
  * Cost O(size of the profile and the files it names) + O(nodes³) per graph or Cauer network.
  * @param text the profile's text
  * @param file its name, for messages

@@ -1,7 +1,7 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
-import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } from "../stress/formatStressSection.js";
-import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
+import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } from "./formatStressSection.js";
+import { LINEAR_MOSFET_CAUTION, wrapText } from "../text/cautions.js";
 
 const RATING_WORDS = {
   pass: "every checked event is within its rating tables",

@@ -1,8 +1,8 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { formatCautions, wrapText } from "./cautions.js";
-import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "./EventDigest.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
+import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "../profile/EventDigest.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 import type { PeakEnvelope } from "./PeakEnvelope.js";
 import { simulationVerdict } from "./simulationVerdict.js";

@@ -1,7 +1,7 @@
-import type { SizingReport } from "../plan/sizeProfile.js";
-import { formatCautions, wrapText } from "./cautions.js";
+import type { SizingReport } from "../size/sizeProfile.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 
 const grams = (kg: number | undefined): string => (kg === undefined ? "" : formatNumber(kg * 1000));
 

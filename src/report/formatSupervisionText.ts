@@ -1,7 +1,7 @@
-import type { SupervisionReport } from "../plan/supervisePrecharge.js";
-import { formatCautions, wrapText } from "./cautions.js";
+import type { SupervisionReport } from "../supervise/supervisePrecharge.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 
 const dur = (s: number): string => (s === Infinity ? "unbounded" : formatDuration(s));

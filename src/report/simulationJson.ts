@@ -1,7 +1,7 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { reportCautions } from "./cautions.js";
-import type { EventDigest } from "./EventDigest.js";
+import { reportCautions } from "../text/cautions.js";
+import type { EventDigest } from "../profile/EventDigest.js";
 import type { Verdict } from "../stress/Verdict.js";
 
 /** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */

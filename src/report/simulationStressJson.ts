@@ -1,8 +1,8 @@
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
-import { type StressJson, stressReportJson } from "../stress/stressReportJson.js";
+import { type StressJson, stressReportJson } from "./stressReportJson.js";
 import type { SimulationJson } from "./simulationJson.js";
-import { LIFETIME_CAUTION } from "../stress/stressCautions.js";
+import { LIFETIME_CAUTION } from "../text/stressCautions.js";
 import type { Verdict } from "../stress/Verdict.js";
 import { simulationVerdict } from "./simulationVerdict.js";
 

@@ -1,5 +1,5 @@
-import type { SizingReport } from "../plan/sizeProfile.js";
-import { reportCautions } from "./cautions.js";
+import type { SizingReport } from "../size/sizeProfile.js";
+import { reportCautions } from "../text/cautions.js";
 import { networkToDocument } from "../thermal/formatNetworkFile.js";
 
 /** A number for JSON: non-finite values become null (JSON has no Infinity). */

@@ -1,5 +1,5 @@
-import type { SupervisionReport } from "../plan/supervisePrecharge.js";
-import { reportCautions } from "./cautions.js";
+import type { SupervisionReport } from "../supervise/supervisePrecharge.js";
+import { reportCautions } from "../text/cautions.js";
 
 /**
  * The supervision report as plain JSON: every non-finite number (an unbounded timeout, a corner

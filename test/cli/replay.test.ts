@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION } from "../../src/report/cautions.js";
+import { GENERAL_CAUTION } from "../../src/text/cautions.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger replay` through the CLI factory, on an invented profile and log.

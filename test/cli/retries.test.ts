@@ -10,7 +10,7 @@ import { shortedBusProfile, shortedRetry } from "../helpers/shortedBusProfile.js
 // model with the bus held at 0 V), on one Foster stage R = 2 K/W, τ = 5 s; limit 100 °C, margin
 // 10 K, ambient 25 °C, so ΔT_max = 65 K. One-stage closed form (lumped capacitance, Incropera
 // et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 and §5.3, summed as a geometric
-// series; derivation in test/plan/minForeverInterval.test.ts): retrying for ever is safe from
+// series; derivation in test/retry/minForeverInterval.test.ts): retrying for ever is safe from
 // T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max) ≈ 0.757 s.
 const PROFILE = (retry: string, plan = ""): string => shortedBusProfile(shortedRetry(retry), plan);
 

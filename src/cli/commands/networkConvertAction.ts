@@ -1,5 +1,5 @@
 import { InputError, inputError } from "../../errors/InputError.js";
-import { formatCautions, reportCautions } from "../../report/cautions.js";
+import { formatCautions, reportCautions } from "../../text/cautions.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
 import { fosterToCauer } from "../../thermal/fosterToCauer.js";
 import { modalToFoster } from "../../thermal/modalToFoster.js";

@@ -1,8 +1,8 @@
 import { InputError, inputError, withLocation } from "../../errors/InputError.js";
 import { parseQuantityTable } from "../../format/parseQuantityTable.js";
-import { formatCautions, wrapText } from "../../report/cautions.js";
+import { formatCautions, wrapText } from "../../text/cautions.js";
 import { formatFosterFit } from "../../report/formatFosterFit.js";
-import { formatNumber } from "../../report/formatTable.js";
+import { formatNumber } from "../../text/formatTable.js";
 import { PULSE_RATING_ASSUMPTIONS, zthFromPulseRating } from "../../thermal/zthFromPulseRating.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
 import type { CliRun } from "../main.js";

@@ -1,7 +1,7 @@
 import { inputError } from "../../errors/InputError.js";
-import { formatCautions, reportCautions, wrapText } from "../../report/cautions.js";
+import { formatCautions, reportCautions, wrapText } from "../../text/cautions.js";
 import { describeNetwork } from "../../report/describeNetwork.js";
-import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../../text/formatTable.js";
 import { lineChart } from "../../report/lineChart.js";
 import { cauerToModal } from "../../thermal/cauerLadder.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";

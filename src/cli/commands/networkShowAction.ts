@@ -1,6 +1,6 @@
-import { formatCautions, reportCautions } from "../../report/cautions.js";
+import { formatCautions, reportCautions } from "../../text/cautions.js";
 import { describeNetwork } from "../../report/describeNetwork.js";
-import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../../text/formatTable.js";
 import { lineChart } from "../../report/lineChart.js";
 import { parseNetwork } from "../../thermal/parseNetwork.js";
 import { networkToModal } from "../../thermal/ThermalNetwork.js";

@@ -53,8 +53,8 @@ Example:
     --profile profiles/irrigation-pump-decade.yaml
 
 ${verdictHelp(`${SIMULATION_VERDICT_COVERS} The history is the log's.`)}
-Damage to date counts the log as a one-off history (ASTM E1049 §5.4.4). See DEVELOPERS.md,
-"Field event logs".`,
+Damage to date counts the log as a one-off history (ASTM E1049 §5.4.4). See
+docs/field-logs.md (shipped in the package).`,
     );
   for (const option of REPLAY_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: ReplayFlags) => {

@@ -1,5 +1,5 @@
 import type { Command } from "commander";
-import { PLAN_DEFAULTS } from "../../plan/planDefaults.js";
+import { PLAN_DEFAULTS } from "../../retry/planDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";

@@ -1,7 +1,7 @@
-import { formatRetryPlanText } from "../../plan/formatRetryPlanText.js";
-import { lockoutMapCsv } from "../../plan/formatLockoutMap.js";
-import { planRetries } from "../../plan/planRetries.js";
-import { retryPlanJson } from "../../plan/retryPlanJson.js";
+import { formatRetryPlanText } from "../../report/formatRetryPlanText.js";
+import { lockoutMapCsv } from "../../report/formatLockoutMap.js";
+import { planRetries } from "../../retry/planRetries.js";
+import { retryPlanJson } from "../../report/retryPlanJson.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
 import type { CliRun } from "../main.js";

@@ -44,7 +44,7 @@ export function registerSimulate(program: Command, run: CliRun): void {
       `
 ${verdictHelp(SIMULATION_VERDICT_COVERS)}
 Network and CSV files named in the profile are read relative to the profile's folder. See
-DEVELOPERS.md, "Profile format" and "Stress: ratings, cycles and damage"; README, "Verdicts and
+docs/profile-format.md and docs/stress.md (shipped in the package); README, "Verdicts and
 exit status".`,
     );
   for (const option of SIMULATE_OPTIONS) command.option(option.flags, option.help);

@@ -6,7 +6,7 @@ import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { simulationVerdict } from "../../report/simulationVerdict.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
-import { formatCyclesCsv } from "../../stress/formatCyclesCsv.js";
+import { formatCyclesCsv } from "../../report/formatCyclesCsv.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";

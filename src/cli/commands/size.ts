@@ -1,5 +1,5 @@
 import type { Command } from "commander";
-import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../plan/sizeDefaults.js";
+import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../size/sizeDefaults.js";
 import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";

@@ -1,6 +1,6 @@
 import { describeFound, inputError } from "../../errors/InputError.js";
-import { sizeProfile } from "../../plan/sizeProfile.js";
-import { SIZE_SCALE_SCOPES, type SizeScaleScope } from "../../plan/sizeDefaults.js";
+import { sizeProfile } from "../../size/sizeProfile.js";
+import { SIZE_SCALE_SCOPES, type SizeScaleScope } from "../../size/sizeDefaults.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSizingText } from "../../report/formatSizingText.js";
 import { sizingJson } from "../../report/sizingJson.js";

@@ -1,5 +1,5 @@
 import type { Command } from "commander";
-import { SUPERVISE_DEFAULTS } from "../../plan/superviseDefaults.js";
+import { SUPERVISE_DEFAULTS } from "../../supervise/superviseDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";

@@ -1,4 +1,4 @@
-import { supervisePrecharge } from "../../plan/supervisePrecharge.js";
+import { supervisePrecharge } from "../../supervise/supervisePrecharge.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSupervisionText } from "../../report/formatSupervisionText.js";
 import { supervisionJson } from "../../report/supervisionJson.js";

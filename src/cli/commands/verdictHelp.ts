@@ -1,4 +1,4 @@
-import { wrapText } from "../../report/cautions.js";
+import { wrapText } from "../../text/cautions.js";
 import { VERDICT_ORDER, VERDICTS } from "../../stress/Verdict.js";
 import { EXIT_INPUT } from "../CliIo.js";
 

@@ -1,5 +1,5 @@
 import { stringify } from "csv-stringify/sync";
-import type { RainflowCycle } from "./rainflowCounter.js";
+import type { RainflowCycle } from "../stress/rainflowCounter.js";
 
 /** Column names of the cycles CSV, in order. */
 export const CYCLES_CSV_COLUMNS = [

@@ -14,7 +14,7 @@ import {
   simulateCorners,
   uniformRetry,
   withRetryKeys,
-} from "./closedLoopFixtures.js";
+} from "../helpers/closedLoopFixtures.js";
 
 // Closed loop for `heatledger retries`: every answer is written back into the bundled profile it
 // came from (its parts, networks, limits and circuit; each retry plan corner's ambient, bus

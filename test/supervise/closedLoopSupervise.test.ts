@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { type SupervisionReport, defaultCircuitModels, supervisePrecharge } from "../../src/index.js";
-import { DANGER_STEP, PEAK_TOLERANCE_K, type SimulatedPeak, bundledText, loadAs, readPath, retryBlockOf, simulatedPeaks, withEvents, withValue, worst } from "./closedLoopFixtures.js";
+import { DANGER_STEP, PEAK_TOLERANCE_K, type SimulatedPeak, bundledText, loadAs, readPath, retryBlockOf, simulatedPeaks, withEvents, withValue, worst } from "../helpers/closedLoopFixtures.js";
 
 // Closed loop for `heatledger supervise`: the upper ends of the pre-charge timeout window are
 // written back into the bundled boat profile as its completion timeout, with the pre-charge

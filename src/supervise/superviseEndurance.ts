@@ -1,7 +1,7 @@
 import { createModalState, type ModalState } from "../thermal/modalStep.js";
-import { AttemptCursor } from "./AttemptCursor.js";
-import { type ResolvedScenario, type RetryScenario, resolveScenario } from "./RetryScenario.js";
-import { retryPolicyVerdict } from "./retryPolicyVerdict.js";
+import { AttemptCursor } from "../retry/AttemptCursor.js";
+import { type ResolvedScenario, type RetryScenario, resolveScenario } from "../retry/RetryScenario.js";
+import { retryPolicyVerdict } from "../retry/retryPolicyVerdict.js";
 import { SUPERVISE_DEFAULTS } from "./superviseDefaults.js";
 import type { SupervisedRetryPolicy } from "./superviseRetryPolicy.js";
 

@@ -2,7 +2,7 @@ import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
 import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "../profile/attemptTiming.js";
-import type { AttemptOutcome, RetryScenario } from "./RetryScenario.js";
+import type { AttemptOutcome, RetryScenario } from "../retry/RetryScenario.js";
 
 /**
  * The retry planner's scenario for pre-charge attempts into a shorted output: every attempt runs

@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { parse } from "yaml";
 import { createOdexSolver } from "../../src/circuits/loadOdex.js";
 import { expectClose } from "../helpers/expectClose.js";
-import { DANGER_STEP, bundledText, planOf } from "./closedLoopFixtures.js";
+import { DANGER_STEP, bundledText, planOf } from "../helpers/closedLoopFixtures.js";
 
 // An independent reference for the retry planner's fastest safe schedule: the part's thermal
 // network is integrated as an ordinary differential equation by odex (Hairer and Wanner's

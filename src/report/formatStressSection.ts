@@ -1,7 +1,7 @@
-import { wrapText } from "../report/cautions.js";
-import { CYCLE_QUANTITY_WORDS } from "./LifetimeModel.js";
-import type { EventRatingCheck, StressReport } from "./assessStress.js";
-import type { PulseEnergyCheck } from "./pulseEnergyRating.js";
+import { wrapText } from "../text/cautions.js";
+import { CYCLE_QUANTITY_WORDS } from "../stress/LifetimeModel.js";
+import type { EventRatingCheck, StressReport } from "../stress/assessStress.js";
+import type { PulseEnergyCheck } from "../stress/pulseEnergyRating.js";
 
 /** Most events with a failing or uncovered rating check the terminal section lists one by one. */
 export const STRESS_SECTION_MAX_EVENTS = 8;

@@ -1,5 +1,5 @@
-import type { RetryPlanReport } from "./planRetries.js";
-import { reportCautions } from "../report/cautions.js";
+import type { RetryPlanReport } from "../retry/planRetries.js";
+import { reportCautions } from "../text/cautions.js";
 
 /**
  * The machine form of `heatledger retries --json`: every answer as plain data (the corners'

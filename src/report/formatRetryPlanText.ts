@@ -1,9 +1,9 @@
-import { formatCautions, wrapText } from "../report/cautions.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
-import type { GoverningCorner } from "./GoverningCorner.js";
+import type { GoverningCorner } from "../retry/GoverningCorner.js";
 import { lockoutMapHeatmap } from "./formatLockoutMap.js";
-import type { RetryPlanReport } from "./planRetries.js";
-import type { FeasibleBand } from "./scanFeasibleBands.js";
+import type { RetryPlanReport } from "../retry/planRetries.js";
+import type { FeasibleBand } from "../retry/scanFeasibleBands.js";
 
 /** A duration for people: ms below 1 s, s below 2 min, else min. */
 export function formatPlanDuration(s: number): string {

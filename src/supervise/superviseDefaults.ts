@@ -1,4 +1,4 @@
-import { PLAN_DEFAULTS } from "./planDefaults.js";
+import { PLAN_DEFAULTS } from "../retry/planDefaults.js";
 
 /**
  * Every default of the supervision answers (`heatledger supervise`), declared once. The solvers,

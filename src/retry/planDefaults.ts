@@ -1,6 +1,6 @@
 /**
  * Every default of the retry and lockout planner, declared once. Solvers, the CLI's help text and
- * the README read these values; nothing else in src/plan hard-codes them.
+ * the README read these values; nothing else in the planners hard-codes them.
  */
 export const PLAN_DEFAULTS = {
   /** points of the log-spaced scan that brackets feasible bands before bisection */

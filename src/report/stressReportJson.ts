@@ -1,4 +1,4 @@
-import type { StressReport } from "./assessStress.js";
+import type { StressReport } from "../stress/assessStress.js";
 
 /** JSON-safe number: Infinity and NaN become null (JSON has neither). */
 function safe(x: number | undefined): number | null {

@@ -2,7 +2,7 @@ import type { BusLoad } from "../circuits/BusLoad.js";
 import type { CompletionRule } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import type { ProfileCircuit, SupervisionSpec } from "../profile/DutyProfile.js";
-import { formatNumber } from "../report/formatTable.js";
+import { formatNumber } from "../text/formatTable.js";
 
 /** One healthy system the supervisor must let through: a corner of the supervision corner set. */
 export interface HealthyCorner {

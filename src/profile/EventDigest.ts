@@ -1,5 +1,5 @@
-import type { EventTemperatures } from "../profile/simulateProfile.js";
-import type { TimelineEvent } from "../profile/expandTimeline.js";
+import type { EventTemperatures } from "./simulateProfile.js";
+import type { TimelineEvent } from "./expandTimeline.js";
 
 /** What a report keeps of one event. */
 export interface EventRecord {

@@ -1,5 +1,5 @@
 import { stringify } from "csv-stringify/sync";
-import type { LockoutMap, LockoutMapCell } from "./lockoutMap.js";
+import type { LockoutMap, LockoutMapCell } from "../retry/lockoutMap.js";
 
 /**
  * The heat map's cell characters, darkest last, each with the cell status it shows (the word in

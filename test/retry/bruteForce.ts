@@ -1,5 +1,5 @@
 // Brute-force references for the planner tests (not a test file). They share no code with
-// src/plan: rectangular pulse trains are superposed from step responses Zth(t) (the O(N²)
+// src/retry: rectangular pulse trains are superposed from step responses Zth(t) (the O(N²)
 // convolution kept as the reference (docs/design.md, "Exact integration")), and general traces are simulated in one piece
 // with runThermalHistory over traceSteps.
 import { type ModalModel, type PowerTrace, runThermalHistory, traceSteps, zth } from "../../src/index.js";

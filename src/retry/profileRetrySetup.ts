@@ -72,7 +72,7 @@ const ATTEMPT_MEMO_SIZE = 512;
  * after the previous one's end than the relay's release plus operate time (`circuit.relay`, the
  * scenarios' minWaitS); the firmware's timer resolution (`firmware.timerResolution`) is handed
  * to the solvers through `timing`.
- * Source: event semantics of DEVELOPERS.md ("Profile format"), charge bookkeeping of docs/design.md ("Circuit bookkeeping").
+ * Source: event semantics of docs/profile-format.md, charge bookkeeping of docs/design.md ("Circuit bookkeeping").
  * Cost O(corners × parts).
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
  *   or a corner sets a resistance for a topology without a series resistor; `out-of-range` when

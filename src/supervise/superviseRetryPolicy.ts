@@ -1,6 +1,6 @@
 import type { ProfileEvent } from "../profile/DutyProfile.js";
-import { firstRetryBlock } from "./firstRetryBlock.js";
-import { type BurstPlan, backoffBurst } from "./RetrySchedule.js";
+import { firstRetryBlock } from "../retry/firstRetryBlock.js";
+import { type BurstPlan, backoffBurst } from "../retry/RetrySchedule.js";
 
 /** The retry policy of a profile: how firmware restarts a pre-charge that did not complete. */
 export interface SupervisedRetryPolicy {
@@ -22,7 +22,7 @@ export interface SupervisedRetryPolicy {
  * The first `retry` block of a profile (depth first, inside repeats too), as the supervisor's
  * retry policy; null when the profile has none. The burst is the retry planner's backoffBurst:
  * the k-th gap is min(interval·backoff^(k−1), maxInterval), as the profile expansion runs it.
- * Source: profile keys of our own (DEVELOPERS.md, "Profile format").
+ * Source: profile keys of our own (docs/profile-format.md).
  * Cost O(events + attempts).
  */
 export function profileRetryPolicy(events: readonly ProfileEvent[]): SupervisedRetryPolicy | null {
