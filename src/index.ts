@@ -145,8 +145,9 @@ export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent,
 export { resolveSupervision } from "./profile/resolveSupervision.js";
 export { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "./profile/attemptTiming.js";
 export type { AttemptTiming } from "./profile/attemptTiming.js";
-export { loadProfile, expandedEventBound, PROFILE_DEFAULTS } from "./profile/loadProfile.js";
-export type { ReadNamedFile } from "./profile/loadProfile.js";
+export { loadProfile, expandedEventBound } from "./profile/loadProfile.js";
+export { PROFILE_DEFAULTS } from "./profile/profileDefaults.js";
+export type { ReadNamedFile } from "./profile/ReadNamedFile.js";
 export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.js";
 export type { PowerTracePoints } from "./profile/powerTracePoints.js";
 export type { CircuitModels } from "./profile/CircuitModels.js";

@@ -4,7 +4,7 @@ import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
-import { PROFILE_DEFAULTS } from "./loadProfile.js";
+import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 
 /** The kinds of events a timeline holds. */
 export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
