@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, segmentEnergy, validatePowerTrace } from "../../src/index.js";
+import { type BusLoad, type ChargeConditions, type CircuitResult, chargeSeriesResistor, segmentEnergy, validatePowerTrace } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { sumParts, traceAt } from "./circuitResultProbes.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";

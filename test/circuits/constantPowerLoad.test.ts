@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type CircuitResult, NONLINEAR_ACCURACY, chargeSeriesResistor, powerAt, segmentEnergy } from "../../src/index.js";
+import { type BusLoad, type CircuitResult, NONLINEAR_ACCURACY, chargeSeriesResistor, powerAt, segmentEnergy } from "../../src/internal.js";
 import { createOdexSolver } from "../../src/circuits/loadOdex.js";
 import { expectClose } from "../helpers/expectClose.js";
 

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { GENERAL_CAUTION, fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, zth } from "../../src/index.js";
+import { GENERAL_CAUTION, fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, zth } from "../../src/internal.js";
 import { runCli } from "../../src/cli/main.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";

@@ -2,7 +2,7 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION } from "../../src/index.js";
+import { GENERAL_CAUTION } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));

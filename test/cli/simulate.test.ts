@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION } from "../../src/index.js";
+import { GENERAL_CAUTION } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 import { shortedBusProfile } from "../helpers/shortedBusProfile.js";
 

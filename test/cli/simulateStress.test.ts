@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import { stringify } from "yaml";
 import { runCli } from "../../src/cli/main.js";
-import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
+import { CYCLES_CSV_COLUMNS } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 

@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { VERDICTS } from "../../src/index.js";
+import { VERDICTS } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // Every judging command states the one verdict rule and takes --strict; the paragraph is built

@@ -7,7 +7,7 @@ import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { isMap, isSeq, parseDocument } from "yaml";
-import { type DutyProfile, type RetryPlanReport, defaultCircuitModels, loadProfile, planRetries, simulateProfile } from "../../src/index.js";
+import { type DutyProfile, type RetryPlanReport, defaultCircuitModels, loadProfile, planRetries, simulateProfile } from "../../src/internal.js";
 
 const PROFILES = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "profiles");
 

@@ -11,7 +11,7 @@ import {
   runBurst,
   supervisePrecharge,
   uniformBurst,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { tripDriveProfileText } from "./tripDriveProfile.js";
 
 // Retry intervals a relay can do. An invented 420 V drive trips 20 ms after each completed

@@ -2,7 +2,7 @@
 // anything else completes) so the expansion logic can be checked against hand-counted schedules.
 // Powers are constant (an invented 100 W for the attempt) — the physics lives in src/circuits and
 // is checked there; here only counts, times and carried voltages matter.
-import type { CircuitModels } from "../../src/index.js";
+import type { CircuitModels } from "../../src/internal.js";
 
 export const FAKE_COMPLETE_S = 0.2;
 export const FAKE_POWER_W = 100;

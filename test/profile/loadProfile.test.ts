@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, loadProfile } from "../../src/index.js";
+import { InputError, loadProfile } from "../../src/internal.js";
 
 // Bad input: every broken profile gets one exact message per problem, naming file:line, the field
 // path, what was expected and what was found (the bad-input rule of README and DEVELOPERS.md).
@@ -158,7 +158,7 @@ describe("loadProfile: bad input, exact messages", () => {
 describe("loadProfile: the documented example", () => {
   test("the complete example in docs/profile-format.md loads and simulates", async () => {
     const { readFileSync } = await import("node:fs");
-    const { defaultCircuitModels, simulateProfile } = await import("../../src/index.js");
+    const { defaultCircuitModels, simulateProfile } = await import("../../src/internal.js");
     const doc = readFileSync(new URL("../../docs/profile-format.md", import.meta.url), "utf8");
     const yaml = doc.slice(doc.indexOf("```yaml\n") + 8, doc.indexOf("```\n", doc.indexOf("```yaml\n") + 8));
     const named: Record<string, string> = {

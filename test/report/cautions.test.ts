@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION } from "../../src/index.js";
+import { GENERAL_CAUTION } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 import { shortedBusProfile, shortedRetry } from "../helpers/shortedBusProfile.js";
 

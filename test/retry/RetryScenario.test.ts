@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { AttemptCursor, InputError, cornerScenarios, createModalState, fosterToModal, minForeverInterval, resolveScenario } from "../../src/index.js";
+import { AttemptCursor, InputError, cornerScenarios, createModalState, fosterToModal, minForeverInterval, resolveScenario } from "../../src/internal.js";
 import { rectangularFault } from "./scenarios.js";
 
 describe("corner checks", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { alignBandsToTimer, ceilToTimer, earliestOnTimer, floorToTimer } from "../../src/index.js";
+import { alignBandsToTimer, ceilToTimer, earliestOnTimer, floorToTimer } from "../../src/internal.js";
 
 // Rounding to a firmware timer: whole steps only, up for what is proposed, checked again by the
 // predicate. Expected values are counted by hand (whole multiples of the step, written as the

@@ -2,7 +2,7 @@
 // src/retry: rectangular pulse trains are superposed from step responses Zth(t) (the O(N²)
 // convolution kept as the reference (docs/design.md, "Exact integration")), and general traces are simulated in one piece
 // with runThermalHistory over traceSteps.
-import { type ModalModel, type PowerTrace, runThermalHistory, traceSteps, zth } from "../../src/index.js";
+import { type ModalModel, type PowerTrace, runThermalHistory, traceSteps, zth } from "../../src/internal.js";
 
 /** A rectangular pulse. */
 export interface Pulse {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { backoffWaits, defaultCircuitModels, firstWaitCandidates, lockoutAfterBurst, profileRetrySetup } from "../../src/index.js";
+import { backoffWaits, defaultCircuitModels, firstWaitCandidates, lockoutAfterBurst, profileRetrySetup } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import {
   DANGER_STEP,

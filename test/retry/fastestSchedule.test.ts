@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { backoffRule, fastestSchedule, firstWaitCandidates, fosterToModal } from "../../src/index.js";
+import { backoffRule, fastestSchedule, firstWaitCandidates, fosterToModal } from "../../src/internal.js";
 import { type Pulse, superposedPeak } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";
 

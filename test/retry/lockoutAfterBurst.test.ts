@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fosterToModal, lockoutAfterBurst, uniformBurst } from "../../src/index.js";
+import { fosterToModal, lockoutAfterBurst, uniformBurst } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 

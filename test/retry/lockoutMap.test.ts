@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { LOCKOUT_MAP_SYMBOLS, fosterToModal, lockoutMap, lockoutMapCsv, lockoutMapHeatmap, maxAttempts } from "../../src/index.js";
+import { LOCKOUT_MAP_SYMBOLS, fosterToModal, lockoutMap, lockoutMapCsv, lockoutMapHeatmap, maxAttempts } from "../../src/internal.js";
 import { rectangularFault } from "./scenarios.js";
 
 describe("lockoutMap", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, fosterToModal, maxAttempts } from "../../src/index.js";
+import { InputError, fosterToModal, maxAttempts } from "../../src/internal.js";
 import { superposedPeak, uniformPulses } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";
 

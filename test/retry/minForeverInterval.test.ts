@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fosterToModal, minForeverInterval, retryForeverCheck, resolveScenario } from "../../src/index.js";
+import { fosterToModal, minForeverInterval, retryForeverCheck, resolveScenario } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { superposedPeak, uniformPulses } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type PowerSegment, cauerToModal, fosterToModal, minUniformInterval } from "../../src/index.js";
+import { type PowerSegment, cauerToModal, fosterToModal, minUniformInterval } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { firstOnGrid, linspace, superposedPeak, uniformPulses, wholeTracePeak } from "./bruteForce.js";
 import { chargeThenTrip, rectangularFault } from "./scenarios.js";

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, defaultCircuitModels, loadProfile, profileRetrySetup, retryPolicyVerdict, simulateProfile } from "../../src/index.js";
+import { InputError, defaultCircuitModels, loadProfile, profileRetrySetup, retryPolicyVerdict, simulateProfile } from "../../src/internal.js";
 import type { TimelineEvent } from "../../src/profile/expandTimeline.js";
 import { expectClose } from "../helpers/expectClose.js";
 

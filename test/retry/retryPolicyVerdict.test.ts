@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { backoffBurst, fosterToModal, retryPolicyVerdict, uniformBurst } from "../../src/index.js";
+import { backoffBurst, fosterToModal, retryPolicyVerdict, uniformBurst } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { scanFeasibleBands, scanGrid } from "../../src/index.js";
+import { scanFeasibleBands, scanGrid } from "../../src/internal.js";
 
 // Invariant tests: a predicate with known bands (unions of intervals, each wider than a few grid
 // steps so the scan must see it) is recovered band by band, every edge to the bisection's

@@ -1,5 +1,5 @@
 // Invented test scenarios for the planner (not a test file: imported by the tests and the bench).
-import { type ModalModel, type RetryScenario, constantPowerSegment } from "../../src/index.js";
+import { type ModalModel, type RetryScenario, constantPowerSegment } from "../../src/internal.js";
 
 /** A fault the attempts cannot clear: every attempt dissipates P for tOn whatever the bus voltage. */
 export function rectangularFault(name: string, model: ModalModel, powerW: number, onS: number, limits: { ambientC: number; limitC: number; marginK: number }): RetryScenario {

@@ -1,5 +1,5 @@
 // Helper for the shared-heatsink test (not a test file): Zth superposition with two sources.
-import { type ModalModel, graphToModal } from "../../src/index.js";
+import { type ModalModel, graphToModal } from "../../src/internal.js";
 
 export { graphToModal };
 

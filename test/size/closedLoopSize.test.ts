@@ -1,7 +1,7 @@
 import { readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
-import { type DutyProfile, SIZE_SCALE_SCOPES, type ThermalNetwork, defaultCircuitModels, formatNetworkFile, loadProfile, simulateProfile, sizeProfile, sizeScaledNetwork } from "../../src/index.js";
+import { type DutyProfile, SIZE_SCALE_SCOPES, type ThermalNetwork, defaultCircuitModels, formatNetworkFile, loadProfile, simulateProfile, sizeProfile, sizeScaledNetwork } from "../../src/internal.js";
 import { DANGER_STEP, PEAK_TOLERANCE_K, bundledText, loadAs, withValue } from "../helpers/closedLoopFixtures.js";
 
 // Closed loop for `heatledger size`, over every bundled profile and both --scale choices: each

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type ProfileCircuit, defaultCircuitModels, sizeChargingElement } from "../../src/index.js";
+import { type ProfileCircuit, defaultCircuitModels, sizeChargingElement } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // The slowest charging element that still completes a healthy power-up from 0 V within the timeout,

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION, parseNetwork } from "../../src/index.js";
+import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION, parseNetwork } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 

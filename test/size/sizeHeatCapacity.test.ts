@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { defaultCircuitModels, loadProfile, materialPreset, simulateProfile, sizeHeatCapacity, sizeProfile } from "../../src/index.js";
+import { defaultCircuitModels, loadProfile, materialPreset, simulateProfile, sizeHeatCapacity, sizeProfile } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { inputErrorMessage } from "../helpers/inputErrorMessage.js";
 

@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
-import { fosterToCauer, logSpacedTimes, networkToModal, sizeScaledNetwork, zth } from "../../src/index.js";
-import type { CauerLadder, FosterNetwork, ThermalGraph } from "../../src/index.js";
+import { fosterToCauer, logSpacedTimes, networkToModal, sizeScaledNetwork, zth } from "../../src/internal.js";
+import type { CauerLadder, FosterNetwork, ThermalGraph } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { inputErrorMessage } from "../helpers/inputErrorMessage.js";
 

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { cauerToModal, loadProfile, logSpacedTimes, sizeScaledProfile, sizeShortTimeCapacity, zth } from "../../src/index.js";
+import { cauerToModal, loadProfile, logSpacedTimes, sizeScaledProfile, sizeShortTimeCapacity, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Identity checks behind the sizing: scaling every capacity at fixed resistances is scaling every

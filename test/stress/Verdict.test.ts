@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { VERDICTS, peakVerdict, ratingVerdict, verdictExitStatus, verdictLine, worstVerdict } from "../../src/index.js";
+import { VERDICTS, peakVerdict, ratingVerdict, verdictExitStatus, verdictLine, worstVerdict } from "../../src/internal.js";
 
 // The one verdict rule of every judging command (a rule of our own, src/stress/Verdict.ts): a peak
 // at or below limit − margin passes, inside the margin warns, above the limit fails; exit status 0

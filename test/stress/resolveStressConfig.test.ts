@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, test } from "vitest";
 import { parse } from "yaml";
-import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/index.js";
+import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/internal.js";
 
 function message(raw: unknown, options: Parameters<typeof resolveStressConfig>[1] = { field: "parts[0]" }): string {
   try {

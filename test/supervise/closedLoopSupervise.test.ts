@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type SupervisionReport, defaultCircuitModels, supervisePrecharge } from "../../src/index.js";
+import { type SupervisionReport, defaultCircuitModels, supervisePrecharge } from "../../src/internal.js";
 import { DANGER_STEP, PEAK_TOLERANCE_K, type SimulatedPeak, bundledText, loadAs, readPath, retryBlockOf, simulatedPeaks, withEvents, withValue, worst } from "../helpers/closedLoopFixtures.js";
 
 // Closed loop for `heatledger supervise`: the upper ends of the pre-charge timeout window are

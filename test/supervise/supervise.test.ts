@@ -11,7 +11,7 @@ import {
   resolveScenario,
   shortedScenario,
   supervisePrecharge,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { MODELS, ONE_STAGE_BASE, type OneStageSettings, oneStageProfile } from "./superviseFixtures.js";
 

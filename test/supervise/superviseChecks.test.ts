@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { abortChecks, constantPowerSegment, healthyBus, healthyCorners, riseChecks, traceEnergyUntil } from "../../src/index.js";
+import { abortChecks, constantPowerSegment, healthyBus, healthyCorners, riseChecks, traceEnergyUntil } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { MODELS, oneStageProfile } from "./superviseFixtures.js";
 

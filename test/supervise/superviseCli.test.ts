@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION, InputError, loadProfile } from "../../src/index.js";
+import { GENERAL_CAUTION, InputError, loadProfile } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 import { ONE_STAGE_BASE, type OneStageSettings, oneStageProfileText } from "./superviseFixtures.js";
 

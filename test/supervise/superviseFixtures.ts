@@ -1,5 +1,5 @@
 // Invented test profiles for the supervision answers (not a test file: imported by the tests).
-import { type DutyProfile, defaultCircuitModels, loadProfile } from "../../src/index.js";
+import { type DutyProfile, defaultCircuitModels, loadProfile } from "../../src/internal.js";
 
 /** Settings of the one-stage series-resistor test profile. */
 export interface OneStageSettings {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { cauerToGraph, fosterToCauer, fosterToModal, formatNetworkFile, ladderNodeName, loadProfile, networkToModal, parseNetwork, parseStructuredText } from "../../src/index.js";
+import { cauerToGraph, fosterToCauer, fosterToModal, formatNetworkFile, ladderNodeName, loadProfile, networkToModal, parseNetwork, parseStructuredText } from "../../src/internal.js";
 import { InputError } from "../../src/errors/InputError.js";
 
 // Nodes are named by the part a network describes: a semiconductor's heated node is its junction,

@@ -9,7 +9,7 @@ import {
   graphToModal,
   steadyStateResistance,
   zth,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Invented demo networks; the device is a semiconductor (its heated node is its junction).

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, adiabaticMass, cauerToGraph, cauerToModal, constantPowerSegment, lumpedNetwork, materialPreset, runThermalHistory, traceSteps, zth } from "../../src/index.js";
+import { InputError, adiabaticMass, cauerToGraph, cauerToModal, constantPowerSegment, lumpedNetwork, materialPreset, runThermalHistory, traceSteps, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("lumpedNetwork", () => {

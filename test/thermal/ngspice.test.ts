@@ -11,7 +11,7 @@ import {
   type ModalModel,
   sampleThermalHistory,
   traceSteps,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { fosterElements, graphElements, runNgspice, spiceNumber } from "./ngspiceRunner.js";
 
 // Outside reference: ngspice 39 (Debian package `ngspice`), a general-purpose circuit simulator,

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, formatNetworkFile, networkToModal, parseNetwork, parseStructuredText, zth, logSpacedTimes } from "../../src/index.js";
+import { InputError, formatNetworkFile, networkToModal, parseNetwork, parseStructuredText, zth, logSpacedTimes } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("parseNetwork", () => {

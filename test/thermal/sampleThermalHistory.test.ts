@@ -9,7 +9,7 @@ import {
   fosterToModal,
   sampleThermalHistory,
   traceSteps,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Single RC stage, R = 2 K/W, tau = 0.5 s: heating P·R·(1 − e^(−t/tau)), cooling θ0·e^(−t/tau).
