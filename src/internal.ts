@@ -118,3 +118,5 @@ export { supervisionSummaryTable } from "./report/formatSupervisionText.js";
 export { createOdexSolver, ODEX_OUTCOME } from "./circuits/loadOdex.js";
 export type { OdexSolver } from "./circuits/loadOdex.js";
 export { requirePositive } from "./circuits/requirePositive.js";
+export { firstUnsafeAttempt } from "./retry/firstUnsafeAttempt.js";
+export type { FirstUnsafeAttempt } from "./retry/firstUnsafeAttempt.js";

@@ -65,6 +65,7 @@ export function recordSimulation<T>(
       },
       onProgress: progress.onProgress,
     });
+    progress.finish();
     return { result, digest, envelope, csv };
   } finally {
     progress.done();

@@ -9,8 +9,10 @@ export const PROGRESS_DEFAULTS = {
 /**
  * A one-line progress report for long runs on an interactive terminal: it stays silent for the
  * first second (short runs print nothing), then rewrites one line at most four times a second,
- * and `done()` erases it so the report that follows starts on a clean line. Clock and writer are
- * injected so the throttling can be tested without waiting.
+ * and `done()` erases it so the report that follows starts on a clean line; `finish(text)` does
+ * the same and, when the run lasted at least the first second, leaves a closing line (how long
+ * it took) in its place. Clock and writer are injected so the throttling can be tested without
+ * waiting.
  * Cost O(1) per update.
  */
 export class ProgressLine {
@@ -40,9 +42,28 @@ export class ProgressLine {
     this.write(`\r${text()}\u001b[K`);
   }
 
+  /** Seconds since the line was made. */
+  elapsedS(): number {
+    return this.now() - this.startS;
+  }
+
   /** Erase the line if anything was shown. */
   done(): void {
     if (this.shown) this.write("\r\u001b[K");
+    this.shown = false;
+  }
+
+  /**
+   * Erase the line, and when the run lasted at least PROGRESS_DEFAULTS.firstAfterS (whether or not
+   * an update was due), write the closing line `text(elapsed seconds)` and a newline.
+   */
+  finish(text: (elapsedS: number) => string): void {
+    const elapsedS = this.elapsedS();
+    if (elapsedS < PROGRESS_DEFAULTS.firstAfterS) {
+      this.done();
+      return;
+    }
+    this.write(`\r${text(elapsedS)}\u001b[K\n`);
     this.shown = false;
   }
 }

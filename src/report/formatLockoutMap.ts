@@ -38,7 +38,8 @@ function seconds(s: number): string {
 /**
  * The lockout map as CSV, one row per cell: attempts, interval_s, spacing, worst_peak_C,
  * allowed_C, limit_C, used_fraction, status (pass, warn, fail or impossible), governing_corner.
- * Impossible cells leave the numbers empty. Cost O(cells).
+ * Impossible cells, and failing cells below a shorter burst that already crosses a limit (not
+ * simulated), leave the peak and used fraction empty. Cost O(cells).
  */
 export function lockoutMapCsv(map: LockoutMap): string {
   const rows: (string | number)[][] = [["attempts", "interval_s", "spacing", "worst_peak_C", "allowed_C", "limit_C", "used_fraction", "status", "governing_corner"]];

@@ -1,10 +1,9 @@
 import { describeFound, inputError } from "../errors/InputError.js";
-import { type ModalState, advanceModalState, createModalState, modalRise } from "../thermal/modalStep.js";
+import { type ModalState, type SourcePowers, advanceModalState, createModalState, createModalStepper, modalRise } from "../thermal/modalStep.js";
 import { type PowerTerm, type PowerTrace, segmentEnergy, validatePowerTrace } from "../thermal/powerTrace.js";
-import { interiorPeaks } from "../thermal/segmentPeak.js";
-import { runThermalHistory } from "../thermal/runThermalHistory.js";
+import { type InteriorPeak, interiorPeaks } from "../thermal/segmentPeak.js";
 import { traceSteps } from "../thermal/traceSteps.js";
-import { sourceIndex } from "../thermal/ModalModel.js";
+import { type ModalModel, sourceIndex } from "../thermal/ModalModel.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import type { AttemptOutcome, ResolvedScenario } from "./RetryScenario.js";
 
@@ -70,6 +69,12 @@ export interface AttemptTrial {
  * Cost per trial O(segments × sources × modes) plus the interior peak search.
  */
 export class AttemptCursor {
+  /**
+   * Attempts integrated by every cursor of the process so far ({@link tryAt} calls that ran an
+   * attempt): a work counter for tests and benchmarks, which compare it before and after a call.
+   * No solver reads it.
+   */
+  static trialCount = 0;
   readonly corner: ResolvedScenario;
   /** state at the end of the last kept attempt (or zero) */
   private state: ModalState;
@@ -84,6 +89,12 @@ export class AttemptCursor {
   private readonly records: AttemptRecord[] = [];
   /** power per model source on the current span (only the attempt's source is ever set) */
   private readonly powers: (readonly PowerTerm[] | undefined)[];
+  /** end of the step being integrated (scratch) */
+  private readonly end: ModalState;
+  /** zero power on every source (the free-cooling tail) */
+  private readonly idle: SourcePowers;
+  /** exact stepper of the several-source path, made on first use */
+  private stepper: ReturnType<typeof createModalStepper> | undefined;
 
   constructor(corner: ResolvedScenario) {
     this.corner = corner;
@@ -92,6 +103,8 @@ export class AttemptCursor {
     this.lastEndVoltageV = corner.initialVoltageV;
     this.tailS = PLAN_DEFAULTS.tailTauMultiple * corner.slowestTauS;
     this.powers = corner.model.sources.map(() => undefined);
+    this.end = createModalState(corner.model);
+    this.idle = corner.model.sources.map(() => undefined);
   }
 
   /** End of the last kept attempt [s] (0 before the first attempt). */
@@ -148,6 +161,17 @@ export class AttemptCursor {
   }
 
   /**
+   * Whether an attempt may start at absolute time startS: not before the end of the last kept
+   * attempt, nor (after an attempt) sooner after it than the corner's shortest wait, a start short
+   * of it by rounding only (1e-12 of the time) counting as on time. Cost O(1).
+   */
+  canStartAt(startS: number): boolean {
+    if (this.lastEndS === null) return true;
+    const waitS = startS - this.lastEndS;
+    return !(waitS < 0 || (this.count > 0 && waitS < this.corner.minWaitS - 1e-12 * Math.max(1, Math.abs(startS))));
+  }
+
+  /**
    * Try an attempt starting at absolute time startS, without keeping it.
    * @returns null when startS is before the end of the last kept attempt, or (after an attempt)
    *   sooner after it than the corner's shortest wait (the attempts would overlap, or the relay
@@ -156,8 +180,9 @@ export class AttemptCursor {
    * @throws InputError `bad-trace` / `not-finite` when the attempt or discharge model returns bad values
    */
   tryAt(startS: number): AttemptTrial | null {
+    if (!this.canStartAt(startS)) return null;
     const waitS = this.lastEndS === null ? Infinity : startS - this.lastEndS;
-    if (waitS < 0 || (this.count > 0 && waitS < this.corner.minWaitS - 1e-12 * Math.max(1, Math.abs(startS)))) return null;
+    AttemptCursor.trialCount++;
     const c = this.corner;
     const field = `corners.${c.name}`;
     const start = createModalState(c.model);
@@ -227,33 +252,21 @@ export class AttemptCursor {
 
   /**
    * Integrate one attempt exactly from `state` (modified in place into the end state): segment by
-   * segment with advanceModalState, interior maxima by interiorPeaks, then the free-cooling tail
-   * searched for a late peak. The same arithmetic as runThermalHistory over traceSteps, without
-   * the stream machinery (this is the planner's inner loop).
+   * segment with advanceModalState, interior maxima by interiorPeaks (skipped where a bound shows
+   * they cannot raise the attempt's peak, see peaksAbove), then the free-cooling tail searched for
+   * a late peak. The same arithmetic as runThermalHistory over traceSteps, without the stream
+   * machinery (this is the planner's inner loop).
    */
   private integrate(state: ModalState, startRise: number, trace: PowerTrace, durationS: number): { peakRise: number; peakAt: number; endState: ModalState } {
     const c = this.corner;
-    const o = c.observedIndex;
     const powers = this.powers;
-    let peakRise = startRise;
-    let peakAt = 0;
+    const peak = { rise: startRise, at: 0 };
     let t = 0;
     const span = (h: number, terms: readonly PowerTerm[] | undefined): void => {
       if (!(h > 0)) return;
       powers[c.sourceIndex] = terms;
-      for (const p of interiorPeaks(c.model, state, h, powers, o)) {
-        if (p.riseK > peakRise) {
-          peakRise = p.riseK;
-          peakAt = t + p.atS;
-        }
-      }
-      advanceModalState(c.model, state, h, powers);
+      this.stepWithPeaks(state, h, powers, t, peak, (from, out) => advanceModalState(c.model, from, h, powers, out));
       t += h;
-      const r = modalRise(c.model, state, o);
-      if (r > peakRise) {
-        peakRise = r;
-        peakAt = t;
-      }
     };
     for (const seg of trace) {
       span(seg.startS - t, undefined);
@@ -261,13 +274,46 @@ export class AttemptCursor {
     }
     span(durationS - t, undefined);
     powers[c.sourceIndex] = undefined;
-    for (const p of interiorPeaks(c.model, state, this.tailS, powers, o)) {
-      if (p.riseK > peakRise) {
-        peakRise = p.riseK;
-        peakAt = durationS + p.atS;
+    this.tailPeaks(state, durationS, peak);
+    return { peakRise: peak.rise, peakAt: peak.at, endState: state };
+  }
+
+  /**
+   * One step of an attempt: the end state (by `advance`, from `state` into a scratch array), the
+   * interior maxima that could beat the running peak, then the end; `state` becomes the end state.
+   */
+  private stepWithPeaks(state: ModalState, h: number, powers: SourcePowers, atS: number, peak: { rise: number; at: number }, advance: (from: ModalState, out: ModalState) => void): void {
+    const c = this.corner;
+    const o = c.observedIndex;
+    const end = this.end;
+    advance(state, end);
+    const r = modalRise(c.model, end, o);
+    for (const p of peaksAbove(c.model, state, h, powers, o, Math.max(peak.rise, r), r)) {
+      if (p.riseK > peak.rise) {
+        peak.rise = p.riseK;
+        peak.at = atS + p.atS;
       }
     }
-    return { peakRise, peakAt, endState: state };
+    state.set(end);
+    if (r > peak.rise) {
+      peak.rise = r;
+      peak.at = atS + h;
+    }
+  }
+
+  /** Late maxima in the free cooling after the attempt (from its end state, left unchanged). */
+  private tailPeaks(state: ModalState, durationS: number, peak: { rise: number; at: number }): void {
+    const c = this.corner;
+    const idle = this.idle;
+    advanceModalState(c.model, state, this.tailS, idle, this.end);
+    const r = modalRise(c.model, this.end, c.observedIndex);
+    // the tail's end is not a candidate (the own peak looks for maxima inside it), only a bound
+    for (const p of peaksAbove(c.model, state, this.tailS, idle, c.observedIndex, peak.rise, r)) {
+      if (p.riseK > peak.rise) {
+        peak.rise = p.riseK;
+        peak.at = durationS + p.atS;
+      }
+    }
   }
 
   /** One trace per model source when the attempt heats more than the scenario's source, else null. */
@@ -288,28 +334,22 @@ export class AttemptCursor {
   }
 
   /**
-   * The general path for attempts that heat several sources: runThermalHistory over traceSteps
-   * (which merges the traces into common steps), then the same free-cooling tail.
+   * The general path for attempts that heat several sources: traceSteps merges the traces into
+   * common steps, each advanced exactly (the stepper of runThermalHistory, same arithmetic) with
+   * the interior maxima searched on the scenario's observed node only, then the same free-cooling
+   * tail.
    */
   private integrateMany(state: ModalState, startRise: number, traces: readonly (PowerTrace | undefined)[], durationS: number): { peakRise: number; peakAt: number; endState: ModalState } {
-    const c = this.corner;
-    const o = c.observedIndex;
-    const during = runThermalHistory(c.model, traceSteps(traces, 0, durationS), { initialState: state });
-    let peakRise = startRise;
-    let peakAt = 0;
-    if (during.peakRiseK[o]! > peakRise) {
-      peakRise = during.peakRiseK[o]!;
-      peakAt = during.peakTimeS[o]!;
+    const step = (this.stepper ??= createModalStepper(this.corner.model));
+    const peak = { rise: startRise, at: 0 };
+    for (const s of traceSteps(traces, 0, durationS)) {
+      this.stepWithPeaks(state, s.durationS, s.powers, s.startS, peak, (from, out) => {
+        out.set(from);
+        step(out, s.durationS, s.powers);
+      });
     }
-    const endState = during.endState;
-    const powers = this.powers.map(() => undefined);
-    for (const p of interiorPeaks(c.model, endState, this.tailS, powers, o)) {
-      if (p.riseK > peakRise) {
-        peakRise = p.riseK;
-        peakAt = durationS + p.atS;
-      }
-    }
-    return { peakRise, peakAt, endState };
+    this.tailPeaks(state, durationS, peak);
+    return { peakRise: peak.rise, peakAt: peak.at, endState: state };
   }
 
   /** Start of the current state: the modal state after cooling w seconds from the last kept end. */
@@ -321,6 +361,106 @@ export class AttemptCursor {
       for (let s = 0; s < model.sources.length; s++) out[s * modes + m] = this.state[s * modes + m]! * k;
     }
   }
+}
+
+/** The shared answer for a step that cannot beat the running peak. */
+const NONE: readonly InteriorPeak[] = Object.freeze([]);
+
+/**
+ * Interior maxima of node o's rise inside a step that could lift the attempt's peak above
+ * `beatK` (the higher of the running peak and the step's end rise `endRiseK` when the end counts):
+ * interiorPeaks, skipped when a cheap upper bound on the rise over the step is below `beatK`.
+ *
+ * Two bounds, the lower one used. (1) Each mode obeys dy/dt = (P − y)/tau, so over the step
+ * y(t) = y0 + w·(P̄ − y0), with P̄ a weighted mean of the power over [0, t] (between its least and
+ * greatest value on the step, Pmin and Pmax) and w = 1 − e^(−t/tau) ≤ ρ = 1 − e^(−h/tau): hence
+ * y0 + ρ·min(0, Pmin − y0) ≤ y ≤ y0 + ρ·max(0, Pmax − y0), and the rise Σ gain·y is at most the
+ * sum of each gain times the end of its mode's range that the gain's sign favours. (2) The same
+ * ranges bound the slope Σ gain·(P − y)/tau between −d and u, so r(t) ≤ r(0) + u·t and
+ * r(t) ≤ r(h) + d·(h − t): the rise is at most the value where those two lines meet; a slope
+ * bounded away from zero (either sign) leaves no interior maximum at all. Pmin and
+ * Pmax are bounded term by term ((a + b·s)·e^(−lambda·s) is extreme at an end or where its
+ * derivative vanishes). The skip keeps a margin of 1e-9 of the bounds' own magnitude, far above
+ * rounding, so the attempt's peak is the same number as with the search.
+ * Source: the variation-of-constants formula for dy/dt = (P − y)/tau (Boyce & DiPrima, Elementary
+ * Differential Equations, 10th ed. (2012), §2.1), read as a convex combination of y0 and the mean
+ * power; the two-line bound is the mean value theorem. Cost O(sources × modes × terms) when
+ * skipped, plus interiorPeaks otherwise.
+ */
+function peaksAbove(model: ModalModel, state: ModalState, h: number, powers: SourcePowers, o: number, beatK: number, endRiseK: number): readonly InteriorPeak[] {
+  const modes = model.tauS.length;
+  const row = model.gainKPerW[o]!;
+  let bound = 0;
+  let slopeHi = 0;
+  let slopeLo = 0;
+  let scale = 0;
+  let slopeScale = 0;
+  for (let s = 0; s < row.length; s++) {
+    const terms = powers[s];
+    let pMax = 0;
+    let pMin = 0;
+    if (terms !== undefined) {
+      for (const t of terms) {
+        const [lo, hi] = termRange(t, h);
+        pMin += lo;
+        pMax += hi;
+      }
+    }
+    const gains = row[s]!;
+    for (let m = 0; m < modes; m++) {
+      const g = gains[m]!;
+      if (g === 0) continue;
+      const y0 = state[s * modes + m]!;
+      const tau = model.tauS[m]!;
+      const rho = -Math.expm1(-h / tau);
+      const yHi = y0 + rho * Math.max(0, pMax - y0);
+      const yLo = y0 + rho * Math.min(0, pMin - y0);
+      const k = g / tau;
+      if (g > 0) {
+        bound += g * yHi;
+        slopeHi += k * (pMax - yLo);
+        slopeLo += k * (pMin - yHi);
+      } else {
+        bound += g * yLo;
+        slopeHi += k * (pMin - yHi);
+        slopeLo += k * (pMax - yLo);
+      }
+      const size = Math.abs(y0) + Math.max(Math.abs(pMax), Math.abs(pMin));
+      scale += Math.abs(g) * size;
+      slopeScale += Math.abs(k) * size;
+    }
+  }
+  // a slope of one sign throughout (clear of rounding) leaves no interior maximum at all
+  if (slopeLo > 1e-9 * slopeScale || slopeHi < -1e-9 * slopeScale) return NONE;
+  const riseAtStart = modalRise(model, state, o);
+  const up = Math.max(slopeHi, 0);
+  const down = Math.max(-slopeLo, 0);
+  let lines = Math.max(riseAtStart, endRiseK);
+  if (up + down > 0) {
+    const at = Math.min(h, Math.max(0, (endRiseK - riseAtStart + down * h) / (up + down)));
+    lines = riseAtStart + up * at;
+    scale += (up + down) * h;
+  }
+  if (Math.min(bound, lines) + 1e-9 * scale <= beatK) return NONE;
+  return interiorPeaks(model, state, h, powers, o);
+}
+
+/** Least and greatest value of (a + b·s)·e^(−lambda·s) over s in [0, h]. */
+function termRange(t: PowerTerm, h: number): [number, number] {
+  const atStart = t.a;
+  const atEnd = (t.a + t.b * h) * (t.lambda === 0 ? 1 : Math.exp(-t.lambda * h));
+  let lo = Math.min(atStart, atEnd);
+  let hi = Math.max(atStart, atEnd);
+  if (t.b !== 0 && t.lambda !== 0) {
+    // d/ds [(a + b·s)·e^(−lambda·s)] = (b − lambda·(a + b·s))·e^(−lambda·s) vanishes at s = 1/lambda − a/b
+    const s = 1 / t.lambda - t.a / t.b;
+    if (s > 0 && s < h) {
+      const v = (t.b / t.lambda) * Math.exp(-t.lambda * s);
+      lo = Math.min(lo, v);
+      hi = Math.max(hi, v);
+    }
+  }
+  return [lo, hi];
 }
 
 function checkOutcome(trace: PowerTrace, durationS: number, endVoltageV: number, field: string): void {

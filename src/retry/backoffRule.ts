@@ -1,7 +1,7 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { AttemptCursor, type AttemptRecord } from "./AttemptCursor.js";
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
-import { checkAttempts } from "./minUniformInterval.js";
+import { checkAttempts, everyCorner } from "./minUniformInterval.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import { runBurst } from "./runBurst.js";
@@ -82,7 +82,15 @@ export function backoffRule(scenarios: readonly RetryScenario[], attempts: numbe
         return { c, cursor, run };
       });
     // a wait shorter than the relay allows makes the burst impossible (overlapAt), never safe
-    const { bands } = scanFeasibleBands((g) => runAll(g).every((r) => r.run.firstUnsafe === null && r.run.overlapAt === null), grid);
+    let factor = 1;
+    const safe = everyCorner(corners.length, (i) => {
+      const run = runBurst(new AttemptCursor(corners[i]!), { gapsS: backoffWaits(firstWaitS, factor, attempts - 1, resolutionS), spacing: "end-to-start" }, 0, true);
+      return run.firstUnsafe === null && run.overlapAt === null;
+    });
+    const { bands } = scanFeasibleBands((g) => {
+      factor = g;
+      return safe();
+    }, grid);
     const g = bands[0]?.fromS ?? null;
     const runs = runAll(g ?? top);
     const governing = governingCorner(runs.map((r) => ({ corner: r.c.name, peakC: r.run.peakC, allowedC: r.c.allowedC, limitC: r.c.limitC, headroomK: r.run.worstHeadroomK })));

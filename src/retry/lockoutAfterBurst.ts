@@ -4,6 +4,7 @@ import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
 import type { BurstPlan } from "./RetrySchedule.js";
+import { everyCorner } from "./minUniformInterval.js";
 import { runBurst } from "./runBurst.js";
 import { type FeasibleBand, scanFeasibleBands, scanGrid } from "./scanFeasibleBands.js";
 import { alignBandsToTimer } from "./alignToTimer.js";
@@ -28,7 +29,11 @@ export interface LockoutAnswer {
   readonly burst: GoverningCorner;
   /** end of the first burst's last attempt (latest over corners) [s] */
   readonly burstEndS: number;
-  /** shortest lockout after which the same burst again is safe [s], from the end of the burst; null when none scanned is */
+  /**
+   * shortest lockout after which the same burst again is safe [s], from the end of the burst; null
+   * when none scanned is, or when the first burst is itself unsafe (no lockout can make the policy
+   * safe then, and none is scanned)
+   */
   readonly minimumLockoutS: number | null;
   /** every band of safe lockouts */
   readonly bands: readonly FeasibleBand[];
@@ -52,7 +57,9 @@ export interface LockoutAnswer {
  * the wait, and is safe when every attempt's own peak stays at or below limit − margin in every
  * corner. Lockouts are scanned from the shortest wait the relay allows (the corners' minWaitS)
  * and each band edge bisected (scanFeasibleBands); with a timer resolution the bands are moved
- * onto the timer's grid and their lower ends re-checked (alignBandsToTimer). The return
+ * onto the timer's grid and their lower ends re-checked (alignBandsToTimer); corners are tried
+ * until the first that fails, and when the first burst is itself unsafe no lockout can make the
+ * policy safe, so nothing is scanned. The return
  * to ambient is the last time the free cooling rise Σ c_m·e^(−t/tau_m) is above the threshold,
  * bracketed on a grid up to the time at which Σ|c_m|·e^(−t/tau_max) falls below it, and bisected.
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × N × cost of one attempt).
@@ -83,8 +90,18 @@ export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: Bu
   const grid = scanGrid(minWaitS, Math.max(scanToS, minWaitS), options.scanPoints ?? PLAN_DEFAULTS.scanPoints);
   const resolutionS = options.timerResolutionS ?? PLAN_DEFAULTS.timerResolutionS;
   if (!(resolutionS >= 0) || !Number.isFinite(resolutionS)) throw inputError("out-of-range", "timerResolutionS", "a finite timer resolution ≥ 0 s", describeFound(resolutionS));
-  const safeAfter = (l: number): boolean => second(l).every((s) => s.run.firstUnsafe === null && s.run.overlapAt === null);
-  const scanned = scanFeasibleBands(safeAfter, grid);
+  let lockout = 0;
+  const safe = everyCorner(first.length, (i) => {
+    const run = runBurst(first[i]!.cursor.clone(), burst, burstEndS + lockout, true);
+    return run.firstUnsafe === null && run.overlapAt === null;
+  });
+  const safeAfter = (l: number): boolean => {
+    lockout = l;
+    return safe();
+  };
+  // after an unsafe first burst no lockout makes the policy safe: the scan is skipped (no bands)
+  const burstSafe = first.every((f) => f.run.firstUnsafe === null && f.run.overlapAt === null);
+  const scanned = burstSafe ? scanFeasibleBands(safeAfter, grid) : { bands: [], evaluations: 0 };
   const aligned = alignBandsToTimer(scanned.bands, resolutionS, safeAfter);
   const bands = aligned.bands;
   const evaluations = scanned.evaluations + aligned.evaluations;
@@ -100,7 +117,7 @@ export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: Bu
     }
   }
   return {
-    burstSafe: first.every((f) => f.run.firstUnsafe === null && f.run.overlapAt === null),
+    burstSafe,
     burst: burstEntry,
     burstEndS,
     minimumLockoutS: bands[0]?.fromS ?? null,

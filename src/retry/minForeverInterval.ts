@@ -1,5 +1,5 @@
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
-import { type IntervalScanOptions, lowestInterval, onTimer, resolveScan } from "./minUniformInterval.js";
+import { type IntervalScanOptions, everyCorner, firstAttempts, lowestInterval, onTimer, resolveScan } from "./minUniformInterval.js";
 import { type RetryScenario, resolveCorners } from "./RetryScenario.js";
 import type { RetrySpacing } from "./RetrySchedule.js";
 import { type ForeverVerdict, retryForeverCheck } from "./retryForeverCheck.js";
@@ -30,15 +30,23 @@ export interface ForeverIntervalAnswer {
  * a timer resolution, whole timer steps re-checked as in minUniformInterval).
  * For one RC stage and rectangular attempts of power P and length t_on this reproduces
  *   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max)   (start-to-start spacing).
+ * When a corner's first attempt alone is unsafe, no interval is, and the scan is skipped.
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × attempts to prove each verdict).
  */
 export function minForeverInterval(scenarios: readonly RetryScenario[], options: IntervalScanOptions = {}): ForeverIntervalAnswer {
   const corners = resolveCorners(scenarios);
   const scan = resolveScan(corners, options);
-  const from = lowestInterval(corners, scan.spacing);
+  const first = firstAttempts(corners);
+  const from = lowestInterval(corners, scan.spacing, first);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
-  const safeAt = (t: number): boolean => corners.every((c) => retryForeverCheck(c, t, scan.spacing).safe);
-  const { bands, evaluations } = onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt);
+  let t = 0;
+  const safe = everyCorner(corners.length, (i) => retryForeverCheck(corners[i]!, t, scan.spacing).safe);
+  const safeAt = (interval: number): boolean => {
+    t = interval;
+    return safe();
+  };
+  // a first attempt unsafe on its own (the same at every interval) leaves no interval to scan
+  const { bands, evaluations } = first.every((f) => f.safe) ? onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt) : { bands: [], evaluations: 0 };
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const verdicts = corners.map((c) => retryForeverCheck(c, at, scan.spacing));
   const governing = governingCorner(

@@ -1,5 +1,5 @@
 import { describeFound, inputError } from "../errors/InputError.js";
-import { AttemptCursor } from "./AttemptCursor.js";
+import { AttemptCursor, type AttemptTrial } from "./AttemptCursor.js";
 import { type GoverningCorner, governingCorner } from "./GoverningCorner.js";
 import { PLAN_DEFAULTS } from "./planDefaults.js";
 import { type RetryScenario, type ResolvedScenario, resolveCorners } from "./RetryScenario.js";
@@ -72,18 +72,43 @@ export function checkAttempts(attempts: number, field = "attempts"): void {
 }
 
 /**
+ * Each corner's first attempt: at t = 0 from a cold part and the corner's initial voltage, the same
+ * whatever interval, wait or spacing follows. When one of them is unsafe, so is every burst and
+ * every retry train, and the scans need not run. Cost O(corners × cost of one attempt).
+ */
+export function firstAttempts(corners: readonly ResolvedScenario[]): AttemptTrial[] {
+  return corners.map((c) => new AttemptCursor(c).tryAt(0)!);
+}
+
+/**
  * Shortest interval that could work: the corners' shortest wait between attempts (the relay's
  * release and operate times), plus the first attempt's own length for start-to-start spacing.
  */
-export function lowestInterval(corners: readonly ResolvedScenario[], spacing: RetrySpacing): number {
+export function lowestInterval(corners: readonly ResolvedScenario[], spacing: RetrySpacing, first: readonly AttemptTrial[] = firstAttempts(corners)): number {
   const minWaitS = Math.max(...corners.map((c) => c.minWaitS));
   if (spacing === "end-to-start") return minWaitS;
   let longest = 0;
-  for (const c of corners) {
-    const trial = new AttemptCursor(c).tryAt(0);
-    if (trial !== null) longest = Math.max(longest, trial.record.durationS + minWaitS);
-  }
+  for (const trial of first) longest = Math.max(longest, trial.record.durationS + minWaitS);
   return longest;
+}
+
+/**
+ * A test over every corner that stops at the first corner failing it, trying first the corner
+ * that failed the previous call (scans ask about neighbouring values, where the same corner
+ * usually binds). The answer is the plain conjunction; only the work changes.
+ */
+export function everyCorner(count: number, holds: (corner: number) => boolean): () => boolean {
+  let lead = 0;
+  return () => {
+    for (let k = 0; k < count; k++) {
+      const i = (lead + k) % count;
+      if (!holds(i)) {
+        lead = i;
+        return false;
+      }
+    }
+    return true;
+  };
 }
 
 /** Peak and headroom of a uniform burst in one corner (stopping at the first unsafe attempt when asked). */
@@ -110,18 +135,26 @@ export function uniformBurstVerdict(c: ResolvedScenario, attempts: number, inter
  * are scanned (scanFeasibleBands) from the shortest the relay allows (lowestInterval) and each
  * band edge is bisected; with a timer resolution the bands are moved onto the timer's grid and
  * their lower ends re-checked (alignBandsToTimer). The answer is the lower end of the first band.
- * Cost O((scanPoints + bands × 2·log2(1/relTol)) × corners × N × cost of one attempt).
+ * When a corner's first attempt alone is unsafe (it is the same at every interval: cold part,
+ * initial voltage) no interval is safe, and the scan is skipped.
+ * Cost O((scanPoints + bands × 2·log2(1/relTol)) × corners × N × cost of one attempt), or
+ * O(corners × N × cost of one attempt) when the first attempt decides.
  * @throws InputError for bad corners or options
  */
 export function minUniformInterval(scenarios: readonly RetryScenario[], attempts: number, options: IntervalScanOptions = {}): UniformIntervalAnswer {
   checkAttempts(attempts);
   const corners = resolveCorners(scenarios);
   const scan = resolveScan(corners, options);
-  const from = lowestInterval(corners, scan.spacing);
+  const first = firstAttempts(corners);
+  const from = lowestInterval(corners, scan.spacing, first);
   const grid = scanGrid(from, Math.max(scan.scanToS, from * 10), scan.scanPoints);
-  const safeAt = (t: number): boolean => corners.every((c) => uniformBurstVerdict(c, attempts, t, scan.spacing, true).safe);
-  const scanned = scanFeasibleBands(safeAt, grid);
-  const { bands, evaluations } = onTimer(scanned, scan.timerResolutionS, safeAt);
+  let t = 0;
+  const safe = everyCorner(corners.length, (i) => uniformBurstVerdict(corners[i]!, attempts, t, scan.spacing, true).safe);
+  const safeAt = (interval: number): boolean => {
+    t = interval;
+    return safe();
+  };
+  const { bands, evaluations } = first.every((f) => f.safe) ? onTimer(scanFeasibleBands(safeAt, grid), scan.timerResolutionS, safeAt) : { bands: [], evaluations: 0 };
   const at = bands[0]?.fromS ?? grid[grid.length - 1]!;
   const governing = governingCorner(
     corners.map((c) => {

@@ -69,10 +69,11 @@ export interface FosterFit {
  * Cost O(maxStages × iterations × points × stages²); about 0.1-0.5 s for 40 points, 8 stages.
  * @param points Zth points, times strictly increasing, all values > 0
  * @param options see {@link FIT_DEFAULTS}
+ * @param onStageCount called before each stage count is tried, with the count (for a progress line)
  * @throws InputError `bad-network` for bad points or too few points; `bad-option` for bad options
  * @example fitFosterNetwork(points).network // { kind: "foster", stages: [{ rKPerW, tauS }, ...] }
  */
-export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOptions = {}, field = "points"): FosterFit {
+export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOptions = {}, field = "points", onStageCount?: (stages: number) => void): FosterFit {
   const o = resolveFitOptions(options);
   const given = o.stages > 0;
   const minPoints = given ? 2 * o.stages + 1 : 3;
@@ -94,6 +95,7 @@ export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOption
   let best: { stages: FosterStage[]; value: number; count: number } | undefined;
   const candidates: FitCandidate[] = [];
   for (const n of counts) {
+    onStageCount?.(n);
     const starts = [resizeStages(spectrum, n), logSpacedStart(points, n)];
     let bestForN: { stages: FosterStage[]; sumSquares: number } | undefined;
     for (const start of starts) {

@@ -34,6 +34,17 @@ describe("ProgressLine", () => {
     expect(written).toEqual(["\ra\u001b[K", "\rc\u001b[K", "\r\u001b[K"]);
   });
 
+  test("finish leaves a closing line with the time taken after a run of a second or more, even with no update shown", () => {
+    const { clock, written, line } = fixture();
+    clock.t += 1.25;
+    line.finish((s) => `done in ${s} s`);
+    expect(written).toEqual(["\rdone in 1.25 s\u001b[K\n"]);
+    const quick = fixture();
+    quick.clock.t += 0.5;
+    quick.line.finish((s) => `done in ${s} s`);
+    expect(quick.written).toEqual([]);
+  });
+
   test("the text is only built when it is shown", () => {
     const { clock, line } = fixture();
     let built = 0;

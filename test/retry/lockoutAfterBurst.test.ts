@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fosterToModal, lockoutAfterBurst, uniformBurst } from "../../src/internal.js";
+import { AttemptCursor, fosterToModal, lockoutAfterBurst, uniformBurst } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 
@@ -42,6 +42,18 @@ describe("lockoutAfterBurst", () => {
   test("a cool burst needs no lockout", () => {
     const answer = lockoutAfterBurst([corner], uniformBurst(2, 5, "start-to-start"));
     expect(answer.minimumLockoutS).toBe(0);
+  });
+  test("a first burst that is itself unsafe: no lockout scanned", () => {
+    const hot = rectangularFault("hot", model, 500, onS, { ambientC: 25, limitC: 90, marginK: 5 });
+    const before = AttemptCursor.trialCount;
+    const answer = lockoutAfterBurst([hot], uniformBurst(N, T, "start-to-start"));
+    expect(answer.burstSafe).toBe(false);
+    expect(answer.minimumLockoutS).toBeNull();
+    expect(answer.bands).toEqual([]);
+    expect(answer.evaluations).toBe(0);
+    // the first burst (N attempts), then the second one at the top of the scan for the governing
+    // corner, which stops at its first attempt (unsafe); a scan would take 240 evaluations or more
+    expect(AttemptCursor.trialCount - before).toBe(N + 1);
   });
 });
 

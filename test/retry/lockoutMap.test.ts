@@ -1,5 +1,6 @@
 import { describe, expect, test } from "vitest";
-import { LOCKOUT_MAP_SYMBOLS, fosterToModal, lockoutMap, lockoutMapCsv, lockoutMapHeatmap, maxAttempts } from "../../src/internal.js";
+import { AttemptCursor, LOCKOUT_MAP_SYMBOLS, fosterToModal, lockoutMap, lockoutMapCsv, lockoutMapHeatmap, maxAttempts, resolveCorners, runBurst, uniformBurst } from "../../src/internal.js";
+import { expectClose } from "../helpers/expectClose.js";
 import { rectangularFault } from "./scenarios.js";
 
 describe("lockoutMap", () => {
@@ -47,5 +48,40 @@ describe("lockoutMap", () => {
     const legend = lockoutMapHeatmap(map);
     for (const word of used) expect(legend).toMatch(new RegExp(`^  \\S\\S  ${word} `, "m"));
     expect(legend).not.toContain("overlap");
+  });
+
+  test("a column stops at the first attempt above a limit; the cells above it are those of full bursts", () => {
+    const resolved = resolveCorners(corners);
+    const before = AttemptCursor.trialCount;
+    const fresh = lockoutMap(corners, 30, intervals);
+    const trials = AttemptCursor.trialCount - before;
+    let full = 0;
+    intervals.forEach((T, i) => {
+      // the reference: every corner's whole 30-attempt burst, the worst corner per cell
+      const bursts = resolved.map((c) => runBurst(new AttemptCursor(c), uniformBurst(30, T, "start-to-start"), 0).records);
+      full += bursts.reduce((n, b) => n + b.length, 0);
+      const crossed = fresh.cells.findIndex((row) => row[i]!.status === "fail" && row[i]!.peakC === null);
+      fresh.cells.forEach((row, a) => {
+        const cell = row[i]!;
+        if (crossed >= 0 && a >= crossed) {
+          // below the first attempt above a limit: a longer burst contains it, so it fails too
+          expect(cell.status).toBe("fail");
+          expect(bursts.some((b, ci) => b.slice(0, a + 1).some((r) => r.peakC > resolved[ci]!.limitC))).toBe(true);
+          return;
+        }
+        if (cell.status === "impossible") {
+          expect(bursts.some((b) => b.length < a + 1)).toBe(true);
+          return;
+        }
+        // the worst corner's peak over the first a + 1 attempts, as a full burst gives it (the same
+        // arithmetic in another order: 1e-9 K covers the rounding of the peak search's start)
+        const worst = Math.max(...bursts.map((b, ci) => resolved[ci]!.allowedC - Math.max(...b.slice(0, a + 1).map((r) => r.peakC))).map((h) => -h));
+        const ci = resolved.findIndex((c) => c.name === cell.corner);
+        expectClose(cell.peakC! - resolved[ci]!.allowedC, worst, { abs: 1e-9 });
+      });
+    });
+    // the 60 °C corner crosses its limit after a few attempts at the short intervals
+    expect(fresh.cells[29]!.some((c) => c.peakC === null && c.status === "fail")).toBe(true);
+    expect(trials).toBeLessThan(full);
   });
 });

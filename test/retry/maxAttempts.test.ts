@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, fosterToModal, maxAttempts } from "../../src/internal.js";
+import { AttemptCursor, InputError, fosterToModal, maxAttempts } from "../../src/internal.js";
 import { superposedPeak, uniformPulses } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";
 
@@ -48,5 +48,39 @@ describe("maxAttempts", () => {
   test("an attempt longer than the interval is bad input naming the interval", () => {
     expect(() => maxAttempts([corner], 0.5)).toThrow(InputError);
     expect(() => maxAttempts([corner], 0.5)).toThrow('intervalS: expected a start-to-start interval at least as long as an attempt (1 s in corner "one stage"), found 0.5 s');
+  });
+
+  test.each([
+    ["unsafe corner first", true],
+    ["unsafe corner last", false],
+  ])("a corner whose first attempt alone is unsafe decides at once (%s)", (_name, hotFirst) => {
+    // the hot corner's first attempt rises 2·500·(1 − e^(−0.1)) ≈ 95 K (one stage, as above),
+    // above its 60 K; the cool one would count thousands of safe attempts at this interval
+    const hot = rectangularFault("hot", model, 500, onS, limits);
+    const cool = rectangularFault("cool", model, P, onS, { ...limits, limitC: 150 });
+    const before = AttemptCursor.trialCount;
+    const answer = maxAttempts(hotFirst ? [hot, cool] : [cool, hot], 1.05);
+    const trials = AttemptCursor.trialCount - before;
+    expect(answer.attempts).toBe(0);
+    expect(answer.governing.corner).toBe("hot");
+    expect(answer.firstUnsafePeakC).toBeGreaterThan(limits.limitC - limits.marginK);
+    // a few attempts per corner (the cool corner's retry-for-ever check settles and closes in a
+    // few when it comes first); the plain scan took the cool corner to its first unsafe attempt
+    expect(trials).toBeLessThanOrEqual(12);
+  });
+
+  test("a long train is counted from a few attempts: the closed-form count over thousands of attempts", () => {
+    // one stage as above with τ = 2000 s and T = 5 s: the count is in the thousands, and the
+    // closed form gives it exactly (no peak lies within 1e-9 K of the limit)
+    const slow = fosterToModal({ kind: "foster", stages: [{ rKPerW: 1, tauS: 2000 }] });
+    const corner = rectangularFault("slow sink", slow, 130, 1, { ambientC: 25, limitC: 55, marginK: 5 });
+    const S = 130 * -Math.expm1(-1 / 2000);
+    const q = Math.exp(-5 / 2000);
+    const expected = Math.floor(Math.log(1 - (25 * (1 - q)) / S) / Math.log(q));
+    const before = AttemptCursor.trialCount;
+    const answer = maxAttempts([corner], 5);
+    expect(answer.attempts).toBe(expected);
+    expect(expected).toBeGreaterThan(1000);
+    expect(AttemptCursor.trialCount - before).toBeLessThanOrEqual(60);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fosterToModal, minForeverInterval, retryForeverCheck, resolveScenario } from "../../src/internal.js";
+import { AttemptCursor, fosterToModal, minForeverInterval, retryForeverCheck, resolveScenario } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { superposedPeak, uniformPulses } from "./bruteForce.js";
 import { rectangularFault } from "./scenarios.js";
@@ -108,5 +108,26 @@ describe("attempts that heat two sources of one network", () => {
     const rise = superposedRiseGraph(model, 600, T, 1, [40, 60]);
     expect(rise).toBeLessThanOrEqual(100 + 1e-6);
     expectClose(rise, 100, { abs: 100 * Math.exp((-600 * T) / slowest) + 1e-6 });
+  });
+});
+
+describe("minForeverInterval when the first attempt decides", () => {
+  test("a corner whose first attempt alone is unsafe: no interval, found without scanning", () => {
+    // 400 W for 0.2 s into 0.5 K/W (τ = 2 s) and 3 K/W (τ = 60 s) rises about 23 K on the first
+    // attempt (lumped capacitance per stage, as above), above the 20 K the hot corner allows
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }, { rKPerW: 3, tauS: 60 }] });
+    const cool = rectangularFault("cool", model, 50, 0.2, { ambientC: 25, limitC: 155, marginK: 10 });
+    const hot = rectangularFault("hot", model, 400, 0.2, { ambientC: 25, limitC: 55, marginK: 10 });
+    const before = AttemptCursor.trialCount;
+    const answer = minForeverInterval([cool, hot]);
+    const trials = AttemptCursor.trialCount - before;
+    expect(answer.minimumIntervalS).toBeNull();
+    expect(answer.bands).toEqual([]);
+    expect(answer.evaluations).toBe(0);
+    expect(answer.governing.corner).toBe("hot");
+    // the first attempts, then each corner's verdict at the top of the scan (the cool corner
+    // proves itself in a handful of attempts, the hot one fails at its first); a scan would check
+    // every corner at 240 intervals or more
+    expect(trials).toBeLessThanOrEqual(20);
   });
 });

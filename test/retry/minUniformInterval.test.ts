@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type PowerSegment, cauerToModal, fosterToModal, minUniformInterval } from "../../src/internal.js";
+import { AttemptCursor, type PowerSegment, cauerToModal, fosterToModal, minUniformInterval } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { firstOnGrid, linspace, superposedPeak, uniformPulses, wholeTracePeak } from "./bruteForce.js";
 import { chargeThenTrip, rectangularFault } from "./scenarios.js";
@@ -115,5 +115,24 @@ describe("minUniformInterval", () => {
     expect(second!.fromS).toBeGreaterThan(grid[flips[1]! - 1]!);
     expect(second!.fromS).toBeLessThanOrEqual(grid[flips[1]!]! * (1 + 1e-9));
     expect(second!.openEnded).toBe(true);
+  });
+
+  test("a corner whose first attempt alone is unsafe: no interval, found without scanning", () => {
+    // the first attempt (cold part, initial voltage) is the same at every interval: 400 W for
+    // 0.2 s into 0.5 K/W (τ = 2 s) and 3 K/W (τ = 60 s) rises 0.5·400·(1 − e^(−0.1)) + 3·400·(1 −
+    // e^(−0.2/60)) ≈ 23 K, above the 20 K allowed (lumped capacitance per stage, as above)
+    const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }, { rKPerW: 3, tauS: 60 }] });
+    const cool = rectangularFault("cool", model, 50, 0.2, { ambientC: 25, limitC: 155, marginK: 10 });
+    const hot = rectangularFault("hot", model, 400, 0.2, { ambientC: 25, limitC: 55, marginK: 10 });
+    const before = AttemptCursor.trialCount;
+    const answer = minUniformInterval([cool, hot], 5);
+    const trials = AttemptCursor.trialCount - before;
+    expect(answer.minimumIntervalS).toBeNull();
+    expect(answer.bands).toEqual([]);
+    expect(answer.evaluations).toBe(0);
+    expect(answer.governing.corner).toBe("hot");
+    // one first attempt per corner, then the 5-attempt burst per corner at the top of the scan
+    // for the governing corner: 2 + 2·5; a scan would take 240 evaluations or more
+    expect(trials).toBe(12);
   });
 });

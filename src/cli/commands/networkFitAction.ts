@@ -5,6 +5,8 @@ import { formatFosterFit } from "../../report/formatFosterFit.js";
 import { type FosterFit, fitFosterNetwork } from "../../thermal/fitFosterNetwork.js";
 import type { ZthPoint } from "../../thermal/fitZthPoints.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
+import type { CliIo } from "../CliIo.js";
+import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { readTextFile } from "../readInputFile.js";
 import { emitNetwork } from "./emitNetwork.js";
@@ -12,13 +14,17 @@ import { readFitFlags } from "./networkBuildFlags.js";
 import type { NetworkFitFlags } from "./networkFit.js";
 
 /**
- * Fit `points`, re-homing point errors onto the file's lines ("points[3].time" → line of row 3).
+ * Fit `points`, re-homing point errors onto the file's lines ("points[3].time" → line of row 3),
+ * with the progress line of a long fit (commandProgress: the stage count being tried).
  * Shared by `network fit` and `network from-rating`.
  */
-export function fitTablePoints(points: readonly ZthPoint[], table: QuantityTable, file: string, options: Record<string, unknown>): FosterFit {
+export function fitTablePoints(io: CliIo, verb: string, points: readonly ZthPoint[], table: QuantityTable, file: string, options: Record<string, unknown>): FosterFit {
   const fitOptions = readFitFlags(options);
+  const progress = commandProgress(io, verb);
   try {
-    return fitFosterNetwork(points, fitOptions, "points");
+    const fit = fitFosterNetwork(points, fitOptions, "points", (stages) => progress.tick(() => `, trying ${stages} stage${stages === 1 ? "" : "s"}`));
+    progress.finish();
+    return fit;
   } catch (error) {
     if (!(error instanceof InputError)) throw error;
     const lineOf = (field: string): number => {
@@ -26,6 +32,8 @@ export function fitTablePoints(points: readonly ZthPoint[], table: QuantityTable
       return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
     };
     throw withLocation(error, file, "", lineOf);
+  } finally {
+    progress.done();
   }
 }
 
@@ -64,7 +72,7 @@ export function networkFitAction(run: CliRun, file: string, options: NetworkFitF
     file,
   );
   const points = table.rows.map((r) => ({ timeS: r.values[0]!, zthKPerW: r.values[1]! }));
-  const fit = fitTablePoints(points, table, file, options);
+  const fit = fitTablePoints(run.io, "network fit", points, table, file, options);
   const emitted = emitNetwork(run, fit.network, options);
   if (options.json) {
     run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, {}, options.name), null, 2)}\n`);

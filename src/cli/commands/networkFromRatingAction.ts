@@ -49,7 +49,7 @@ export function networkFromRatingAction(run: CliRun, file: string, options: Netw
     });
   }
   // a single-pulse energy rating is a resistor's: the network's node is its element
-  const fitted = fitTablePoints(points, table, file, options);
+  const fitted = fitTablePoints(run.io, "network from-rating", points, table, file, options);
   const fit = { ...fitted, network: { ...fitted.network, part: "resistor" as const } };
   const emitted = emitNetwork(run, fit.network, options);
   const riseK = maxC - startC;

@@ -4,6 +4,7 @@ import { planRetries } from "../../retry/planRetries.js";
 import { retryPlanJson } from "../../report/retryPlanJson.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
+import { attemptsProgress } from "../attemptsProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
@@ -19,7 +20,14 @@ import type { RetriesFlags } from "./retries.js";
 export function retriesAction(run: CliRun, file: string, options: RetriesFlags): void {
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   const profile = readProfileFile(run.io, file);
-  const report = planRetries(profile, defaultCircuitModels);
+  const progress = attemptsProgress(run.io, "retries");
+  let report;
+  try {
+    report = planRetries(profile, progress.watch(defaultCircuitModels));
+    progress.finish();
+  } finally {
+    progress.done();
+  }
   if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
   if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);
   else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}`);

@@ -7,6 +7,7 @@ import { sizingJson } from "../../report/sizingJson.js";
 import { materialPreset } from "../../thermal/materials.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
+import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import type { SizeFlags } from "./size.js";
@@ -23,13 +24,20 @@ export function sizeAction(run: CliRun, file: string, options: SizeFlags): void 
   const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
   const scope = options.scale === undefined ? undefined : scaleScope(options.scale);
   const profile = readProfileFile(run.io, file);
-  const report = sizeProfile(profile, {
-    models: defaultCircuitModels,
-    ...(material === undefined ? {} : { material }),
-    ...(marginK === undefined ? {} : { marginK }),
-    ...(options.part === undefined ? {} : { partIds: options.part }),
-    ...(scope === undefined ? {} : { scope }),
-  });
+  const progress = commandProgress(run.io, "size");
+  let report;
+  try {
+    report = sizeProfile(profile, {
+      models: progress.watch(defaultCircuitModels),
+      ...(material === undefined ? {} : { material }),
+      ...(marginK === undefined ? {} : { marginK }),
+      ...(options.part === undefined ? {} : { partIds: options.part }),
+      ...(scope === undefined ? {} : { scope }),
+    });
+    progress.finish();
+  } finally {
+    progress.done();
+  }
   if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
   else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
   run.status = verdictExitStatus(report.verdict, options.strict === true);

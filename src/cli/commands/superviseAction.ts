@@ -3,6 +3,7 @@ import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSupervisionText } from "../../report/formatSupervisionText.js";
 import { supervisionJson } from "../../report/supervisionJson.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
+import { attemptsProgress } from "../attemptsProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import type { SuperviseFlags } from "./supervise.js";
@@ -15,7 +16,14 @@ import type { SuperviseFlags } from "./supervise.js";
  */
 export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
   const profile = readProfileFile(run.io, file);
-  const report = supervisePrecharge(profile, defaultCircuitModels);
+  const progress = attemptsProgress(run.io, "supervise");
+  let report;
+  try {
+    report = supervisePrecharge(profile, progress.watch(defaultCircuitModels));
+    progress.finish();
+  } finally {
+    progress.done();
+  }
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
   else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
   run.status = verdictExitStatus(report.verdict, options.strict === true);
