@@ -1,7 +1,11 @@
 import type { PowerTrace } from "../thermal/powerTrace.js";
 
-/** How a pre-charge attempt ended. */
-export type CircuitOutcome = "completed" | "timed-out" | "stalled";
+/**
+ * How a pre-charge attempt ended, as the firmware sees it: the bus reached the completion threshold
+ * (or the fixed dwell ended), or the timeout timer ended the attempt. Whether the bus could still
+ * have got there is a separate fact, CircuitResult.busStalled.
+ */
+export type CircuitOutcome = "completed" | "timed-out";
 
 /** The conditions one charging event starts from. */
 export interface ChargeConditions {
@@ -63,6 +67,12 @@ export interface EnergyBalance {
  */
 export interface CircuitResult {
   readonly outcome: CircuitOutcome;
+  /**
+   * true when the timer ended an attempt whose bus would never have reached the threshold (it
+   * settles below it, is held at 0 V, as by a short, or cycles with the load switching); false
+   * for a completed attempt and for one the timer ended while the bus was still rising toward it
+   */
+  readonly busStalled: boolean;
   /** one sentence: why the event ended ("bus reached 95 % of 48 V at 0.351 s") */
   readonly reason: string;
   /** how long the event lasted: until completion, dwell end or timeout [s] */

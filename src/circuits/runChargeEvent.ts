@@ -206,9 +206,9 @@ function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusL
  * regime by regime (feed mode × load state), each linear regime in closed form (exact power-trace
  * terms: constants, e^(−s/τ), e^(−2s/τ), ramps) and each nonlinear one (constant-power terms) by
  * odex into piecewise-linear segments ({@link integrateBusOde}), until the completion threshold,
- * the dwell or the timeout. At the timeout the outcome is `stalled` when the bus would never reach
- * the threshold (it settles below it, is held at 0 V, or cycles with the load switching), else
- * `timed-out`.
+ * the dwell or the timeout. At the timeout the outcome is `timed-out` (the firmware's timer ended
+ * the attempt), with `busStalled` true when the bus would never have reached the threshold (it
+ * settles below it, is held at 0 V, or cycles with the load switching).
  *
  * Energy bookkeeping: source = ΔE_C + Σ parts + load, where a short across a charged capacitor
  * dumps C·V0²/2 into the load at t = 0.
@@ -252,6 +252,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
 
   let t = 0;
   let outcome: CircuitOutcome | undefined;
+  let busStalled = false;
   let reason = "";
   if (threshold !== undefined && v >= threshold) {
     outcome = "completed";
@@ -298,12 +299,14 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
           outcome = "timed-out";
           reason = `timeout at ${reasonNumber(t)} s with the bus at ${reasonNumber(v)} V, still short of ${rule.thresholdWords}`;
         } else if (p.kind === "settles") {
-          outcome = "stalled";
+          outcome = "timed-out";
+          busStalled = true;
           reason = regime.clamped
             ? `bus held at 0 V (${load.kind === "short" ? "shorted" : "the load takes more than the source can give"}), below ${rule.thresholdWords}; timeout at ${reasonNumber(t)} s`
             : `bus settles at ${reasonNumber(p.voltageV)} V, below ${rule.thresholdWords}; timeout at ${reasonNumber(t)} s with the bus at ${reasonNumber(v)} V`;
         } else {
-          outcome = "stalled";
+          outcome = "timed-out";
+          busStalled = true;
           reason = `bus cycles between ${reasonNumber(p.lowV)} V and ${reasonNumber(p.highV)} V as the load switches on and off, below ${rule.thresholdWords}; timeout at ${reasonNumber(t)} s`;
         }
       }
@@ -332,6 +335,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
   }
   const result: CircuitResult = {
     outcome: outcome!,
+    busStalled,
     reason,
     durationS: t,
     endVoltageV: v,

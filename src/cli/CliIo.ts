@@ -18,11 +18,11 @@ export interface CliIo {
   readonly progress?: (text: string) => void;
 }
 
-/** Exit status: every limit met. */
-export const EXIT_OK = 0;
-/** Exit status: a limit is crossed (lets a team gate CI on the verdict). */
-export const EXIT_LIMIT = 1;
-/** Exit status: bad input (file, field or flag). */
+/**
+ * Exit status: bad input (file, field or flag). A run's other exit statuses follow its verdict
+ * (src/stress/Verdict.ts, verdictExitStatus: 0 for pass and warn, 1 for fail and, under --strict,
+ * for warn).
+ */
 export const EXIT_INPUT = 2;
 
 let pipesGuarded = false;

@@ -1,4 +1,4 @@
-import { AttemptCursor } from "../plan/AttemptCursor.js";
+import { AttemptCursor } from "../retry/AttemptCursor.js";
 import type { CliIo } from "./CliIo.js";
 import { type CommandProgress, commandProgress } from "./commandProgress.js";
 

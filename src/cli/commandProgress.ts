@@ -1,6 +1,6 @@
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import { ProgressLine } from "../report/ProgressLine.js";
-import { formatDuration } from "../report/formatTable.js";
+import { formatDuration } from "../text/formatTable.js";
 import type { CliIo } from "./CliIo.js";
 
 /** The progress of one CLI command (see commandProgress). */

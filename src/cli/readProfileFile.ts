@@ -1,6 +1,7 @@
 import { dirname, isAbsolute, join } from "node:path";
 import type { DutyProfile } from "../profile/DutyProfile.js";
-import { type ReadNamedFile, loadProfile } from "../profile/loadProfile.js";
+import { loadProfile } from "../profile/loadProfile.js";
+import type { ReadNamedFile } from "../profile/ReadNamedFile.js";
 import type { CliIo } from "./CliIo.js";
 import { readTextFile } from "./readInputFile.js";
 

@@ -2,7 +2,7 @@ import type { DutyProfile } from "../profile/DutyProfile.js";
 import { defaultCircuitModels } from "../profile/defaultCircuitModels.js";
 import type { ProfileStress } from "../profile/ProfileStress.js";
 import type { SimulateOptions } from "../profile/simulateProfile.js";
-import { EVENT_DIGEST_DEFAULTS, EventDigest } from "../report/EventDigest.js";
+import { EVENT_DIGEST_DEFAULTS, EventDigest } from "../profile/EventDigest.js";
 import { PeakEnvelope } from "../report/PeakEnvelope.js";
 import { SimulationCsv } from "../report/SimulationCsv.js";
 import type { CliIo } from "./CliIo.js";

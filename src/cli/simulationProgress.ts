@@ -1,4 +1,4 @@
-import { formatDuration } from "../report/formatTable.js";
+import { formatDuration } from "../text/formatTable.js";
 import type { CliIo } from "./CliIo.js";
 import { commandProgress } from "./commandProgress.js";
 

@@ -1,4 +1,4 @@
-import { EVENT_DIGEST_DEFAULTS } from "../report/EventDigest.js";
+import { EVENT_DIGEST_DEFAULTS } from "./EventDigest.js";
 import type { RainflowMode } from "../stress/rainflowCounter.js";
 import { type EventRatingCheck, StressAssessment, type StressReport, worseStatus } from "../stress/assessStress.js";
 import { checkPulseEnergy, pulseEnergyDeratingFactor } from "../stress/pulseEnergyRating.js";
@@ -66,7 +66,7 @@ interface PartState {
  * and for a MOSFET with an SOA table every operating point of the event (see mosfetOperatingPoints),
  * with the SOA derated at the part's temperature at the event start when the profile says how.
  * The per-event rule is the one of StressAssessment.finish, applied as events arrive.
- * Source: wiring of our own (DEVELOPERS.md, "Stress: ratings, cycles and damage").
+ * Source: wiring of our own (docs/stress.md).
  * Cost O(points × parts + events × (trace segments + samples)); memory O(parts × (residue +
  * keepChecks)) plus the cycles when kept.
  * @throws InputError from the rating checks (a negative energy) or a history out of order

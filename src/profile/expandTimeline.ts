@@ -4,7 +4,7 @@ import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
-import { PROFILE_DEFAULTS } from "./loadProfile.js";
+import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 
 /** The kinds of events a timeline holds. */
 export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
@@ -25,6 +25,8 @@ export interface TimelineEvent {
   readonly durationS: number;
   /** circuit outcome for charging events; "none" for the others */
   readonly outcome: CircuitOutcome | "none";
+  /** a charging event the timer ended with the bus stalled below the threshold (CircuitResult.busStalled) */
+  readonly busStalled: boolean;
   /** why it ended, in words */
   readonly reason: string;
   /** capacitor voltage at the start and at the end [V] (0 when the profile has no circuit) */
@@ -69,7 +71,7 @@ export interface ExpandOptions {
  * is min(interval·backoff^(k−1), maxInterval).
  * Because the stream is lazy, `temperatureOf` sees the parts' temperatures after every earlier
  * item has been integrated, so temperature-dependent circuit models read the true state.
- * Source: event semantics of our own (DEVELOPERS.md, "Profile format"); capacitor charge
+ * Source: event semantics of our own (docs/profile-format.md); capacitor charge
  * bookkeeping per docs/design.md ("Circuit bookkeeping").
  * Cost O(events × (circuit model + parts)); memory O(nesting depth + parts).
  * @throws InputError when a repetition overruns its period or the profile exceeds the longest time
@@ -109,7 +111,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     advance(durationS, field);
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: "none", reason: "", startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: "none", busStalled: false, reason: "", startVoltageV, endVoltageV: state.voltageV, traces, energyJ };
   };
 
   const gap = (durationS: number, field: string): TimelineGap => {
@@ -172,7 +174,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.voltageV = r.endVoltageV;
     }
     const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
   };
 
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per

@@ -232,7 +232,7 @@ const firmwareSchema = z.strictObject({
   timerResolution: quantity("time", { min: 0, words: 'a timer resolution ≥ 0 such as "1 ms" (0: no rounding)' }).optional(),
 });
 
-// ---- retry plan (read by src/plan for `heatledger retries`; nothing else uses it) ----
+// ---- retry plan (read by src/retry for `heatledger retries`; nothing else uses it) ----
 
 /** One corner of the retry plan's corner set: the circuit and ambient values it changes. */
 const retryCornerSchema = z.strictObject({
@@ -329,7 +329,7 @@ export type SupervisionInput = z.output<typeof supervisionSchema>;
 /**
  * The duty-profile file, validated and with every quantity converted to SI (temperatures in °C).
  * Networks and trace files are still references here; loadProfile resolves them.
- * Source: keys of our own (see DEVELOPERS.md, "Profile format").
+ * Source: keys of our own (see docs/profile-format.md).
  */
 export const profileSchema = z.strictObject({
   name: z.string().min(1),

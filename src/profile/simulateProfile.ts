@@ -3,13 +3,14 @@ import type { ModalModel } from "../thermal/ModalModel.js";
 import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
 import { ThermalRun } from "../thermal/runThermalHistory.js";
 import { traceSteps } from "../thermal/traceSteps.js";
+import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
 import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
 import { memoizeCircuitModels } from "./memoizeCircuitModels.js";
 
-/** A part's verdict: within the limit less its margin, inside the margin, or past the limit. */
-export type PartVerdict = "pass" | "warn" | "fail";
+/** A part's verdict: within the limit less its margin, inside the margin, or past the limit (src/stress/Verdict.ts). */
+export type PartVerdict = Verdict;
 
 /** Temperatures of one event's window (from its start to the next event's start). */
 export interface EventTemperatures {
@@ -46,8 +47,8 @@ export interface SimulationResult {
   readonly eventCount: number;
   readonly stepCount: number;
   readonly endTimeS: number;
-  /** charging events by outcome */
-  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "stalled", number>>;
+  /** charging events by outcome, and how many of the timed-out ones had the bus stalled below the threshold */
+  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "busStalled", number>>;
 }
 
 /** Options of {@link simulateProfile}. */
@@ -107,9 +108,11 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
  * thermal steps (traceSteps) and integrate all parts in one streaming pass (ThermalRun,
  * closed-form modal updates plus interior peak search), so the thermal state of every part is
  * carried from event to event and memory stays flat however many events the profile holds.
- * Temperatures are ambient + rise; each part's verdict compares its peak with its limit:
- * fail when peak > limit, warn when limit − margin < peak ≤ limit, else pass.
- * Source: superposition of exact modal responses (docs/design.md, "Exact integration"); verdict rule of our own (docs/design.md, "Verdicts").
+ * Temperatures are ambient + rise; each part's verdict compares its peak with its limit
+ * (peakVerdict): fail when peak > limit, warn when limit − margin < peak ≤ limit, else pass; the
+ * run's verdict is the worst part's.
+ * Source: superposition of exact modal responses (docs/design.md, "Exact integration"); verdict
+ * rule of our own (docs/design.md, "Verdicts"; src/stress/Verdict.ts).
  * Cost O(events × steps per event × parts × modes); memory O(parts × modes).
  * @throws InputError for a circuit value the models reject or a repeat that overruns its period
  */
@@ -122,7 +125,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const energy = new Float64Array(count);
   const eventPeak = new Float64Array(count);
   const eventPeakTime = new Float64Array(count);
-  const outcomes = { completed: 0, "timed-out": 0, stalled: 0 };
+  const outcomes = { completed: 0, "timed-out": 0, busStalled: 0 };
   let current: TimelineEvent | undefined;
   let events = 0;
   let lastIndex = -1;
@@ -159,6 +162,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       energy[i] = energy[i]! + event.energyJ[i]!;
     }
     if (event.outcome !== "none") outcomes[event.outcome]++;
+    if (event.busStalled) outcomes.busStalled++;
   };
 
   const pointTemperatures = new Array<number>(count).fill(0);
@@ -197,7 +201,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const results: PartResult[] = parts.map((p, i) => {
     const peakTemperatureC = p.ambientC + summary.peakRiseK[i]!;
     const marginK = p.limitC - peakTemperatureC;
-    const verdict: PartVerdict = peakTemperatureC > p.limitC ? "fail" : marginK < p.marginK ? "warn" : "pass";
+    const verdict = peakVerdict(peakTemperatureC, p.limitC, p.marginK);
     const exceed = summary.firstCrossingS[i];
     return {
       id: p.id,
@@ -212,6 +216,5 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       endTemperatureC: p.ambientC + modalRise(model, summary.endState, i),
     };
   });
-  const verdict: PartVerdict = results.some((r) => r.verdict === "fail") ? "fail" : results.some((r) => r.verdict === "warn") ? "warn" : "pass";
-  return { verdict, parts: results, eventCount: events, stepCount: summary.steps, endTimeS: summary.endTimeS, outcomes };
+  return { verdict: worstVerdict(results.map((r) => r.verdict)), parts: results, eventCount: events, stepCount: summary.steps, endTimeS: summary.endTimeS, outcomes };
 }

@@ -6,7 +6,7 @@ import type { CircuitRole } from "./DutyProfile.js";
  * MOSFET's source resistor are resistors (Coffin-Manson with the user's own numbers is the only
  * cycling model they take), the linear-mode MOSFET is a MOSFET (SOA table, thermal-instability
  * caution), and a converter switch or a part heated only by power traces is "other".
- * Source: part kinds of our own (DEVELOPERS.md, "Stress: ratings, cycles and damage").
+ * Source: part kinds of our own (docs/stress.md).
  * Cost O(1).
  */
 export function stressPartKind(role: CircuitRole | undefined): StressPartKind {

@@ -26,7 +26,7 @@ const BORROWED: Partial<Record<LogWord, FaultSpec["type"]>> = { overload: "overl
  * `short` is the profile format's shorted-output fault; `overload` and `converter-early` take the
  * values (the load, the converter's power) of the first fault of that type in the profile's own
  * events, retry blocks and repeats included, found in file order.
- * Source: event mapping of our own (DEVELOPERS.md, "Field event logs").
+ * Source: event mapping of our own (docs/field-logs.md).
  * Cost O(lines + profile events).
  * @throws InputError (on the log's line and `event` column) for a charging word when the profile
  *   has no circuit, or a borrowed fault word when the profile has no such fault

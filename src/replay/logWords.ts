@@ -1,6 +1,6 @@
 /**
  * The closed vocabulary of a field event log (`heatledger replay`), declared once: the CLI help,
- * DEVELOPERS.md and the parser read it here. Each word is what the unit's log says happened at
+ * docs/field-logs.md and the parser read it here. Each word is what the unit's log says happened at
  * that line; every word maps to an event kind of the duty-profile format (see eventLogToEvents).
  * A light module (no library imports), so the command definition can print it in `--help`.
  */

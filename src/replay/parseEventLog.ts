@@ -17,7 +17,7 @@ const TIME_EXPECTED = "a time: seconds from the start of the log (a number such 
  * ISO 8601 timestamps (`YYYY-MM-DDTHH:MM[:SS[.fff]]` with `Z` or an offset; no zone is read as UTC),
  * one kind for the whole file; they are counted from the first line (time zero) and must not
  * decrease. Event words are the closed vocabulary LOG_WORDS.
- * Source: log format of our own (DEVELOPERS.md, "Field event logs").
+ * Source: log format of our own (docs/field-logs.md).
  * Cost O(size of the file).
  * @param text the file's contents
  * @param file the path, for messages

@@ -33,7 +33,7 @@ export function replayProfile(profile: DutyProfile, log: EventLog): DutyProfile 
  * found exactly inside its step). Pass the same visitors as `simulate` (ProfileStress with
  * `mode: "open"`, built on `replayProfile(profile, log)`, for damage to date) through `options`,
  * and that replay profile as `replayed` so it is built once.
- * Source: wiring of our own over the profile simulator (DEVELOPERS.md, "Field event logs").
+ * Source: wiring of our own over the profile simulator (docs/field-logs.md).
  * Cost that of simulateProfile on the log's events: O(lines × steps per event × parts × modes).
  * @throws InputError for a log line the profile cannot replay (see eventLogToEvents), a line that
  *   comes before the attempt of the line above it has ended (named on that line's `time`), or a

@@ -2,7 +2,7 @@ import type { FosterFit } from "../thermal/fitFosterNetwork.js";
 import type { ZthPoint } from "../thermal/fitZthPoints.js";
 import { fosterToModal } from "../thermal/fosterNetwork.js";
 import { logSpacedTimes, zth } from "../thermal/zth.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 
 /** Points of the fitted curve drawn in the chart (resampled to the width by lineChart). */

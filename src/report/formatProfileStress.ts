@@ -1,12 +1,12 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
-import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } from "../stress/formatStressSection.js";
-import { LINEAR_MOSFET_CAUTION, wrapText } from "./cautions.js";
+import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } from "./formatStressSection.js";
+import { LINEAR_MOSFET_CAUTION, wrapText } from "../text/cautions.js";
 
 const RATING_WORDS = {
   pass: "every checked event is within its rating tables",
-  "outside-table": "some events fall outside the rating tables (not covered: a warning, not a failure)",
-  fail: "FAIL: an event exceeds a rating table (exit status 1)",
+  "outside-table": "some events fall outside the rating tables and were not checked (verdict warn)",
+  fail: "an event exceeds a rating table (verdict fail)",
 } as const;
 
 /** Options of {@link formatProfileStress}, for a command whose history is not one profile repetition (`replay`). */

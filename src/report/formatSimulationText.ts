@@ -1,10 +1,13 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { formatCautions } from "./cautions.js";
-import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "./EventDigest.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
+import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "../profile/EventDigest.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 import type { PeakEnvelope } from "./PeakEnvelope.js";
+import { simulationVerdict } from "./simulationVerdict.js";
+import type { RatingStatus } from "../stress/pulseEnergyRating.js";
+import { verdictLine } from "../stress/Verdict.js";
 
 /** A time on the profile's clock: "3 d 04:05:06.250" (milliseconds shown when not whole). */
 function clock(seconds: number): string {
@@ -25,12 +28,8 @@ function volts(v: number): string {
   return Math.abs(v) < 1e-3 ? "0" : formatNumber(v, 3);
 }
 
-/** Words for a verdict, shown in the terminal. */
-const VERDICT_WORDS = {
-  pass: "PASS: every part stays below its limit less its margin",
-  warn: "WARN: a part stays below its limit but inside its margin",
-  fail: "FAIL: a part passes its temperature limit",
-} as const;
+/** Marks an attempt the timer ended whose bus had stalled below the threshold (busStalled), explained under the table. */
+const STALLED_MARK = "*";
 
 /** What a command other than `simulate` puts at the top of the report (`replay`: the log it read). */
 export interface SimulationTextHeader {
@@ -44,7 +43,9 @@ export interface SimulationTextHeader {
  * The terminal report of a simulation: a header, one row per part (peak, when, limit, margin,
  * verdict, first time over the limit), one row per event (all of them for a short profile, else
  * the events closest to a limit), a chart of each part's temperature with its limit line, the
- * verdict, and the cautions (docs/design.md, "Cautions") at the end. Returns a string; the CLI prints it.
+ * verdict (simulationVerdict: the temperature verdict and `ratingStatus`, the stress layer's rating
+ * checks), and the cautions (docs/design.md, "Cautions") at the end. Returns a string; the CLI
+ * prints it.
  * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
  * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).
@@ -57,13 +58,16 @@ export function formatSimulationText(
   width = 100,
   stressText = "",
   header: SimulationTextHeader = {},
+  ratingStatus: RatingStatus = "pass",
 ): string {
   const out: string[] = [];
   out.push(`heatledger ${header.command ?? "simulate"}: ${profile.name}`);
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
-  const charges = result.outcomes.completed + result.outcomes["timed-out"] + result.outcomes.stalled;
-  if (charges > 0) out.push(`pre-charge attempts: ${charges} (${result.outcomes.completed} completed, ${result.outcomes["timed-out"]} timed out, ${result.outcomes.stalled} stalled)`);
+  const o = result.outcomes;
+  const charges = o.completed + o["timed-out"];
+  if (charges > 0)
+    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`);
   out.push("");
   out.push("Parts");
   out.push(
@@ -113,13 +117,14 @@ export function formatSimulationText(
         String(e.index),
         clock(e.startS),
         e.label,
-        e.outcome === "none" ? "" : e.outcome,
+        e.outcome === "none" ? "" : e.busStalled ? `${e.outcome}${STALLED_MARK}` : e.outcome,
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
       ]),
     ),
   );
+  if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
   if (envelope !== undefined) {
     profile.parts.forEach((p, i) => {
       out.push(`Temperature of ${p.id}`);
@@ -134,7 +139,8 @@ export function formatSimulationText(
   }
   // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
   if (stressText !== "") out.push(stressText);
-  out.push(`Verdict: ${VERDICT_WORDS[result.verdict]}.`);
+  const verdict = simulationVerdict(result.verdict, ratingStatus);
+  out.push(wrapText(verdictLine(verdict.verdict, verdict.reason), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
   return out.join("\n");

@@ -1,6 +1,7 @@
-import type { SizingReport } from "../plan/sizeProfile.js";
-import { formatCautions, wrapText } from "./cautions.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import type { SizingReport } from "../size/sizeProfile.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
+import { verdictLine } from "../stress/Verdict.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 
 const grams = (kg: number | undefined): string => (kg === undefined ? "" : formatNumber(kg * 1000));
 
@@ -145,9 +146,11 @@ export function formatSizingText(report: SizingReport, width = 100): string {
     out.push(wrapText(`${c.reason[0]!.toUpperCase()}${c.reason.slice(1)}.`, width));
   }
   out.push("");
-  if (report.verdict === "feasible") out.push("Verdict: a feasible size exists for every question asked.");
+  if (report.verdict === "pass") out.push(wrapText(verdictLine("pass", "a feasible size exists for every question asked; every sized part peaks at or below its limit less its margin"), width));
+  else if (report.verdict === "warn")
+    out.push(wrapText(verdictLine("warn", "a feasible size exists for every question asked, but a part sized to a smaller --margin than its profile wants peaks inside that margin, not above its limit"), width));
   else {
-    out.push("Verdict: NO FEASIBLE SIZE:");
+    out.push(verdictLine("fail", "no feasible size"));
     for (const r of report.infeasibleReasons) out.push(wrapText(`- ${r}`, width));
   }
   out.push("", formatCautions(report.linearMosfet, width));

@@ -1,6 +1,7 @@
-import type { SupervisionReport } from "../plan/supervisePrecharge.js";
-import { formatCautions } from "./cautions.js";
-import { formatDuration, formatNumber, formatTable } from "./formatTable.js";
+import type { SupervisionReport } from "../supervise/supervisePrecharge.js";
+import { formatCautions, wrapText } from "../text/cautions.js";
+import { verdictLine } from "../stress/Verdict.js";
+import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 
 const dur = (s: number): string => (s === Infinity ? "unbounded" : formatDuration(s));
@@ -35,7 +36,8 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
  * The text report of `heatledger supervise`: the timeout window with both ends and the margin
  * (or "no safe timeout exists" and why), the early-abort and rise-too-fast check tables with the
  * recommendation, the retry storm counts, the healthy corners, a chart of the healthy envelope and
- * the short-circuit energy, the summary table and the cautions (docs/design.md, "Cautions").
+ * the short-circuit energy, the summary table, the verdict and the cautions (docs/design.md,
+ * "Cautions").
  * Cost O(corners + checks + chart width).
  */
 export function formatSupervisionText(report: SupervisionReport, width = 100, chart = true): string {
@@ -56,6 +58,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   if (w.exists) out.push(`  window: ${dur(w.lowerS)} to ${dur(w.upperS)}; margin ${dur(w.marginS)}${Number.isFinite(w.marginRatio) ? ` (upper/lower ${formatNumber(w.marginRatio, 3)})` : ""}`);
   else out.push(`  NO SAFE TIMEOUT EXISTS: ${w.reason}.`);
   out.push(`  the profile's timeout, ${dur(report.configuredTimeoutS)}, is ${report.configuredInside ? "inside" : "OUTSIDE"} the window.`);
+  out.push(`  into a short at that timeout${report.policy === null ? ", one attempt from cold" : ", through the retry policy"}: ${report.timeoutVerdict}.`);
   out.push("");
   out.push(`Early-abort checks: abort when the bus is still below the threshold at the check time`);
   out.push(`  (threshold = (1 − ${formatNumber(report.marginFraction, 3)})·lowest healthy bus voltage; usable when ≥ the ${volts(report.floorV)} measurement floor)`);
@@ -95,7 +98,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     indent(
       formatTable(
         [{ heading: "corner" }, { heading: "threshold [V]", align: "right" }, { heading: "completes in", align: "right" }],
-        report.corners.map((c) => [c.name, formatNumber(c.thresholdV, 4), Number.isFinite(c.completionS) ? dur(c.completionS) : `never (${c.outcome})`]),
+        report.corners.map((c) => [c.name, formatNumber(c.thresholdV, 4), Number.isFinite(c.completionS) ? dur(c.completionS) : `never (${c.busStalled ? "the bus stalls below it" : c.outcome})`]),
       ),
     ),
   );
@@ -118,10 +121,24 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   out.push("Summary (Markdown, for a design note)");
   out.push(supervisionSummaryTable(report));
   for (const p of report.problems) out.push(`Problem: ${p}`);
-  out.push(report.verdict === "pass" ? "Verdict: pass" : "Verdict: FAIL");
+  out.push(wrapText(verdictLine(report.verdict, verdictReason(report)), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(report.linearMosfet, Math.min(width, 100)));
   return out.join("\n");
+}
+
+/** Why the supervision verdict is what it is, in words. */
+function verdictReason(report: SupervisionReport): string {
+  const timeout = `the profile's timeout, ${dur(report.configuredTimeoutS)}`;
+  if (!(report.configuredTimeoutS >= report.window.lowerS)) return `${timeout}, is shorter than the slowest healthy charge`;
+  switch (report.verdict) {
+    case "pass":
+      return `${timeout}, is inside the window: attempts into a short stay at or below limit − margin`;
+    case "warn":
+      return `${timeout}, is longer than the window allows: a short takes the part inside its design margin, not above its limit`;
+    case "fail":
+      return `at ${timeout}, a short takes the part above its limit`;
+  }
 }
 
 function indent(text: string): string {

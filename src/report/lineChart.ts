@@ -1,5 +1,5 @@
 import asciichart from "asciichart";
-import { formatDuration, formatNumber } from "./formatTable.js";
+import { formatDuration, formatNumber } from "../text/formatTable.js";
 
 /** One curve of a chart: points (x ascending) and a label for the legend. */
 export interface ChartSeries {

@@ -1,7 +1,7 @@
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
 import { type EventLog, logLineAt, logTimestamp } from "../replay/EventLog.js";
 import type { ReplayResult } from "../replay/replayEventLog.js";
-import { formatDuration, formatNumber } from "./formatTable.js";
+import { formatDuration, formatNumber } from "../text/formatTable.js";
 
 /** One part's findings from a field log: when it first went above its limit (and on which log line), and its damage to date. */
 export interface ReplayPartSummary {

@@ -1,7 +1,8 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
-import { GENERAL_CAUTION, LINEAR_MOSFET_CAUTION } from "./cautions.js";
-import type { EventDigest } from "./EventDigest.js";
+import { reportCautions } from "../text/cautions.js";
+import type { EventDigest } from "../profile/EventDigest.js";
+import type { Verdict } from "../stress/Verdict.js";
 
 /** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */
 export interface JsonPartEvent {
@@ -10,15 +11,16 @@ export interface JsonPartEvent {
   readonly startS: number;
   readonly energyJ: number;
   readonly peakTemperatureC: number;
-  /** circuit outcome of a charging event; "none" for events that charge nothing */
+  /** circuit outcome of a charging event ("completed" or "timed-out"); "none" for events that charge nothing */
   readonly outcome: string;
+  /** a timed-out charging event whose bus had stalled below the completion threshold */
+  readonly busStalled: boolean;
 }
 
 /** The `simulate --json` object (docs/design.md, "The JSON contract", with additions that never rename its fields). */
 export interface SimulationJson {
-  readonly verdict: "pass" | "fail";
-  /** pass | warn | fail: warn is a pass inside a part's wanted margin */
-  readonly detailedVerdict: "pass" | "warn" | "fail";
+  /** pass | warn | fail (src/stress/Verdict.ts): here the temperature verdict, the worst part's */
+  readonly verdict: Verdict;
   readonly profile: { readonly name: string; readonly file: string };
   readonly eventCount: number;
   /** events not listed per part because the profile is longer than the listing limit */
@@ -31,7 +33,7 @@ export interface SimulationJson {
     readonly limitC: number;
     readonly marginK: number;
     readonly requiredMarginK: number;
-    readonly verdict: "pass" | "warn" | "fail";
+    readonly verdict: Verdict;
     readonly firstExceedanceS: number | null;
     readonly energyJ: number;
     readonly events: readonly JsonPartEvent[];
@@ -40,16 +42,15 @@ export interface SimulationJson {
 }
 
 /**
- * The machine-readable result of a simulation, as docs/design.md ("The JSON contract") fixes it: `verdict` ("pass" | "fail"),
- * and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK and `events`
- * [{index, kind, startS, energyJ, peakTemperatureC, outcome}]. A "warn" (inside the margin, not past
- * the limit) is a pass for the exit status and `verdict`; `detailedVerdict` tells it apart.
+ * The machine-readable result of a simulation, as docs/design.md ("The JSON contract") fixes it:
+ * `verdict` (pass | warn | fail: the temperature verdict; simulationStressJson adds the rating
+ * checks to it), and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK, its own
+ * verdict and `events` [{index, kind, startS, energyJ, peakTemperatureC, outcome, busStalled}].
  * Cost O(parts × events listed).
  */
 export function simulationJson(profile: DutyProfile, result: SimulationResult, digest: EventDigest): SimulationJson {
   return {
-    verdict: result.verdict === "fail" ? "fail" : "pass",
-    detailedVerdict: result.verdict,
+    verdict: result.verdict,
     profile: { name: profile.name, file: profile.file },
     eventCount: result.eventCount,
     eventsOmitted: digest.count - digest.all.length,
@@ -71,8 +72,9 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
         energyJ: e.energyJ[i]!,
         peakTemperatureC: e.peakTemperatureC[i]!,
         outcome: e.outcome,
+        busStalled: e.busStalled,
       })),
     })),
-    cautions: [GENERAL_CAUTION, ...(profile.circuit?.topology === "linear-mosfet" ? [LINEAR_MOSFET_CAUTION] : [])],
+    cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),
   };
 }

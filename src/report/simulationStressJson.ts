@@ -1,13 +1,15 @@
 import type { ProfileStressResult } from "../profile/ProfileStress.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
-import { type StressJson, stressReportJson } from "../stress/stressReportJson.js";
+import { type StressJson, stressReportJson } from "./stressReportJson.js";
 import type { SimulationJson } from "./simulationJson.js";
-import { LIFETIME_CAUTION } from "../stress/stressCautions.js";
+import { LIFETIME_CAUTION } from "../text/stressCautions.js";
+import type { Verdict } from "../stress/Verdict.js";
+import { simulationVerdict } from "./simulationVerdict.js";
 
 /** `simulate --json` with the stress layer's findings added (the JSON contract's keys unchanged in name). */
 export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
-  /** the temperature verdict alone (the primary check): "fail" when a part passed its limit */
-  readonly temperatureVerdict: "pass" | "fail";
+  /** the temperature verdict alone (the primary check), the worst part's: pass | warn | fail */
+  readonly temperatureVerdict: Verdict;
   /** worst rating-table status over all parts and events (secondary check) */
   readonly ratingStatus: RatingStatus;
   /** how many times a year the profile occurs, as the profile states it; null when it does not */
@@ -21,15 +23,16 @@ export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
 /**
  * Add the stress layer to the simulation JSON: each part gets `stress` (`ratingChecks` per event,
  * `cycles` summary, `damage` per repetition with projections), the top level gets `ratingStatus`,
- * `temperatureVerdict` and `occursPerYear`, and `cautions` the lifetime caution when damage was computed. The top-level `verdict` is the exit status in words:
- * "fail" when a temperature limit is crossed (primary) or an event fails a rating table
- * (secondary); each part's own `verdict` stays the temperature verdict.
+ * `temperatureVerdict` and `occursPerYear`, and `cautions` the lifetime caution when damage was
+ * computed. The top-level `verdict` is the run's (simulationVerdict: the worst of the temperature
+ * verdict and the rating checks), the one the exit status follows; each part's own `verdict`
+ * stays its temperature verdict.
  * Cost O(parts × (checks listed + top cycles)).
  */
 export function simulationStressJson(base: SimulationJson, stress: ProfileStressResult, occursPerYear: number | undefined): SimulationStressJson {
   return {
     ...base,
-    verdict: base.verdict === "fail" || stress.ratingStatus === "fail" ? "fail" : "pass",
+    verdict: simulationVerdict(base.verdict, stress.ratingStatus).verdict,
     temperatureVerdict: base.verdict,
     ratingStatus: stress.ratingStatus,
     occursPerYear: occursPerYear ?? null,

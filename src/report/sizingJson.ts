@@ -1,17 +1,19 @@
-import type { SizingReport } from "../plan/sizeProfile.js";
+import type { SizingReport } from "../size/sizeProfile.js";
+import { reportCautions } from "../text/cautions.js";
 import { networkToDocument } from "../thermal/formatNetworkFile.js";
 
 /** A number for JSON: non-finite values become null (JSON has no Infinity). */
 const num = (x: number | undefined): number | null | undefined => (x === undefined ? undefined : Number.isFinite(x) ? x : null);
 
 /**
- * The `heatledger size --json` object: verdict ("feasible"|"infeasible"), reasons, the material,
+ * The `heatledger size --json` object: verdict (pass | warn | fail), reasons, the material,
  * what was scaled (`scale`: "whole" every heat capacity of the part's network, "element" only its
  * element capacity C1), per part the target, present peak and element capacity C1, worst event,
  * adiabatic bound and inversion (scope, scale k, capacityJPerK = the element capacity at k, massKg
  * of the element for "element" scaling, peakTemperatureC, crossingScale, sizedNetwork: the sized
  * network as a network file holds it, units on every quantity), and the circuit answer.
- * Every number is SI; Infinity is written as null. Cost O(parts).
+ * Every number is SI; Infinity is written as null; `cautions` closes it, as every JSON report.
+ * Cost O(parts).
  */
 export function sizingJson(report: SizingReport): object {
   return {
@@ -63,5 +65,6 @@ export function sizingJson(report: SizingReport): object {
             chargeS: num(report.circuit.chargeS) ?? null,
             timeoutS: report.circuit.timeoutS,
           },
+    cautions: reportCautions(report.linearMosfet),
   };
 }

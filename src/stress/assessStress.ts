@@ -4,8 +4,8 @@ import { type PulseEnergyCheck, type PulseEnergyDerating, type RatingStatus, che
 import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
 import type { StressConfig, StressPartKind } from "./resolveStressConfig.js";
 import { type OperatingPoint, type SoaCheck, checkSoa, soaDeratingFactor } from "./soaTable.js";
-import { LINEAR_MOSFET_CAUTION } from "../report/cautions.js";
-import { LIFETIME_CAUTION } from "./stressCautions.js";
+import { LINEAR_MOSFET_CAUTION } from "../text/cautions.js";
+import { LIFETIME_CAUTION } from "../text/stressCautions.js";
 import { TurningPointFilter } from "./turningPoints.js";
 
 /** What the profile layer knows of one event of a part. */
@@ -94,7 +94,7 @@ export interface StressReport {
   /** conventions used and what was not checked, in words */
   readonly notes: readonly string[];
   /** stress-specific cautions for human-readable reports (lifetime estimate, linear-mode MOSFET); the
-   *  general caution closes the whole report (src/report/cautions.ts) */
+   *  general caution closes the whole report (src/text/cautions.ts) */
   readonly cautions: readonly string[];
 }
 

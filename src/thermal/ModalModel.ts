@@ -1,7 +1,7 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 
 /**
- * The one engine representation of a linear RC thermal network (see DEVELOPERS.md, "modal form").
+ * The one engine representation of a linear RC thermal network (see docs/engine.md, "The modal form").
  *
  * Every mode m has a time constant tauS[m]. Each heat source s drives its own copy of every mode,
  * a state y[s][m] in watts that follows the first-order low-pass

@@ -1,6 +1,7 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import type { ModalModel } from "./ModalModel.js";
 import { type ThermalGraph, graphToModal } from "./thermalGraph.js";
+import { type NetworkPart, ladderNodeName } from "./NetworkPart.js";
 
 /** One Cauer stage: heat capacity C_k [J/K] from node k to the reference, then R_k [K/W] on to node k+1. */
 export interface CauerStage {
@@ -9,7 +10,7 @@ export interface CauerStage {
 }
 
 /**
- * A Cauer (ladder) network: node 1 is the junction where power enters; each stage's capacity
+ * A Cauer (ladder) network: node 1 is where power enters (a junction, a resistor's element); each stage's capacity
  * goes from its node to the thermal reference and its resistance to the next node; the last
  * resistance goes to ambient. Unlike Foster stages, Cauer nodes are physical, so networks can be
  * chained and shared (see chainNetworks).
@@ -17,15 +18,14 @@ export interface CauerStage {
 export interface CauerLadder {
   readonly kind: "cauer";
   readonly stages: readonly CauerStage[];
-}
-
-/** Node name of stage k (0-based) in the graph form of a ladder: "node1", "node2", ... */
-export function cauerNodeName(k: number): string {
-  return k === 0 ? "junction" : `node${k + 1}`;
+  /** the part it describes, which names its nodes (ladderNodeName); optional */
+  readonly part?: NetworkPart;
 }
 
 /**
- * The graph form of a Cauer ladder, observed and heated at the junction (first node).
+ * The graph form of a Cauer ladder, observed and heated at its first node; nodes are named after
+ * the part (ladderNodeName: "junction", "node2", ... for a semiconductor; "element", "body", ...
+ * for a resistor; "node1", "node2", ... when the ladder does not say).
  * @throws InputError `bad-network`
  */
 export function cauerToGraph(ladder: CauerLadder, field = "network"): ThermalGraph {
@@ -35,12 +35,13 @@ export function cauerToGraph(ladder: CauerLadder, field = "network"): ThermalGra
     if (!(s.cJPerK > 0) || !Number.isFinite(s.cJPerK)) throw inputError("bad-network", `${field}.stages[${i}].c`, "a heat capacity > 0 J/K", describeFound(s.cJPerK));
   });
   const n = ladder.stages.length;
+  const name = (k: number): string => ladderNodeName(k, ladder.part);
   return {
     kind: "graph",
-    nodes: ladder.stages.map((s, k) => ({ id: cauerNodeName(k), cJPerK: s.cJPerK })),
-    links: ladder.stages.map((s, k) => ({ from: cauerNodeName(k), to: k === n - 1 ? "ambient" : cauerNodeName(k + 1), rKPerW: s.rKPerW })),
-    sources: ["junction"],
-    observed: ["junction"],
+    nodes: ladder.stages.map((s, k) => ({ id: name(k), cJPerK: s.cJPerK })),
+    links: ladder.stages.map((s, k) => ({ from: name(k), to: k === n - 1 ? "ambient" : name(k + 1), rKPerW: s.rKPerW })),
+    sources: [name(0)],
+    observed: [name(0)],
   };
 }
 

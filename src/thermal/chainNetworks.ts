@@ -6,9 +6,13 @@ import { AMBIENT_NODE, type ThermalGraph, type ThermalLink, type ThermalNode } f
 
 /** One part mounted on a shared heatsink. */
 export interface MountedPart {
-  /** the part's name; its nodes become "<id>.junction", "<id>.node2", ... */
+  /**
+   * the part's name; its nodes become "<id>.<node>", named after the device network's `part`
+   * ("<id>.junction", "<id>.node2", ... for a semiconductor; "<id>.element", "<id>.body", ... for
+   * a resistor; "<id>.node1", ... when the network does not say)
+   */
   readonly id: string;
-  /** junction-to-case network; a Foster network is first converted to its Cauer ladder */
+  /** heated-node-to-case network; a Foster network is first converted to its Cauer ladder */
   readonly device: FosterNetwork | CauerLadder;
   /** case-to-heatsink interface resistance (pad, grease, insulator) [K/W], ≥ 0 */
   readonly interfaceRKPerW: number;
@@ -17,7 +21,7 @@ export interface MountedPart {
 /** Devices on one heatsink. */
 export interface HeatsinkAssembly {
   readonly parts: readonly MountedPart[];
-  /** heatsink-to-ambient network: a Cauer ladder (entered at its first node) or a graph */
+  /** heatsink-to-ambient network: a Cauer ladder (entered at its first node, "mount" unless its `part` says otherwise) or a graph */
   readonly heatsink: CauerLadder | ThermalGraph;
   /** for a graph heatsink, the node the parts are mounted on (default: its first source, else its first node) */
   readonly mountNode?: string;
@@ -36,10 +40,12 @@ export const HEATSINK_PREFIX = "heatsink.";
  * has no heat capacity of its own, so the last resistance and the interface resistance are one
  * series link from the device's last node to the heatsink's mount node:
  *   R_link = R_n(device) + R_interface.
- * The heatsink keeps its own nodes and links to ambient, renamed "heatsink.<node>". Several parts
- * on one heatsink all link to the same mount node, so they heat each other through it.
- * The result's sources are the parts' junctions ("<id>.junction"), in the order given; its
- * observed nodes are the junctions followed by the mount node.
+ * The heatsink keeps its own nodes and links to ambient, renamed "heatsink.<node>" (a ladder's
+ * first node is "heatsink.mount"). Several parts on one heatsink all link to the same mount node,
+ * so they heat each other through it.
+ * The result's sources are the parts' heated nodes (a semiconductor's "<id>.junction", a
+ * resistor's "<id>.element"), in the order given; its observed nodes are those followed by the
+ * mount node.
  * Source: JEDEC JESD51-14 (2010) (the heat-flow path as a Cauer ladder, whose nodes follow the
  * physical path); that only Cauer (or graph) nodes may be joined is common practice. The series
  * combination of resistances is Ohm's law in the thermal analogy, Incropera et al., Fundamentals
@@ -85,7 +91,7 @@ export function chainNetworks(assembly: HeatsinkAssembly, field = "assembly"): T
 
 function heatsinkPart(assembly: HeatsinkAssembly, field: string): { heatsinkNodes: ThermalNode[]; heatsinkLinks: ThermalLink[]; mount: string } {
   const sink = assembly.heatsink;
-  const graph = sink.kind === "cauer" ? cauerToGraph(sink, field) : sink;
+  const graph = sink.kind === "cauer" ? cauerToGraph({ ...sink, part: sink.part ?? "heatsink" }, field) : sink;
   if (graph.nodes.length === 0) throw inputError("bad-network", `${field}.nodes`, "at least one heatsink node", "none");
   const rename = (id: string): string => (id === AMBIENT_NODE ? AMBIENT_NODE : `${HEATSINK_PREFIX}${id}`);
   const mountId = sink.kind === "cauer" ? graph.nodes[0]!.id : (assembly.mountNode ?? graph.sources[0] ?? graph.nodes[0]!.id);

@@ -16,9 +16,9 @@ export function networkToDocument(network: ThermalNetwork, name?: string): Recor
   const head: Record<string, unknown> = name === undefined ? {} : { name };
   switch (network.kind) {
     case "foster":
-      return { ...head, form: "foster", stages: network.stages.map((s) => ({ r: `${number(s.rKPerW)} K/W`, tau: `${number(s.tauS)} s` })) };
+      return { ...head, form: "foster", ...(network.part === undefined ? {} : { part: network.part }), stages: network.stages.map((s) => ({ r: `${number(s.rKPerW)} K/W`, tau: `${number(s.tauS)} s` })) };
     case "cauer":
-      return { ...head, form: "cauer", stages: network.stages.map((s) => ({ r: `${number(s.rKPerW)} K/W`, c: `${number(s.cJPerK)} J/K` })) };
+      return { ...head, form: "cauer", ...(network.part === undefined ? {} : { part: network.part }), stages: network.stages.map((s) => ({ r: `${number(s.rKPerW)} K/W`, c: `${number(s.cJPerK)} J/K` })) };
     case "graph":
       return {
         ...head,

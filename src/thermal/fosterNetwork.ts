@@ -1,5 +1,6 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import type { ModalModel } from "./ModalModel.js";
+import { type NetworkPart, ladderNodeName } from "./NetworkPart.js";
 
 /** One Foster stage: R [K/W] in parallel with C, given by tau = R·C [s]. */
 export interface FosterStage {
@@ -7,14 +8,17 @@ export interface FosterStage {
   readonly tauS: number;
 }
 
-/** A Foster network: parallel RC pairs in series, junction to ambient (or case). */
+/** A Foster network: parallel RC pairs in series, from the heated node (a junction, an element) to ambient (or case). */
 export interface FosterNetwork {
   readonly kind: "foster";
   readonly stages: readonly FosterStage[];
+  /** the part it describes, which names its node (ladderNodeName); optional */
+  readonly part?: NetworkPart;
 }
 
 /**
  * The modal form of a Foster network: it already is one, with gain_i = R_i and tau_i = R_i·C_i.
+ * Its one source and observed node is named after the part (ladderNodeName(0, network.part)).
  * Source: Foster, "A reactance theorem", Bell System Technical Journal 3 (1924); JEDEC JESD51-14
  * (2010), annex on the Foster model.
  * Cost O(stages).
@@ -24,8 +28,8 @@ export function fosterToModal(network: FosterNetwork, field = "network"): ModalM
   validateFoster(network, field);
   return {
     tauS: network.stages.map((s) => s.tauS),
-    sources: ["junction"],
-    observed: ["junction"],
+    sources: [ladderNodeName(0, network.part)],
+    observed: [ladderNodeName(0, network.part)],
     gainKPerW: [[network.stages.map((s) => s.rKPerW)]],
   };
 }

@@ -3,7 +3,7 @@ import { describeFound, inputError } from "../errors/InputError.js";
 import { loadMathjs } from "../units/loadMathjs.js";
 import type { CauerLadder, CauerStage } from "./cauerLadder.js";
 import { cauerToModal } from "./cauerLadder.js";
-import { type FosterNetwork, validateFoster } from "./fosterNetwork.js";
+import { type FosterNetwork, fosterToModal, validateFoster } from "./fosterNetwork.js";
 import { zth, logSpacedTimes } from "./zth.js";
 
 /**
@@ -87,7 +87,8 @@ export function fosterToCauer(network: FosterNetwork, field = "network"): CauerL
     q = trim(subPoly(q, p.map((x) => x.mul(r)), zero));
     stages.push({ rKPerW: fractionToNumber(r), cJPerK: fractionToNumber(c) });
   }
-  const ladder: CauerLadder = { kind: "cauer", stages };
+  // the same part: its nodes keep their role's names (src/thermal/NetworkPart.ts)
+  const ladder: CauerLadder = { kind: "cauer", stages, ...(network.part === undefined ? {} : { part: network.part }) };
   checkRoundTrip(network, ladder, field);
   return ladder;
 }
@@ -157,7 +158,7 @@ function checkRoundTrip(network: FosterNetwork, ladder: CauerLadder, field: stri
     if (!(s.rKPerW > 0) || !(s.cJPerK > 0) || !Number.isFinite(s.rKPerW) || !Number.isFinite(s.cJPerK))
       throw inputError("bad-network", `${field}.stages`, "time constants that give a Cauer ladder representable in double precision", `stage ${k + 1} with R = ${s.rKPerW}, C = ${s.cJPerK}`);
   });
-  const foster = { tauS: network.stages.map((s) => s.tauS), sources: ["junction"], observed: ["junction"], gainKPerW: [[network.stages.map((s) => s.rKPerW)]] };
+  const foster = fosterToModal(network, field);
   const cauer = cauerToModal(ladder, field);
   const taus = foster.tauS;
   const times = logSpacedTimes(Math.min(...taus) * 1e-3, Math.max(...taus) * 1e3, FOSTER_TO_CAUER_CHECK_TIMES);

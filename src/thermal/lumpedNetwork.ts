@@ -24,8 +24,8 @@ export interface LumpedDescription {
  * A Cauer ladder from a lumped description.
  *   one stage:  C = m·c, R = R_to_ambient               → tau = R·C
  *   two stages: C1 = m_e·c_e, R1 = R_element_to_body; C2 = m_b·c_b, R2 = R_body_to_ambient
- * The ladder's nodes are physical (element, body), so it can be chained; its exact Foster form
- * comes from cauerToModal.
+ * The ladder's nodes are physical and named so (`part: resistor`: "element", "body"), so it can be
+ * chained; its exact Foster form comes from cauerToModal.
  * Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1 (lumped
  * capacitance method, eq. 5.2-5.7: rho·V·c·dT/dt = −(T − T_inf)/R_t, tau_t = R_t·C_t) and §5.2
  * (validity: Biot number Bi = h·L_c/k < 0.1, eq. 5.10).
@@ -43,12 +43,13 @@ export function lumpedNetwork(description: LumpedDescription, field = "lumped"):
   positive(description.rToAmbientKPerW, "rToAmbient", "a thermal resistance > 0 K/W");
   const elementC = description.element.massKg * description.element.specificHeatJPerKgK;
   const body = description.body;
-  if (body === undefined) return { kind: "cauer", stages: [{ cJPerK: elementC, rKPerW: description.rToAmbientKPerW }] };
+  if (body === undefined) return { kind: "cauer", part: "resistor", stages: [{ cJPerK: elementC, rKPerW: description.rToAmbientKPerW }] };
   positive(body.massKg, "body.mass", "a mass > 0 kg");
   positive(body.specificHeatJPerKgK, "body.specificHeat", "a specific heat > 0 J/(kg K)");
   positive(body.rElementToBodyKPerW, "body.rElementToBody", "a thermal resistance > 0 K/W");
   return {
     kind: "cauer",
+    part: "resistor",
     stages: [
       { cJPerK: elementC, rKPerW: body.rElementToBodyKPerW },
       { cJPerK: body.massKg * body.specificHeatJPerKgK, rKPerW: description.rToAmbientKPerW },

@@ -4,6 +4,7 @@ import type { CauerStage } from "./cauerLadder.js";
 import type { FosterStage } from "./fosterNetwork.js";
 import type { ThermalLink, ThermalNode } from "./thermalGraph.js";
 import type { ThermalNetwork } from "./ThermalNetwork.js";
+import { NETWORK_PARTS, type NetworkPart } from "./NetworkPart.js";
 
 /** The forms a network file may take. */
 export const NETWORK_FORMS = ["foster", "cauer", "graph"] as const;
@@ -20,14 +21,16 @@ const COMMON_KEYS = ["form", "name", "description"];
  *     - { r: 1.2 K/W, c: 5 J/K }        - ...                      sources: [die]   observed: [die]
  *
  * A Foster stage gives its capacity either as tau (R·C) or as c. Optional `name` and
- * `description` are free text. Unknown keys are reported with the nearest valid key; all problems
+ * `description` are free text. A Foster or Cauer network may say which `part` it describes
+ * (semiconductor, resistor or heatsink), which names its nodes (ladderNodeName: junction;
+ * element, body; mount); a graph names its own nodes. Unknown keys are reported with the nearest valid key; all problems
  * are reported at once.
  * Cost O(size of the data).
  * @throws InputError listing every problem, with field paths under `field`
  */
 export function parseNetwork(raw: unknown, field = "network"): ThermalNetwork {
   const reader = new FieldReader();
-  const head = reader.record(raw, field, [...COMMON_KEYS, "stages", "nodes", "links", "sources", "observed"], ["form"]);
+  const head = reader.record(raw, field, [...COMMON_KEYS, "part", "stages", "nodes", "links", "sources", "observed"], ["form"]);
   reader.done();
   const record = head!;
   const form = reader.choice(record.form, join(field, "form"), NETWORK_FORMS);
@@ -63,7 +66,7 @@ function readLadder(reader: FieldReader, record: Record<string, unknown>, field:
       const tau = s.tau !== undefined ? reader.quantity(s.tau, "time", join(f, "tau"), { exclusiveMin: 0 }) : r * reader.quantity(s.c, "heatCapacity", join(f, "c"), { exclusiveMin: 0 });
       return { rKPerW: r, tauS: tau };
     });
-    return { kind: "foster", stages: parsed };
+    return { kind: "foster", stages: parsed, ...readPart(reader, record, field) };
   }
   const parsed: CauerStage[] = stages.map((raw, i) => {
     const f = join(at, i);
@@ -74,11 +77,18 @@ function readLadder(reader: FieldReader, record: Record<string, unknown>, field:
       cJPerK: reader.quantity(s.c, "heatCapacity", join(f, "c"), { exclusiveMin: 0 }),
     };
   });
-  return { kind: "cauer", stages: parsed };
+  return { kind: "cauer", stages: parsed, ...readPart(reader, record, field) };
+}
+
+/** The optional `part` of a ladder network, as an object to spread. */
+function readPart(reader: FieldReader, record: Record<string, unknown>, field: string): { part?: NetworkPart } {
+  if (record.part === undefined) return {};
+  const part = reader.choice(record.part, join(field, "part"), NETWORK_PARTS);
+  return part === undefined ? {} : { part };
 }
 
 function readGraph(reader: FieldReader, record: Record<string, unknown>, field: string): ThermalNetwork {
-  rejectKeys(reader, record, field, ["stages"], "graph");
+  rejectKeys(reader, record, field, ["stages", "part"], "graph");
   const nodesAt = join(field, "nodes");
   const nodes: ThermalNode[] = (reader.list(record.nodes, nodesAt, "nodes", 1) ?? []).map((raw, i) => {
     const f = join(nodesAt, i);

@@ -1,6 +1,6 @@
 // Circuit models: time per event for the exact (linear) path and the odex (constant-power) path.
 // Figures are printed for people to read, never asserted.
-import { chargeConverter, chargeLinearMosfet, chargeSeriesResistor } from "../../src/index.js";
+import { chargeConverter, chargeLinearMosfet, chargeSeriesResistor } from "../../src/internal.js";
 
 function time(label: string, repeats: number, fn: () => { traces: Readonly<Record<string, readonly unknown[]>> }, print: (line: string) => void): void {
   fn(); // warm-up (odex module load, JIT)

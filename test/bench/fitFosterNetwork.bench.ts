@@ -1,6 +1,6 @@
 // Speed and accuracy of the Foster fit on the recovery case (40 log-spaced points of a
 // 4-stage network with 1 % noise) and on exact data. Figures are printed, never asserted.
-import { type FosterNetwork, fitFosterNetwork, fosterToModal, logSpacedTimes, zth } from "../../src/index.js";
+import { type FosterNetwork, fitFosterNetwork, fosterToModal, logSpacedTimes, zth } from "../../src/internal.js";
 import { seededNormal } from "../helpers/seededNoise.js";
 
 const KNOWN: FosterNetwork = {

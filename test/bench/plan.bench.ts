@@ -1,7 +1,7 @@
 // Planner speed figures: a 50 × 50 lockout map (target < 1 s) and the fastest safe
 // schedule of 100 attempts (target < 200 ms). Printed, never asserted (`npm run bench`).
-import { fastestSchedule, fosterToModal, lockoutMap, scanGrid } from "../../src/index.js";
-import { chargeThenTrip, rectangularFault } from "../plan/scenarios.js";
+import { fastestSchedule, fosterToModal, lockoutMap, scanGrid } from "../../src/internal.js";
+import { chargeThenTrip, rectangularFault } from "../retry/scenarios.js";
 
 function time<T>(work: () => T): { ms: number; result: T } {
   const t0 = performance.now();

@@ -3,7 +3,7 @@
 // series-resistor model, a pulse-energy table and a Coffin-Manson model on the resistor) is
 // simulated without and with ProfileStress fed from the visitor, as the CLI feeds it. Prints
 // events, CPU time of both and the heap after a full GC; figures are read by people, never asserted.
-import { ProfileStress, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { ProfileStress, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/internal.js";
 import { shuttleProfileText } from "./shuttleProfile.js";
 
 function profileText(months: number): string {

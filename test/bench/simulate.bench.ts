@@ -8,7 +8,7 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { defaultCircuitModels, loadProfile, simulateProfile } from "../../src/internal.js";
 import { projectRoot } from "./projectRoot.js";
 import { shuttleProfileText } from "./shuttleProfile.js";
 

@@ -3,7 +3,7 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { projectRoot } from "./projectRoot.js";
-import { defaultCircuitModels, loadProfile, sizeProfile } from "../../src/index.js";
+import { defaultCircuitModels, loadProfile, sizeProfile } from "../../src/internal.js";
 
 export async function run(print: (line: string) => void): Promise<void> {
   const folder = join(projectRoot, "profiles");

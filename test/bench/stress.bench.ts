@@ -1,7 +1,7 @@
 // Rainflow of 10 million turning points (target: under 2 s, memory bounded), then the
 // same history through the turning-point filter and Miner's sum. Figures are printed, not asserted.
 import { loadavg } from "node:os";
-import { LESIT_PUBLISHED, MinerAccumulator, RainflowCounter, TurningPointFilter, lesitModel } from "../../src/index.js";
+import { LESIT_PUBLISHED, MinerAccumulator, RainflowCounter, TurningPointFilter, lesitModel } from "../../src/internal.js";
 
 const POINTS = 10_000_000;
 

@@ -4,7 +4,7 @@
 import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { projectRoot } from "./projectRoot.js";
-import { defaultCircuitModels, longestShortFromState, longestShortUnderPolicy, loadProfile, profileRetryPolicy, shortedScenario, supervisePrecharge } from "../../src/index.js";
+import { defaultCircuitModels, longestShortFromState, longestShortUnderPolicy, loadProfile, profileRetryPolicy, shortedScenario, supervisePrecharge } from "../../src/internal.js";
 
 function time<T>(work: () => T): { ms: number; result: T } {
   const t0 = performance.now();

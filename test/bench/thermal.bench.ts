@@ -17,7 +17,7 @@ import {
   runThermalHistory,
   sampleThermalHistory,
   traceSteps,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { fosterElements, runNgspice, spiceNumber } from "../thermal/ngspiceRunner.js";
 
 setFlagsFromString("--expose-gc");

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type BusLoad, type CircuitResult, type LinearMosfetParams, chargeLinearMosfet, segmentEnergy } from "../../src/index.js";
+import { type BusLoad, type CircuitResult, type LinearMosfetParams, chargeLinearMosfet, segmentEnergy } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { sumParts, traceAt } from "./circuitResultProbes.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";
@@ -59,13 +59,15 @@ describe("chargeLinearMosfet", () => {
 
   test("a shorted bus: the MOSFET holds (Vs − I·Rs) at I until the timeout", () => {
     const r = chargeLinearMosfet({ ...base, load: { kind: "short" } }, cond);
-    expect(r.outcome).toBe("stalled");
+    expect(r.outcome).toBe("timed-out");
+    expect(r.busStalled).toBe(true);
     expectClose(r.energy.partsJ.mosfet!, (400 - 8) * 2 * 2, { rel: 1e-14 });
   });
 
   test("a constant-current load above the set current holds the bus at 0 V", () => {
     const r = chargeLinearMosfet({ ...base, load: { kind: "constant-current", currentA: 3 } }, cond);
-    expect(r.outcome).toBe("stalled");
+    expect(r.outcome).toBe("timed-out");
+    expect(r.busStalled).toBe(true);
     expect(r.endVoltageV).toBe(0);
   });
 

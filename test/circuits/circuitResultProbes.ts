@@ -1,5 +1,5 @@
 // Small probes on a CircuitResult shared by the circuit-model tests (not a test file).
-import { type CircuitResult, powerAt } from "../../src/index.js";
+import { type CircuitResult, powerAt } from "../../src/internal.js";
 
 /** Σ of every part's energy in the result's energy balance [J]. */
 export const sumParts = (r: CircuitResult): number => Object.values(r.energy.partsJ).reduce((a, b) => a + b, 0);

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type DischargePath, dischargeVoltage } from "../../src/index.js";
+import { type DischargePath, dischargeVoltage } from "../../src/internal.js";
 import { createOdexSolver } from "../../src/circuits/loadOdex.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { inputErrorMessage } from "./inputErrorMessage.js";

@@ -1,4 +1,4 @@
-import { InputError } from "../../src/index.js";
+import { InputError } from "../../src/internal.js";
 
 /**
  * The message of the InputError a call throws, for exact comparison ("no error" when it returns,

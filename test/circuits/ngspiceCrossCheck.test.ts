@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { type CircuitResult, chargeLinearMosfet, chargeSeriesResistor, powerAt } from "../../src/index.js";
+import { type CircuitResult, chargeLinearMosfet, chargeSeriesResistor, powerAt } from "../../src/internal.js";
 import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 
 // Outside reference: ngspice (Debian package `ngspice`, installed by .ci/run), a general-purpose

@@ -33,8 +33,8 @@ describe("runCli loads each command's implementation only when it runs", () => {
     expect(loads.packages.filter((name) => ["mathjs", "csv-parse", "csv-stringify"].includes(name))).toEqual([]);
     expect(loads.dist).not.toContain("dist/index.js");
     expect(loads.dist).not.toContain("dist/thermal/fitFosterNetwork.js");
-    // of src/plan only the default tables the help texts print
-    expect(loads.dist.filter((file) => file.startsWith("dist/plan/"))).toEqual(["dist/plan/planDefaults.js", "dist/plan/sizeDefaults.js", "dist/plan/superviseDefaults.js"]);
+    // of the planners (src/retry, src/size, src/supervise) only the default tables the help texts print
+    expect(loads.dist.filter((file) => /^dist\/(retry|size|supervise)\//.test(file))).toEqual(["dist/retry/planDefaults.js", "dist/size/sizeDefaults.js", "dist/supervise/superviseDefaults.js"]);
     expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual(["dist/cli/commands/simulateAction.js"]);
   });
 
@@ -45,7 +45,7 @@ describe("runCli loads each command's implementation only when it runs", () => {
     expect(loads.packages).toEqual(expect.arrayContaining(["yaml", "zod", "csv-parse"]));
     expect(loads.packages.filter((name) => FITTING_PACKAGES.includes(name))).toEqual([]);
     expect(loads.dist).not.toContain("dist/index.js");
-    expect(loads.dist.filter((file) => file.startsWith("dist/plan/"))).toEqual(["dist/plan/planDefaults.js", "dist/plan/sizeDefaults.js", "dist/plan/superviseDefaults.js"]);
+    expect(loads.dist.filter((file) => /^dist\/(retry|size|supervise)\//.test(file))).toEqual(["dist/retry/planDefaults.js", "dist/size/sizeDefaults.js", "dist/supervise/superviseDefaults.js"]);
     expect(loads.dist.filter((file) => file.endsWith("Action.js"))).toEqual(["dist/cli/commands/replayAction.js"]);
   });
 

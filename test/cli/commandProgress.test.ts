@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { commandProgress } from "../../src/cli/commandProgress.js";
-import type { CircuitModels } from "../../src/index.js";
+import type { CircuitModels } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // The progress line of the long commands (retries, supervise, size, the fits): silent on a

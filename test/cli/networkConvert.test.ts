@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, zth } from "../../src/index.js";
+import { GENERAL_CAUTION, fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, zth } from "../../src/internal.js";
 import { runCli } from "../../src/cli/main.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
@@ -16,6 +16,19 @@ describe("heatledger network convert", () => {
     const b = networkToModal(ladder);
     // Exact conversion; the file keeps 10 significant digits, so 1e-8 relative is an honest bound.
     for (const t of logSpacedTimes(1e-4, 1e3, 30)) expectClose(zth(b, t), zth(a, t), { rel: 1e-8 });
+  });
+
+  test("network convert keeps the part (its node names) and closes with the cautions, in text and JSON", async () => {
+    const io = memoryIo({ "f.yaml": `form: foster\npart: resistor\n${fosterText.slice("form: foster\n".length)}` });
+    expect(await runCli(["network", "convert", "f.yaml", "--to", "cauer"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain("part: resistor");
+    expect(text.replace(/\s+/g, " ")).toContain(GENERAL_CAUTION);
+    const ladder = parseNetwork(parseStructuredText(text.slice(text.indexOf("# heatledger"), text.indexOf("Caution")), "c.yaml").data);
+    expect(networkToModal(ladder).sources).toEqual(["element"]);
+    const json = memoryIo({ "f.yaml": fosterText });
+    expect(await runCli(["network", "convert", "f.yaml", "--to", "cauer", "--json"], json)).toBe(0);
+    expect((JSON.parse(json.stdout.join("")) as { cautions: string[] }).cautions).toEqual([GENERAL_CAUTION]);
   });
 
   test("network convert refuses to overwrite without --force", async () => {

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { type FosterNetwork, constantPowerSegment, fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, runThermalHistory, traceSteps, zth } from "../../src/index.js";
+import { type FosterNetwork, constantPowerSegment, fosterToModal, logSpacedTimes, networkToModal, parseNetwork, parseStructuredText, runThermalHistory, traceSteps, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 

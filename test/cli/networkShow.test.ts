@@ -2,6 +2,7 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
+import { GENERAL_CAUTION } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
@@ -25,6 +26,33 @@ describe("heatledger network show", () => {
     expect(json.pairs[0]!.zth.at(-1)!.zthKPerW).toBeGreaterThan(0.99 * 3);
   });
 
+  // A resistor's heated node is its element, a semiconductor's its junction; a network that does
+  // not say which part it describes gets numbered nodes. Every report closes with the cautions,
+  // and the JSON carries them as the list `cautions`.
+  test.each([
+    ["part: resistor\n", "element"],
+    ["part: semiconductor\n", "junction"],
+    ["", "node1"],
+  ])("network show names the node by the part (%s): %s; the cautions close the text and travel in the JSON", async (partLine, node) => {
+    const files = { "n.yaml": `form: foster\n${partLine}stages:\n  - { r: 1 K/W, tau: 1 s }\n` };
+    const io = memoryIo(files);
+    expect(await runCli(["network", "show", "n.yaml"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain(`Heat into "${node}", rise at "${node}"`);
+    expect(text.replace(/\s+/g, " ")).toContain(GENERAL_CAUTION);
+    const json = memoryIo(files);
+    expect(await runCli(["network", "show", "n.yaml", "--json"], json)).toBe(0);
+    const parsed = JSON.parse(json.stdout.join("")) as { pairs: { source: string }[]; cautions: string[] };
+    expect(parsed.pairs[0]!.source).toBe(node);
+    expect(parsed.cautions).toEqual([GENERAL_CAUTION]);
+  });
+
+  test("a part key in a graph network is refused: a graph names its own nodes", async () => {
+    const io = memoryIo({ "g.yaml": "form: graph\npart: resistor\nnodes: [{ id: a, c: 1 J/K }]\nlinks: [{ from: a, to: ambient, r: 1 K/W }]\nsources: [a]\nobserved: [a]\n" });
+    expect(await runCli(["network", "show", "g.yaml"], io)).toBe(2);
+    expect(io.stderr.join("")).toBe('heatledger: g.yaml:2: part: expected no "part" in a graph network, found a value\n');
+  });
+
   test("network show on a bad file exits 2 with file, line, field, expected and found", async () => {
     const io = memoryIo({ "b.yaml": "form: foster\nstages:\n  - { r: 0.35 K/W, tau: 40 mV }\n" });
     expect(await runCli(["network", "show", "b.yaml"], io)).toBe(2);
@@ -35,6 +63,8 @@ describe("heatledger network show", () => {
     const ok = execFileSync(process.execPath, ["bin/heatledger.js", "network", "show", "profiles/networks/wirewound-resistor-foster.yaml"], { cwd: root, encoding: "utf8" });
     // the sum of the file's four stage resistances, 0.35 + 0.90 + 1.60 + 2.20 K/W (Foster stages in series, common practice)
     expect(ok).toContain("total Rth = 5.050 K/W");
+    // the bundled wirewound resistor says `part: resistor`: its node is its element
+    expect(ok).toContain('Heat into "element", rise at "element"');
     const bad = spawnSync(process.execPath, ["bin/heatledger.js", "network", "show", "missing.yaml"], { cwd: root, encoding: "utf8" });
     expect(bad.status).toBe(2);
     expect(bad.stderr).toBe("heatledger: missing.yaml: expected a readable network file, found no such file\n");

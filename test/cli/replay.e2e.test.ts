@@ -28,7 +28,7 @@ describe("heatledger replay, the built bin, on the bundled log", () => {
     expect(lines[4]).toBe("precharge-resistor: first above its limit (180.0 °C) during line 80 (overload)");
     expect(lines[5]).toMatch(/^ {2}at 432246\.\d{3} s from the first line \(5\.00 d\), 2026-06-06T06:04:06\.\d{3}Z$/);
     expect(lines[6]).toMatch(/^ {2}damage to date \d\.\d\de-4 \(Miner's rule; 1 = end of cycling life\)$/);
-    expect(run.stdout).toContain("Verdict: FAIL");
+    expect(run.stdout).toContain("Verdict: fail (a part passes its temperature limit");
     expect(run.stdout).toContain("cycles (open history, ASTM E1049 §5.4.4");
     expect(run.stdout).toMatch(/damage \(Coffin-Manson, Miner's rule\): [\d.e-]+ to date \(the whole log\)/);
     expect(run.stdout.trimEnd()).toMatch(/ignite nearby material\.$/);

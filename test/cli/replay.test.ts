@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { GENERAL_CAUTION } from "../../src/report/cautions.js";
+import { GENERAL_CAUTION } from "../../src/text/cautions.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger replay` through the CLI factory, on an invented profile and log.
@@ -42,7 +42,7 @@ describe("heatledger replay (in process)", () => {
     expect(lines[4]).toBe("R1: never above its limit (90.00 °C)");
     expect(lines[5]).toBe("  damage to date not assessed (no lifetime model)");
     expect(text).toContain("line 2: power-up (morning)");
-    expect(text).toContain("Verdict: PASS");
+    expect(text).toContain("Verdict: pass (every part stays at or below its limit less its design margin).");
     expect(text).not.toContain("Temperature of R1");
     expect(text.trimEnd().endsWith(GENERAL_CAUTION.slice(-30))).toBe(true);
     expect(text).not.toMatch(/NaN/);

@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
-import { EventDigest, PeakEnvelope, type TimelineEvent } from "../../src/index.js";
+import { EventDigest, PeakEnvelope, type TimelineEvent } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // The report pieces behind `simulate`: the CSV holds every local peak, the chart envelope never
@@ -71,6 +71,7 @@ describe("EventDigest", () => {
     startS: index,
     durationS: 1,
     outcome: "completed",
+    busStalled: false,
     reason: "",
     startVoltageV: 0,
     endVoltageV: 48,

@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, describe, expect, test } from "vitest";
-import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
+import { CYCLES_CSV_COLUMNS } from "../../src/internal.js";
 
 // End to end: spawn the built bin (dist/ is built by vitest's global setup) on the bundled
 // profiles that carry stress keys; check the JSON's stress additions (damage, cycles, rating

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import { stringify } from "yaml";
 import { runCli } from "../../src/cli/main.js";
-import { CYCLES_CSV_COLUMNS } from "../../src/index.js";
+import { CYCLES_CSV_COLUMNS } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
@@ -176,12 +176,16 @@ describe("simulate with the stress layer (in process)", () => {
     expectClose(checks[1]!.pulseEnergy.utilisation, 60 / (66.7 * k), { rel: 1e-8 });
   });
 
-  test("a pulse shorter than the table is outside it: a warning, exit 0", async () => {
+  test("a pulse shorter than the table is outside it, not checked: verdict warn, exit 0 (1 with --strict)", async () => {
     const keys = `    ratings: { pulseEnergy: [{ duration: 2 s, energy: 100 J }, { duration: 10 s, energy: 400 J }] }`;
     const { status, json } = await runJson({ powerW: 60, pulses: 2, stressKeys: keys });
     expect(status).toBe(0);
     expect(json.ratingStatus).toBe("outside-table");
-    expect(json.verdict).toBe("pass");
+    expect(json.temperatureVerdict).toBe("pass");
+    expect(json.verdict).toBe("warn");
+    const io = memoryIo(files({ powerW: 60, pulses: 2, stressKeys: keys }));
+    expect(await runCli(["simulate", "dir/p.yaml", "--strict"], io)).toBe(1);
+    expect(io.stdout.join("")).toContain("Verdict: warn (an event falls outside a rating table, so it was not checked).");
   });
 
   test("a part with no lifetime model: damage null in JSON, the text says damage was not assessed", async () => {
@@ -223,7 +227,8 @@ describe("simulate with the stress layer (in process)", () => {
     await runCli(["simulate", "--help"], io);
     const help = io.stdout.join("");
     expect(help).toContain("--cycles <file>");
-    expect(help).toContain("or an event fails a part's rating table");
+    expect(help).toContain("an event that exceeds a\npart's rating table (pulse energy or SOA");
+    expect(help).toContain("fail   a peak above its limit: exit status 1");
   });
 });
 

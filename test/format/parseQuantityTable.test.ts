@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, type QuantityColumn, parseQuantityTable } from "../../src/index.js";
+import { InputError, type QuantityColumn, parseQuantityTable } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 const COLUMNS: readonly QuantityColumn[] = [

@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
-import { LINEAR_MOSFET_CAUTION, ProfileStress, chargeLinearMosfet, defaultCircuitModels, loadProfile, mosfetOperatingPoints, simulateProfile } from "../../src/index.js";
-import type { OperatingPoint } from "../../src/index.js";
+import { LINEAR_MOSFET_CAUTION, ProfileStress, chargeLinearMosfet, defaultCircuitModels, loadProfile, mosfetOperatingPoints, simulateProfile } from "../../src/internal.js";
+import type { OperatingPoint } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // The stress glue fed by a real simulation of an invented linear-MOSFET pre-charge: 400 V bus,

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { type CircuitModels, constantPowerSegment, loadProfile, networkToModal, parseNetwork, runThermalHistory, simulateProfile, traceSteps } from "../../src/index.js";
+import { type CircuitModels, constantPowerSegment, loadProfile, networkToModal, parseNetwork, runThermalHistory, simulateProfile, traceSteps } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 

@@ -11,7 +11,7 @@ import {
   runBurst,
   supervisePrecharge,
   uniformBurst,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { tripDriveProfileText } from "./tripDriveProfile.js";
 
 // Retry intervals a relay can do. An invented 420 V drive trips 20 ms after each completed
@@ -120,10 +120,11 @@ describe("retry timing: relay switching times and the firmware timer", () => {
     }
   });
 
-  test("a profile's lockout shorter than the relay allows cannot be the policy: unsafe, with the reason", () => {
+  test("a profile's lockout shorter than the relay allows cannot be the policy: it fails, with the reason", () => {
     const profile = loadProfile(profileText("", "").replace("lockout: 2 min", "lockout: 10 ms"), "drive.yaml");
     const plan = planRetries(profile, models);
-    expect(plan.policy.verdict).toBe("unsafe");
+    expect(plan.policy.verdict).toBe("fail");
+    expect(plan.policy.cyclesVerdict).toBe("fail");
     expect(plan.policy.reasons).toContain('corner "nominal": a 0.01 s lockout is shorter than the relay\'s release and operate times (0.03 s): the next burst cannot start that soon');
   });
 

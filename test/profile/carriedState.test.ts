@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type TimelineEvent, defaultCircuitModels, expandTimeline, loadProfile } from "../../src/index.js";
+import { type TimelineEvent, defaultCircuitModels, expandTimeline, loadProfile } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // A quick retry starts from a partly charged capacitor. Charging C from V0 to V1 from a source Vs

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type TimelineEvent, expandTimeline, loadProfile } from "../../src/index.js";
+import { type TimelineEvent, expandTimeline, loadProfile } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { FAKE_COMPLETE_S, fakeModels } from "./fakeCircuit.js";
 

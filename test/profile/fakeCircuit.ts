@@ -2,7 +2,7 @@
 // anything else completes) so the expansion logic can be checked against hand-counted schedules.
 // Powers are constant (an invented 100 W for the attempt) — the physics lives in src/circuits and
 // is checked there; here only counts, times and carried voltages matter.
-import type { CircuitModels } from "../../src/index.js";
+import type { CircuitModels } from "../../src/internal.js";
 
 export const FAKE_COMPLETE_S = 0.2;
 export const FAKE_POWER_W = 100;
@@ -16,6 +16,7 @@ export function fakeModels(log: { initialV: number[] } = { initialV: [] }): Circ
       const role = circuit.topology === "series-resistor" ? "resistor" : circuit.topology === "converter" ? "switch" : "mosfet";
       return {
         outcome: fails ? "timed-out" : "completed",
+        busStalled: fails,
         reason: fails ? "timeout" : "charged",
         durationS,
         endVoltageV: fails ? 0 : conditions.sourceVoltageV,

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type CircuitModels, ThermalRun, fosterToModal, loadProfile, simulateProfile } from "../../src/index.js";
+import { type CircuitModels, ThermalRun, fosterToModal, loadProfile, simulateProfile } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // The first time a part goes above its limit is found exactly inside the step where it happens

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import { stringify } from "yaml";
-import { InputError, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/index.js";
+import { InputError, defaultCircuitModels, loadProfile, simulateProfile } from "../../src/internal.js";
 
 // Fuzzing: thousands of random and garbled profiles, made by mutating valid ones (wrong
 // types, huge and tiny numbers, missing keys, unknown keys, deep repeats with big counts, text

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, loadProfile } from "../../src/index.js";
+import { InputError, loadProfile } from "../../src/internal.js";
 
 // Bad input: every broken profile gets one exact message per problem, naming file:line, the field
 // path, what was expected and what was found (the bad-input rule of README and DEVELOPERS.md).
@@ -156,17 +156,16 @@ describe("loadProfile: bad input, exact messages", () => {
 });
 
 describe("loadProfile: the documented example", () => {
-  test("the complete example in DEVELOPERS.md loads and simulates", async () => {
+  test("the complete example in docs/profile-format.md loads and simulates", async () => {
     const { readFileSync } = await import("node:fs");
-    const { defaultCircuitModels, simulateProfile } = await import("../../src/index.js");
-    const doc = readFileSync(new URL("../../DEVELOPERS.md", import.meta.url), "utf8");
-    const section = doc.slice(doc.indexOf("## Profile format"));
-    const yaml = section.slice(section.indexOf("```yaml\n") + 8, section.indexOf("```\n", section.indexOf("```yaml\n") + 8));
+    const { defaultCircuitModels, simulateProfile } = await import("../../src/internal.js");
+    const doc = readFileSync(new URL("../../docs/profile-format.md", import.meta.url), "utf8");
+    const yaml = doc.slice(doc.indexOf("```yaml\n") + 8, doc.indexOf("```\n", doc.indexOf("```yaml\n") + 8));
     const named: Record<string, string> = {
       "networks/shunt.yaml": "form: foster\nstages:\n  - { r: 5 K/W, tau: 2 s }\n",
       "traces/inrush.csv": "time_s,power_W\n0,0\n0.01,30\n0.5,0\n",
     };
-    const profile = loadProfile(yaml, "DEVELOPERS.md", (p) => named[p] ?? files(p));
+    const profile = loadProfile(yaml, "docs/profile-format.md", (p) => named[p] ?? files(p));
     const result = simulateProfile(profile, { models: defaultCircuitModels });
     expect(result.parts.map((p) => p.id)).toEqual(["precharge-resistor", "logger-shunt"]);
     expect(result.eventCount).toBeGreaterThan(1000);

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type ChargeConditions, type ProfileCircuit, memoizeCircuitModels } from "../../src/index.js";
+import { type ChargeConditions, type ProfileCircuit, memoizeCircuitModels } from "../../src/internal.js";
 import { fakeModels } from "./fakeCircuit.js";
 
 // The memo must be exact: a repeat with the very same inputs reuses the first result; any input

@@ -8,7 +8,7 @@ import {
   simulateProfile,
   sizeHeatCapacity,
   supervisePrecharge,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { tripDriveProfileText } from "./tripDriveProfile.js";
 

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type CircuitModels, PROGRESS_EVENTS, loadProfile, simulateProfile } from "../../src/index.js";
+import { type CircuitModels, PROGRESS_EVENTS, loadProfile, simulateProfile } from "../../src/internal.js";
 import { PROGRESS_DEFAULTS, ProgressLine } from "../../src/report/ProgressLine.js";
 
 

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { formatDuration, formatNumber, formatTable, lineChart } from "../../src/index.js";
+import { formatDuration, formatNumber, formatTable, lineChart } from "../../src/internal.js";
 
 describe("report primitives", () => {
   test("lineChart keeps a one-sample peak when resampling 10,000 points to 80 columns", () => {

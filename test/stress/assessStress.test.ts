@@ -14,7 +14,7 @@ import {
   runThermalHistory,
   stressReportJson,
   traceSteps,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Invented scenario: a resistor on one RC stage (R = 0.5 K/W, tau = 0.5 s) at 40 °C ambient takes

@@ -14,7 +14,7 @@ import {
   norrisLandzbergAccelerationFactor,
   norrisLandzbergCycles,
   norrisLandzbergModel,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 const load = (rangeK: number, minC: number, heatingTimeS = 1, durationS = 2) => ({

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, MinerAccumulator, coffinMansonModel, rainflow } from "../../src/index.js";
+import { InputError, MinerAccumulator, coffinMansonModel, rainflow } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Coffin-Manson with round parameters so damages are easy to write out: N_f = 1e4·(100/ΔT)^2.

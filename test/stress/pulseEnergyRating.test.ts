@@ -7,7 +7,7 @@ import {
   interpolatePulseEnergy,
   pulseEnergyDeratingFactor,
   validatePulseEnergyTable,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented rating table (demo data, not any maker's part). What the checks rest on:

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { constantPowerSegment, powerAt, pulseFromTrace } from "../../src/index.js";
+import { constantPowerSegment, powerAt, pulseFromTrace } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("pulseFromTrace", () => {

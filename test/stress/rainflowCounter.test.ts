@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type RainflowCycle, RainflowCounter, TurningPointFilter, rainflow } from "../../src/index.js";
+import { type RainflowCycle, RainflowCounter, TurningPointFilter, rainflow } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 /** Counts per range, summed: { range: count }. */

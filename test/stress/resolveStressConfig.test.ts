@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, test } from "vitest";
 import { parse } from "yaml";
-import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/index.js";
+import { DEFAULT_CYCLE_HYSTERESIS_K, InputError, resolveStressConfig } from "../../src/internal.js";
 
 function message(raw: unknown, options: Parameters<typeof resolveStressConfig>[1] = { field: "parts[0]" }): string {
   try {
@@ -151,9 +151,9 @@ describe("resolveStressConfig", () => {
   });
 });
 
-describe("the stress keys example in DEVELOPERS.md", () => {
+describe("the stress keys example in docs/stress.md", () => {
   test("resolves without error, so the guide cannot rot", () => {
-    const guide = readFileSync(new URL("../../DEVELOPERS.md", import.meta.url), "utf8");
+    const guide = readFileSync(new URL("../../docs/stress.md", import.meta.url), "utf8");
     const block = /```yaml\n(parts:[\s\S]*?)```/.exec(guide);
     expect(block).not.toBeNull();
     const doc = parse(block![1]!) as { parts: { id: string }[] };

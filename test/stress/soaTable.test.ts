@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, allowedDrainCurrentA, checkSoa, soaDeratingFactor, validateSoaTable } from "../../src/index.js";
+import { InputError, allowedDrainCurrentA, checkSoa, soaDeratingFactor, validateSoaTable } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented SOA table (demo data): a current limit, then power-limited lines on log-log axes.

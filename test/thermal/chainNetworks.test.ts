@@ -9,11 +9,11 @@ import {
   graphToModal,
   steadyStateResistance,
   zth,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
-// Invented demo networks.
-const device: FosterNetwork = { kind: "foster", stages: [{ rKPerW: 0.1, tauS: 1e-3 }, { rKPerW: 0.4, tauS: 0.03 }, { rKPerW: 0.3, tauS: 0.5 }] };
+// Invented demo networks; the device is a semiconductor (its heated node is its junction).
+const device: FosterNetwork = { kind: "foster", part: "semiconductor", stages: [{ rKPerW: 0.1, tauS: 1e-3 }, { rKPerW: 0.4, tauS: 0.03 }, { rKPerW: 0.3, tauS: 0.5 }] };
 const sink: CauerLadder = { kind: "cauer", stages: [{ rKPerW: 0.3, cJPerK: 20 }, { rKPerW: 0.9, cJPerK: 300 }] };
 
 describe("chainNetworks: one device on a heatsink", () => {
@@ -34,12 +34,12 @@ describe("chainNetworks: one device on a heatsink", () => {
 
   test("the graph has the device's Cauer nodes, the case merged into one link, and the heatsink's nodes", () => {
     const ladder = fosterToCauer(device);
-    expect(graph.nodes.map((n) => n.id)).toEqual(["q1.junction", "q1.node2", "q1.node3", "heatsink.junction", "heatsink.node2"]);
+    expect(graph.nodes.map((n) => n.id)).toEqual(["q1.junction", "q1.node2", "q1.node3", "heatsink.mount", "heatsink.node2"]);
     const toSink = graph.links.find((l) => l.from === "q1.node3")!;
-    expect(toSink.to).toBe("heatsink.junction");
+    expect(toSink.to).toBe("heatsink.mount");
     expectClose(toSink.rKPerW, ladder.stages[2]!.rKPerW + 0.25, { rel: 1e-15 });
     expect(graph.sources).toEqual(["q1.junction"]);
-    expect(graph.observed).toEqual(["q1.junction", "heatsink.junction"]);
+    expect(graph.observed).toEqual(["q1.junction", "heatsink.mount"]);
   });
 
   test("a Foster device and its Cauer ladder chain to the same network", () => {
@@ -63,7 +63,7 @@ describe("chainNetworks: parts sharing a heatsink", () => {
   const graph = chainNetworks({
     parts: [
       { id: "q1", device, interfaceRKPerW: 0.25 },
-      { id: "r1", device: { kind: "cauer", stages: [{ rKPerW: 0.5, cJPerK: 0.2 }] }, interfaceRKPerW: 0.1 },
+      { id: "r1", device: { kind: "cauer", part: "resistor", stages: [{ rKPerW: 0.5, cJPerK: 0.2 }] }, interfaceRKPerW: 0.1 },
     ],
     heatsink: sink,
   });
@@ -73,7 +73,8 @@ describe("chainNetworks: parts sharing a heatsink", () => {
     // Steady state, source r1 observed at q1: the heat of r1 raises the heatsink mount node by
     // R_heatsink per watt and no current flows through q1's own path (series/parallel rules,
     // Incropera §3.1.2), so the mutual resistance is the heatsink's 1.2 K/W.
-    expect(model.sources).toEqual(["q1.junction", "r1.junction"]);
+    // nodes are named by part role: a resistor's heated node is its element, not a junction
+    expect(model.sources).toEqual(["q1.junction", "r1.element"]);
     expectClose(steadyStateResistance(model, 0, 1), 1.2, { rel: 1e-12 });
     expectClose(steadyStateResistance(model, 1, 0), 1.2, { rel: 1e-12 });
     expectClose(steadyStateResistance(model, 1, 1), 0.5 + 0.1 + 1.2, { rel: 1e-12 });

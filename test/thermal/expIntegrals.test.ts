@@ -1,6 +1,6 @@
 import { create, all } from "mathjs";
 import { describe, test } from "vitest";
-import { expIntegral0, expIntegral1 } from "../../src/index.js";
+import { expIntegral0, expIntegral1 } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Outside reference: mathjs (registry library) BigNumber arithmetic at 80 significant digits,

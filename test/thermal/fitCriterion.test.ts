@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { fitCriterion } from "../../src/index.js";
+import { fitCriterion } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("fitCriterion", () => {

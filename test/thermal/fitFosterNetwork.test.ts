@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { type FosterNetwork, InputError, type ZthPoint, FIT_DEFAULTS, fitFosterNetwork, fosterToModal, logSpacedTimes, zth } from "../../src/index.js";
+import { type FosterNetwork, InputError, type ZthPoint, FIT_DEFAULTS, fitFosterNetwork, fosterToModal, logSpacedTimes, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { seededNormal } from "../helpers/seededNoise.js";
 

@@ -9,7 +9,7 @@ import {
   logSpacedTimes,
   modalToFoster,
   zth,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Continued-fraction synthesis of an RC one-port: Foster, "A reactance theorem", Bell System

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, adiabaticMass, cauerToModal, constantPowerSegment, lumpedNetwork, materialPreset, runThermalHistory, traceSteps, zth } from "../../src/index.js";
+import { InputError, adiabaticMass, cauerToGraph, cauerToModal, constantPowerSegment, lumpedNetwork, materialPreset, runThermalHistory, traceSteps, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("lumpedNetwork", () => {
@@ -8,7 +8,7 @@ describe("lumpedNetwork", () => {
     // through 40 K/W: C = 0.003·420 = 1.26 J/K, tau = 50.4 s.
     // Source: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1, eq. 5.6-5.7.
     const ladder = lumpedNetwork({ element: { massKg: 0.003, specificHeatJPerKgK: materialPreset("nichrome").specificHeatJPerKgK }, rToAmbientKPerW: 40 });
-    expect(ladder).toEqual({ kind: "cauer", stages: [{ cJPerK: 0.003 * 420, rKPerW: 40 }] });
+    expect(ladder).toEqual({ kind: "cauer", part: "resistor", stages: [{ cJPerK: 0.003 * 420, rKPerW: 40 }] });
     const model = cauerToModal(ladder);
     // eigen-decomposition of a 1×1 system: rounding only, 1e-13
     expectClose(model.tauS[0]!, 50.4, { rel: 1e-13 });
@@ -26,6 +26,8 @@ describe("lumpedNetwork", () => {
     });
     const model = cauerToModal(ladder);
     expect(model.tauS.length).toBe(2);
+    // the lumps are the ladder's nodes, named as the lumps are (a resistor's element and body)
+    expect(cauerToGraph(ladder).nodes.map((n) => n.id)).toEqual(["element", "body"]);
     // Σ gains: eigen-decomposition rounding, 1e-12
     expectClose(model.gainKPerW[0]![0]!.reduce((a, b) => a + b, 0), 27, { rel: 1e-12 });
     // t = 1e-6 s against the fastest tau ≈ 0.41 s: the first-order gap is t/(2·tau) ≈ 1.2e-6, so 1e-5

@@ -1,6 +1,6 @@
 import { create, all } from "mathjs";
 import { describe, expect, test } from "vitest";
-import { type PowerTerm, advanceModalState, createModalStepper, fosterToModal, runThermalHistory, traceSteps } from "../../src/index.js";
+import { type PowerTerm, advanceModalState, createModalStepper, fosterToModal, runThermalHistory, traceSteps } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Edge cases of the exact one-mode update dy/ds = (P(s) − y)/tau from y(0) = 0, against the closed

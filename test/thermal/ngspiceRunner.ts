@@ -6,7 +6,7 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type { FosterNetwork, ThermalGraph } from "../../src/index.js";
+import type { FosterNetwork, ThermalGraph } from "../../src/internal.js";
 import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 
 /** Plain exponent notation: SPICE reads "1M" as milli and "2F" as femto, so never emit suffixes. */

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, formatNetworkFile, networkToModal, parseNetwork, parseStructuredText, zth, logSpacedTimes } from "../../src/index.js";
+import { InputError, formatNetworkFile, networkToModal, parseNetwork, parseStructuredText, zth, logSpacedTimes } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 describe("parseNetwork", () => {
@@ -41,7 +41,7 @@ describe("parseNetwork", () => {
     [{ stages: [] }, "network.form: expected this key (required), found nothing"],
     [{ form: "cauer", stages: [] }, "network.stages: expected at least 1 cauer stages, found 0"],
     [{ form: "cauer", stages: [{ r: 1, c: 1 }], nodes: [] }, 'network.nodes: expected no "nodes" in a cauer network, found a value'],
-    [[1, 2], "network: expected a mapping with keys form, name, description, stages, nodes, links, sources, observed, found [1,2]"],
+    [[1, 2], "network: expected a mapping with keys form, name, description, part, stages, nodes, links, sources, observed, found [1,2]"],
   ])("parseNetwork rejects %j", (raw, message) => {
     expect(() => parseNetwork(raw, "network")).toThrow(message);
   });

@@ -11,7 +11,7 @@ import {
   runThermalHistory,
   traceSteps,
   zth,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // Periodic rectangular pulse train on a Foster network: power P for tp, then 0, period T.

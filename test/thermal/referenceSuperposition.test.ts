@@ -12,7 +12,7 @@ import {
   referenceSuperposition,
   sampleThermalHistory,
   traceSteps,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // The fast path (closed-form modal stepping, sampleThermalHistory) against the reference path

@@ -10,7 +10,7 @@ import {
   fosterToModal,
   interiorPeaks,
   modalRise,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // interiorPeaks against dense brute-force sampling: the rise is evaluated exactly (closed form)

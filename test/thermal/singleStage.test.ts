@@ -1,5 +1,5 @@
 import { describe, test } from "vitest";
-import { constantPowerSegment, fosterToModal, runThermalHistory, traceSteps, zth } from "../../src/index.js";
+import { constantPowerSegment, fosterToModal, runThermalHistory, traceSteps, zth } from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // One RC stage driven by a power step: rise(t) = P·R·(1 − e^(−t/τ)); cooling from θ0:

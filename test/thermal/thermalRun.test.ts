@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { type HistoryPoint, type PowerSegment, ThermalRun, fosterToModal, runThermalHistory, traceSteps } from "../../src/index.js";
+import { type HistoryPoint, type PowerSegment, ThermalRun, fosterToModal, runThermalHistory, traceSteps } from "../../src/internal.js";
 
 // ThermalRun is the push form of runThermalHistory: same steps in, same peaks, points and end
 // state out (the pull form is a loop over push, so this pins that the two stay one computation),

@@ -11,7 +11,7 @@ import {
   traceSteps,
   zth,
   zthFromPulseRating,
-} from "../../src/index.js";
+} from "../../src/internal.js";
 import { expectClose } from "../helpers/expectClose.js";
 
 // An invented wirewound-resistor-like Foster network (wire, core, housing, plate).

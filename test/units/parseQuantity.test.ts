@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { InputError, parseQuantity } from "../../src/index.js";
+import { InputError, parseQuantity } from "../../src/internal.js";
 
 describe("parseQuantity", () => {
   // SI prefixes and coherent units: SI brochure, 9th ed. (BIPM 2019), §3, Table 7 and §2.3 (section

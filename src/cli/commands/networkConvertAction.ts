@@ -1,4 +1,5 @@
 import { InputError, inputError } from "../../errors/InputError.js";
+import { formatCautions, reportCautions } from "../../text/cautions.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
 import { fosterToCauer } from "../../thermal/fosterToCauer.js";
 import { modalToFoster } from "../../thermal/modalToFoster.js";
@@ -16,14 +17,16 @@ import { CONVERT_TARGETS, type ConvertFlags } from "./networkConvert.js";
  */
 function convert(network: ThermalNetwork, to: (typeof CONVERT_TARGETS)[number], observe?: string, source?: string): ThermalNetwork {
   if (network.kind === to) return network;
-  const foster = network.kind === "foster" ? network : modalToFoster(networkToModal(network), observe, source, "network");
+  // a ladder keeps the part it describes (its node names); a graph's part is not known
+  const part = network.kind === "graph" || network.part === undefined ? {} : { part: network.part };
+  const foster = network.kind === "foster" ? network : { ...modalToFoster(networkToModal(network), observe, source, "network"), ...part };
   return to === "foster" ? foster : fosterToCauer(foster);
 }
 
 /**
  * The run of `heatledger network convert FILE --to cauer|foster` (flags and help are in
  * networkConvert.ts, which loads this module only when the command runs): read the network,
- * convert it and print or write the result.
+ * convert it and print or write the result, with the cautions (`cautions` in the JSON).
  * @throws InputError for a bad --to / --observe, an invalid network file, or an --out file that exists without --force
  */
 export function networkConvertAction(run: CliRun, file: string, flags: ConvertFlags): void {
@@ -41,8 +44,8 @@ export function networkConvertAction(run: CliRun, file: string, flags: ConvertFl
   const converted = convert(parsed, to as (typeof CONVERT_TARGETS)[number], observe, source);
   const { written, text } = emitNetwork(run, converted, flags);
   if (flags.json === true) {
-    run.io.out(`${JSON.stringify({ from: parsed.kind, to, written, network: networkToDocument(converted, flags.name) }, null, 2)}\n`);
+    run.io.out(`${JSON.stringify({ from: parsed.kind, to, written, network: networkToDocument(converted, flags.name), cautions: reportCautions(false) }, null, 2)}\n`);
     return;
   }
-  run.io.out(`Converted ${file} from ${parsed.kind} to ${to} form (${"stages" in converted ? converted.stages.length : 0} stages).\n${text}`);
+  run.io.out(`Converted ${file} from ${parsed.kind} to ${to} form (${"stages" in converted ? converted.stages.length : 0} stages).\n${text}\n${formatCautions(false, Math.min(run.io.columns, 100))}`);
 }

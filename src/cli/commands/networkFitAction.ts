@@ -1,6 +1,6 @@
 import { InputError, withLocation } from "../../errors/InputError.js";
 import { type QuantityTable, parseQuantityTable } from "../../format/parseQuantityTable.js";
-import { formatCautions, GENERAL_CAUTION } from "../../report/cautions.js";
+import { formatCautions, reportCautions } from "../../text/cautions.js";
 import { formatFosterFit } from "../../report/formatFosterFit.js";
 import { type FosterFit, fitFosterNetwork } from "../../thermal/fitFosterNetwork.js";
 import type { ZthPoint } from "../../thermal/fitZthPoints.js";
@@ -52,7 +52,7 @@ export function fitJson(fit: FosterFit, source: string, written: string | null, 
     candidates: fit.candidates,
     warnings: fit.warnings,
     written,
-    caution: GENERAL_CAUTION,
+    cautions: reportCautions(false),
   };
 }
 

@@ -1,8 +1,8 @@
 import { InputError, inputError, withLocation } from "../../errors/InputError.js";
 import { parseQuantityTable } from "../../format/parseQuantityTable.js";
-import { formatCautions, wrapText } from "../../report/cautions.js";
+import { formatCautions, wrapText } from "../../text/cautions.js";
 import { formatFosterFit } from "../../report/formatFosterFit.js";
-import { formatNumber } from "../../report/formatTable.js";
+import { formatNumber } from "../../text/formatTable.js";
 import { PULSE_RATING_ASSUMPTIONS, zthFromPulseRating } from "../../thermal/zthFromPulseRating.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
 import type { CliRun } from "../main.js";
@@ -48,7 +48,9 @@ export function networkFromRatingAction(run: CliRun, file: string, options: Netw
       return m === null ? 0 : (table.rows[Number(m[1])]?.line ?? 0);
     });
   }
-  const fit = fitTablePoints(run.io, "network from-rating", points, table, file, options);
+  // a single-pulse energy rating is a resistor's: the network's node is its element
+  const fitted = fitTablePoints(run.io, "network from-rating", points, table, file, options);
+  const fit = { ...fitted, network: { ...fitted.network, part: "resistor" as const } };
   const emitted = emitNetwork(run, fit.network, options);
   const riseK = maxC - startC;
   if (options.json) {

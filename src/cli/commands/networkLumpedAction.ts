@@ -1,7 +1,7 @@
 import { inputError } from "../../errors/InputError.js";
-import { formatCautions, GENERAL_CAUTION, wrapText } from "../../report/cautions.js";
+import { formatCautions, reportCautions, wrapText } from "../../text/cautions.js";
 import { describeNetwork } from "../../report/describeNetwork.js";
-import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../../text/formatTable.js";
 import { lineChart } from "../../report/lineChart.js";
 import { cauerToModal } from "../../thermal/cauerLadder.js";
 import { networkToDocument } from "../../thermal/formatNetworkFile.js";
@@ -34,7 +34,7 @@ export function networkLumpedAction(run: CliRun, options: LumpedFlags): void {
   );
   const model = cauerToModal(ladder);
   const described = describeNetwork(ladder, model, 13).pairs[0]!;
-  const written: ThermalNetwork = form === "foster" ? { kind: "foster", stages: described.foster } : ladder;
+  const written: ThermalNetwork = form === "foster" ? { kind: "foster", part: "resistor", stages: described.foster } : ladder;
   const emitted = emitNetwork(run, written, options);
   const presets = [element.preset, body?.preset].filter((p): p is MaterialPreset => p !== undefined);
   if (options.json) {
@@ -46,7 +46,7 @@ export function networkLumpedAction(run: CliRun, options: LumpedFlags): void {
       totalRthKPerW: described.totalRthKPerW,
       materials: presets,
       written: emitted.written,
-      caution: GENERAL_CAUTION,
+      cautions: reportCautions(false),
     };
     run.io.out(`${JSON.stringify(json, null, 2)}\n`);
     return;

@@ -1,5 +1,6 @@
+import { formatCautions, reportCautions } from "../../text/cautions.js";
 import { describeNetwork } from "../../report/describeNetwork.js";
-import { formatDuration, formatNumber, formatTable } from "../../report/formatTable.js";
+import { formatDuration, formatNumber, formatTable } from "../../text/formatTable.js";
 import { lineChart } from "../../report/lineChart.js";
 import { parseNetwork } from "../../thermal/parseNetwork.js";
 import { networkToModal } from "../../thermal/ThermalNetwork.js";
@@ -11,7 +12,8 @@ import { type NetworkShowFlags, ZTH_TABLE_ROWS } from "./networkShow.js";
 /**
  * The run of `heatledger network show FILE` (flags and help are in networkShow.ts, which loads
  * this module only when the command runs): print the network's Foster (modal) form, total Rth
- * and Zth(t) as a table and a chart for every source/observed pair, or one JSON object.
+ * and Zth(t) as a table and a chart for every source/observed pair, then the cautions; or one
+ * JSON object with the same and `cautions`.
  * @throws InputError for an unreadable or invalid network file
  */
 export function networkShowAction(run: CliRun, file: string, options: NetworkShowFlags): void {
@@ -20,7 +22,7 @@ export function networkShowAction(run: CliRun, file: string, options: NetworkSho
   const rows = Math.max(2, Math.min(200, Number.parseInt(options.rows, 10) || ZTH_TABLE_ROWS));
   const description = describeNetwork(parsed, model, rows);
   if (options.json) {
-    run.io.out(`${JSON.stringify(description, null, 2)}\n`);
+    run.io.out(`${JSON.stringify({ ...description, cautions: reportCautions(false) }, null, 2)}\n`);
     return;
   }
   const out: string[] = [`Network ${file}: ${parsed.kind} form, ${model.tauS.length} modes`];
@@ -44,5 +46,6 @@ export function networkShowAction(run: CliRun, file: string, options: NetworkSho
     }));
     out.push(lineChart([{ label: `Zth ${pair.source} -> ${pair.observed}`, points }], { logX: true, yUnit: "K/W", width: Math.min(run.io.columns, 100) }));
   }
-  run.io.out(`${out.join("\n")}\n`);
+  out.push("", formatCautions(false, Math.min(run.io.columns, 100)));
+  run.io.out(out.join("\n"));
 }

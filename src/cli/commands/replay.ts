@@ -1,7 +1,8 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 import { LOG_COLUMNS, LOG_WORDS } from "../../replay/logWords.js";
-import { CSV_OPTION, NO_CHART_OPTION } from "./simulate.js";
+import { CSV_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger replay`: one table drives the flags and their help. */
 export const REPLAY_OPTIONS = [
@@ -10,6 +11,7 @@ export const REPLAY_OPTIONS = [
   CSV_OPTION,
   { flags: "--force", help: "overwrite the --csv file if it exists" },
   NO_CHART_OPTION,
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger replay` parse to. */
@@ -19,6 +21,7 @@ export interface ReplayFlags {
   readonly csv?: string;
   readonly force?: boolean;
   readonly chart: boolean;
+  readonly strict?: boolean;
 }
 
 /** `heatledger replay LOG --profile FILE`: flags and help here; the run is loaded from replayAction.ts when it starts. */
@@ -49,9 +52,9 @@ Example:
   heatledger replay profiles/logs/irrigation-pump-returned-unit.csv \\
     --profile profiles/irrigation-pump-decade.yaml
 
-Exit status: 0 every limit met, 1 a part passes its maximum temperature or an event fails a
-part's rating table, 2 bad input. Damage to date counts the log as a one-off history (ASTM E1049
-§5.4.4). See DEVELOPERS.md, "Field event logs".`,
+${verdictHelp(`${SIMULATION_VERDICT_COVERS} The history is the log's.`)}
+Damage to date counts the log as a one-off history (ASTM E1049 §5.4.4). See
+docs/field-logs.md (shipped in the package).`,
     );
   for (const option of REPLAY_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: ReplayFlags) => {

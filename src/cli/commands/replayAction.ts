@@ -7,7 +7,8 @@ import { formatSimulationText } from "../../report/formatSimulationText.js";
 import { formatReplayHeader, replaySummary } from "../../report/replaySummary.js";
 import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { simulationVerdict } from "../../report/simulationVerdict.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { readTextFile, refuseExistingOutput } from "../readInputFile.js";
@@ -54,8 +55,8 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
     });
     const header = formatReplayHeader(summary, profile.parts.map((p) => p.limitC));
     run.io.out(
-      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header })}\n${csvNote}`,
+      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}`,
     );
   }
-  run.status = result.verdict === "fail" || stressResult.ratingStatus === "fail" ? EXIT_LIMIT : EXIT_OK;
+  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus).verdict, options.strict === true);
 }

@@ -1,13 +1,15 @@
 import type { Command } from "commander";
-import { PLAN_DEFAULTS } from "../../plan/planDefaults.js";
+import { PLAN_DEFAULTS } from "../../retry/planDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger retries`: one table drives the flags and their help. */
 export const RETRIES_OPTIONS = [
   { flags: "--json", help: "print every answer as one JSON object instead of the text report" },
   { flags: "--csv <file>", help: "write the lockout map (attempts x interval: worst peak, verdict, governing corner) to a CSV file" },
   { flags: "--force", help: "overwrite the --csv file if it exists" },
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger retries` parse to. */
@@ -15,6 +17,7 @@ export interface RetriesFlags {
   readonly json?: boolean;
   readonly csv?: string;
   readonly force?: boolean;
+  readonly strict?: boolean;
 }
 
 /** A duration in s written in ms for the help text. */
@@ -37,9 +40,8 @@ The relay that starts each attempt must open and close again between attempts (c
 operate, default ${ms(ATTEMPT_TIMING_DEFAULTS.operateS)}; release, default ${ms(ATTEMPT_TIMING_DEFAULTS.releaseS)}): no wait proposed is shorter than
 their sum, and every interval, wait and lockout is a whole number of the firmware's timer steps
 (firmware.timerResolution, default ${ms(ATTEMPT_TIMING_DEFAULTS.timerResolutionS)}), rounded up and checked again by simulation.
-Exit status: 0 the profile's own retry policy is safe, 1 it is not (in some corner, a burst or
-burst + lockout repeated while the fault persists passes limit - margin), 2 bad input.
-See README, "Reading the retry plan".`,
+${verdictHelp("Here the verdict is that of the profile's own retry policy: its burst from a cold part and burst + lockout repeated while the fault persists, in every corner (pass: safe; an attempt that would start before the previous one ends fails).")}
+See README, "Reading the retry plan" and "Verdicts and exit status".`,
     );
   for (const option of RETRIES_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: RetriesFlags) => {

@@ -1,9 +1,9 @@
-import { formatRetryPlanText } from "../../plan/formatRetryPlanText.js";
-import { lockoutMapCsv } from "../../plan/formatLockoutMap.js";
-import { planRetries } from "../../plan/planRetries.js";
-import { retryPlanJson } from "../../plan/retryPlanJson.js";
+import { formatRetryPlanText } from "../../report/formatRetryPlanText.js";
+import { lockoutMapCsv } from "../../report/formatLockoutMap.js";
+import { planRetries } from "../../retry/planRetries.js";
+import { retryPlanJson } from "../../report/retryPlanJson.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
 import { attemptsProgress } from "../attemptsProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
@@ -13,8 +13,8 @@ import type { RetriesFlags } from "./retries.js";
 /**
  * The run of `heatledger retries PROFILE` (flags and help are in retries.ts, which loads this
  * module only when the command runs): plan the retries of the profile's first retry block with a
- * fault, write the --csv lockout map and print the report; exit status 1 when the profile's own
- * policy is unsafe.
+ * fault, write the --csv lockout map and print the report; the exit status follows the verdict of
+ * the profile's own policy (verdictExitStatus).
  * @throws InputError for a bad profile, a file it names, or a --csv file that exists without --force
  */
 export function retriesAction(run: CliRun, file: string, options: RetriesFlags): void {
@@ -31,5 +31,5 @@ export function retriesAction(run: CliRun, file: string, options: RetriesFlags):
   if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
   if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);
   else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}`);
-  run.status = report.policy.verdict === "unsafe" ? EXIT_LIMIT : EXIT_OK;
+  run.status = verdictExitStatus(report.policy.verdict, options.strict === true);
 }

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** The time-series flag, shared by the commands that simulate a history (simulate, replay). */
 export const CSV_OPTION = { flags: "--csv <file>", help: "write the time series (every step end and local peak, °C per part) to a CSV file" } as const;
@@ -13,6 +14,7 @@ export const SIMULATE_OPTIONS = [
   { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" },
   { flags: "--force", help: "overwrite the --csv or --cycles file if it exists" },
   NO_CHART_OPTION,
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger simulate` parse to. */
@@ -22,22 +24,28 @@ export interface SimulateFlags {
   readonly cycles?: string;
   readonly force?: boolean;
   readonly chart: boolean;
+  readonly strict?: boolean;
 }
+
+/** What simulate's and replay's verdict judges, for their --help. */
+export const SIMULATION_VERDICT_COVERS =
+  "Here the verdict is the worst part's peak over the whole history, and an event that exceeds a " +
+  "part's rating table (pulse energy or SOA, secondary checks reported beside the temperature " +
+  "verdict) fails too; an event outside a rating table was not checked and warns.";
 
 /** `heatledger simulate PROFILE`: flags and help here; the run is loaded from simulateAction.ts when it starts. */
 export function registerSimulate(program: Command, run: CliRun): void {
   const command = program
     .command("simulate")
     .argument("<profile>", "duty profile (YAML or JSON)")
-    .description("run a duty profile: every part's temperature history, peaks, margins and a pass/fail verdict")
+    .description("run a duty profile: every part's temperature history, peaks, margins and a pass/warn/fail verdict")
     .addHelpText(
       "after",
       `
-Exit status: 0 every limit met (a part inside its margin still passes, with a warning),
-1 a part passes its maximum temperature, or an event fails a part's rating table (pulse energy
-or SOA: secondary checks reported beside the temperature verdict; an event outside a table is a
-warning only), 2 bad input. Network and CSV files named in the profile are read relative to the
-profile's folder. See DEVELOPERS.md, "Profile format" and "Stress: ratings, cycles and damage".`,
+${verdictHelp(SIMULATION_VERDICT_COVERS)}
+Network and CSV files named in the profile are read relative to the profile's folder. See
+docs/profile-format.md and docs/stress.md (shipped in the package); README, "Verdicts and
+exit status".`,
     );
   for (const option of SIMULATE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SimulateFlags) => {

@@ -4,8 +4,9 @@ import { formatProfileStress } from "../../report/formatProfileStress.js";
 import { formatSimulationText } from "../../report/formatSimulationText.js";
 import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
-import { formatCyclesCsv } from "../../stress/formatCyclesCsv.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { simulationVerdict } from "../../report/simulationVerdict.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
+import { formatCyclesCsv } from "../../report/formatCyclesCsv.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
@@ -15,7 +16,7 @@ import type { SimulateFlags } from "./simulate.js";
 /**
  * The run of `heatledger simulate PROFILE` (flags and help are in simulate.ts, which loads this
  * module only when the command runs): load the profile, simulate it with the stress checks, write
- * the --csv / --cycles files and print the report; sets the exit status from the verdict.
+ * the --csv / --cycles files and print the report; sets the exit status from the verdict (verdictExitStatus; --strict makes warn exit 1).
  * @throws InputError for a bad profile, a file it names, or an output file that exists without --force
  */
 export function simulateAction(run: CliRun, file: string, options: SimulateFlags): void {
@@ -35,7 +36,7 @@ export function simulateAction(run: CliRun, file: string, options: SimulateFlags
   if (options.json) run.io.out(`${JSON.stringify(simulationStressJson(simulationJson(profile, result, digest), stressResult, profile.occursPerYear), null, 2)}\n`);
   else
     run.io.out(
-      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult))}\n${csvNote}${cyclesNote}`,
+      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}`,
     );
-  run.status = result.verdict === "fail" || stressResult.ratingStatus === "fail" ? EXIT_LIMIT : EXIT_OK;
+  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus).verdict, options.strict === true);
 }

@@ -1,7 +1,8 @@
 import type { Command } from "commander";
-import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../plan/sizeDefaults.js";
+import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../size/sizeDefaults.js";
 import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger size`: one table drives the flags and their help. */
 export const SIZE_OPTIONS = [
@@ -13,6 +14,7 @@ export const SIZE_OPTIONS = [
   },
   { flags: "--material <preset>", help: `give the adiabatic and element capacities as masses of a material preset: ${MATERIALS.map((m) => m.id).join(", ")}` },
   { flags: "--margin <K>", help: "size to this margin below each limit (default: each part's own margin from the profile)" },
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger size` parse to. */
@@ -22,6 +24,7 @@ export interface SizeFlags {
   readonly material?: string;
   readonly scale?: string;
   readonly margin?: string;
+  readonly strict?: boolean;
 }
 
 /** `heatledger size PROFILE`: flags and help here; the run is loaded from sizeAction.ts when it starts. */
@@ -40,10 +43,11 @@ heat capacity of the part's network by k (Foster: tau -> k·tau): the whole body
 is only the element's share of it. --scale element multiplies only the element capacity C1 (first
 capacity of a Cauer ladder, the part's source node of a graph; a Foster network is turned into its
 exact Cauer ladder first) and gives it as C1 and, with --material, as the element's mass C1/c.
---json includes the sized network as a network file holds it. Charging element: the largest series (or source)
-resistance, or the smallest charging current or power, that completes a healthy power-up from
-0 V within the profile's timeout. Exit status: 0 a feasible size exists, 1 none (the report says
-why), 2 bad input. See README, "Sizing a pre-charge part".`,
+--json includes the sized network as a network file holds it. Charging element: the largest
+series (or source) resistance, or the smallest charging current or power, that completes a
+healthy power-up from 0 V within the profile's timeout.
+${verdictHelp("Here the verdict judges the answers: fail when a part or the charging element has no feasible size (the report says why); warn when a part sized to a smaller --margin than its profile wants peaks inside that margin; else pass.")}
+See README, "Sizing a pre-charge part" and "Verdicts and exit status".`,
     );
   for (const option of SIZE_OPTIONS) {
     if (option.flags === "--part <id>") command.option(option.flags, option.help, (value: string, previous: string[] | undefined) => [...(previous ?? []), value]);

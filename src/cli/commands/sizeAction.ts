@@ -1,12 +1,12 @@
 import { describeFound, inputError } from "../../errors/InputError.js";
-import { sizeProfile } from "../../plan/sizeProfile.js";
-import { SIZE_SCALE_SCOPES, type SizeScaleScope } from "../../plan/sizeDefaults.js";
+import { sizeProfile } from "../../size/sizeProfile.js";
+import { SIZE_SCALE_SCOPES, type SizeScaleScope } from "../../size/sizeDefaults.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSizingText } from "../../report/formatSizingText.js";
 import { sizingJson } from "../../report/sizingJson.js";
 import { materialPreset } from "../../thermal/materials.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
@@ -15,7 +15,8 @@ import type { SizeFlags } from "./size.js";
 /**
  * The run of `heatledger size PROFILE` (flags and help are in size.ts, which loads this module
  * only when the command runs): size every part (or the --part ones) and the charging element and
- * print the report; exit status 1 when no feasible size exists.
+ * print the report; the exit status follows the verdict (verdictExitStatus: 1 when no feasible
+ * size exists).
  * @throws InputError for a bad profile, a file it names, --material, --margin or --scale
  */
 export function sizeAction(run: CliRun, file: string, options: SizeFlags): void {
@@ -39,7 +40,7 @@ export function sizeAction(run: CliRun, file: string, options: SizeFlags): void 
   }
   if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
   else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
-  run.status = report.verdict === "feasible" ? EXIT_OK : EXIT_LIMIT;
+  run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
 
 /** The value of --scale, checked. */

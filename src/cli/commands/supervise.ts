@@ -1,18 +1,21 @@
 import type { Command } from "commander";
-import { SUPERVISE_DEFAULTS } from "../../plan/superviseDefaults.js";
+import { SUPERVISE_DEFAULTS } from "../../supervise/superviseDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
+import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger supervise`: one table drives the flags and their help. */
 export const SUPERVISE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (window, checks, retry storms, envelope) instead of the text report" },
   { flags: "--no-chart", help: "leave the envelope and energy charts out of the text report" },
+  STRICT_OPTION,
 ] as const;
 
 /** What the flags of `heatledger supervise` parse to. */
 export interface SuperviseFlags {
   readonly json?: boolean;
   readonly chart: boolean;
+  readonly strict?: boolean;
 }
 
 /** `heatledger supervise PROFILE`: flags and help here; the run is loaded from superviseAction.ts when it starts. */
@@ -25,15 +28,15 @@ export function registerSupervise(program: Command, run: CliRun): void {
       "after",
       `
 The profile's supervision section gives the healthy corner set (capacitance range required;
-bus voltage, completion fraction and loads optional) and check times (default: ${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")}
-of the slowest healthy completion time). Check thresholds keep a margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin)
-and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage (minCheckVoltage).
+bus voltage, completion fraction and loads optional) and check times (default:
+${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")} of the slowest healthy completion time). Check thresholds keep a
+margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin) and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage
+(minCheckVoltage).
 Attempts "back to back" are as close as the relay allows: its release plus operate time
 (circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms), rounded up to the firmware's timer
 (firmware.timerResolution, default ${ATTEMPT_TIMING_DEFAULTS.timerResolutionS * 1000} ms).
-Exit status: 0 a safe timeout exists and the profile's timeout is inside it, 1 no safe timeout
-exists or the profile's timeout is outside the window, 2 bad input. See README, "Reading the
-supervision answers".`,
+${verdictHelp("Here the verdict judges the profile's own timeout: attempts into a short at that timeout, through the profile's retry policy (burst and burst + lockout repeated), worst part and bus voltage; pass when it is inside the window. A timeout shorter than the slowest healthy charge fails (healthy units would be stopped).")}
+See README, "Reading the supervision answers" and "Verdicts and exit status".`,
     );
   for (const option of SUPERVISE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SuperviseFlags) => {

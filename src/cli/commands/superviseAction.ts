@@ -1,8 +1,8 @@
-import { supervisePrecharge } from "../../plan/supervisePrecharge.js";
+import { supervisePrecharge } from "../../supervise/supervisePrecharge.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSupervisionText } from "../../report/formatSupervisionText.js";
 import { supervisionJson } from "../../report/supervisionJson.js";
-import { EXIT_LIMIT, EXIT_OK } from "../CliIo.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
 import { attemptsProgress } from "../attemptsProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
@@ -10,8 +10,8 @@ import type { SuperviseFlags } from "./supervise.js";
 
 /**
  * The run of `heatledger supervise PROFILE` (flags and help are in supervise.ts, which loads this
- * module only when the command runs): work out the supervision numbers and print the report; exit
- * status 1 when no safe timeout exists or the profile's timeout is outside the window.
+ * module only when the command runs): work out the supervision numbers and print the report; the
+ * exit status follows the verdict on the profile's timeout (verdictExitStatus).
  * @throws InputError for a bad profile or a file it names
  */
 export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
@@ -26,5 +26,5 @@ export function superviseAction(run: CliRun, file: string, options: SuperviseFla
   }
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
   else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
-  run.status = report.verdict === "fail" ? EXIT_LIMIT : EXIT_OK;
+  run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
