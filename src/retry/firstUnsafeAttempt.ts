@@ -67,7 +67,7 @@ export interface FirstUnsafeAttempt {
  * the highest safe peak.
  * Source: superposition in a linear time-invariant system and the per-mode geometric series
  * (Oppenheim & Willsky, Signals and Systems, 2nd ed. (1997), §2.2), the periodic steady state of
- * DEVELOPERS.md ("Periodic steady state"); the non-negative response of a passive RC network to
+ * docs/engine.md ("Periodic steady state"); the non-negative response of a passive RC network to
  * non-negative heat is common practice (see AttemptCursor); exponential search (doubling) and
  * bisection over a monotone predicate, Press et al., Numerical Recipes, 3rd ed. (2007), §9.1.
  * Validity: the answer agrees with a plain scan exactly while attempts are integrated one by one,
