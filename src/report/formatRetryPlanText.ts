@@ -131,5 +131,21 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push(lockoutMapHeatmap(report.map).trimEnd());
   out.push("");
   out.push(formatCautions(setup.linearMosfet, width).trimEnd());
-  return `${out.join("\n")}\n`;
+  return `${fitToWidth(out.join("\n"), width)}\n`;
+}
+
+/**
+ * Every line longer than `width` rewrapped under its own indentation (a list item's text under
+ * its text), so that no sentence runs past the width; table and map rows are built within it
+ * and pass unchanged. Cost O(length of text).
+ */
+function fitToWidth(text: string, width: number): string {
+  return text
+    .split("\n")
+    .map((line) => {
+      if (line.length <= width) return line;
+      const lead = /^\s*(?:- )?/.exec(line)![0];
+      return wrapped(lead, line.slice(lead.length), width);
+    })
+    .join("\n");
 }

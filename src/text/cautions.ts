@@ -22,16 +22,32 @@ export function formatCautions(includeLinearMosfet: boolean, width = 100): strin
   return reportCautions(includeLinearMosfet).map((b) => wrapText(b, width)).join("\n") + "\n";
 }
 
-/** Greedy word wrap to a width. */
+/** Units that must stay on the line of the number before them ("200.0 °C", not "200.0" / "°C"). */
+const UNIT_WORDS = /^(?:°C|K|K\/W|J\/K|%|s|ms|µs|min|h|d|J|W|V|A|Ω|ohm|mF|µF|F)[).,;:]*$/;
+
+/** Joins a unit to its number while wrapping; printed as a plain space. */
+const GLUE = "\u0000";
+
+/** Words with every unit word joined to the word before it (by GLUE). */
+function glueUnits(words: readonly string[]): string[] {
+  const out: string[] = [];
+  for (const word of words) {
+    if (out.length > 0 && UNIT_WORDS.test(word)) out[out.length - 1] = `${out[out.length - 1]}${GLUE}${word}`;
+    else out.push(word);
+  }
+  return out;
+}
+
+/** Greedy word wrap to a width; a unit never starts a line ("200.0 °C" stays together). */
 export function wrapText(text: string, width: number): string {
   const lines: string[] = [];
   let line = "";
-  for (const word of text.split(/\s+/)) {
+  for (const word of glueUnits(text.split(/\s+/))) {
     if (line !== "" && line.length + 1 + word.length > width) {
       lines.push(line);
       line = word;
     } else line = line === "" ? word : `${line} ${word}`;
   }
   if (line !== "") lines.push(line);
-  return lines.join("\n");
+  return lines.join("\n").replaceAll(GLUE, " ");
 }
