@@ -17,8 +17,12 @@ function filesBelow(dir: string): string[] {
   });
 }
 
-// Word boundaries keep "tissue 3" or "issues 200" of generated data from matching by accident.
-const OUTSIDE_REFERENCE = /\b[Ii]ssue[ -#]*\d+|\bissue's\b|\bbrief's\b|\bthe brief\b|\bDESIGN(?: ?§|\.md)|\bTOOLCHAIN\b|\bSTYLE\.md\b/;
+// Word boundaries keep a word that merely contains "issue" from matching by accident. The names
+// are assembled from pieces so that this file does not itself hold the words it forbids.
+const ISSUE = "[Ii]" + "ssue";
+const OUTSIDE_REFERENCE = new RegExp(
+  [`\\b${ISSUE}[ -#]*\\d+`, "\\bis" + "sue's\\b", "\\bbrief's\\b", "\\bthe brief\\b", "\\bDES" + "IGN(?: ?§|\\.md)", "\\bTOOL" + "CHAIN\\b", "\\bSTY" + "LE\\.md\\b"].join("|"),
+);
 
 describe("self-contained sources", () => {
   test("no comment, test or doc refers to an issue number or a design document outside the repository", () => {
@@ -36,7 +40,8 @@ describe("self-contained sources", () => {
   });
 
   test("the scan's pattern catches the forms it is meant to catch", () => {
-    for (const line of ["// Issue 6, item 4: the rule", "see DESIGN §3", "(issue 12)", "the brief's bound", "TOOLCHAIN.md measured"]) expect(OUTSIDE_REFERENCE.test(line)).toBe(true);
-    for (const line of ["// the issues of a long history", "tissue", "a design note in docs/design.md"]) expect(OUTSIDE_REFERENCE.test(line)).toBe(false);
+    const caught = ["// Is" + "sue 6, item 4: the rule", "see DES" + "IGN §3", "(is" + "sue 12)", "the bri" + "ef's bound", "the is" + "sue's bound", "TOOL" + "CHAIN.md measured"];
+    for (const line of caught) expect(OUTSIDE_REFERENCE.test(line)).toBe(true);
+    for (const line of ["// the issues of a long history", "tis" + "sue 3", "a design note in docs/design.md"]) expect(OUTSIDE_REFERENCE.test(line)).toBe(false);
   });
 });
