@@ -127,7 +127,8 @@ events:
     const io = memoryIo(heatPump());
     expect(await runCli(["size", PROFILE, "--margin", "170 K"], io)).toBe(1);
     expect(io.stdout.join("")).toContain(
-      "Verdict: fail (no feasible size).\n- precharge-resistor: the target 30 °C (limit 200 °C less 170 K margin) is not above the ambient 40",
+      // wrapped at 100 columns, the unit kept with its number
+      "Verdict: fail (no feasible size).\n- precharge-resistor: the target 30 °C (limit 200 °C less 170 K margin) is not above the ambient\n40 °C",
     );
     const jsonIo = memoryIo(heatPump());
     expect(await runCli(["size", PROFILE, "--margin", "170", "--json"], jsonIo)).toBe(1);
