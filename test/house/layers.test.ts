@@ -11,7 +11,7 @@ const ROOT = join(import.meta.dirname, "..", "..");
 const SRC = join(ROOT, "src");
 
 /** The folder order of DEVELOPERS.md's layout block: lines "  name/  ..." inside the first code block. */
-export function documentedLayers(guide: string): string[] {
+function documentedLayers(guide: string): string[] {
   const block = /## Layout[\s\S]*?```\n([\s\S]*?)```/.exec(guide)?.[1] ?? "";
   return [...block.matchAll(/^ {2}([a-z]+)\/ /gm)].map((m) => m[1]!);
 }
