@@ -3,6 +3,7 @@ import { parse } from "yaml";
 import { createOdexSolver } from "../../src/circuits/loadOdex.js";
 import { expectClose } from "../helpers/expectClose.js";
 import { DANGER_STEP, bundledText, planOf } from "../helpers/closedLoopFixtures.js";
+import { shortedPart, si } from "../helpers/shortedPartByHand.js";
 
 // An independent reference for the retry planner's fastest safe schedule: the part's thermal
 // network is integrated as an ordinary differential equation by odex (Hairer and Wanner's
@@ -13,17 +14,8 @@ import { DANGER_STEP, bundledText, planOf } from "../helpers/closedLoopFixtures.
 // capacitance, one equation per stage). The power is worked out by hand from the profile's
 // circuit: into a shorted output the bus is held at 0 V, so the series resistor R carries
 // I = Vs/(R + Rsrc) and dissipates P = I²·R for the whole completion timeout (Ohm's and Joule's
-// laws). Values are read from the bundled YAML files with the yaml package and a unit table here.
-
-/** SI value of a quantity as the bundled files write it ("40 ms", "0.35 K/W", "60 mohm", "45 degC"). */
-function si(q: string | number): number {
-  if (typeof q === "number") return q;
-  const [value, unit] = q.trim().split(/\s+/);
-  const scale: Record<string, number> = { s: 1, ms: 1e-3, "K/W": 1, K: 1, V: 1, ohm: 1, mohm: 1e-3, mF: 1e-3, degC: 1 };
-  const k = scale[unit!];
-  if (k === undefined) throw new Error(`no unit "${unit}" in the test's table`);
-  return Number(value) * k;
-}
+// laws). Values are read from the bundled YAML files with the yaml package and a unit table
+// (test/helpers/shortedPartByHand.ts).
 
 /** An odex solver for an n-state reference: 1e-12 relative and absolute tolerance, dense output on. */
 function referenceSolver(n: number): ReturnType<typeof createOdexSolver> {
@@ -71,34 +63,6 @@ function integrateSchedule(stages: readonly { r: number; tau: number }[], ambien
   }
   stretch(tailS, 0);
   return { attemptEndC, peakC: ambientC + peakK };
-}
-
-interface ShortedPart {
-  readonly stages: { r: number; tau: number }[];
-  readonly ambientC: number;
-  readonly allowedC: number;
-  readonly powerW: number;
-  readonly timeoutS: number;
-}
-
-/** The bundled profile's resistor, network and shorted-output power, read from the YAML files. */
-function shortedPart(name: string): ShortedPart {
-  const profile = parse(bundledText(name)) as Record<string, any>;
-  const part = profile["parts"][0];
-  const network = parse(bundledText(part.network)) as { form: string; stages: { r: string; tau: string }[] };
-  expect(network.form).toBe("foster");
-  const c = profile["circuit"];
-  expect(c.topology).toBe("series-resistor");
-  const vs = si(c.busVoltage);
-  const r = si(c.resistance);
-  const current = vs / (r + si(c.sourceResistance ?? 0));
-  return {
-    stages: network.stages.map((s) => ({ r: si(s.r), tau: si(s.tau) })),
-    ambientC: si(profile["ambient"]),
-    allowedC: si(part.limits.maxTemperature) - si(part.limits.margin),
-    powerW: current * current * r,
-    timeoutS: si(c.completion.timeout),
-  };
 }
 
 describe("fastest safe schedule against an odex integration of the Foster network", () => {
