@@ -14,6 +14,9 @@ export function spiceNumber(x: number): string {
   return x.toExponential(15);
 }
 
+/** The SPICE tolerance options of every run here. */
+export const NGSPICE_OPTIONS = ".options reltol=1e-5 abstol=1e-10 vntol=1e-8";
+
 /** Netlist lines of a Foster network between node "j" and ground: stage i is R_i ∥ C_i from n(i) to n(i+1). */
 export function fosterElements(network: FosterNetwork): string[] {
   const lines: string[] = [];
@@ -45,6 +48,45 @@ export interface NgspiceRun {
   readonly cpuS: number;
 }
 
+/** ngspice's own CPU time (user + system) from the `times` builtin of the bash that ran it [s]. */
+function childCpuS(timesText: string | undefined): number {
+  const childLine = (timesText ?? "").trim().split("\n")[1] ?? "";
+  return [...childLine.matchAll(/(\d+)m([\d.]+)s/g)].reduce((sum, m) => sum + Number(m[1]) * 60 + Number(m[2]), 0);
+}
+
+/** Run `ngspice -b net.cir` in `dir` through bash, timed; throws on a missing ngspice or an aborted run. */
+function spawnNgspice(dir: string, netlist: string): { log: string; wallS: number; cpuS: number } {
+  writeFileSync(join(dir, "net.cir"), netlist);
+  const started = process.hrtime.bigint();
+  // Through bash so that its `times` builtin reports ngspice's own CPU time (the machine may be shared).
+  const result = spawnSync("bash", ["-c", "ngspice -b net.cir; status=$?; echo '@@times'; times; exit $status"], { cwd: dir, encoding: "utf8", maxBuffer: 1 << 26 });
+  const wallS = Number(process.hrtime.bigint() - started) / 1e9;
+  requireNgspiceRan(result);
+  const [output, timesText] = result.stdout.split("@@times");
+  const log = `${output}\n${result.stderr}`;
+  // ngspice exits with status 0 even when the run aborts: read the log.
+  if (/error|abort|too small|singular/i.test(log)) throw new Error(`ngspice run failed:\n${log}`);
+  return { log, wallS, cpuS: childCpuS(timesText) };
+}
+
+/**
+ * The highest v(node) of a transient analysis, asked of ngspice with a measurement statement
+ * (`.meas tran ... MAX`): no waveform is written, as a user after the peak alone would run it.
+ * Same analysis and tolerances as {@link runNgspice}.
+ */
+export function measureNgspicePeak(elements: readonly string[], node: string, stopS: number, maxStepS: number, options = NGSPICE_OPTIONS): { peakK: number; wallS: number; cpuS: number } {
+  const dir = mkdtempSync(join(tmpdir(), "heatledger-spice-"));
+  try {
+    const netlist = ["heatledger thermal network", ...elements, options, `.tran ${spiceNumber(maxStepS)} ${spiceNumber(stopS)} 0 ${spiceNumber(maxStepS)}`, `.meas tran peak max v(${node})`, ".end", ""].join("\n");
+    const run = spawnNgspice(dir, netlist);
+    const found = /^\s*peak\s*=\s*([-+\d.eE]+)/m.exec(run.log);
+    if (found === null) throw new Error(`ngspice printed no measurement "peak":\n${run.log}`);
+    return { peakK: Number(found[1]), wallS: run.wallS, cpuS: run.cpuS };
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
 /**
  * Run a transient analysis and return v(node) at every internal time point.
  * @param elements netlist element lines (network and source)
@@ -52,7 +94,7 @@ export interface NgspiceRun {
  * @param stopS end of the analysis [s]; maxStepS the largest internal step [s]
  * @param options SPICE tolerance options line
  */
-export function runNgspice(elements: readonly string[], node: string, stopS: number, maxStepS: number, options = ".options reltol=1e-5 abstol=1e-10 vntol=1e-8"): NgspiceRun {
+export function runNgspice(elements: readonly string[], node: string, stopS: number, maxStepS: number, options = NGSPICE_OPTIONS): NgspiceRun {
   const dir = mkdtempSync(join(tmpdir(), "heatledger-spice-"));
   try {
     // ngspice lower-cases netlist lines, paths included: the output name is lower-case and relative.
@@ -71,18 +113,7 @@ export function runNgspice(elements: readonly string[], node: string, stopS: num
       ".end",
       "",
     ].join("\n");
-    writeFileSync(join(dir, "net.cir"), netlist);
-    const started = process.hrtime.bigint();
-    // Through bash so that its `times` builtin reports ngspice's own CPU time (the machine may be shared).
-    const result = spawnSync("bash", ["-c", "ngspice -b net.cir; status=$?; echo '@@times'; times; exit $status"], { cwd: dir, encoding: "utf8", maxBuffer: 1 << 26 });
-    const wallS = Number(process.hrtime.bigint() - started) / 1e9;
-    requireNgspiceRan(result);
-    const [output, timesText] = result.stdout.split("@@times");
-    const log = `${output}\n${result.stderr}`;
-    const childLine = (timesText ?? "").trim().split("\n")[1] ?? "";
-    const cpuS = [...childLine.matchAll(/(\d+)m([\d.]+)s/g)].reduce((sum, m) => sum + Number(m[1]) * 60 + Number(m[2]), 0);
-    // ngspice exits with status 0 even when the run aborts: read the log.
-    if (/error|abort|too small|singular/i.test(log)) throw new Error(`ngspice run failed:\n${log}`);
+    const { wallS, cpuS } = spawnNgspice(dir, netlist);
     const rows = readFileSync(join(dir, "out.dat"), "utf8").trim().split("\n").slice(1);
     const timeS: number[] = [];
     const riseK: number[] = [];
