@@ -113,7 +113,11 @@ export type { TimelineKind, TimelineEvent, TimelineGap, TimelineItem, ExpandOpti
 export { simulateProfile } from "./profile/simulateProfile.js";
 export type { PartVerdict, EventTemperatures, PartResult, SimulationResult, SimulateOptions } from "./profile/simulateProfile.js";
 
-// report: simulation
+// report: simulation (the recorders a run feeds, then the builders that read them)
+export { EventDigest, EVENT_DIGEST_DEFAULTS } from "./profile/EventDigest.js";
+export { ProfileStress } from "./profile/ProfileStress.js";
+export type { ProfileStressOptions, ProfileStressResult } from "./profile/ProfileStress.js";
+export { PeakEnvelope } from "./report/PeakEnvelope.js";
 export { formatSimulationText } from "./report/formatSimulationText.js";
 export type { SimulationTextHeader } from "./report/formatSimulationText.js";
 export { simulationJson } from "./report/simulationJson.js";

@@ -43,6 +43,9 @@ export interface ConverterParams {
  * @throws InputError naming the field: `capacitanceF`, `mode`, `currentA` / `powerW` (> 0 for the
  *   mode), `efficiency` (0 < η ≤ 1), `currentLimitA` (> 0; required for constant power from 0 V),
  *   `load.*`, and the conditions' fields
+ * @example
+ * const conditions = { sourceVoltageV: 48, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 1 } };
+ * chargeConverter({ capacitanceF: 0.002, mode: "constant-current", currentA: 2, efficiency: 0.9 }, conditions).durationS // => 0.0456
  */
 export function chargeConverter(params: ConverterParams, conditions: ChargeConditions): CircuitResult {
   requirePositive(params.capacitanceF, "capacitanceF", "a capacitance > 0 F");

@@ -58,6 +58,10 @@ export interface LinearMosfetParams {
  *   `saturationCurrentA` (> 0; at least one of the two), `gateVoltageV` (above the threshold at the
  *   part's temperature), `thresholdVoltageV` (≥ 0), `thresholdTempcoVPerK` (finite),
  *   `partTemperatureC.mosfet` (finite), `load.*`, and the conditions' fields
+ * @example
+ * const conditions = { sourceVoltageV: 48, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 1 } };
+ * const params = { capacitanceF: 0.002, gateVoltageV: 5, thresholdVoltageV: 3, sourceResistorOhm: 1, rdsOnOhm: 0.01 };
+ * chargeLinearMosfet(params, conditions).durationS // => 0.0456
  */
 export function chargeLinearMosfet(params: LinearMosfetParams, conditions: ChargeConditions): CircuitResult {
   requirePositive(params.capacitanceF, "capacitanceF", "a capacitance > 0 F");

@@ -38,6 +38,9 @@ export interface SeriesResistorParams {
  * Cost: see {@link runChargeEvent}; O(1) for no, resistive or shorted loads.
  * @throws InputError naming the field: `resistanceOhm` (> 0), `sourceResistanceOhm` (≥ 0),
  *   `capacitanceF` (> 0), `load.*`, and the conditions' fields
+ * @example
+ * const conditions = { sourceVoltageV: 48, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 1 } };
+ * chargeSeriesResistor({ resistanceOhm: 10, capacitanceF: 0.002 }, conditions).energy.partsJ.resistor // => 2.2982
  */
 export function chargeSeriesResistor(params: SeriesResistorParams, conditions: ChargeConditions): CircuitResult {
   requirePositive(params.resistanceOhm, "resistanceOhm", "a pre-charge resistance > 0 Ω");

@@ -45,6 +45,8 @@ function decay(v: number, t: number, tau: number): number {
  * @returns bus voltage at the end of the pause [V]
  * @throws InputError naming the field: `capacitanceF`, `initialVoltageV`, `durationS`,
  *   `path.resistanceOhm`, `path.currentA`, `path.untilV`, `path.bleederOhm`, `path.kind`
+ * @example
+ * dischargeVoltage({ kind: "bleeder", resistanceOhm: 1000 }, 0.002, 48, 2) // => 17.658
  */
 export function dischargeVoltage(path: DischargePath, capacitanceF: number, initialVoltageV: number, durationS: number): number {
   requirePositive(capacitanceF, "capacitanceF", "a capacitance > 0 F");

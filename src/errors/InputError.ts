@@ -33,6 +33,9 @@ export interface InputProblem {
  * Bad input: one or more problems, each naming the file, field, what was expected and what was
  * found. Thrown by the core; the CLI prints {@link formatInputProblem} for each problem and exits
  * with status 2. Never carries a stack trace to the user.
+ * @example
+ * const problem = { code: "bad-unit", file: "p.yaml", line: 7, field: "circuit.resistance", expected: "a resistance", found: '"22 V"' };
+ * new InputError(problem).message // => 'p.yaml:7: circuit.resistance: expected a resistance, found "22 V"'
  */
 export class InputError extends Error {
   readonly problems: readonly InputProblem[];
@@ -64,6 +67,9 @@ export function inputError(code: InputErrorCode, field: string, expected: string
 /**
  * One line per problem: `file:line: field: expected X, found Y`.
  * Example: `profiles/a.yaml:12: circuit.capacitance: expected a capacitance such as 4.7 mF, found "4.7 mV" (a voltage)`
+ * @example
+ * const problem = { code: "bad-unit", file: "p.yaml", line: 7, field: "circuit.resistance", expected: "a resistance", found: '"22 V"' };
+ * formatInputProblem(problem) // => 'p.yaml:7: circuit.resistance: expected a resistance, found "22 V"'
  */
 export function formatInputProblem(problem: InputProblem): string {
   const where = problem.file === "" ? "" : problem.line > 0 ? `${problem.file}:${problem.line}: ` : `${problem.file}: `;

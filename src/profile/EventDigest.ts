@@ -34,6 +34,11 @@ export const EVENT_DIGEST_DEFAULTS = {
  * events by closeness to a limit (max over parts of peak − limit), so a report on a
  * million-event profile keeps what matters without growing without bound.
  * Cost O(log hottest) per event (insertion in a short sorted list); memory O(keepAll + hottest).
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const digest = new EventDigest(robot.parts.map((p) => p.limitC));
+ * simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e, t) => digest.add(e, t) });
+ * digest.count // => 24
  */
 export class EventDigest {
   readonly all: EventRecord[] = [];

@@ -70,6 +70,11 @@ interface PartState {
  * Cost O(points × parts + events × (trace segments + samples)); memory O(parts × (residue +
  * keepChecks)) plus the cycles when kept.
  * @throws InputError from the rating checks (a negative energy) or a history out of order
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const stress = new ProfileStress(robot);
+ * const result = simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e) => stress.addEvent(e), onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i) });
+ * stress.finish(result.endTimeS).ratingStatus // => "pass"
  */
 export class ProfileStress {
   private readonly profile: DutyProfile;

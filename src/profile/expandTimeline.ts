@@ -75,6 +75,8 @@ export interface ExpandOptions {
  * bookkeeping per docs/design.md ("Circuit bookkeeping").
  * Cost O(events × (circuit model + parts)); memory O(nesting depth + parts).
  * @throws InputError when a repetition overruns its period or the profile exceeds the longest time
+ * @example
+ * [...expandTimeline(profile("warehouse-robot-48v.yaml"), defaultCircuitModels)][0].kind // => "power-up"
  */
 export function* expandTimeline(profile: DutyProfile, models: CircuitModels, options: ExpandOptions = {}): Generator<TimelineItem> {
   const circuit = profile.circuit;

@@ -29,6 +29,8 @@ import { type EventContext, resolveEvent } from "./resolveProfileEvents.js";
  * @param file its name, for messages
  * @param readFile reads a named network or CSV file (path as written in the profile)
  * @throws InputError with every problem found
+ * @example
+ * loadProfile(bundled("warehouse-robot-48v.yaml"), "profiles/warehouse-robot-48v.yaml", bundled).circuit.resistanceOhm // => 22
  */
 export function loadProfile(text: string, file: string, readFile?: ReadNamedFile): DutyProfile {
   const source = parseStructuredText(text, file);

@@ -115,6 +115,8 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
  * rule of our own (docs/design.md, "Verdicts"; src/stress/Verdict.ts).
  * Cost O(events × steps per event × parts × modes); memory O(parts × modes).
  * @throws InputError for a circuit value the models reject or a repeat that overruns its period
+ * @example
+ * simulateProfile(profile("warehouse-robot-48v.yaml"), { models: defaultCircuitModels }).parts[0].peakTemperatureC // => 132.19
  */
 export function simulateProfile(profile: DutyProfile, options: SimulateOptions): SimulationResult {
   const parts = profile.parts;

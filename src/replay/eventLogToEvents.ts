@@ -30,6 +30,9 @@ const BORROWED: Partial<Record<LogWord, FaultSpec["type"]>> = { overload: "overl
  * Cost O(lines + profile events).
  * @throws InputError (on the log's line and `event` column) for a charging word when the profile
  *   has no circuit, or a borrowed fault word when the profile has no such fault
+ * @example
+ * const log = parseEventLog(bundled("logs/irrigation-pump-returned-unit.csv"), "returned-unit.csv");
+ * eventLogToEvents(profile("irrigation-pump-decade.yaml"), log).length // => 79
  */
 export function eventLogToEvents(profile: DutyProfile, log: EventLog): ProfileEvent[] {
   const fail = (line: LogLine, expected: string): InputError =>

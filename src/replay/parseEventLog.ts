@@ -24,6 +24,8 @@ const TIME_EXPECTED = "a time: seconds from the start of the log (a number such 
  * @throws InputError naming the file, the line and the column, what was expected and what was found
  *   (an empty log, an unknown column or event word with the nearest valid one, a bad time, a time
  *   going backwards, a missing cell)
+ * @example
+ * parseEventLog(bundled("logs/irrigation-pump-returned-unit.csv"), "returned-unit.csv").lines.length // => 79
  */
 export function parseEventLog(text: string, file: string): EventLog {
   const fail = (line: number, field: string, expected: string, found: string): InputError =>

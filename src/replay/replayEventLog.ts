@@ -19,6 +19,9 @@ export interface ReplayResult {
  * own events, not the log. Build the stress layer (ProfileStress, `mode: "open"`) on this profile.
  * Cost O(lines + profile events).
  * @throws InputError for a log line the profile cannot replay (see eventLogToEvents)
+ * @example
+ * const log = parseEventLog(bundled("logs/irrigation-pump-returned-unit.csv"), "returned-unit.csv");
+ * replayProfile(profile("irrigation-pump-decade.yaml"), log).events.length // => 79
  */
 export function replayProfile(profile: DutyProfile, log: EventLog): DutyProfile {
   const { occursPerYear: _dropped, ...rest } = profile;
@@ -38,6 +41,9 @@ export function replayProfile(profile: DutyProfile, log: EventLog): DutyProfile 
  * @throws InputError for a log line the profile cannot replay (see eventLogToEvents), a line that
  *   comes before the attempt of the line above it has ended (named on that line's `time`), or a
  *   circuit value the models reject
+ * @example
+ * const log = parseEventLog(bundled("logs/irrigation-pump-returned-unit.csv"), "returned-unit.csv");
+ * replayEventLog(profile("irrigation-pump-decade.yaml"), log, { models: defaultCircuitModels }).simulation.verdict // => "fail"
  */
 export function replayEventLog(profile: DutyProfile, log: EventLog, options: SimulateOptions, replayed: DutyProfile = replayProfile(profile, log)): ReplayResult {
   // the end of the last step seen: when the walk throws because an attempt outlasts its line's

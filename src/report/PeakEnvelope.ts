@@ -6,6 +6,10 @@
  * Source: max-preserving decimation, as used for min/max envelopes of oscilloscope displays
  * (common practice).
  * Cost O(series) per point, amortised; memory O(bins × series).
+ * @example
+ * const envelope = new PeakEnvelope(1);
+ * [[0, 40], [0.5, 90], [2, 60]].forEach(([t, c]) => envelope.add(t, [c]));
+ * Math.max(...envelope.points(0).map((p) => p.y)) // => 90
  */
 export class PeakEnvelope {
   private widthS: number;

@@ -8,6 +8,10 @@ import { lazyCsv } from "../format/lazyCsv.js";
  * objects small; the text grows with the run, as a time series must.
  * Source: RFC 4180 (2005) CSV, written by csv-stringify.
  * Cost O(parts) per point.
+ * @example
+ * const csv = new SimulationCsv(["R1"]);
+ * csv.add(0.5, 0, "step-end", [61.25]);
+ * csv.text() // => "time_s,event,point,R1_C\n0.5,0,step-end,61.25\n"
  */
 export class SimulationCsv {
   private readonly chunks: string[] = [];

@@ -23,6 +23,9 @@ export interface NetworkDescription {
  * Describe a network for reports: per (source, observed) pair the modal Foster stages, the total
  * Rth and Zth at log-spaced times from tau_min/100 to 5·tau_max (where Zth has settled to within
  * e^-5 ≈ 0.7 % of Rth). Cost O(pairs × (modes + rows × modes)).
+ * @example
+ * const network = { kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] };
+ * describeNetwork(network, networkToModal(network), 5).pairs[0].totalRthKPerW // => 2
  */
 export function describeNetwork(network: ThermalNetwork, model: ModalModel, rows: number): NetworkDescription {
   const from = Math.min(...model.tauS) / 100;

@@ -20,6 +20,9 @@ export const CYCLES_CSV_COLUMNS = [
  * each part, in the order counted. `damage` is the cycle's count/N_f, empty for a part without
  * a lifetime model. Numbers are written in full precision. Returns the text; writes nothing.
  * Cost O(cycles).
+ * @example
+ * const cycles = rainflow([20, 80, 20].map((value, timeS) => ({ timeS, value })));
+ * formatCyclesCsv([{ id: "R1", cycles }]).split("\n")[1] // => "R1,0,60,50,20,80,0.5,1,2,"
  */
 export function formatCyclesCsv(parts: readonly { id: string; cycles: readonly RainflowCycle[]; damage?: readonly number[] | undefined }[]): string {
   const rows: (string | number)[][] = [];

@@ -21,6 +21,10 @@ function percent(fraction: number): string {
  * @param fit the result of fitFosterNetwork
  * @param points the points that were fitted
  * @param width chart width in terminal columns
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] });
+ * const points = logSpacedTimes(1e-4, 20, 40).map((timeS) => ({ timeS, zthKPerW: zth(model, timeS) }));
+ * formatFosterFit(fitFosterNetwork(points), points, 100).split("\n")[0] // => "Foster network: 2 stages chosen by BIC among 1 to 4 tried; total Rth = 2.000 K/W"
  */
 export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], width: number): string {
   const stages = fit.network.stages;

@@ -40,6 +40,14 @@ function seconds(s: number): string {
  * allowed_C, limit_C, used_fraction, status (pass, warn, fail or impossible), governing_corner.
  * Impossible cells, and failing cells below a shorter burst that already crosses a limit (not
  * simulated), leave the peak and used fraction empty. Cost O(cells).
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * lockoutMapCsv(lockoutMap([scenario], 3, [0.6, 2, 10])).split("\n").length // => 11
  */
 export function lockoutMapCsv(map: LockoutMap): string {
   const rows: (string | number)[][] = [["attempts", "interval_s", "spacing", "worst_peak_C", "allowed_C", "limit_C", "used_fraction", "status", "governing_corner"]];
@@ -55,6 +63,14 @@ export function lockoutMapCsv(map: LockoutMap): string {
  * The lockout map as a terminal heat map: one row per burst length (1 at the top), one column
  * per interval (two characters each), the interval axis labelled below, and a legend of the
  * symbols (LOCKOUT_MAP_SYMBOLS). Cost O(cells).
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * lockoutMapHeatmap(lockoutMap([scenario], 3, [0.6, 2, 10])).split("\n").slice(1, 4) // => ["1 | ......", "2 | ==::..", "3 | !!::.."]
  */
 export function lockoutMapHeatmap(map: LockoutMap): string {
   const labelWidth = String(map.attempts[map.attempts.length - 1] ?? 1).length;

@@ -26,6 +26,11 @@ export interface ProfileStressTextOptions {
  * left to the report's closing cautions when the circuit is a linear MOSFET, so it is not
  * printed twice. Returns a string; prints nothing.
  * Cost O(parts × (listed events + top cycles)).
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const stress = new ProfileStress(robot);
+ * const result = simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e) => stress.addEvent(e), onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i) });
+ * formatProfileStress(robot, stress.finish(result.endTimeS)).split("\n")[0] // => "Stress — precharge-resistor"
  */
 export function formatProfileStress(profile: DutyProfile, stress: ProfileStressResult, options: ProfileStressTextOptions = {}): string {
   const closingHasMosfet = profile.circuit?.topology === "linear-mosfet";

@@ -41,6 +41,9 @@ function bands(list: readonly FeasibleBand[]): string {
  * every answer (items 1-6 of the retry planner) with a sentence on how to read it and the corner
  * that governs it, the lockout map as a heat map, and the cautions (docs/design.md, "Cautions").
  * Cost O(attempts + map cells).
+ * @example
+ * const plan = planRetries(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * formatRetryPlanText(plan).split("\n")[0] // => 'Retry plan for the fault "shorted-output" (events[1].retry)'
  */
 export function formatRetryPlanText(report: RetryPlanReport, width = 100): string {
   const { setup, policy } = report;

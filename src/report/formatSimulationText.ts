@@ -49,6 +49,11 @@ export interface SimulationTextHeader {
  * `stressText` (optional, from formatProfileStress) goes just before the verdict; `header`
  * (optional) names another command and adds lines under the profile line.
  * Cost O(parts × (events kept + chart width)).
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const digest = new EventDigest(robot.parts.map((p) => p.limitC));
+ * const result = simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e, t) => digest.add(e, t) });
+ * formatSimulationText(robot, result, digest, undefined).split("\n")[1] // => "profile profiles/warehouse-robot-48v.yaml: 24 events over 17.4 h"
  */
 export function formatSimulationText(
   profile: DutyProfile,

@@ -11,6 +11,9 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
  * "whole body × k" or "element C1"), the charging-element answer, the verdict and the cautions
  * (docs/design.md, "Cautions"). Every number carries its unit in the column heading; no NaN.
  * Within 100 columns for part ids of up to 18 characters. Cost O(parts).
+ * @example
+ * const report = sizeProfile(profile("warehouse-robot-48v.yaml"), { models: defaultCircuitModels });
+ * formatSizingText(report).split("\n")[0] // => "heatledger size: 48 V warehouse robot drive, firmware retries into a shorted bus"
  */
 export function formatSizingText(report: SizingReport, width = 100): string {
   const out: string[] = [];

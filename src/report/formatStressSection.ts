@@ -66,6 +66,9 @@ function allowanceWords(pe: PulseEnergyCheck): string {
  * ("extrapolated", per quantity), warnings, notes and cautions. Plain text, lines of at most
  * 100 characters; returns a string, prints nothing.
  * Cost O(events + top cycles + warnings).
+ * @example
+ * const history = [25, 125, 25].map((temperatureC, timeS) => ({ timeS, temperatureC }));
+ * formatStressSection("R1", assessStress(resolveStressConfig({}), [], history)).split("\n")[1] // => "  ratings: no rating table applies"
  */
 export function formatStressSection(partId: string, report: StressReport, history: StressHistoryWords = PROFILE_HISTORY_WORDS): string {
   const lines: string[] = [`Stress — ${partId}`];

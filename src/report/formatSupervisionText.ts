@@ -39,6 +39,9 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
  * the short-circuit energy, the summary table, the verdict and the cautions (docs/design.md,
  * "Cautions").
  * Cost O(corners + checks + chart width).
+ * @example
+ * const report = supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels);
+ * formatSupervisionText(report).split("\n")[0] // => "Supervision answers: 72 V electric boat outboard, pre-charge supervision"
  */
 export function formatSupervisionText(report: SupervisionReport, width = 100, chart = true): string {
   const out: string[] = [];

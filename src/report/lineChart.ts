@@ -32,6 +32,9 @@ export const CHART_DEFAULTS = { width: 80, height: 12 } as const;
  * never lost; empty columns repeat the last value. Reference lines (limits) are drawn as flat
  * series. Below the plot: x ticks (start, middle, end) and a legend.
  * Cost O(points + width × series).
+ * @example
+ * const points = [{ x: 0, y: 0 }, { x: 1, y: 5 }, { x: 2, y: 3 }];
+ * lineChart([{ label: "rise [K]", points }], { width: 30, height: 5 }).split("\n").length // => 9
  */
 export function lineChart(series: readonly ChartSeries[], options: LineChartOptions = {}): string {
   const width = Math.max(20, options.width ?? CHART_DEFAULTS.width);

@@ -35,6 +35,12 @@ export interface ReplaySummary {
  * first exceedance mapped back onto the log (line, event word, note, timestamp) and the damage to
  * date (Miner's rule over the log counted as a one-off history).
  * Cost O(parts × log (lines)).
+ * @example
+ * const pump = profile("irrigation-pump-decade.yaml");
+ * const log = parseEventLog(bundled("logs/irrigation-pump-returned-unit.csv"), "returned-unit.csv");
+ * const stress = new ProfileStress(pump);
+ * const replay = replayEventLog(pump, log, { models: defaultCircuitModels, onEvent: (e) => stress.addEvent(e), onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i) });
+ * replaySummary(log, replay, stress.finish(replay.simulation.endTimeS)).parts[0].firstExceedanceLine.line // => 80
  */
 export function replaySummary(log: EventLog, replay: ReplayResult, stress: ProfileStressResult): ReplaySummary {
   const last = log.lines[log.lines.length - 1]!;

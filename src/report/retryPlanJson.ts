@@ -5,6 +5,9 @@ import { reportCautions } from "../text/cautions.js";
  * The machine form of `heatledger retries --json`: every answer as plain data (the corners'
  * attempt models are left out; numbers that are not finite become null), with the policy's
  * `verdict` (pass | warn | fail) first and the `cautions` last. Cost O(report size).
+ * @example
+ * const plan = planRetries(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * retryPlanJson(plan).forever.minimumIntervalS // => 4.918
  */
 export function retryPlanJson(report: RetryPlanReport): unknown {
   const { setup } = report;

@@ -47,6 +47,11 @@ export interface SimulationJson {
  * checks to it), and `parts`, each with id, peakTemperatureC, peakTimeS, limitC, marginK, its own
  * verdict and `events` [{index, kind, startS, energyJ, peakTemperatureC, outcome, busStalled}].
  * Cost O(parts × events listed).
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const digest = new EventDigest(robot.parts.map((p) => p.limitC));
+ * const result = simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e, t) => digest.add(e, t) });
+ * simulationJson(robot, result, digest).eventCount // => 24
  */
 export function simulationJson(profile: DutyProfile, result: SimulationResult, digest: EventDigest): SimulationJson {
   return {

@@ -28,6 +28,12 @@ export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
  * verdict and the rating checks), the one the exit status follows; each part's own `verdict`
  * stays its temperature verdict.
  * Cost O(parts × (checks listed + top cycles)).
+ * @example
+ * const robot = profile("warehouse-robot-48v.yaml");
+ * const digest = new EventDigest(robot.parts.map((p) => p.limitC));
+ * const stress = new ProfileStress(robot);
+ * const result = simulateProfile(robot, { models: defaultCircuitModels, onEvent: (e, t) => { digest.add(e, t); stress.addEvent(e); }, onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i) });
+ * simulationStressJson(simulationJson(robot, result, digest), stress.finish(result.endTimeS), robot.occursPerYear).ratingStatus // => "pass"
  */
 export function simulationStressJson(base: SimulationJson, stress: ProfileStressResult, occursPerYear: number | undefined): SimulationStressJson {
   return {

@@ -14,6 +14,9 @@ const num = (x: number | undefined): number | null | undefined => (x === undefin
  * network as a network file holds it, units on every quantity), and the circuit answer.
  * Every number is SI; Infinity is written as null; `cautions` closes it, as every JSON report.
  * Cost O(parts).
+ * @example
+ * const report = sizeProfile(profile("warehouse-robot-48v.yaml"), { models: defaultCircuitModels });
+ * sizingJson(report).verdict // => "pass"
  */
 export function sizingJson(report: SizingReport): object {
   return {

@@ -72,6 +72,10 @@ export interface StressJson {
 /**
  * The stress report as a plain JSON-safe object (`damage`, `cycles` summary, rating checks per
  * event): unlimited lives and missing values are null, never Infinity or NaN. Cost O(events + top cycles).
+ * @example
+ * const config = resolveStressConfig({ lifetime: { model: "coffin-manson", referenceCycles: 1e5, referenceRange: "50 K", exponent: 5 } });
+ * const history = [25, 125, 25, 125, 25].map((temperatureC, timeS) => ({ timeS, temperatureC }));
+ * stressReportJson(assessStress(config, [], history)).damage.repetitionsToEndOfLife // => 1562.5
  */
 export function stressReportJson(report: StressReport): StressJson {
   const d = report.damage;

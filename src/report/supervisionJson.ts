@@ -6,6 +6,9 @@ import { reportCautions } from "../text/cautions.js";
  * that never completes) becomes null, so the output never holds NaN or Infinity; the envelope is
  * included for plotting elsewhere, and the cautions travel with the numbers (`cautions`, a list).
  * Cost O(size of the report).
+ * @example
+ * const report = supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels);
+ * supervisionJson(report).verdict // => "pass"
  */
 export function supervisionJson(report: SupervisionReport): unknown {
   const text = JSON.stringify({ ...report, cautions: reportCautions(report.linearMosfet) }, (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? null : value));

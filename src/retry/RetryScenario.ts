@@ -100,6 +100,14 @@ export interface ResolvedScenario {
  * @throws InputError `bad-network` for a bad thermal model or an unknown source/observed node;
  *   `out-of-range` for a limit minus margin that is not above ambient, a negative margin, a
  *   non-finite temperature or voltage, a shortest wait that is not finite and ≥ 0
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * resolveScenario(scenario).allowedC // => 130
  */
 export function resolveScenario(scenario: RetryScenario, field = `corners.${scenario.name}`): ResolvedScenario {
   validateModalModel(scenario.model, `${field}.network`);
@@ -141,6 +149,14 @@ export function resolveScenario(scenario: RetryScenario, field = `corners.${scen
 /**
  * Check a corner set: at least one corner, unique names, each corner valid.
  * @throws InputError `bad-profile` for an empty set or a repeated name, and whatever resolveScenario throws
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * resolveCorners([scenario, { ...scenario, name: "hot", ambientC: 60 }]).map((c) => c.allowedRiseK) // => [90, 70]
  */
 export function resolveCorners(corners: readonly RetryScenario[], field = "corners"): ResolvedScenario[] {
   if (corners.length === 0) throw inputError("bad-profile", field, "at least one corner", "none");

@@ -26,6 +26,8 @@ export interface BurstPlan {
 /**
  * The gaps of a retry block with back-off, start to start: the k-th gap is
  * min(interval·backoff^(k−1), maxInterval). Cost O(attempts).
+ * @example
+ * backoffBurst(4, 1, 2, 3).gapsS // => [1, 2, 3]
  */
 export function backoffBurst(attempts: number, intervalS: number, backoff: number, maxIntervalS: number): BurstPlan {
   const gapsS: number[] = [];
@@ -37,7 +39,11 @@ export function backoffBurst(attempts: number, intervalS: number, backoff: numbe
   return { gapsS, spacing: "start-to-start", overrun: "start-at-end" };
 }
 
-/** A burst of `attempts` attempts at a uniform interval. */
+/**
+ * A burst of `attempts` attempts at a uniform interval.
+ * @example
+ * uniformBurst(3, 2, "start-to-start") // => { gapsS: [2, 2], spacing: "start-to-start" }
+ */
 export function uniformBurst(attempts: number, intervalS: number, spacing: RetrySpacing): BurstPlan {
   return { gapsS: new Array<number>(Math.max(0, attempts - 1)).fill(intervalS), spacing };
 }

@@ -57,6 +57,14 @@ export interface BackoffRuleOptions {
  * with the rounded waits, so the rule reported is checked as firmware would run it.
  * Cost O(candidates × (scan points + edges × log2(1/relTol)) × corners × N × cost of one attempt).
  * @throws InputError for bad corners, no candidate, a negative first wait or a growth factor range below 1
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * backoffRule([scenario], 4, [0.5, 1]).rule // => { firstWaitS: 0.5, growthFactor: 1.2167 }
  */
 export function backoffRule(scenarios: readonly RetryScenario[], attempts: number, firstWaitCandidatesS: readonly number[], options: BackoffRuleOptions = {}): BackoffRuleAnswer {
   checkAttempts(attempts);

@@ -17,6 +17,15 @@ export interface CornerSpec {
  * @param build makes the scenario for a full parameter set and a corner name
  * @throws InputError `bad-profile` naming the field for an unknown parameter, a non-finite value,
  *   a missing or repeated name
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * const build = (p, name) => ({ ...scenario, name, ambientC: p.ambient });
+ * cornerScenarios({ ambient: 40 }, [{ name: "hot", values: { ambient: 60 } }], build).map((s) => s.ambientC) // => [60]
  */
 export function cornerScenarios(
   nominal: Readonly<Record<string, number>>,

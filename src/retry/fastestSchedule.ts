@@ -68,6 +68,14 @@ export interface FastestScheduleAnswer {
  * safe), so the schedule kept is the rounded one.
  * Cost O(attempts × (scan points up to the answer + log2(1/relTol)) × corners × cost of one attempt).
  * @throws InputError for bad corners or options
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * fastestSchedule([scenario], 4).schedule.map((s) => s.waitS) // => [null, 0, 0.5843, 0.8528]
  */
 export function fastestSchedule(scenarios: readonly RetryScenario[], attempts: number, options: FastestScheduleOptions = {}): FastestScheduleAnswer {
   checkAttempts(attempts);

@@ -64,6 +64,14 @@ export interface LockoutAnswer {
  * bracketed on a grid up to the time at which Σ|c_m|·e^(−t/tau_max) falls below it, and bisected.
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × N × cost of one attempt).
  * @throws InputError for bad corners, an empty burst or a threshold ≤ 0
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * lockoutAfterBurst([scenario], backoffBurst(3, 1, 2, 3)).minimumLockoutS // => 1.1268
  */
 export function lockoutAfterBurst(scenarios: readonly RetryScenario[], burst: BurstPlan, options: LockoutOptions = {}): LockoutAnswer {
   const corners = resolveCorners(scenarios);

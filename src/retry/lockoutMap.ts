@@ -54,6 +54,14 @@ export interface LockoutMap {
  * Cells take the corner with the least headroom.
  * Cost O(intervals × corners × attempts until a limit is crossed (at most maxAttempts) × cost of one attempt).
  * @throws InputError for bad corners, a bad attempt count or an interval that is not finite and ≥ 0
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * lockoutMap([scenario], 3, [0.6, 2, 10]).cells.map((row) => row[0].status) // => ["pass", "pass", "warn"]
  */
 export function lockoutMap(scenarios: readonly RetryScenario[], maxAttempts: number, intervalsS: readonly number[], spacing: RetrySpacing = PLAN_DEFAULTS.spacing): LockoutMap {
   checkAttempts(maxAttempts, "maxAttempts");

@@ -46,6 +46,14 @@ export interface MaxAttemptsAnswer {
  *   depends on (start-to-start spacing) plus the corners' shortest wait (the relay's release and
  *   operate times), a wait (end-to-start) is shorter than that shortest wait, or the interval is
  *   not a finite number ≥ 0
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * maxAttempts([scenario], 1).attempts // => 3
  */
 export function maxAttempts(scenarios: readonly RetryScenario[], intervalS: number, spacing: RetrySpacing = PLAN_DEFAULTS.spacing): MaxAttemptsAnswer {
   const corners = resolveCorners(scenarios);

@@ -32,6 +32,14 @@ export interface ForeverIntervalAnswer {
  *   T_min = −τ·ln(1 − P·R·(1 − e^(−t_on/τ))/ΔT_max)   (start-to-start spacing).
  * When a corner's first attempt alone is unsafe, no interval is, and the scan is skipped.
  * Cost O((scanPoints + edges × log2(1/relTol)) × corners × attempts to prove each verdict).
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * minForeverInterval([scenario]).minimumIntervalS // => 1.3528
  */
 export function minForeverInterval(scenarios: readonly RetryScenario[], options: IntervalScanOptions = {}): ForeverIntervalAnswer {
   const corners = resolveCorners(scenarios);

@@ -141,6 +141,14 @@ export function uniformBurstVerdict(c: ResolvedScenario, attempts: number, inter
  * Cost O((scanPoints + bands × 2·log2(1/relTol)) × corners × N × cost of one attempt), or
  * O(corners × N × cost of one attempt) when the first attempt decides.
  * @throws InputError for bad corners or options
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * minUniformInterval([scenario], 5).minimumIntervalS // => 1.2744
  */
 export function minUniformInterval(scenarios: readonly RetryScenario[], attempts: number, options: IntervalScanOptions = {}): UniformIntervalAnswer {
   checkAttempts(attempts);

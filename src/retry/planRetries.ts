@@ -39,6 +39,8 @@ export interface RetryPlanReport {
  * corners' minWaitS), and each is a whole number of the firmware's timer steps, checked again by
  * simulation at that value (setup.timing). Cost: the sum of the solvers' costs (seconds at most for typical profiles).
  * @throws InputError for a profile the planner cannot work on (see profileRetrySetup)
+ * @example
+ * planRetries(profile("warehouse-robot-48v.yaml"), defaultCircuitModels).forever.minimumIntervalS // => 4.918
  */
 export function planRetries(profile: DutyProfile, models: CircuitModels): RetryPlanReport {
   const setup = profileRetrySetup(profile, models);

@@ -77,6 +77,8 @@ const ATTEMPT_MEMO_SIZE = 512;
  * @throws InputError `bad-profile` when the profile has no circuit, no retry block with a fault,
  *   or a corner sets a resistance for a topology without a series resistor; `out-of-range` when
  *   the lockout map's longest interval is not above its shortest
+ * @example
+ * profileRetrySetup(profile("warehouse-robot-48v.yaml"), defaultCircuitModels).attempts // => 8
  */
 export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): ProfileRetrySetup {
   const circuit = profile.circuit;

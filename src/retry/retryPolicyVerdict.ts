@@ -61,6 +61,14 @@ export interface RetryPolicyVerdictOptions {
  * Cost O(corners × (N + cycles to settle × N) × cost of one attempt), twice for the cycles of a
  * corner found unsafe (the check against the limit) unless `verdictWords` is false.
  * @throws InputError for bad corners or a lockout that is not finite and ≥ 0
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * retryPolicyVerdict([scenario], backoffBurst(3, 1, 2, 3), 60).verdict // => "pass"
  */
 export function retryPolicyVerdict(scenarios: readonly RetryScenario[], burst: BurstPlan, lockoutS: number, options: RetryPolicyVerdictOptions = {}): RetryPolicyVerdict {
   const words = options.verdictWords ?? true;

@@ -25,6 +25,14 @@ export interface ScenarioRun {
  * Cost O(attempts × cost of one attempt).
  * @param startTimesS absolute start times [s], increasing, each at or after the previous attempt's end
  * @throws InputError `out-of-range` naming the start time that comes before the previous attempt ends
+ * @example
+ * const scenario = {
+ *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
+ *   ambientC: 40, limitC: 150, marginK: 20, initialVoltageV: 0,
+ *   attempt: () => ({ trace: [constantPowerSegment(0, 0.5, 400)], durationS: 0.5, endVoltageV: 0 }),
+ *   discharge: () => 0,
+ * };
+ * runRetryScenario(scenario, [0, 1, 2]).peakC // => 127.35
  */
 export function runRetryScenario(scenario: RetryScenario, startTimesS: readonly number[]): ScenarioRun {
   const corner = resolveScenario(scenario);

@@ -88,6 +88,8 @@ function knobOf(circuit: ProfileCircuit): { knob: ChargingElementKnob; value: nu
  * every model here with the loads it takes.
  * Cost: about 30 to 60 circuit runs, O(1) each for linear circuits.
  * @throws the circuit model's InputErrors
+ * @example
+ * sizeChargingElement(profile("warehouse-robot-48v.yaml").circuit, defaultCircuitModels).value // => 71.93
  */
 export function sizeChargingElement(circuit: ProfileCircuit, models: CircuitModels): ChargingElementSizing {
   const timeoutS = circuit.completion.timeoutS;

@@ -136,6 +136,8 @@ export interface HeatCapacitySizing {
  * Cost: up to SIZE_DEFAULTS.maxSimulations runs of simulateProfile, usually about 20.
  * @throws InputError `bad-option` for an unknown part or a negative margin, or `element` scaling of
  *   a part with no network as written; the simulation's own InputErrors
+ * @example
+ * sizeHeatCapacity(profile("warehouse-robot-48v.yaml"), 0, { models: defaultCircuitModels }).inversion.scale // => 0.3574
  */
 export function sizeHeatCapacity(profile: DutyProfile, partIndex: number, options: HeatCapacitySizingOptions): HeatCapacitySizing {
   const part = profile.parts[partIndex];

@@ -51,6 +51,8 @@ export interface SizingReport {
  * its profile wants (peakVerdict), and fail when a question has no answer.
  * Cost: parts × (up to SIZE_DEFAULTS.maxSimulations simulations) plus one circuit search.
  * @throws InputError `bad-option` on `--part` naming an unknown part
+ * @example
+ * sizeProfile(profile("warehouse-robot-48v.yaml"), { models: defaultCircuitModels }).verdict // => "pass"
  */
 export function sizeProfile(profile: DutyProfile, options: SizeProfileOptions): SizingReport {
   const ids = profile.parts.map((p) => p.id);

@@ -47,6 +47,9 @@ function ladderOf(network: FosterNetwork, field: string): CauerLadder {
  * @param field the network's field, for messages
  * @throws InputError `bad-option` for a scale that is not > 0; `bad-network` for a graph without
  *   `sourceNode`, or a Foster network whose Cauer ladder fails fosterToCauer's round-trip check
+ * @example
+ * const network = { kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] };
+ * sizeScaledNetwork(network, "node1", "whole", 2).network.stages.map((s) => s.tauS) // => [0.02, 4]
  */
 export function sizeScaledNetwork(network: ThermalNetwork, sourceNode: string, scope: SizeScaleScope, scale: number, field = "network"): ScaledNetwork {
   if (!(scale > 0) || !Number.isFinite(scale)) throw inputError("bad-option", "scale", "a capacity scale > 0", describeFound(scale));

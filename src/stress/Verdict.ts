@@ -41,13 +41,19 @@ export const VERDICT_ORDER: readonly Verdict[] = ["pass", "warn", "fail"];
  * @param peakC highest temperature [°C]
  * @param limitC the part's maximum temperature [°C]
  * @param marginK the design margin kept below the limit [K]
+ * @example
+ * peakVerdict(190, 200, 25) // => "warn"
  */
 export function peakVerdict(peakC: number, limitC: number, marginK: number): Verdict {
   if (peakC <= limitC - marginK) return "pass";
   return peakC <= limitC ? "warn" : "fail";
 }
 
-/** The worst of some verdicts ("pass" for none). Cost O(n). */
+/**
+ * The worst of some verdicts ("pass" for none). Cost O(n).
+ * @example
+ * worstVerdict(["pass", "warn", "pass"]) // => "warn"
+ */
 export function worstVerdict(verdicts: Iterable<Verdict>): Verdict {
   let worst = 0;
   for (const v of verdicts) worst = Math.max(worst, VERDICT_ORDER.indexOf(v));
@@ -57,6 +63,8 @@ export function worstVerdict(verdicts: Iterable<Verdict>): Verdict {
 /**
  * The exit status a verdict sets: 0 for pass and warn, 1 for fail; with `strict`, warn is 1 too.
  * Cost O(1).
+ * @example
+ * verdictExitStatus("warn", true) // => 1
  */
 export function verdictExitStatus(verdict: Verdict, strict: boolean): number {
   return strict ? VERDICTS[verdict].strictExitStatus : VERDICTS[verdict].exitStatus;
@@ -66,6 +74,8 @@ export function verdictExitStatus(verdict: Verdict, strict: boolean): number {
  * A rating-table status as a verdict: an event over a rating fails; an event outside a table was
  * not checked, which warns; otherwise pass. Rating checks are secondary to the temperature
  * verdict and reported beside it. Cost O(1).
+ * @example
+ * ratingVerdict("outside-table") // => "warn"
  */
 export function ratingVerdict(status: "pass" | "fail" | "outside-table"): Verdict {
   return status === "fail" ? "fail" : status === "outside-table" ? "warn" : "pass";
@@ -74,6 +84,8 @@ export function ratingVerdict(status: "pass" | "fail" | "outside-table"): Verdic
 /**
  * The closing line of a report: `Verdict: warn (a peak inside the design margin: ...).`, with the
  * word's own meaning unless the report gives the reason in its own words.
+ * @example
+ * verdictLine("pass") // => "Verdict: pass (every peak at or below its limit less its design margin)."
  */
 export function verdictLine(verdict: Verdict, reason: string = VERDICTS[verdict].meaning): string {
   return `Verdict: ${verdict} (${reason}).`;

@@ -125,6 +125,10 @@ export function worseStatus(a: RatingStatus, b: RatingStatus): RatingStatus {
  * by the residue stack (plus the cycles, if kept).
  * Cost O(points + cycles·top + events·rating work).
  * @throws InputError for points out of order or not finite, and for bad options
+ * @example
+ * const stress = new StressAssessment(resolveStressConfig({}));
+ * [25, 125, 25, 125, 25].forEach((temperatureC, timeS) => stress.addTemperature(timeS, temperatureC));
+ * stress.finish([]).cycles.map((c) => c.rangeK) // => [100, 100]
  */
 export class StressAssessment {
   private readonly config: StressConfig;
@@ -259,6 +263,10 @@ export class StressAssessment {
  * it. See {@link StressAssessment} for the streaming form.
  * Cost O(history points + cycles + events × rating work); memory O(residue + kept cycles).
  * @throws InputError for bad points, events or options, naming the field
+ * @example
+ * const config = resolveStressConfig({ lifetime: { model: "coffin-manson", referenceCycles: 1e5, referenceRange: "50 K", exponent: 5 } });
+ * const history = [25, 125, 25, 125, 25].map((temperatureC, timeS) => ({ timeS, temperatureC }));
+ * assessStress(config, [], history).damage.damagePerRepetition // => 0.00064
  */
 export function assessStress(
   config: StressConfig,

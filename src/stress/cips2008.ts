@@ -73,6 +73,9 @@ export const CIPS2008_PART_FITTED: Readonly<Record<keyof Cips2008Part, FittedInt
  * t_on the heating time [s], I the current per bond wire [A], V the voltage class [V], D the
  * bond wire diameter [µm]. Source: Bayerer et al. (2008), eq. (1), as {@link CIPS2008_PUBLISHED}
  * (from memory). Validity: {@link CIPS2008_FITTED} and {@link CIPS2008_PART_FITTED}. Cost O(1).
+ * @example
+ * const p = { coefficients: CIPS2008_PUBLISHED, currentPerWireA: 10, voltageClassV: 600, wireDiameterM: 300e-6 };
+ * cips2008Cycles(p, { rangeK: 60, minC: 40, heatingTimeS: 1.5 }) // => 1.8658e6
  */
 export function cips2008Cycles(p: Cips2008Parameters, load: Pick<CycleLoad, "rangeK" | "minC" | "heatingTimeS">): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;
@@ -93,6 +96,9 @@ export function cips2008Cycles(p: Cips2008Parameters, load: Pick<CycleLoad, "ran
  * Check CIPS 2008 parameters and build the model. Part quantities outside the fitted range give
  * a parameter warning (the model is still evaluated).
  * @throws InputError `out-of-range` for non-positive part quantities or K, β1 ≥ 0
+ * @example
+ * const p = { coefficients: CIPS2008_PUBLISHED, currentPerWireA: 10, voltageClassV: 600, wireDiameterM: 300e-6 };
+ * cips2008Model(p).name // => "CIPS 2008 (Bayerer et al., 2008)"
  */
 export function cips2008Model(p: Cips2008Parameters, field = "lifetime"): LifetimeModel {
   const parts: [number, string, string][] = [

@@ -26,6 +26,8 @@ export interface CoffinMansonParameters {
  * Validity: no published range (the parameters are the user's own, from the part maker or a
  * cycling test); the ranges given in `fittedRange` are checked per cycle, and without them the
  * damage report says the cycles could not be checked. Cost O(1).
+ * @example
+ * coffinMansonCycles({ referenceCycles: 1e5, referenceRangeK: 50, exponent: 5 }, 100) // => 3125
  */
 export function coffinMansonCycles(p: CoffinMansonParameters, rangeK: number): number {
   if (rangeK <= 0) return Number.POSITIVE_INFINITY;
@@ -36,6 +38,8 @@ export function coffinMansonCycles(p: CoffinMansonParameters, rangeK: number): n
  * Coffin-Manson acceleration factor of a test cycle over a field cycle, N_field/N_test:
  *   AF = (ΔT_test/ΔT_field)^n
  * Source: as {@link coffinMansonCycles}. Cost O(1).
+ * @example
+ * coffinMansonAccelerationFactor(100, 50, 5) // => 32
  */
 export function coffinMansonAccelerationFactor(testRangeK: number, fieldRangeK: number, exponent: number): number {
   return Math.pow(testRangeK / fieldRangeK, exponent);
@@ -45,6 +49,9 @@ export function coffinMansonAccelerationFactor(testRangeK: number, fieldRangeK: 
  * Check Coffin-Manson parameters. The only cycling model offered for resistors (with the user's
  * own parameters: there is no published set for them).
  * @throws InputError `out-of-range` for a non-positive cycle count, range or exponent
+ * @example
+ * const model = coffinMansonModel({ referenceCycles: 1e5, referenceRangeK: 50, exponent: 5 });
+ * model.cyclesToFailure({ rangeK: 100, meanC: 75, minC: 25, maxC: 125, heatingTimeS: 1, durationS: 2 }) // => 3125
  */
 export function coffinMansonModel(p: CoffinMansonParameters, field = "lifetime"): LifetimeModel {
   if (!(p.referenceCycles > 0) || !Number.isFinite(p.referenceCycles))

@@ -17,7 +17,8 @@ import { describeFound, inputError } from "../errors/InputError.js";
  * @param peakPowerW peak power [W], > 0
  * @returns t_eq [s]
  * @throws InputError `out-of-range` for a non-positive or non-finite energy or power
- * @example equivalentPulseDurationS(12, 400) // 0.03
+ * @example
+ * equivalentPulseDurationS(12, 400) // => 0.03
  */
 export function equivalentPulseDurationS(energyJ: number, peakPowerW: number, field = "event"): number {
   if (!(energyJ > 0) || !Number.isFinite(energyJ)) throw inputError("out-of-range", `${field}.energyJ`, "an energy > 0 J", describeFound(energyJ));

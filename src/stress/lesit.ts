@@ -45,6 +45,8 @@ export const LESIT_FITTED: FittedRange = {
  *   R = {@link LESIT_GAS_CONSTANT} = 8.314 J/(mol·K)
  * Source: Held et al. (1997), as {@link LESIT_PUBLISHED}, equation of the lifetime fit (from
  * memory). Validity: {@link LESIT_FITTED}. Cost O(1).
+ * @example
+ * lesitCycles(LESIT_PUBLISHED, { rangeK: 60, meanC: 80 }) // => 283707
  */
 export function lesitCycles(p: LesitParameters, load: Pick<CycleLoad, "rangeK" | "meanC">): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;
@@ -56,6 +58,8 @@ export function lesitCycles(p: LesitParameters, load: Pick<CycleLoad, "rangeK" |
  * Check LESIT parameters and build the model; the fitted range is {@link LESIT_FITTED} unless
  * the caller gives its own.
  * @throws InputError `out-of-range` for A ≤ 0, α ≥ 0 (life must fall as ΔT grows) or Q < 0
+ * @example
+ * lesitModel(LESIT_PUBLISHED).name // => "LESIT (Held et al., 1997)"
  */
 export function lesitModel(p: LesitParameters, field = "lifetime"): LifetimeModel {
   if (!(p.coefficient > 0) || !Number.isFinite(p.coefficient)) throw inputError("out-of-range", `${field}.coefficient`, "a coefficient A > 0", describeFound(p.coefficient));

@@ -80,6 +80,10 @@ interface OutsideTally {
  * Source: Miner, "Cumulative damage in fatigue", J. Appl. Mech. 12 (1945) A159-A164 (linear
  * damage rule); Palmgren (1924).
  * Cost O(top) per cycle; memory O(top + quantities).
+ * @example
+ * const miner = new MinerAccumulator(coffinMansonModel({ referenceCycles: 1e5, referenceRangeK: 50, exponent: 5 }));
+ * miner.add({ rangeK: 100, meanC: 75, minC: 25, maxC: 125, count: 1, heatingTimeS: 1 }) // => 0.00032
+ * miner.result().repetitionsToEndOfLife // => 3125
  */
 export class MinerAccumulator {
   private readonly model: LifetimeModel;

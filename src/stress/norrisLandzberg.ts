@@ -38,6 +38,9 @@ export const NORRIS_LANDZBERG_SNPB = { exponent: 1.9, frequencyExponent: 1 / 3, 
  * recalled reliably, and the reference cycle is the user's); the ranges given in `fittedRange`
  * are checked per cycle, and without them the damage report says the cycles could not be
  * checked. Cost O(1).
+ * @example
+ * const p = { referenceCycles: 1e4, referenceRangeK: 100, referenceFrequencyHz: 1 / 3600, referenceMaxC: 125, ...NORRIS_LANDZBERG_SNPB };
+ * norrisLandzbergCycles(p, { rangeK: 50, minC: 50, maxC: 100, meanC: 75, heatingTimeS: 1, durationS: 3600 }) // => 47347
  */
 export function norrisLandzbergCycles(p: NorrisLandzbergParameters, load: CycleLoad): number {
   if (load.rangeK <= 0) return Number.POSITIVE_INFINITY;
@@ -57,6 +60,9 @@ export function norrisLandzbergCycles(p: NorrisLandzbergParameters, load: CycleL
  * Norris-Landzberg acceleration factor N_field/N_test:
  *   AF = (ΔT_test/ΔT_field)^n·(f_field/f_test)^m·exp(Ea/k·(1/T_max,field − 1/T_max,test))
  * Source: Norris and Landzberg (1969) (from memory). Temperatures in °C, converted to K. Cost O(1).
+ * @example
+ * const test = { rangeK: 100, frequencyHz: 1 / 3600, maxC: 125 };
+ * norrisLandzbergAccelerationFactor(test, { rangeK: 50, frequencyHz: 1 / 3600, maxC: 100 }, NORRIS_LANDZBERG_SNPB) // => 4.735
  */
 export function norrisLandzbergAccelerationFactor(
   test: { rangeK: number; frequencyHz: number; maxC: number },
@@ -73,6 +79,9 @@ export function norrisLandzbergAccelerationFactor(
 /**
  * Check Norris-Landzberg parameters and build the model.
  * @throws InputError `out-of-range` for non-positive reference values or negative exponents
+ * @example
+ * const p = { referenceCycles: 1e4, referenceRangeK: 100, referenceFrequencyHz: 1 / 3600, referenceMaxC: 125, ...NORRIS_LANDZBERG_SNPB };
+ * norrisLandzbergModel(p).name // => "Norris-Landzberg"
  */
 export function norrisLandzbergModel(p: NorrisLandzbergParameters, field = "lifetime"): LifetimeModel {
   const positive: [number, string, string][] = [

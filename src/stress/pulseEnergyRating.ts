@@ -27,6 +27,8 @@ export interface PulseEnergyLookup {
  * network (each term R_i·(1 − e^(−t/τ_i))/t falls), so the rated energy cannot fall with t.
  * Cost O(rows).
  * @throws InputError `out-of-range` naming the row and the value
+ * @example
+ * validatePulseEnergyTable([{ durationS: 0.01, energyJ: 50 }, { durationS: 1, energyJ: 200 }]) // => undefined
  */
 export function validatePulseEnergyTable(table: readonly PulseEnergyPoint[], field = "ratings.pulseEnergy"): void {
   if (table.length === 0) throw inputError("out-of-range", field, "at least one row { duration, energy }", "an empty table");
@@ -63,6 +65,8 @@ export function validatePulseEnergyTable(table: readonly PulseEnergyPoint[], fie
  * is common practice: rating curves are drawn on log-log axes, where they run as near-straight
  * lines between the points a maker gives (a power law E ∝ t^a between rows).
  * Cost O(log rows). Assumes a table that passed {@link validatePulseEnergyTable}.
+ * @example
+ * interpolatePulseEnergy([{ durationS: 0.01, energyJ: 50 }, { durationS: 1, energyJ: 200 }], 0.1) // => { energyJ: 100, position: "in-table" }
  */
 export function interpolatePulseEnergy(table: readonly PulseEnergyPoint[], durationS: number): PulseEnergyLookup {
   const first = table[0]!;
@@ -112,6 +116,9 @@ export interface PulseEnergyDerating {
  * already hot has only the headroom T_max − T_start left ({@link temperatureHeadroomFactor}).
  * k = 0 at or above T_max: no energy is allowed. Source: common practice for resistor pulse
  * ratings. Cost O(1).
+ * @example
+ * const derating = { referenceC: 25, maxTemperatureC: 275, referenceFrom: "profile", maxTemperatureFrom: "profile" };
+ * pulseEnergyDeratingFactor(derating, 150) // => 0.5
  */
 export function pulseEnergyDeratingFactor(derating: PulseEnergyDerating, startTemperatureC: number): number {
   return temperatureHeadroomFactor(derating.referenceC, derating.maxTemperatureC, startTemperatureC);
@@ -148,6 +155,9 @@ export interface PulseEnergyCheck {
  * Cost O(log rows).
  * @param deratingFactor k in [0, 1] (1: not derated)
  * @throws InputError for a negative energy or a non-positive peak power with positive energy
+ * @example
+ * const table = [{ durationS: 0.01, energyJ: 50 }, { durationS: 1, energyJ: 200 }];
+ * checkPulseEnergy(table, 60, 600).utilisation // => 0.6
  */
 export function checkPulseEnergy(table: readonly PulseEnergyPoint[], energyJ: number, peakPowerW: number, field = "event", deratingFactor = 1): PulseEnergyCheck {
   const base = { energyJ, deratingFactor };

@@ -89,6 +89,12 @@ export interface RainflowOptions {
  * Cost O(1) amortised per point; memory O(stack).
  * @throws InputError `not-finite` for non-finite points, `bad-trace` for points out of time order,
  *   `out-of-range` for a non-positive period or one shorter than the history
+ * @example
+ * const cycles = [];
+ * const counter = new RainflowCounter((c) => cycles.push(c));
+ * [20, 80, 30, 70, 20].forEach((value, timeS) => counter.push(timeS, value));
+ * counter.finish();
+ * cycles.map((c) => c.rangeK) // => [40, 60, 60]
  */
 export class RainflowCounter {
   private readonly onCycle: (cycle: RainflowCycle) => void;
@@ -321,6 +327,9 @@ export class RainflowCounter {
  * {@link RainflowCounter}; for long histories use the class and consume cycles as they come).
  * Source: ASTM E1049-85 (reapproved 2017) §5.4.4 ("open") and §5.4.5 ("repeating").
  * Cost O(points); memory O(cycles) for the returned array.
+ * @example
+ * const history = [20, 80, 30, 70, 20].map((value, timeS) => ({ timeS, value }));
+ * rainflow(history).map((c) => [c.rangeK, c.count]) // => [[40, 1], [60, 0.5], [60, 0.5]]
  */
 export function rainflow(points: Iterable<TurningPoint>, options: RainflowOptions = {}): RainflowCycle[] {
   const cycles: RainflowCycle[] = [];

@@ -160,6 +160,9 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
  *   temperature limit [°C] (where the pulse-energy allowance reaches zero unless the rating says)
  * @throws InputError with the field path, what was expected and what was found, for every
  *   schema problem (all at once) or the first value problem
+ * @example
+ * const raw = { lifetime: { model: "coffin-manson", referenceCycles: 1e5, referenceRange: "50 K", exponent: 5 } };
+ * resolveStressConfig(raw).lifetime.name // => "Coffin-Manson"
  */
 export function resolveStressConfig(raw: unknown, options: { field?: string; partKind?: StressPartKind; limitC?: number } = {}): StressConfig {
   const prefix = options.field ?? "";

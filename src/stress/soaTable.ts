@@ -66,6 +66,9 @@ function allowedOnCurve(curve: SoaCurve, vdsV: number): number | undefined {
  * lower current.
  * Cost O(curves + corners). Assumes a table that passed {@link validateSoaTable}.
  * @returns the allowed current [A], or undefined where the table does not cover (V, t)
+ * @example
+ * const soa = [{ durationS: 0.001, points: [{ vdsV: 10, idA: 100 }, { vdsV: 100, idA: 5 }] }];
+ * allowedDrainCurrentA(soa, 50, 0.001) // => 12.32
  */
 export function allowedDrainCurrentA(table: SoaTable, vdsV: number, durationS: number): number | undefined {
   const first = table[0]!;
@@ -90,6 +93,8 @@ export function allowedDrainCurrentA(table: SoaTable, vdsV: number, durationS: n
  * shorter one at any corner voltage both boundaries cover.
  * Cost O(curves × corners²).
  * @throws InputError `out-of-range` naming the boundary, the corner and the value
+ * @example
+ * validateSoaTable([{ durationS: 0.001, points: [{ vdsV: 10, idA: 100 }, { vdsV: 100, idA: 5 }] }]) // => undefined
  */
 export function validateSoaTable(table: SoaTable, field = "ratings.soa"): void {
   if (table.length === 0) throw inputError("out-of-range", field, "at least one SOA boundary { duration, points }", "an empty table");
@@ -142,6 +147,8 @@ export interface SoaDerating {
  * in place of the case temperature is conservative too, since the junction is the hotter.
  * Source: linear derating of power-limited SOA with case temperature is common practice
  * ({@link temperatureHeadroomFactor}). Cost O(1).
+ * @example
+ * soaDeratingFactor({ referenceC: 25, maxJunctionC: 175 }, 100) // => 0.5
  */
 export function soaDeratingFactor(derating: SoaDerating, temperatureC: number): number {
   return temperatureHeadroomFactor(derating.referenceC, derating.maxJunctionC, temperatureC);
@@ -182,6 +189,12 @@ export interface SoaCheck {
  * stress and are skipped. `deratingFactor` (from {@link soaDeratingFactor}) scales every boundary.
  * Cost O(points × (curves + corners)).
  * @throws InputError `not-finite` for a non-finite sample, `out-of-range` for a duration ≤ 0
+ * @example
+ * const soa = [
+ *   { durationS: 0.001, points: [{ vdsV: 10, idA: 100 }, { vdsV: 100, idA: 5 }] },
+ *   { durationS: 0.01, points: [{ vdsV: 10, idA: 40 }, { vdsV: 100, idA: 2 }] },
+ * ];
+ * checkSoa(soa, [{ timeS: 0, vdsV: 50, idA: 3 }], 0.005).status // => "pass"
  */
 export function checkSoa(table: SoaTable, points: readonly OperatingPoint[], durationS: number, field = "event", deratingFactor = 1): SoaCheck {
   if (!(durationS > 0) || !Number.isFinite(durationS))

@@ -48,6 +48,12 @@ export interface TurningPoint {
  * Memory O(1); cost O(1) per point.
  * @throws InputError `out-of-range` for a negative or non-finite hysteresis, `not-finite` for a
  *   non-finite point, `bad-trace` for a time earlier than the previous one
+ * @example
+ * const kept = [];
+ * const filter = new TurningPointFilter((timeS, value) => kept.push(value), 1);
+ * [20, 40, 80, 79.5, 60, 30, 70, 20].forEach((value, timeS) => filter.push(timeS, value));
+ * filter.finish();
+ * kept // => [20, 80, 30, 70, 20]
  */
 export class TurningPointFilter {
   private readonly hysteresisK: number;

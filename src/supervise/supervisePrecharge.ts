@@ -139,6 +139,8 @@ export interface SupervisionReport {
  * Cost O(corners × (checks + envelope points)) circuit runs plus O(parts × 2 × bisection steps ×
  * burst length) attempts.
  * @throws InputError when the profile has no circuit, no supervision section or no part heated by the circuit
+ * @example
+ * supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels).window.lowerS // => 0.5695
  */
 export function supervisePrecharge(profile: DutyProfile, models: CircuitModels): SupervisionReport {
   const circuit = profile.circuit;

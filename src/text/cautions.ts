@@ -12,12 +12,20 @@ export const LINEAR_MOSFET_CAUTION =
   "Caution (linear-mode MOSFET): at high drain-source voltage a MOSFET can fail from thermal instability " +
   "(hot-spotting) well inside its thermal rating; check the maker's DC/linear-mode SOA, not only the temperature.";
 
-/** The cautions of a report, for the JSON key `cautions`: the general one, and the linear-mode MOSFET one when it applies. */
+/**
+ * The cautions of a report, for the JSON key `cautions`: the general one, and the linear-mode MOSFET one when it applies.
+ * @example
+ * reportCautions(true).length // => 2
+ */
 export function reportCautions(includeLinearMosfet: boolean): string[] {
   return [GENERAL_CAUTION, ...(includeLinearMosfet ? [LINEAR_MOSFET_CAUTION] : [])];
 }
 
-/** The closing block of a report, wrapped to a width. */
+/**
+ * The closing block of a report, wrapped to a width.
+ * @example
+ * formatCautions(false, 60).split("\n")[0] // => "Caution: these results are only as good as the thermal"
+ */
 export function formatCautions(includeLinearMosfet: boolean, width = 100): string {
   return reportCautions(includeLinearMosfet).map((b) => wrapText(b, width)).join("\n") + "\n";
 }

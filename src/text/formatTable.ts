@@ -8,7 +8,8 @@ export interface TableColumn {
  * An aligned plain-text table: heading row, a rule, then the rows. Numbers should already be
  * formatted (with units in the heading); cells are padded to the widest entry of their column.
  * Cost O(rows × columns).
- * @example formatTable([{ heading: "part" }, { heading: "peak [°C]", align: "right" }], [["R1", "98.2"]])
+ * @example
+ * formatTable([{ heading: "part" }, { heading: "peak [°C]", align: "right" }], [["R1", "98.2"]])
  */
 export function formatTable(columns: readonly TableColumn[], rows: readonly (readonly string[])[]): string {
   const widths = columns.map((c, j) => Math.max(c.heading.length, ...rows.map((r) => (r[j] ?? "").length)));

@@ -59,7 +59,12 @@ export function observedIndex(model: ModalModel, name: string, field = "observe"
   return i;
 }
 
-/** Steady-state thermal resistance from source s to observed node o: Σ_m gain [K/W]. */
+/**
+ * Steady-state thermal resistance from source s to observed node o: Σ_m gain [K/W].
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] });
+ * steadyStateResistance(model) // => 2
+ */
 export function steadyStateResistance(model: ModalModel, o = 0, s = 0): number {
   let sum = 0;
   for (const g of model.gainKPerW[o]![s]!) sum += g;

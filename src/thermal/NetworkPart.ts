@@ -20,7 +20,9 @@ export const LADDER_NODE_NAMES: Readonly<Record<NetworkPart, readonly string[]>>
  * The name of node k (0-based, the heated node first) of a ladder network of a part: its role's
  * name where LADDER_NODE_NAMES has one, else "node<k+1>". A Foster network has one physical node,
  * k = 0. Cost O(1).
- * @example ladderNodeName(0, "resistor") // "element"; ladderNodeName(2, "resistor") // "node3"
+ * @example
+ * ladderNodeName(0, "resistor") // "element"
+ * ladderNodeName(2, "resistor") // "node3"
  */
 export function ladderNodeName(k: number, part?: NetworkPart): string {
   return (part === undefined ? undefined : LADDER_NODE_NAMES[part][k]) ?? `node${k + 1}`;

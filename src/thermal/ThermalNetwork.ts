@@ -13,6 +13,8 @@ export type ThermalNetwork = FosterNetwork | CauerLadder | ThermalGraph;
  * The modal form of any network (the one engine representation).
  * Cost O(stages) for Foster, O(nodes³) for Cauer and graphs.
  * @throws InputError `bad-network`
+ * @example
+ * networkToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }).tauS // => [0.01]
  */
 export function networkToModal(network: ThermalNetwork, field = "network"): ModalModel {
   switch (network.kind) {

@@ -27,6 +27,8 @@ export interface CauerLadder {
  * the part (ladderNodeName: "junction", "node2", ... for a semiconductor; "element", "body", ...
  * for a resistor; "node1", "node2", ... when the ladder does not say).
  * @throws InputError `bad-network`
+ * @example
+ * cauerToGraph({ kind: "cauer", stages: [{ rKPerW: 0.5, cJPerK: 0.02 }, { rKPerW: 1.5, cJPerK: 1 }] }).nodes.map((n) => n.id) // => ["node1", "node2"]
  */
 export function cauerToGraph(ladder: CauerLadder, field = "network"): ThermalGraph {
   if (ladder.stages.length === 0) throw inputError("bad-network", `${field}.stages`, "at least one Cauer stage", "none");
@@ -48,6 +50,8 @@ export function cauerToGraph(ladder: CauerLadder, field = "network"): ThermalGra
 /**
  * The modal form of a Cauer ladder (equivalently its exact Foster form): see graphToModal.
  * Cost O(stages³).
+ * @example
+ * cauerToModal({ kind: "cauer", stages: [{ rKPerW: 0.5, cJPerK: 0.02 }, { rKPerW: 1.5, cJPerK: 1 }] }).tauS // => [1.530, 0.009803]
  */
 export function cauerToModal(ladder: CauerLadder, field = "network"): ModalModel {
   return graphToModal(cauerToGraph(ladder, field), field);

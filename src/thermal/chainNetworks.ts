@@ -54,6 +54,9 @@ export const HEATSINK_PREFIX = "heatsink.";
  * Cost O(total stages) plus the Foster → Cauer conversions.
  * @throws InputError `bad-network` for no parts, repeated or empty part ids, a negative or
  *   non-finite interface resistance, an unknown mount node, or an invalid device or heatsink network
+ * @example
+ * const parts = [{ id: "r1", device: { kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }, interfaceRKPerW: 0.2 }];
+ * chainNetworks({ parts, heatsink: { kind: "cauer", stages: [{ rKPerW: 1, cJPerK: 50 }] } }).nodes.map((n) => n.id) // => ["r1.node1", "heatsink.mount"]
  */
 export function chainNetworks(assembly: HeatsinkAssembly, field = "assembly"): ThermalGraph {
   if (assembly.parts.length === 0) throw inputError("bad-network", `${field}.parts`, "at least one part on the heatsink", "none");

@@ -71,7 +71,10 @@ export interface FosterFit {
  * @param options see {@link FIT_DEFAULTS}
  * @param onStageCount called before each stage count is tried, with the count (for a progress line)
  * @throws InputError `bad-network` for bad points or too few points; `bad-option` for bad options
- * @example fitFosterNetwork(points).network // { kind: "foster", stages: [{ rKPerW, tauS }, ...] }
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] });
+ * const points = logSpacedTimes(1e-4, 20, 40).map((timeS) => ({ timeS, zthKPerW: zth(model, timeS) }));
+ * fitFosterNetwork(points).network.stages.map((s) => s.tauS) // => [0.01, 2.00]
  */
 export function fitFosterNetwork(points: readonly ZthPoint[], options: FitOptions = {}, field = "points", onStageCount?: (stages: number) => void): FosterFit {
   const o = resolveFitOptions(options);

@@ -11,6 +11,8 @@ function number(value: number): number {
  * it back: `{ form: foster, stages: [{ r: "0.8 K/W", tau: "0.002 s" }] }`.
  * Values keep 10 significant digits (a round trip changes Zth by less than 1e-9 relative).
  * Cost O(size).
+ * @example
+ * networkToDocument({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }) // => { form: "foster", stages: [{ r: "0.5 K/W", tau: "0.01 s" }] }
  */
 export function networkToDocument(network: ThermalNetwork, name?: string): Record<string, unknown> {
   const head: Record<string, unknown> = name === undefined ? {} : { name };
@@ -34,6 +36,8 @@ export function networkToDocument(network: ThermalNetwork, name?: string): Recor
 /**
  * A network file's text, YAML or JSON, that parseNetwork reads back.
  * @param format "yaml" (default) or "json"
+ * @example
+ * formatNetworkFile({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }).split("\n")[1] // => "form: foster"
  */
 export function formatNetworkFile(network: ThermalNetwork, format: "yaml" | "json" = "yaml", name?: string): string {
   const document = networkToDocument(network, name);

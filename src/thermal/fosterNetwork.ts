@@ -23,6 +23,8 @@ export interface FosterNetwork {
  * (2010), annex on the Foster model.
  * Cost O(stages).
  * @throws InputError `bad-network` for a non-positive R or tau
+ * @example
+ * fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] }).tauS // => [0.01, 2]
  */
 export function fosterToModal(network: FosterNetwork, field = "network"): ModalModel {
   validateFoster(network, field);

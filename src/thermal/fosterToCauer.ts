@@ -50,6 +50,8 @@ type FractionConstructor = new (numerator: bigint, denominator: bigint) => Fract
  * stages); the round-trip check costs O(n³).
  * @throws InputError `bad-network` for an invalid Foster network, or when the rounded ladder fails
  *   the round-trip check (time constants too close together or too far apart for double precision)
+ * @example
+ * fosterToCauer({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] }).stages.length // => 2
  */
 export function fosterToCauer(network: FosterNetwork, field = "network"): CauerLadder {
   validateFoster(network, field);

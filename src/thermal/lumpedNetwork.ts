@@ -33,6 +33,8 @@ export interface LumpedDescription {
  * is, a long rod heated at one end is not. Constant properties (c at 300 K, see MATERIALS).
  * Cost O(1).
  * @throws InputError `out-of-range` naming the first mass, specific heat or resistance that is not > 0
+ * @example
+ * lumpedNetwork({ element: { massKg: 0.01, specificHeatJPerKgK: 385 }, rToAmbientKPerW: 4 }).stages // => [{ cJPerK: 3.85, rKPerW: 4 }]
  */
 export function lumpedNetwork(description: LumpedDescription, field = "lumped"): CauerLadder {
   const positive = (value: number, name: string, words: string): void => {
@@ -72,7 +74,9 @@ export function lumpedNetwork(description: LumpedDescription, field = "lumped"):
  * @param specificHeatJPerKgK c [J/(kg·K)] > 0
  * @param riseK allowed rise ΔT [K] > 0
  * @throws InputError `out-of-range`
- * @example adiabaticMass(12, 385, 150) // 2.0779e-4 kg: 0.21 g of copper takes 12 J with a 150 K rise
+ * @example
+ * adiabaticMass(12, 385, 150) // => 2.0779e-4
+ * // 0.21 g of copper takes 12 J with a 150 K rise
  */
 export function adiabaticMass(energyJ: number, specificHeatJPerKgK: number, riseK: number): number {
   if (!Number.isFinite(energyJ) || !(energyJ > 0)) throw inputError("out-of-range", "energy", "a pulse energy > 0 J", describeFound(energyJ));

@@ -73,6 +73,8 @@ export const MATERIALS: readonly MaterialPreset[] = [
  * Look up a material preset by its id (case-insensitive; "aluminum" is accepted for "aluminium").
  * Cost O(presets).
  * @throws InputError `bad-option` listing the known ids
+ * @example
+ * materialPreset("copper").specificHeatJPerKgK // => 385
  */
 export function materialPreset(id: string, field = "material"): MaterialPreset {
   const key = id.trim().toLowerCase().replace(/^aluminum/, "aluminium");

@@ -23,6 +23,9 @@ export const UNOBSERVABLE_GAIN_FRACTION = 1e-12;
  * Cost O(modes·log modes).
  * @throws InputError `bad-network` when the model has several sources or observed nodes and no
  *   choice is given, or when a gain is negative (not representable as a Foster network)
+ * @example
+ * const model = cauerToModal({ kind: "cauer", stages: [{ rKPerW: 0.5, cJPerK: 0.02 }, { rKPerW: 1.5, cJPerK: 1 }] });
+ * modalToFoster(model).stages.map((s) => s.tauS) // => [0.009803, 1.530]
  */
 export function modalToFoster(model: ModalModel, observed?: string, source?: string, field = "network"): FosterNetwork {
   const o = pick(model.observed, observed, `${field}.observed`);

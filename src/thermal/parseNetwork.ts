@@ -27,6 +27,8 @@ const COMMON_KEYS = ["form", "name", "description"];
  * are reported at once.
  * Cost O(size of the data).
  * @throws InputError listing every problem, with field paths under `field`
+ * @example
+ * parseNetwork({ form: "foster", stages: [{ r: "0.5 K/W", tau: "10 ms" }] }) // => { kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }
  */
 export function parseNetwork(raw: unknown, field = "network"): ThermalNetwork {
   const reader = new FieldReader();

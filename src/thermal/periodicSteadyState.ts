@@ -60,6 +60,9 @@ export interface PeriodicResult {
  * Cost O(segments per cycle × modes × sources) twice, independent of N.
  * @throws InputError `out-of-range` for a non-positive period or a repetition count that is not a
  *   positive integer or Infinity; `bad-trace` for segments outside the cycle
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] });
+ * periodicSteadyState(model, { periodS: 1, traces: [[constantPowerSegment(0, 0.1, 20)]] }).peakRiseK // => [13.72]
  */
 export function periodicSteadyState(model: ModalModel, cycle: PeriodicCycle, options: PeriodicOptions = {}, field = "cycle"): PeriodicResult {
   const T = cycle.periodS;

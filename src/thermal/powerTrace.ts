@@ -28,13 +28,19 @@ export interface PowerSegment {
 /** A part's power history: segments in time order, not overlapping; gaps are zero power. */
 export type PowerTrace = readonly PowerSegment[];
 
-/** Constant power P [W] from startS for durationS [s]. */
+/**
+ * Constant power P [W] from startS for durationS [s].
+ * @example
+ * constantPowerSegment(0, 0.01, 50).terms // => [{ a: 50, b: 0, lambda: 0 }]
+ */
 export function constantPowerSegment(startS: number, durationS: number, watts: number): PowerSegment {
   return { startS, durationS, terms: watts === 0 ? [] : [{ a: watts, b: 0, lambda: 0 }] };
 }
 
 /**
  * Power at time s into a segment: Σ (a + b·s)·e^(−lambda·s) [W]. Cost O(terms).
+ * @example
+ * powerAt([{ a: 10, b: 0, lambda: 0 }, { a: 0, b: 2, lambda: 0 }], 0.5) // => 11
  */
 export function powerAt(terms: readonly PowerTerm[], s: number): number {
   let sum = 0;
@@ -46,6 +52,8 @@ export function powerAt(terms: readonly PowerTerm[], s: number): number {
  * Energy of a segment, exact: ∫0^h (a + b·s)·e^(−lambda·s) ds = a·h·φ0(lambda·h) + b·h²·φ1(lambda·h)
  * with φ0(x) = (1 − e^(−x))/x and φ1(x) = (1 − e^(−x)(1 + x))/x² (see expIntegrals). [J]
  * Cost O(terms).
+ * @example
+ * segmentEnergy([{ a: 40, b: 0, lambda: 0 }], 0.25) // => 10
  */
 export function segmentEnergy(terms: readonly PowerTerm[], durationS: number): number {
   let sum = 0;

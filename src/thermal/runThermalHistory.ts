@@ -58,6 +58,9 @@ export interface HistorySummary {
  * node (at step ends and at interior maxima found by interiorPeaks) and handing every point to
  * an optional visitor. Memory is O(sources × modes) whatever the number of steps (streaming).
  * Cost O(steps × sources × modes) plus the peak search on steps that are not provably monotone.
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }, { rKPerW: 1.5, tauS: 2 }] });
+ * runThermalHistory(model, [{ startS: 0, durationS: 0.01, powers: [[{ a: 10, b: 0, lambda: 0 }]] }]).peakRiseK // => [3.235]
  */
 export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>, options: HistoryOptions = {}): HistorySummary {
   const run = new ThermalRun(model, options);
@@ -70,6 +73,10 @@ export function runThermalHistory(model: ModalModel, steps: Iterable<TimedStep>,
  * time order, and reads the summary at any point. For producers that are themselves loops (a
  * profile walk) this saves wrapping them in a generator. Same arithmetic, same points.
  * Cost per step as runThermalHistory; memory O(sources × modes).
+ * @example
+ * const run = new ThermalRun(fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] }));
+ * run.push({ startS: 0, durationS: 0.01, powers: [[{ a: 10, b: 0, lambda: 0 }]] });
+ * run.summary().peakRiseK // => [3.161]
  */
 export class ThermalRun {
   private readonly model: ModalModel;

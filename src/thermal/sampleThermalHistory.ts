@@ -47,6 +47,10 @@ const NO_POWER: SourcePowers = [];
  * @param timesS requested times [s], ascending, none before the first step's start
  * @throws InputError `out-of-range` for a requested time that is not finite, goes backwards, or
  *   precedes the first step
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] });
+ * const steps = [{ startS: 0, durationS: 0.01, powers: [[{ a: 10, b: 0, lambda: 0 }]] }];
+ * [...sampleThermalHistory(model, steps, [0.005])][0].riseK // => [1.967]
  */
 export function* sampleThermalHistory(
   model: ModalModel,

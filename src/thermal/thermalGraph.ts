@@ -45,6 +45,9 @@ export interface ThermalGraph {
  * Cost O(n³) in the number of nodes.
  * @throws InputError `bad-network` for unknown node names, non-positive values, or a node with no
  *   path to ambient (the network would have no steady state).
+ * @example
+ * const graph = { kind: "graph", nodes: [{ id: "die", cJPerK: 0.1 }], links: [{ from: "die", to: "ambient", rKPerW: 2 }], sources: ["die"], observed: ["die"] };
+ * graphToModal(graph).tauS // => [0.2]
  */
 export function graphToModal(graph: ThermalGraph, field = "network"): ModalModel {
   const n = graph.nodes.length;

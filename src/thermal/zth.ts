@@ -8,6 +8,9 @@ import type { ModalModel } from "./ModalModel.js";
  * network step response.
  * Cost O(modes).
  * @param t time since the step [s], ≥ 0
+ * @example
+ * const model = fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 0.01 }] });
+ * zth(model, 0.01) // => 0.3161
  */
 export function zth(model: ModalModel, t: number, o = 0, s = 0): number {
   const gains = model.gainKPerW[o]![s]!;
@@ -16,7 +19,11 @@ export function zth(model: ModalModel, t: number, o = 0, s = 0): number {
   return sum;
 }
 
-/** n log-spaced times from fromS to toS inclusive [s]. */
+/**
+ * n log-spaced times from fromS to toS inclusive [s].
+ * @example
+ * logSpacedTimes(0.001, 1, 4) // => [0.001, 0.01, 0.1, 1]
+ */
 export function logSpacedTimes(fromS: number, toS: number, n: number): number[] {
   if (n === 1) return [fromS];
   const a = Math.log(fromS);

@@ -47,7 +47,8 @@ export const PULSE_RATING_ASSUMPTIONS: readonly string[] = [
  * @param conditions start and maximum element temperature [°C]
  * @param field dotted field path for messages
  * @throws InputError `bad-network` for a bad row, `out-of-range` for a maximum not above the start
- * @example zthFromPulseRating([{ durationS: 0.01, energyJ: 50 }], { startC: 25, maxC: 275 }) // [{ timeS: 0.01, zthKPerW: 0.05 }]
+ * @example
+ * zthFromPulseRating([{ durationS: 0.01, energyJ: 50 }], { startC: 25, maxC: 275 }) // => [{ timeS: 0.01, zthKPerW: 0.05 }]
  */
 export function zthFromPulseRating(table: readonly PulseRatingRow[], conditions: PulseRatingConditions, field = "table"): ZthPoint[] {
   if (!Number.isFinite(conditions.startC)) throw inputError("not-finite", "startTemperature", "a finite start temperature in °C", describeFound(conditions.startC));

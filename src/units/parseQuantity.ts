@@ -68,7 +68,8 @@ function dimensionOf(unit: { equalBase(other: unknown): boolean }, math: ReturnT
  * @param field dotted field path, used in the error message
  * @returns the value in the dimension's SI unit
  * @throws InputError with code `bad-quantity`, `wrong-dimension`, `unknown-unit` or `not-finite`
- * @example parseQuantity("4.7 mF", "capacitance", "circuit.capacitance") // 0.0047
+ * @example
+ * parseQuantity("4.7 mF", "capacitance", "circuit.capacitance") // => 0.0047
  */
 export function parseQuantity(value: unknown, dimension: Dimension, field: string): number {
   const expected = expectedWords(dimension);
