@@ -1,5 +1,6 @@
 import { wrapText } from "../text/cautions.js";
 import { GENERAL_CAUTION } from "../text/cautions.js";
+import { GUARD_CAUTION } from "../text/guardCaution.js";
 import { COOLDOWN_DOUBLINGS, DECAY_BITS, type FixedPointGuard, SPAN_BITS } from "./fixedPointGuard.js";
 import type { FloatGuard } from "./floatGuard.js";
 import type { ThermalGuard } from "./thermalGuard.js";
@@ -51,6 +52,7 @@ export function guardCSource(guard: ThermalGuard, numbers: Numbers, origin: Guar
       ? `Fixed point: rises in Q${31 - numbers.q.fractionBits}.${numbers.q.fractionBits} kelvin (1 K = ${2 ** numbers.q.fractionBits}), energies in Q${31 - numbers.q.energyFractionBits}.${numbers.q.energyFractionBits} joules (1 J = ${2 ** numbers.q.energyFractionBits}); round measured energies UP.`
       : "Double precision: rises in kelvin, energies in joules; the estimate includes the rounding allowance.",
     `Call ${N}_tick once per tick with the energy each input received during that tick (never negative). ${N}_rise gives the rise over ambient, never below the exact rise at tick instants. Ask ${N}_may_start at a tick, with no attempt running: 1 means one attempt into the worst fault, started now, stays under limit - margin in every corner. ${N}_cooldown_ticks tells how many ticks of cooling are left (for logging; ${U}_NEVER when the attempt alone is too hot).`,
+    GUARD_CAUTION,
     GENERAL_CAUTION,
   ];
   const comment = `/*\n${about.map((p) => wrapText(p, 96).trimEnd().split("\n").map((l) => ` * ${l}`.trimEnd()).join("\n")).join("\n *\n")}\n */\n`;

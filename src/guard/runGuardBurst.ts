@@ -54,8 +54,8 @@ export interface GuardBurst {
 }
 
 /**
- * Run the guard as firmware would in one corner of the retry setup: the first attempt at tick 0,
- * each later one at the first tick at which the guard allows it, no sooner than the relay's
+ * Run the guard as firmware would in one corner of the retry setup: each attempt at the first tick at
+ * which the guard allows it (the first one at tick 0 unless it is never allowed), no sooner than the relay's
  * shortest wait after the previous attempt's end. Each attempt is simulated exactly
  * (AttemptCursor: its own peak, and its power, which the guard is fed tick by tick as energies);
  * the exact rise at every tick instant is tracked beside the estimate (sampleThermalHistory, with
@@ -100,15 +100,11 @@ export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cor
   };
   let lastEndS = 0;
   for (let k = 0; k < attempts; k++) {
-    if (k > 0) {
-      const earliest = Math.ceil((lastEndS + corners[0]!.minWaitS) / tickS - 1e-9);
-      idle(earliest - tick);
-      for (;;) {
-        if (estimator.mayStart()) break;
-        const wait = estimator.cooldownTicks();
-        if (wait === null) return finish();
-        idle(Math.max(1, wait));
-      }
+    if (k > 0) idle(Math.ceil((lastEndS + corners[0]!.minWaitS) / tickS - 1e-9) - tick);
+    while (!estimator.mayStart()) {
+      const wait = estimator.cooldownTicks();
+      if (wait === null) return finish();
+      idle(Math.max(1, wait));
     }
     const startS = tick * tickS;
     const trials = cursors.map((c) => c.tryAt(startS));
