@@ -21,7 +21,7 @@ export function guardVectorsJson(report: GuardReport, profile: string): Record<s
     parts: report.guard.channels.map((c) => c.part),
     corners: report.bursts.map((b) => ({
       corner: b.corner,
-      attempts: b.attempts.map((a) => ({ attempt: a.attempt, startTick: a.startTick, peakC: a.peakC })),
+      attempts: b.attempts.map((a) => ({ attempt: a.attempt, startTick: a.startTick, durationS: a.durationS, peakC: a.peakC })),
       lines: b.steps.map((s) => ({
         ticks: s.ticks,
         energy: s.energy.map(num),

@@ -79,7 +79,7 @@ export function planGuard(profile: DutyProfile, models: CircuitModels, options: 
   const float = floatGuard(guard);
   const estimator = (): GuardEstimator => (fixed !== null ? new FixedPointEstimator(fixed) : new FloatEstimator(float));
   const attempts = options.attempts ?? Math.min(setup.attempts, GUARD_DEFAULTS.vectorAttempts);
-  const bursts = setup.corners.map((_, c) => runGuardBurst(guard, setup, c, estimator(), attempts, options.vectors === true));
+  const bursts = setup.corners.map((_, c) => runGuardBurst(guard, setup, c, estimator(), attempts, { record: options.vectors === true }));
   const fastest = guard.neverSafe ? null : fastestSchedule(setup.scenarios, attempts, { timerResolutionS: tickS });
   const conservatism = bursts.map((b, c): GuardConservatism => {
     const own = fastest?.perCorner.filter((_, i) => Math.floor(i / setup.parts.length) === c)[0]?.attempts ?? [];

@@ -15,6 +15,8 @@ export interface GuardAttempt {
   readonly startTick: number;
   /** wait after the previous attempt's end [s]; null for the first */
   readonly waitS: number | null;
+  /** how long it lasted [s] */
+  readonly durationS: number;
   /** per part, the exact own peak of the attempt (AttemptCursor) [°C] */
   readonly peakC: readonly number[];
   /** least allowed − peak over the parts [K] (negative would be a guard failure) */
@@ -35,6 +37,17 @@ export interface GuardVectorStep {
   readonly mayStart: boolean;
   /** the cool-down answer, on idle lines only (null: never) */
   readonly cooldownTicks?: number | null;
+}
+
+/** Options of {@link runGuardBurst}. */
+export interface GuardBurstOptions {
+  /** keep the test vectors (default false) */
+  readonly record?: boolean;
+  /**
+   * ticks the firmware waits after the guard allows attempt k (1-based) before starting it
+   * (default 0: at once); a firmware that starts late, for the property tests
+   */
+  readonly extraWaitTicks?: (attempt: number) => number;
 }
 
 /** A burst run by the guard in one corner. */
@@ -64,7 +77,8 @@ export interface GuardBurst {
  * the burst.
  * Cost O(ticks × parts × modes × inputs) plus the attempts' exact integration.
  */
-export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cornerIndex: number, estimator: GuardEstimator, attempts: number, record = false): GuardBurst {
+export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cornerIndex: number, estimator: GuardEstimator, attempts: number, options: GuardBurstOptions = {}): GuardBurst {
+  const record = options.record === true;
   const parts = setup.parts.length;
   const corners = setup.parts.map((_, p) => resolveScenario(setup.scenarios[cornerIndex * parts + p]!, `corners[${cornerIndex}]`));
   const cursors = corners.map((c) => new AttemptCursor(c));
@@ -103,9 +117,13 @@ export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cor
     if (k > 0) idle(Math.ceil((lastEndS + corners[0]!.minWaitS) / tickS - 1e-9) - tick);
     while (!estimator.mayStart()) {
       const wait = estimator.cooldownTicks();
-      if (wait === null) return finish();
+      if (wait === null) {
+        note(0, zero, true); // the vectors end on the "never" answer
+        return finish();
+      }
       idle(Math.max(1, wait));
     }
+    idle(options.extraWaitTicks?.(k + 1) ?? 0);
     const startS = tick * tickS;
     const trials = cursors.map((c) => c.tryAt(startS));
     if (trials.some((t) => t === null)) return finish();
@@ -115,6 +133,7 @@ export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cor
       attempt: k + 1,
       startTick: tick,
       waitS: k === 0 ? null : startS - lastEndS,
+      durationS: first.record.durationS,
       peakC: trials.map((t) => t!.record.peakC),
       headroomK: Math.min(...trials.map((t) => t!.headroomK)),
     });
@@ -163,6 +182,8 @@ export function runGuardBurst(guard: ThermalGuard, setup: ProfileRetrySetup, cor
       }
     });
   }
+  // the last attempt may outlast its power (a trip delay): run on to the tick of its end
+  idle(Math.ceil(lastEndS / tickS - 1e-9) - tick);
   return finish();
 
   function finish(): GuardBurst {
