@@ -2,13 +2,12 @@ import { describeFound, inputError } from "../errors/InputError.js";
 import type { GuardEstimator } from "./GuardEstimator.js";
 import type { ThermalGuard } from "./thermalGuard.js";
 import { GUARD_DEFAULTS } from "./guardDefaults.js";
+import { COOLDOWN_DOUBLINGS, greedyCooldown } from "./greedyCooldown.js";
 
 /** Bits of the decay factors (unsigned, below 1: UQ0.32). */
 export const DECAY_BITS = 32;
 /** Bits of the span decay factors (unsigned, up to 1: UQ1.31). */
 export const SPAN_BITS = 31;
-/** Decay factors over 2^k ticks kept for the cool-down query, k = 0 .. COOLDOWN_DOUBLINGS − 1. */
-export const COOLDOWN_DOUBLINGS = 31;
 /** Relative widening of every rounded constant, far above the error of the doubles it comes from (a few 1e-16). */
 const WIDEN = 1e-12;
 const INT32_MAX = 2147483647n;
@@ -154,18 +153,11 @@ export class FixedPointEstimator implements GuardEstimator {
 
   cooldownTicks(): number | null {
     const q = this.q;
-    let z = this.z.map((row) => row.map((v) => (v > 0n ? v : 0n)));
-    if (this.allowed(z)) return 0;
-    const decayed = (k: number): bigint[][] => z.map((row, c) => row.map((v, m) => ceilShift(v * BigInt(q.cooldownDecay[c]![k]![m]!), BigInt(DECAY_BITS))));
-    let n = 0;
-    for (let k = COOLDOWN_DOUBLINGS - 1; k >= 0; k--) {
-      const candidate = decayed(k);
-      if (!this.allowed(candidate)) {
-        z = candidate;
-        n += 2 ** k;
-      }
-    }
-    return this.allowed(decayed(0)) ? n + 1 : null;
+    return greedyCooldown(
+      this.z.map((row) => row.map((v) => (v > 0n ? v : 0n))),
+      (z) => this.allowed(z),
+      (z, k) => z.map((row, c) => row.map((v, m) => ceilShift(v * BigInt(q.cooldownDecay[c]![k]![m]!), BigInt(DECAY_BITS)))),
+    );
   }
 
   state(): bigint[][] {

@@ -1,7 +1,7 @@
 import type { GuardEstimator } from "./GuardEstimator.js";
 import type { ThermalGuard } from "./thermalGuard.js";
 import { GUARD_DEFAULTS } from "./guardDefaults.js";
-import { COOLDOWN_DOUBLINGS } from "./fixedPointGuard.js";
+import { COOLDOWN_DOUBLINGS, greedyCooldown } from "./greedyCooldown.js";
 
 /** Unit roundoff of IEEE 754 double precision, 2^−53. */
 const UNIT_ROUNDOFF = 2 ** -53;
@@ -100,18 +100,11 @@ export class FloatEstimator implements GuardEstimator {
 
   cooldownTicks(): number | null {
     const g = this.g;
-    let z = this.z.map((row) => row.map((v) => (v > 0 ? v : 0)));
-    if (this.allowed(z)) return 0;
-    const decayed = (k: number): number[][] => z.map((row, c) => row.map((v, m) => v * g.cooldownDecay[c]![k]![m]!));
-    let n = 0;
-    for (let k = COOLDOWN_DOUBLINGS - 1; k >= 0; k--) {
-      const candidate = decayed(k);
-      if (!this.allowed(candidate)) {
-        z = candidate;
-        n += 2 ** k;
-      }
-    }
-    return this.allowed(decayed(0)) ? n + 1 : null;
+    return greedyCooldown(
+      this.z.map((row) => row.map((v) => (v > 0 ? v : 0))),
+      (z) => this.allowed(z),
+      (z, k) => z.map((row, c) => row.map((v, m) => v * g.cooldownDecay[c]![k]![m]!)),
+    );
   }
 
   state(): number[][] {

@@ -1,7 +1,8 @@
 import { wrapText } from "../text/cautions.js";
 import { GENERAL_CAUTION } from "../text/cautions.js";
 import { GUARD_CAUTION } from "../text/guardCaution.js";
-import { COOLDOWN_DOUBLINGS, DECAY_BITS, type FixedPointGuard, SPAN_BITS } from "./fixedPointGuard.js";
+import { DECAY_BITS, type FixedPointGuard, SPAN_BITS } from "./fixedPointGuard.js";
+import { COOLDOWN_DOUBLINGS } from "./greedyCooldown.js";
 import type { FloatGuard } from "./floatGuard.js";
 import type { ThermalGuard } from "./thermalGuard.js";
 
@@ -166,46 +167,7 @@ static int allowed(const int64_t z[${U}_PARTS][${U}_MODES])
     return 1;
 }
 
-static void positive_part(const ${N}_state *s, int64_t z[${U}_PARTS][${U}_MODES])
-{
-    int p, m;
-    for (p = 0; p < ${U}_PARTS; p++)
-        for (m = 0; m < ${U}_MODES; m++) z[p][m] = s->z[p][m] > 0 ? s->z[p][m] : 0;
-}
-
-int ${N}_may_start(const ${N}_state *s)
-{
-    int64_t z[${U}_PARTS][${U}_MODES];
-    positive_part(s, z);
-    return allowed(z);
-}
-
-static void decay_by(const int64_t z[${U}_PARTS][${U}_MODES], int k, int64_t out[${U}_PARTS][${U}_MODES])
-{
-    int p, m;
-    for (p = 0; p < ${U}_PARTS; p++)
-        for (m = 0; m < ${U}_MODES; m++) out[p][m] = ceil_shift(z[p][m] * (int64_t)COOLDOWN_DECAY[p][k][m], ${DECAY_BITS});
-}
-
-uint32_t ${N}_cooldown_ticks(const ${N}_state *s)
-{
-    int64_t z[${U}_PARTS][${U}_MODES], candidate[${U}_PARTS][${U}_MODES];
-    uint32_t n = 0;
-    int k, p, m;
-    positive_part(s, z);
-    if (allowed(z)) return 0;
-    for (k = ${COOLDOWN_DOUBLINGS - 1}; k >= 0; k--) {
-        decay_by(z, k, candidate);
-        if (!allowed(candidate)) {
-            for (p = 0; p < ${U}_PARTS; p++)
-                for (m = 0; m < ${U}_MODES; m++) z[p][m] = candidate[p][m];
-            n += (uint32_t)1 << k;
-        }
-    }
-    decay_by(z, 0, candidate);
-    return allowed(candidate) ? n + 1u : ${U}_NEVER;
-}
-`;
+${descentFunctions(N, U, "int64_t", "0", `ceil_shift(z[p][m] * (int64_t)COOLDOWN_DECAY[p][k][m], ${DECAY_BITS})`)}`;
 }
 
 function floatSource(N: string, U: string, headerFile: string, f: FloatGuard, comment: string): string {
@@ -269,30 +231,38 @@ static int allowed(const double z[${U}_PARTS][${U}_MODES])
     return 1;
 }
 
-static void positive_part(const ${N}_state *s, double z[${U}_PARTS][${U}_MODES])
+${descentFunctions(N, U, "double", "0.0", "z[p][m] * COOLDOWN_DECAY[p][k][m]")}`;
+}
+
+/**
+ * The functions both number types share: the state's non-negative part, the may-start answer, and
+ * the cool-down query by greedy descent (greedyCooldown), in the work type `t`.
+ */
+function descentFunctions(N: string, U: string, t: string, zero: string, decayed: string): string {
+  return `static void positive_part(const ${N}_state *s, ${t} z[${U}_PARTS][${U}_MODES])
 {
     int p, m;
     for (p = 0; p < ${U}_PARTS; p++)
-        for (m = 0; m < ${U}_MODES; m++) z[p][m] = s->z[p][m] > 0.0 ? s->z[p][m] : 0.0;
+        for (m = 0; m < ${U}_MODES; m++) z[p][m] = s->z[p][m] > ${zero} ? s->z[p][m] : ${zero};
 }
 
 int ${N}_may_start(const ${N}_state *s)
 {
-    double z[${U}_PARTS][${U}_MODES];
+    ${t} z[${U}_PARTS][${U}_MODES];
     positive_part(s, z);
     return allowed(z);
 }
 
-static void decay_by(const double z[${U}_PARTS][${U}_MODES], int k, double out[${U}_PARTS][${U}_MODES])
+static void decay_by(const ${t} z[${U}_PARTS][${U}_MODES], int k, ${t} out[${U}_PARTS][${U}_MODES])
 {
     int p, m;
     for (p = 0; p < ${U}_PARTS; p++)
-        for (m = 0; m < ${U}_MODES; m++) out[p][m] = z[p][m] * COOLDOWN_DECAY[p][k][m];
+        for (m = 0; m < ${U}_MODES; m++) out[p][m] = ${decayed};
 }
 
 uint32_t ${N}_cooldown_ticks(const ${N}_state *s)
 {
-    double z[${U}_PARTS][${U}_MODES], candidate[${U}_PARTS][${U}_MODES];
+    ${t} z[${U}_PARTS][${U}_MODES], candidate[${U}_PARTS][${U}_MODES];
     uint32_t n = 0;
     int k, p, m;
     positive_part(s, z);

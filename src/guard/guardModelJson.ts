@@ -1,7 +1,8 @@
 import { reportCautions } from "../text/cautions.js";
 import { GUARD_CAUTION } from "../text/guardCaution.js";
 import type { FixedPointGuard } from "./fixedPointGuard.js";
-import { COOLDOWN_DOUBLINGS, DECAY_BITS, SPAN_BITS } from "./fixedPointGuard.js";
+import { DECAY_BITS, SPAN_BITS } from "./fixedPointGuard.js";
+import { COOLDOWN_DOUBLINGS } from "./greedyCooldown.js";
 import type { FloatGuard } from "./floatGuard.js";
 import type { ThermalGuard } from "./thermalGuard.js";
 
