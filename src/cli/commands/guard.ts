@@ -55,7 +55,7 @@ fastest safe schedule. See README, "A thermal guard for the firmware", and docs/
 ${verdictHelp("Here the verdict judges the attempts the guard admitted (each simulated exactly), or the first attempt when the guard admits none.")}
 
 Example:
-  heatledger guard profiles/warehouse-robot-48v.yaml --c out/robot_guard --vectors out/robot_vectors.json`,
+  heatledger guard profiles/warehouse-robot-48v.yaml --c robot_guard --vectors robot_vectors.json`,
     );
   for (const option of GUARD_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: GuardFlags) => {
