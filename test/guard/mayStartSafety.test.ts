@@ -1,11 +1,11 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { FixedPointEstimator, buildThermalGuard, defaultCircuitModels, fixedPointGuard, runGuardBurst, simulateProfile } from "../../src/internal.js";
+import { FixedPointEstimator, FloatEstimator, type GuardEstimator, buildThermalGuard, defaultCircuitModels, fixedPointGuard, floatGuard, runGuardBurst, simulateProfile } from "../../src/internal.js";
 import { atCorner, bundledText, cornersOf, loadAs, PEAK_TOLERANCE_K, withEvents } from "../helpers/closedLoopFixtures.js";
 import { faultAsWritten, guardOf, scheduleEvents, setupOf } from "./guardFixtures.js";
 
-// The may-start rule against simulate. The fixed-point estimator used here is the exported C
-// source's twin (exportedC.test.ts: bit for bit the same answers under gcc). Random fault
+// The may-start rule against simulate. The estimators used here are the exported C sources'
+// twins (exportedC.test.ts: bit for bit the same answers under gcc). Random fault
 // sequences (fast-check, fixed seed, bounded runs): a corner, a number of attempts, and for each
 // attempt a delay after the guard first allows it (a firmware busy elsewhere, a driver that
 // starts late); the attempts the guard admits are written back into the profile and simulated:
@@ -15,12 +15,12 @@ import { faultAsWritten, guardOf, scheduleEvents, setupOf } from "./guardFixture
 
 const PROFILES = ["warehouse-robot-48v.yaml", "heat-pump-trip-retries.yaml", "electric-boat-72v-supervision.yaml", "irrigation-pump-decade.yaml"];
 
-describe("random fault sequences: no attempt the guard admits crosses limit − margin in simulate", () => {
+describe.each(["fixed", "float"] as const)("random fault sequences, %s point: no attempt the guard admits crosses limit − margin in simulate", (numeric) => {
   test.each(PROFILES)("%s", (name) => {
     const text = bundledText(name);
     const setup = setupOf(name);
     const guard = buildThermalGuard(setup, setup.timing.timerResolutionS);
-    const fixed = fixedPointGuard(guard);
+    const estimator = (): GuardEstimator => (numeric === "fixed" ? new FixedPointEstimator(fixedPointGuard(guard)) : new FloatEstimator(floatGuard(guard)));
     const corners = cornersOf(text);
     const fault = faultAsWritten(text);
     fc.assert(
@@ -29,7 +29,7 @@ describe("random fault sequences: no attempt the guard admits crosses limit − 
         fc.integer({ min: 2, max: 7 }),
         fc.array(fc.oneof(fc.constant(0), fc.integer({ min: 1, max: 40 }), fc.integer({ min: 40, max: 3000 })), { minLength: 7, maxLength: 7 }),
         (corner, attempts, delays) => {
-          const burst = runGuardBurst(guard, setup, corner, new FixedPointEstimator(fixed), attempts, { extraWaitTicks: (k) => delays[k - 1] ?? 0 });
+          const burst = runGuardBurst(guard, setup, corner, estimator(), attempts, { extraWaitTicks: (k) => delays[k - 1] ?? 0 });
           expect(burst.attempts.length).toBe(attempts);
           // the exact own peak of every admitted attempt (AttemptCursor) is within limit − margin
           for (const a of burst.attempts) expect(a.headroomK).toBeGreaterThanOrEqual(0);
