@@ -183,6 +183,17 @@ export { sizeProfile } from "./size/sizeProfile.js";
 export type { SizeProfileOptions, SizingReport } from "./size/sizeProfile.js";
 export { formatSizingText } from "./report/formatSizingText.js";
 export { sizingJson } from "./report/sizingJson.js";
+// firmware guard (modal model at the tick, may-start rule, fixed- and floating-point C export, test vectors)
+export { GUARD_DEFAULTS, GUARD_NUMERICS } from "./guard/guardDefaults.js";
+export type { GuardNumeric } from "./guard/guardDefaults.js";
+export { planGuard } from "./guard/planGuard.js";
+export type { GuardOptions, GuardReport, GuardConservatism } from "./guard/planGuard.js";
+export { guardCSource } from "./guard/guardCSource.js";
+export type { GuardCFiles, GuardCOrigin } from "./guard/guardCSource.js";
+export { guardModelJson } from "./guard/guardModelJson.js";
+export { guardVectorsJson } from "./guard/guardVectorsJson.js";
+export { formatGuardText } from "./report/formatGuardText.js";
+export { guardJson } from "./report/guardJson.js";
 // plan: supervision (timeout window, early-abort checks, retry storms)
 export { SUPERVISE_DEFAULTS } from "./supervise/superviseDefaults.js";
 export { supervisePrecharge } from "./supervise/supervisePrecharge.js";

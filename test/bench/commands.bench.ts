@@ -45,7 +45,7 @@ function cases(): { label: string; input: string; args: string[] }[] {
     .filter((f) => f.endsWith(".yaml"))
     .sort();
   const list: { label: string; input: string; args: string[] }[] = [{ label: "--help", input: "", args: ["--help"] }];
-  for (const command of ["simulate", "retries", "supervise", "size"]) {
+  for (const command of ["simulate", "retries", "supervise", "size", "guard"]) {
     for (const p of profiles) list.push({ label: command, input: p, args: [command, `profiles/${p}`] });
   }
   list.push({ label: "replay", input: "logs/irrigation-pump-returned-unit.csv", args: ["replay", "profiles/logs/irrigation-pump-returned-unit.csv", "--profile", "profiles/irrigation-pump-decade.yaml"] });

@@ -1,4 +1,5 @@
 import type { Command } from "commander";
+import { registerGuard } from "./guard.js";
 import { registerNetwork } from "./network.js";
 import { registerReplay } from "./replay.js";
 import { registerRetries } from "./retries.js";
@@ -16,4 +17,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerNetwork];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork];
