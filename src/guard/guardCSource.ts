@@ -36,6 +36,10 @@ type Numbers = { readonly kind: "fixed"; readonly q: FixedPointGuard } | { reado
  * unsigned values, which are exact (the signed cases are done on magnitudes, so nothing depends
  * on implementation-defined behaviour).
  * Cost O(size of the tables).
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * const origin = { profile: "robot.yaml", name: "robot_guard", headerFile: "robot_guard.h" };
+ * guardCSource(report.guard, { kind: "fixed", q: report.fixed }, origin).header.includes("robot_guard_may_start") // => true
  */
 export function guardCSource(guard: ThermalGuard, numbers: Numbers, origin: GuardCOrigin): GuardCFiles {
   const N = origin.name;

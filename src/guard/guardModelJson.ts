@@ -12,6 +12,9 @@ import type { ThermalGuard } from "./thermalGuard.js";
  * double-precision tables of the floating-point export and, when made, the integer tables of the
  * fixed-point export, with the arithmetic each needs written out in `arithmetic`. The same
  * numbers the C source holds. Cost O(size of the tables).
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * guardModelJson(report.guard, report.float, report.fixed, "robot.yaml").kind // => "heatledger-thermal-guard"
  */
 export function guardModelJson(guard: ThermalGuard, float: FloatGuard, fixed: FixedPointGuard | null, profile: string): Record<string, unknown> {
   return {

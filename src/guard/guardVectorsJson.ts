@@ -6,6 +6,9 @@ import type { GuardReport } from "./planGuard.js";
  * exact rise at that tick instant, the may-start answer and, on idle lines, the cool-down answer in
  * ticks, −1 for never) and the attempts it admitted. Fixed-point values are the Q integers.
  * Cost O(lines × parts × modes).
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * guardVectorsJson(report, "robot.yaml").kind // => "heatledger-guard-vectors"
  */
 export function guardVectorsJson(report: GuardReport, profile: string): Record<string, unknown> {
   const num = (v: number | bigint): number => Number(v);

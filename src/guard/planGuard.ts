@@ -69,6 +69,9 @@ export interface GuardReport {
  * conservatism.
  * Cost O(corners × (attempts × cost of one attempt + ticks × parts × modes)).
  * @throws InputError from profileRetrySetup, buildThermalGuard and fixedPointGuard
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * report.conservatism[0].burstRatio // => 1.0151
  */
 export function planGuard(profile: DutyProfile, models: CircuitModels, options: GuardOptions = {}): GuardReport {
   const setup = profileRetrySetup(profile, models);

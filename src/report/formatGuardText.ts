@@ -14,6 +14,9 @@ export interface GuardFilesWritten {
  * tick, zero-order-hold and guard gains), the may-start table's tightest span, the in-between-ticks
  * figures, the comparison with the fastest safe schedule per corner, the files written, the
  * verdict and the cautions. Within `width` columns. Cost O(parts × modes + corners × attempts).
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * formatGuardText(report, "robot.yaml", { paths: [] }).split("\n")[0] // => "Firmware thermal guard for robot.yaml: tick 1.00 ms, corners nominal."
  */
 export function formatGuardText(report: GuardReport, profile: string, written: GuardFilesWritten, width = 100): string {
   const g = report.guard;

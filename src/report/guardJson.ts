@@ -12,6 +12,9 @@ const num = (x: number): number | null => (Number.isFinite(x) ? x : null);
  * [J] and the placement error it covers [K]; per corner the comparison with the fastest safe
  * schedule (start times [s], laterByS, burstRatio) and the admitted attempts' exact peaks [°C];
  * the files written; cautions. Every number SI; non-finite numbers are null. Cost O(size).
+ * @example
+ * const report = planGuard(profile("warehouse-robot-48v.yaml"), defaultCircuitModels);
+ * guardJson(report, "robot.yaml", []).verdict // => "pass"
  */
 export function guardJson(report: GuardReport, profile: string, written: readonly string[]): object {
   const g = report.guard;
