@@ -12,7 +12,7 @@ describe("--help of every judging command", () => {
     const help = io.stdout.join("");
     expect(help).toContain("--strict");
     expect(help).toContain("exit with status 1 on a warn verdict too (for CI gating)");
-    expect(help).toContain("Verdict and exit status (one rule for simulate, replay, retries, supervise and size");
+    expect(help).toContain("Verdict and exit status (one rule for every command that judges a part");
     expect(help).toContain(`  pass   ${VERDICTS.pass.meaning}: exit status 0`);
     expect(help.replace(/\s+/g, " ")).toContain(`warn ${VERDICTS.warn.meaning}: exit status 0, or 1 with --strict`);
     expect(help).toContain(`  fail   ${VERDICTS.fail.meaning}: exit status 1`);

@@ -29,8 +29,8 @@ export function verdictHelp(covers: string): string {
     return definition(v, `${rule.meaning}: ${status}`);
   });
   return [
-    "Verdict and exit status (one rule for simulate, replay, retries, supervise and size; the same",
-    'words in the report and in the JSON "verdict"):',
+    "Verdict and exit status (one rule for every command that judges a part; the same words in",
+    'the report and in the JSON "verdict"):',
     ...words,
     `  bad input (a file, field or flag): exit status ${EXIT_INPUT}`,
     wrapText(covers, HELP_WIDTH),
