@@ -47,8 +47,8 @@ export interface SimulationResult {
   readonly eventCount: number;
   readonly stepCount: number;
   readonly endTimeS: number;
-  /** charging events by outcome, and how many of the timed-out ones had the bus stalled below the threshold */
-  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "busStalled", number>>;
+  /** charging events by outcome (tripped: ended by a protection), and how many of the timed-out ones had the bus stalled below the threshold */
+  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "tripped" | "busStalled", number>>;
 }
 
 /** Options of {@link simulateProfile}. */
@@ -125,7 +125,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const energy = new Float64Array(count);
   const eventPeak = new Float64Array(count);
   const eventPeakTime = new Float64Array(count);
-  const outcomes = { completed: 0, "timed-out": 0, busStalled: 0 };
+  const outcomes = { completed: 0, "timed-out": 0, tripped: 0, busStalled: 0 };
   let current: TimelineEvent | undefined;
   let events = 0;
   let lastIndex = -1;

@@ -65,9 +65,12 @@ export function formatSimulationText(
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
   const o = result.outcomes;
-  const charges = o.completed + o["timed-out"];
+  const charges = o.completed + o["timed-out"] + o.tripped;
   if (charges > 0)
-    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`);
+    out.push(
+      `pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.tripped > 0 ? `, ${o.tripped} ended by a protection` : ""}` +
+        `${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`,
+    );
   out.push("");
   out.push("Parts");
   out.push(
