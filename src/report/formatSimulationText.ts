@@ -1,3 +1,4 @@
+import { formatContactorLines } from "./formatContactorLines.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
@@ -105,6 +106,7 @@ export function formatSimulationText(
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;
+  const hasContactor = profile.circuit?.contactor !== undefined;
   out.push(
     formatTable(
       [
@@ -113,6 +115,7 @@ export function formatSimulationText(
         { heading: "event" },
         { heading: "outcome" },
         ...(hasCircuit ? [{ heading: "bus [V]", align: "right" as const }] : []),
+        ...(hasContactor ? [{ heading: "close [A]", align: "right" as const }] : []),
         ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
         ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
       ],
@@ -122,6 +125,7 @@ export function formatSimulationText(
         e.label,
         e.outcome === "none" ? "" : e.busStalled ? `${e.outcome}${STALLED_MARK}` : e.outcome,
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
+        ...(hasContactor ? [e.closing === undefined ? "" : formatNumber(e.closing.peakCurrentA, 4)] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
       ]),
@@ -142,7 +146,8 @@ export function formatSimulationText(
   }
   // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
   if (stressText !== "") out.push(stressText);
-  const verdict = simulationVerdict(result.verdict, ratingStatus);
+  if (result.contactor !== undefined) out.push(...formatContactorLines(result.contactor, Math.min(width, 100)));
+  const verdict = simulationVerdict(result.verdict, ratingStatus, result.contactor?.verdict);
   out.push(wrapText(verdictLine(verdict.verdict, verdict.reason), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
