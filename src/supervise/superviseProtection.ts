@@ -45,9 +45,11 @@ export const CHECK_THRESHOLD_DIGITS = 4;
 function roundSignificant(x: number, up: boolean): number {
   if (!(x > 0)) return x;
   const step = 10 ** (Math.floor(Math.log10(x)) - CHECK_THRESHOLD_DIGITS + 1);
-  const n = x / step;
-  const k = up ? Math.ceil(n - 1e-9) : Math.floor(n + 1e-9);
-  return Number((k * step).toPrecision(CHECK_THRESHOLD_DIGITS));
+  let k = up ? Math.ceil(x / step) : Math.floor(x / step);
+  const at = (j: number): number => Number((j * step).toPrecision(CHECK_THRESHOLD_DIGITS));
+  // the written value must lie on the healthy side of x even after the decimal rounding
+  while (up ? at(k) < x : at(k) > x) k += up ? 1 : -1;
+  return at(k);
 }
 
 /** Bisection steps on log(resistance) for the weakest caught fault: 2^-60 of 30 decades. */
