@@ -13,12 +13,12 @@ export function formatContactorLines(c: ContactorSummary, width: number): string
   return [
     "Contactor at close",
     wrapText(
-      `  ${c.closes} closing(s); the worst after event ${c.worstEventIndex}: ${formatNumber(w.deltaV, 3)} V left across it, ` +
+      `${c.closes} closing(s); the worst after event ${c.worstEventIndex}: ${formatNumber(w.deltaV, 3)} V left across it, ` +
         `${formatNumber(w.energyJ, 3)} J into the loop, peak ${formatNumber(w.peakCurrentA, 4)} A${when} (${w.loop} loop) ` +
         `against a making-current rating of ${formatNumber(c.makingCurrentA, 4)} A (${formatNumber(w.ratingRatio * 100, 3)} %).`,
       width,
     ),
-    `  contactor verdict: ${c.verdict}`,
+    `contactor verdict: ${c.verdict}`,
     "",
   ];
 }
