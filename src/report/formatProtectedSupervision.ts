@@ -9,10 +9,10 @@ const interval = (a: ForeverIntervalAnswer): string => (a.minimumIntervalS === n
  * The supervise report's block on the recommended checks as profile protection: for each check the
  * energy before it fires into a hard short and into the weakest fault it catches, what a fault
  * it misses puts in until the timeout, the healthy margin, and the retry-for-ever interval into a
- * short without and with the checks (what `--write-checks` buys). Cost O(checks).
+ * short without and with the checks (what `--checks` buys). Cost O(checks).
  */
 export function formatProtectedSupervision(p: ProtectedSupervision, width: number): string[] {
-  const out = ["Recommended checks as profile protection (supervise --write-checks FILE writes them)"];
+  const out = ["Recommended checks as profile protection (supervise --checks FILE writes them)"];
   for (const c of p.checks) {
     const what = c.kind === "early-abort" ? `bus below ${formatNumber(c.thresholdV, 4)} V at ${formatDuration(c.timeS)}` : `bus above ${formatNumber(c.thresholdV, 4)} V at ${formatDuration(c.timeS)}`;
     const parts = [`  ${c.kind}: ${what}.`];

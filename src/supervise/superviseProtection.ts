@@ -30,7 +30,7 @@ export interface CheckExposure {
 
 /** The recommended checks as profile protection, what they let through, and the retry-for-ever interval they buy. */
 export interface ProtectedSupervision {
-  /** the checks as `circuit.protection` would hold them (what `supervise --write-checks` writes) */
+  /** the checks as `circuit.protection` would hold them (what `supervise --checks` writes) */
   readonly protection: AttemptProtection;
   readonly checks: readonly CheckExposure[];
   /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the checks */

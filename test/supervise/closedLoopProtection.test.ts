@@ -3,7 +3,7 @@ import { parse } from "yaml";
 import { type SupervisionReport, defaultCircuitModels, planRetries, protectionFragment, supervisePrecharge } from "../../src/internal.js";
 import { DANGER_STEP, PEAK_TOLERANCE_K, bundledText, loadAs, retryBlockOf, simulatedPeaks, withEvents, withValue, worst } from "../helpers/closedLoopFixtures.js";
 
-// Closed loop for `supervise --write-checks`: the recommended checks, written as the profile
+// Closed loop for `supervise --checks`: the recommended checks, written as the profile
 // fragment the command writes, are pasted under the bundled boat profile's `circuit:` key at the
 // highest pack voltage (the corner that binds). The retry planner on that profile must find the
 // retry-for-ever interval supervise promised; simulate, retrying for ever at that interval into
@@ -31,7 +31,7 @@ function foreverAt(profileText: string, intervalS: number): number {
   return worst(simulatedPeaks(withEvents(profileText, events), BOAT)).headroomK;
 }
 
-describe("supervise --write-checks: the fragment pasted into the profile gives the promised retry interval", () => {
+describe("supervise --checks: the fragment pasted into the profile gives the promised retry interval", () => {
   test("the fragment holds the recommended early-abort and rise-too-fast checks, thresholds on the healthy side", () => {
     const r = reportOf();
     const checks = r.protection!.protection.busChecks!;

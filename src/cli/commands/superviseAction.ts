@@ -18,7 +18,7 @@ import type { SuperviseFlags } from "./supervise.js";
  * @throws InputError for a bad profile or a file it names
  */
 export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
-  refuseExistingOutput(run.io, options.writeChecks, options.force === true, "--write-checks");
+  refuseExistingOutput(run.io, options.checks, options.force === true, "--checks");
   const profile = readProfileFile(run.io, file);
   const progress = attemptsProgress(run.io, "supervise");
   let report;
@@ -28,10 +28,10 @@ export function superviseAction(run: CliRun, file: string, options: SuperviseFla
   } finally {
     progress.done();
   }
-  if (options.writeChecks !== undefined) {
+  if (options.checks !== undefined) {
     if (report.protection === null)
-      throw new InputError({ code: "bad-option", file: "", line: 0, field: "--write-checks", expected: "a usable early-abort or rise-too-fast check to write", found: "none at the profile's check times" });
-    writeOutputFile(run.io, options.writeChecks, protectionFragment(report.protection.protection, `heatledger supervise: recommended checks of "${report.profile}"`), options.force === true, "--write-checks");
+      throw new InputError({ code: "bad-option", file: "", line: 0, field: "--checks", expected: "a usable early-abort or rise-too-fast check to write", found: "none at the profile's check times" });
+    writeOutputFile(run.io, options.checks, protectionFragment(report.protection.protection, `heatledger supervise: recommended checks of "${report.profile}"`), options.force === true, "--checks");
   }
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
   else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
