@@ -57,6 +57,8 @@ export { chargeSeriesResistor } from "./circuits/chargeSeriesResistor.js";
 export type { SeriesResistorParams } from "./circuits/chargeSeriesResistor.js";
 export { dischargeVoltage } from "./circuits/dischargeVoltage.js";
 export type { DischargePath } from "./circuits/dischargeVoltage.js";
+export { validateProtection } from "./circuits/AttemptProtection.js";
+export type { AttemptProtection, BusVoltageCheck, BusRiseCheck, OverCurrentTrip, I2tLimit, ProtectionFiring } from "./circuits/AttemptProtection.js";
 export { fosterToCauer, FOSTER_TO_CAUER_ROUND_TRIP_TOLERANCE } from "./thermal/fosterToCauer.js";
 export { modalToFoster } from "./thermal/modalToFoster.js";
 export { chainNetworks } from "./thermal/chainNetworks.js";

@@ -1,11 +1,13 @@
 import type { PowerTrace } from "../thermal/powerTrace.js";
+import type { AttemptProtection, ProtectionFiring } from "./AttemptProtection.js";
 
 /**
  * How a pre-charge attempt ended, as the firmware sees it: the bus reached the completion threshold
  * (or the fixed dwell ended), or the timeout timer ended the attempt. Whether the bus could still
- * have got there is a separate fact, CircuitResult.busStalled.
+ * have got there is a separate fact, CircuitResult.busStalled. "tripped": a protection of the
+ * completion rule (CompletionRule.protection) ended it first; CircuitResult.trippedBy names it.
  */
-export type CircuitOutcome = "completed" | "timed-out";
+export type CircuitOutcome = "completed" | "timed-out" | "tripped";
 
 /** The conditions one charging event starts from. */
 export interface ChargeConditions {
@@ -36,6 +38,8 @@ export interface CompletionRule {
   readonly dwellS?: number;
   /** abort after this time [s] */
   readonly timeoutS: number;
+  /** protection that may end the attempt sooner (bus checks, over-current, I²t, maximum on-time) */
+  readonly protection?: AttemptProtection;
 }
 
 /** One sample of the circuit state, for plots and CSV. */
@@ -82,6 +86,8 @@ export interface CircuitResult {
   /** power per dissipating role ("resistor", "mosfet", "sourceResistor", "switch", ...) */
   readonly traces: Readonly<Record<string, PowerTrace>>;
   readonly energy: EnergyBalance;
+  /** the protection that ended the attempt (outcome "tripped"), with the moment and the reason */
+  readonly trippedBy?: ProtectionFiring;
   /** present when ChargeConditions.wantSamples was true */
   readonly samples?: readonly CircuitSample[];
 }

@@ -5,6 +5,9 @@ import { type BusLevel, type BusRegime, type ChargeModel, type Quadratic, evalQu
 import type { ChargeConditions, CircuitOutcome, CircuitResult, CircuitSample } from "./CircuitResult.js";
 import { type RegimeStretch, integrateBusOde } from "./integrateBusOde.js";
 import { type ResolvedCompletion, reasonNumber, resolveCompletion } from "./resolveCompletion.js";
+import { type ProtectionFiring, validateProtection } from "./AttemptProtection.js";
+import { ProtectionMonitor } from "./ProtectionMonitor.js";
+import { stretchPath } from "./stretchPath.js";
 
 /** Samples per exact (analytic) stretch when samples are requested. */
 export const SAMPLES_PER_STRETCH = 16;
@@ -208,7 +211,9 @@ function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusL
  * odex into piecewise-linear segments ({@link integrateBusOde}), until the completion threshold,
  * the dwell or the timeout. At the timeout the outcome is `timed-out` (the firmware's timer ended
  * the attempt), with `busStalled` true when the bus would never have reached the threshold (it
- * settles below it, is held at 0 V, or cycles with the load switching).
+ * settles below it, is held at 0 V, or cycles with the load switching). A protection of the
+ * completion rule (`completion.protection`) that fires first ends the attempt at that exact moment
+ * with the outcome `tripped` and `trippedBy` ({@link ProtectionMonitor}).
  *
  * Energy bookkeeping: source = ΔE_C + Σ parts + load, where a short across a charged capacitor
  * dumps C·V0²/2 into the load at t = 0.
@@ -249,6 +254,9 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
   const scaleV = Math.max(vs, v0, ...(load.kind === "constant-power" || load.kind === "constant-current" ? [busLoadThresholds(load).enableV] : []));
   const limitS = Math.min(rule.dwellS, rule.timeoutS);
   const cache = new Map<string, RegimeStretch>();
+  if (conditions.completion.protection !== undefined) validateProtection(conditions.completion.protection);
+  const monitor = conditions.completion.protection === undefined ? undefined : new ProtectionMonitor(conditions.completion.protection);
+  let trippedBy: ProtectionFiring | undefined;
 
   let t = 0;
   let outcome: CircuitOutcome | undefined;
@@ -274,6 +282,13 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
         if (stretch.level !== undefined) cache.set(key, stretch);
       }
     }
+    if (monitor !== undefined) {
+      trippedBy = monitor.scan(stretchPath(regime, c, t, v, stretch.durationS, stretch.endVoltageV, scaleV));
+      if (trippedBy !== undefined) {
+        const cutS = trippedBy.timeS - t;
+        stretch = regime.h === 0 ? linearStretch(regime, c, v, cutS, [], wantSamples) : integrateBusOde(regime, c, v, cutS, [], scaleV, wantSamples);
+      }
+    }
     for (const [key, segs] of Object.entries(stretch.segments)) {
       if (traces[key] === undefined) continue;
       for (const s of segs) traces[key]!.push({ ...s, startS: s.startS + t });
@@ -283,8 +298,13 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     sourceJ += stretch.sourceJ;
     loadJ += stretch.loadJ;
     for (const s of stretch.samples) samples.push({ ...s, timeS: s.timeS + t });
-    t = stretch.level === undefined ? limitS : t + stretch.durationS;
+    t = trippedBy !== undefined ? trippedBy.timeS : stretch.level === undefined ? limitS : t + stretch.durationS;
     v = stretch.endVoltageV;
+    if (trippedBy !== undefined) {
+      outcome = "tripped";
+      reason = `${trippedBy.words}; attempt ended with the bus at ${reasonNumber(v)} V`;
+      break;
+    }
     const level = stretch.level;
     if (level === undefined) {
       if (rule.dwellS <= rule.timeoutS) {
@@ -341,6 +361,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     endVoltageV: v,
     traces,
     energy: { sourceJ, storedJ: 0.5 * c * (v * v - v0 * v0), loadJ, partsJ },
+    ...(trippedBy === undefined ? {} : { trippedBy }),
     ...(wantSamples ? { samples } : {}),
   };
   return result;

@@ -1,6 +1,7 @@
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { CompletionRule } from "../circuits/CircuitResult.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
+import type { ContactorSpec } from "../circuits/contactorClosing.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import type { ThermalNetwork } from "../thermal/ThermalNetwork.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
@@ -18,6 +19,8 @@ export type ProfileCircuit = {
   readonly load: BusLoad;
   readonly completion: CompletionRule;
   readonly discharge: DischargePath;
+  /** the main contactor's making-current rating and the loop it closes (`circuit.contactor`) */
+  readonly contactor?: ContactorSpec;
 } & (
   | { readonly topology: "series-resistor"; readonly resistanceOhm: number; readonly sourceResistanceOhm?: number }
   | {

@@ -11,6 +11,9 @@ export interface EventRecord {
   readonly outcome: TimelineEvent["outcome"];
   readonly busStalled: boolean;
   readonly reason: string;
+  /** the protection that ended a charging event, and the contactor's closing after a completed one */
+  readonly trippedBy?: TimelineEvent["trippedBy"];
+  readonly closing?: TimelineEvent["closing"];
   readonly startVoltageV: number;
   readonly endVoltageV: number;
   /** per part, profile order */
@@ -73,6 +76,8 @@ export class EventDigest {
       outcome: event.outcome,
       busStalled: event.busStalled,
       reason: event.reason,
+      ...(event.trippedBy === undefined ? {} : { trippedBy: event.trippedBy }),
+      ...(event.closing === undefined ? {} : { closing: event.closing }),
       startVoltageV: event.startVoltageV,
       endVoltageV: event.endVoltageV,
       energyJ: event.energyJ,

@@ -1,3 +1,5 @@
+import type { ProtectionFiring } from "../circuits/AttemptProtection.js";
+import { type ContactorClosing, contactorClosing } from "../circuits/contactorClosing.js";
 import type { CircuitOutcome, CircuitResult, CircuitSample } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
@@ -36,6 +38,10 @@ export interface TimelineEvent {
   readonly traces: readonly (PowerTrace | undefined)[];
   /** energy into each part [J] */
   readonly energyJ: readonly number[];
+  /** the protection that ended a charging event (outcome "tripped") */
+  readonly trippedBy?: ProtectionFiring["kind"];
+  /** the main contactor closing after a completed charge (when the circuit gives `contactor`) */
+  readonly closing?: ContactorClosing;
   /** circuit samples of a charging event in absolute time, when ExpandOptions.wantSamples asked for them */
   readonly samples?: readonly CircuitSample[];
 }
@@ -176,7 +182,9 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.voltageV = r.endVoltageV;
     }
     const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
+    const closing = r.outcome === "completed" && c.contactor !== undefined ? { closing: contactorClosing(c.contactor, c.capacitanceF, c.busVoltageV - r.endVoltageV) } : {};
+    const tripped = r.trippedBy === undefined ? {} : { trippedBy: r.trippedBy.kind };
+    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...tripped, ...closing, ...samples };
   };
 
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per

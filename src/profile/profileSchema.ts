@@ -212,6 +212,33 @@ const relaySchema = z.strictObject({
   release: quantity("time", { min: 0, words: 'a release time ≥ 0 such as "8 ms"' }).optional(),
 });
 
+/** Protection that ends a pre-charge attempt before its timeout (src/circuits/AttemptProtection.ts). */
+export const protectionSchema = z.strictObject({
+  busChecks: z
+    .array(
+      z.strictObject({
+        at: nonNegativeTime("a check time"),
+        below: quantity("voltage", { above: 0, words: 'a voltage > 0 such as "45 V"' }).optional(),
+        above: quantity("voltage", { above: 0, words: 'a voltage > 0 such as "60 V"' }).optional(),
+      }),
+    )
+    .optional(),
+  riseChecks: z
+    .array(z.strictObject({ from: nonNegativeTime("a start time"), to: positiveTime("an end time"), atLeast: quantity("voltageRate", { above: 0, words: 'a rise rate > 0 such as "200 V/s"' }) }))
+    .optional(),
+  overCurrent: z.strictObject({ above: quantity("current", { above: 0, words: 'a trip current > 0 such as "3 A"' }), for: nonNegativeTime("a delay") }).optional(),
+  fuse: z.strictObject({ i2t: quantity("currentSquaredTime", { above: 0, words: 'a melting I²t > 0 such as "5 A^2 s"' }) }).optional(),
+  firmwareI2t: quantity("currentSquaredTime", { above: 0, words: 'an I²t limit > 0 such as "2 A^2 s"' }).optional(),
+  maxOnTime: positiveTime("a maximum on-time").optional(),
+});
+
+/** The main contactor that closes across the pre-charge element: its making-current rating and the loop it closes. */
+export const contactorSchema = z.strictObject({
+  makingCurrent: quantity("current", { above: 0, words: 'a making-current rating > 0 such as "150 A"' }),
+  loopResistance: quantity("resistance", { above: 0, words: 'a loop resistance > 0 such as "30 mohm"' }),
+  loopInductance: quantity("inductance", { min: 0, words: 'a loop inductance ≥ 0 such as "2 uH"' }).optional(),
+});
+
 /** The pre-charge circuit: topology, bus, capacitor, load, completion rule, discharge path and relay. */
 export const circuitSchema = z.strictObject({
   topology: z.enum(["series-resistor", "linear-mosfet", "converter"]),
@@ -225,6 +252,8 @@ export const circuitSchema = z.strictObject({
   completion: completionSchema,
   discharge: dischargeSchema,
   relay: relaySchema.optional(),
+  protection: protectionSchema.optional(),
+  contactor: contactorSchema.optional(),
 });
 
 /** The firmware that runs the pre-charge: the resolution of the timer it times waits with. */
@@ -355,3 +384,7 @@ export type FaultInput = z.output<typeof faultSchema>;
 export type CircuitInput = z.output<typeof circuitSchema>;
 /** A validated part. */
 export type PartInput = z.output<typeof partSchema>;
+/** A validated `circuit.protection` section. */
+export type ProtectionInput = z.output<typeof protectionSchema>;
+/** A validated `circuit.contactor` section. */
+export type ContactorInput = z.output<typeof contactorSchema>;

@@ -4,6 +4,7 @@ import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ProfileCircuit } from "./DutyProfile.js";
 import { type CircuitInput, type LoadInput } from "./profileSchema.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
+import { resolveContactor, resolveProtection } from "./resolveProtection.js";
 import type { CircuitRole } from "./DutyProfile.js";
 
 /*
@@ -31,6 +32,7 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
     reader.fail("bad-profile", join(field, "completion"), "at least one of fraction, within or dwell (when the charge counts as done)", "only a timeout");
   const load = resolveLoad(reader, c.load ?? { kind: "none" }, join(field, "load"), c.busVoltage);
   const discharge = resolveDischarge(reader, c.discharge, join(field, "discharge"));
+  const protection = c.protection === undefined ? undefined : resolveProtection(reader, c.protection, join(field, "protection"));
   const common = {
     busVoltageV: c.busVoltage,
     capacitanceF: c.capacitance,
@@ -40,8 +42,10 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
       ...(completion.fraction === undefined ? {} : { fraction: completion.fraction }),
       ...(completion.within === undefined ? {} : { withinV: completion.within }),
       ...(completion.dwell === undefined ? {} : { dwellS: completion.dwell }),
+      ...(protection === undefined ? {} : { protection }),
     },
     discharge: discharge ?? { kind: "none" as const },
+    ...(c.contactor === undefined ? {} : { contactor: resolveContactor(c.contactor) }),
   };
   switch (c.topology) {
     case "series-resistor":

@@ -1,3 +1,4 @@
+import { type ContactorSummary, ContactorTally } from "./ContactorTally.js";
 import { InputError, withLocation } from "../errors/InputError.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
@@ -47,8 +48,10 @@ export interface SimulationResult {
   readonly eventCount: number;
   readonly stepCount: number;
   readonly endTimeS: number;
-  /** charging events by outcome, and how many of the timed-out ones had the bus stalled below the threshold */
-  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "busStalled", number>>;
+  /** charging events by outcome (tripped: ended by a protection), and how many of the timed-out ones had the bus stalled below the threshold */
+  readonly outcomes: Readonly<Record<"completed" | "timed-out" | "tripped" | "busStalled", number>>;
+  /** the main contactor's closings after completed charges, when the circuit gives `contactor` */
+  readonly contactor?: ContactorSummary;
 }
 
 /** Options of {@link simulateProfile}. */
@@ -127,7 +130,8 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const energy = new Float64Array(count);
   const eventPeak = new Float64Array(count);
   const eventPeakTime = new Float64Array(count);
-  const outcomes = { completed: 0, "timed-out": 0, busStalled: 0 };
+  const outcomes = { completed: 0, "timed-out": 0, tripped: 0, busStalled: 0 };
+  const contactor = profile.circuit?.contactor === undefined ? undefined : new ContactorTally(profile.circuit.contactor.makingCurrentA);
   let current: TimelineEvent | undefined;
   let events = 0;
   let lastIndex = -1;
@@ -165,6 +169,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     }
     if (event.outcome !== "none") outcomes[event.outcome]++;
     if (event.busStalled) outcomes.busStalled++;
+    if (event.closing !== undefined) contactor?.add(event.closing, event.index);
   };
 
   const pointTemperatures = new Array<number>(count).fill(0);
@@ -218,5 +223,14 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
       endTemperatureC: p.ambientC + modalRise(model, summary.endState, i),
     };
   });
-  return { verdict: worstVerdict(results.map((r) => r.verdict)), parts: results, eventCount: events, stepCount: summary.steps, endTimeS: summary.endTimeS, outcomes };
+  const closings = contactor?.summary();
+  return {
+    verdict: worstVerdict(results.map((r) => r.verdict)),
+    parts: results,
+    eventCount: events,
+    stepCount: summary.steps,
+    endTimeS: summary.endTimeS,
+    outcomes,
+    ...(closings === undefined ? {} : { contactor: closings }),
+  };
 }

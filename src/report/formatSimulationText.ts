@@ -1,3 +1,4 @@
+import { formatContactorLines } from "./formatContactorLines.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
@@ -70,9 +71,12 @@ export function formatSimulationText(
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
   const o = result.outcomes;
-  const charges = o.completed + o["timed-out"];
+  const charges = o.completed + o["timed-out"] + o.tripped;
   if (charges > 0)
-    out.push(`pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`);
+    out.push(
+      `pre-charge attempts: ${charges} (${o.completed} completed, ${o["timed-out"]} timed out${o.tripped > 0 ? `, ${o.tripped} ended by a protection` : ""}` +
+        `${o.busStalled > 0 ? `; the bus stalled in ${o.busStalled} of them` : ""})`,
+    );
   out.push("");
   out.push("Parts");
   out.push(
@@ -107,6 +111,7 @@ export function formatSimulationText(
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;
+  const hasContactor = profile.circuit?.contactor !== undefined;
   out.push(
     formatTable(
       [
@@ -115,6 +120,7 @@ export function formatSimulationText(
         { heading: "event" },
         { heading: "outcome" },
         ...(hasCircuit ? [{ heading: "bus [V]", align: "right" as const }] : []),
+        ...(hasContactor ? [{ heading: "close [A]", align: "right" as const }] : []),
         ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
         ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
       ],
@@ -124,6 +130,7 @@ export function formatSimulationText(
         e.label,
         e.outcome === "none" ? "" : e.busStalled ? `${e.outcome}${STALLED_MARK}` : e.outcome,
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
+        ...(hasContactor ? [e.closing === undefined ? "" : formatNumber(e.closing.peakCurrentA, 4)] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
       ]),
@@ -144,7 +151,8 @@ export function formatSimulationText(
   }
   // the stress layer's block (rating checks, cycles, damage; src/report/formatProfileStress.ts), before the verdict
   if (stressText !== "") out.push(stressText);
-  const verdict = simulationVerdict(result.verdict, ratingStatus);
+  if (result.contactor !== undefined) out.push(...formatContactorLines(result.contactor, Math.min(width, 100)));
+  const verdict = simulationVerdict(result.verdict, ratingStatus, result.contactor?.verdict);
   out.push(wrapText(verdictLine(verdict.verdict, verdict.reason), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));

@@ -3,6 +3,7 @@ import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
 import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
+import { formatProtectedSupervision } from "./formatProtectedSupervision.js";
 
 const dur = (s: number): string => (s === Infinity ? "unbounded" : formatDuration(s));
 const volts = (v: number): string => `${formatNumber(v, 3)} V`;
@@ -88,6 +89,7 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
   const r = report.recommendedRise;
   out.push(r === null ? "  no usable rise-too-fast check at these times." : `  recommended: abort if the bus is above ${volts(r.thresholdV)} at ${dur(r.timeS)}.`);
   out.push("");
+  if (report.protection !== null) out.push(...formatProtectedSupervision(report.protection, Math.min(width, 100)), "");
   out.push(`Retry storms into a short at the profile's ${dur(report.storm.timeoutS)} timeout (retry planner)`);
   const storm = (label: string, m: typeof report.storm.backToBack): string =>
     m.unlimited

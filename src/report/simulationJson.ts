@@ -1,3 +1,4 @@
+import type { ContactorSummary } from "../profile/ContactorTally.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { reportCautions } from "../text/cautions.js";
@@ -15,6 +16,10 @@ export interface JsonPartEvent {
   readonly outcome: string;
   /** a timed-out charging event whose bus had stalled below the completion threshold */
   readonly busStalled: boolean;
+  /** the protection that ended a tripped charging event */
+  readonly trippedBy?: string;
+  /** the contactor's closing after a completed charge: ΔV [V], energy [J], peak current [A] */
+  readonly closing?: { readonly deltaV: number; readonly energyJ: number; readonly peakCurrentA: number; readonly peakTimeS: number; readonly loop: string };
 }
 
 /** The `simulate --json` object (docs/design.md, "The JSON contract", with additions that never rename its fields). */
@@ -39,6 +44,8 @@ export interface SimulationJson {
     readonly events: readonly JsonPartEvent[];
   }[];
   readonly cautions: readonly string[];
+  /** the contactor's worst closing and its verdict, when the circuit gives `contactor` */
+  readonly contactor?: ContactorSummary;
 }
 
 /**
@@ -78,8 +85,11 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
         peakTemperatureC: e.peakTemperatureC[i]!,
         outcome: e.outcome,
         busStalled: e.busStalled,
+        ...(e.trippedBy === undefined ? {} : { trippedBy: e.trippedBy }),
+        ...(e.closing === undefined ? {} : { closing: { deltaV: e.closing.deltaV, energyJ: e.closing.energyJ, peakCurrentA: e.closing.peakCurrentA, peakTimeS: e.closing.peakTimeS, loop: e.closing.loop } }),
       })),
     })),
     cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),
+    ...(result.contactor === undefined ? {} : { contactor: result.contactor }),
   };
 }

@@ -38,7 +38,7 @@ export type SimulationStressJson = Omit<SimulationJson, "parts"> & {
 export function simulationStressJson(base: SimulationJson, stress: ProfileStressResult, occursPerYear: number | undefined): SimulationStressJson {
   return {
     ...base,
-    verdict: simulationVerdict(base.verdict, stress.ratingStatus).verdict,
+    verdict: simulationVerdict(base.verdict, stress.ratingStatus, base.contactor?.verdict).verdict,
     temperatureVerdict: base.verdict,
     ratingStatus: stress.ratingStatus,
     occursPerYear: occursPerYear ?? null,

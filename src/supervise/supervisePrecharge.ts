@@ -16,6 +16,7 @@ import { type ShortEndurance, longestShortFromState, longestShortUnderPolicy } f
 import { type HealthyBus, healthyBus } from "./superviseHealthyBus.js";
 import { type SupervisedRetryPolicy, profileRetryPolicy } from "./superviseRetryPolicy.js";
 import { shortedScenario } from "./superviseShortScenario.js";
+import { type ProtectedSupervision, superviseProtection } from "./superviseProtection.js";
 
 /** One healthy corner's charge. */
 export interface HealthyCornerResult {
@@ -99,6 +100,8 @@ export interface SupervisionReport {
   readonly recommendedAbort: AbortCheck | null;
   readonly riseChecks: readonly RiseCheck[];
   readonly recommendedRise: RiseCheck | null;
+  /** the recommended checks as profile protection, what each lets through, and the retry-for-ever interval they buy (null when no check is usable) */
+  readonly protection: ProtectedSupervision | null;
   readonly policy: SupervisedRetryPolicy | null;
   /** the relay's switching times and the firmware's timer resolution used (the profile's, or ATTEMPT_TIMING_DEFAULTS) */
   readonly timing: AttemptTiming;
@@ -136,6 +139,8 @@ export interface SupervisionReport {
  *    to back (as soon as the relay can open and close again, on the firmware's timer), and at the
  *    policy's interval.
  * 4. The healthy envelope and the short-circuit energy curve for the plot.
+ * 5. The recommended checks as profile protection (superviseProtection): what each lets through
+ *    and the retry-for-ever interval into a short with and without them.
  * Cost O(corners × (checks + envelope points)) circuit runs plus O(parts × 2 × bisection steps ×
  * burst length) attempts.
  * @throws InputError when the profile has no circuit, no supervision section or no part heated by the circuit
@@ -207,6 +212,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
   const recommendedAbort = aborts.filter((c) => c.usable).reduce<AbortCheck | null>((best, c) => (best === null || c.shortEnergyJ < best.shortEnergyJ ? c : best), null);
   const rises = riseChecks(buses, riseTimes, marginFraction, floorV, spec.busVoltageV.low);
   const recommendedRise = rises.find((c) => c.usable) ?? null;
+  const protection = superviseProtection(profile, models, heated, busEnds, recommendedAbort, recommendedRise);
 
   // 3. retry storms at the profile's timeout, through the retry planner
   const stormScenarios = heated.flatMap((part) => busEnds.map((v) => shortedScenario(profile, part, v, timeoutS, models)));
@@ -259,6 +265,7 @@ export function supervisePrecharge(profile: DutyProfile, models: CircuitModels):
     recommendedAbort,
     riseChecks: rises,
     recommendedRise,
+    protection,
     policy,
     timing,
     storm: { timeoutS, backToBack, backToBackWaitS, atPolicyInterval },

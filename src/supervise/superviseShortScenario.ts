@@ -1,3 +1,4 @@
+import type { AttemptProtection } from "../circuits/AttemptProtection.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
@@ -11,10 +12,11 @@ import type { AttemptOutcome, RetryScenario } from "../retry/RetryScenario.js";
  * (a MOSFET's source resistor on its heatsink) heat it through the network.
  * For a series resistor the part dissipates the constant Vs²·R/(R + Rsrc)² for the whole timeout.
  * Attempts cannot follow each other sooner than the relay's release plus operate time
- * (`circuit.relay`, the scenario's minWaitS).
+ * (`circuit.relay`, the scenario's minWaitS). With `protection`, each attempt also ends where
+ * a protection fires (the profile's own protection is not used: the answers judge the timeout).
  * Cost: one circuit run (per attempt when the model reads the part temperature).
  */
-export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVoltageV: number, timeoutS: number, models: CircuitModels): RetryScenario {
+export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVoltageV: number, timeoutS: number, models: CircuitModels, protection?: AttemptProtection): RetryScenario {
   const circuit = { ...profile.circuit!, busVoltageV } as NonNullable<DutyProfile["circuit"]>;
   const role = part.role!;
   const neighbours = profile.parts.filter((q) => q !== part && q.networkKey === part.networkKey && q.role !== undefined && q.sourceIndex !== part.sourceIndex);
@@ -27,6 +29,7 @@ export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVolt
     ...(own.fraction === undefined ? {} : { fraction: own.fraction }),
     ...(own.withinV === undefined ? {} : { withinV: own.withinV }),
     ...(own.fraction === undefined && own.withinV === undefined ? { fraction: 0.5 } : {}),
+    ...(protection === undefined ? {} : { protection }),
   };
   // A short always starts from 0 V: the attempt is the same every time unless the model reads the
   // part temperature (a linear MOSFET's threshold drift), so it is computed once.

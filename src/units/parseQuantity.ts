@@ -37,6 +37,9 @@ const PROBE: Record<Exclude<Dimension, "dimensionless">, string> = {
   heatCapacity: "J/K",
   specificHeat: "J/(kg K)",
   voltagePerKelvin: "V/K",
+  inductance: "H",
+  voltageRate: "V/s",
+  currentSquaredTime: "A^2 s",
 };
 
 /** Names mathjs gives to base dimensions, turned into words for "found 4.7 mV (a voltage)". */

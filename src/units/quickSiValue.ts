@@ -164,12 +164,13 @@ function dimensionsOf(units: readonly { unit: QuickUnit; power: number }[]): num
   return dims;
 }
 
-/** Base dimensions of each dimension's SI unit, parsed once with the same grammar. */
-const TARGETS = new Map<Dimension, number[]>();
-function targetDimensions(dimension: Dimension): number[] {
+/** Base dimensions of each dimension's SI unit, parsed once with the same grammar (null: a unit not in the table, such as H: mathjs reads it). */
+const TARGETS = new Map<Dimension, number[] | null>();
+function targetDimensions(dimension: Dimension): number[] | null {
   let dims = TARGETS.get(dimension);
   if (dims === undefined) {
-    dims = dimensionsOf(parseUnits(DIMENSIONS[dimension].si)!);
+    const units = parseUnits(DIMENSIONS[dimension].si);
+    dims = units === null ? null : dimensionsOf(units);
     TARGETS.set(dimension, dims);
   }
   return dims;
@@ -196,6 +197,7 @@ export function quickSiValue(magnitude: number, unitText: string, dimension: Dim
   if (units === null) return undefined;
   const dims = dimensionsOf(units);
   const target = targetDimensions(dimension);
+  if (target === null) return undefined;
   for (let d = 0; d < 9; d++) if (Math.abs(dims[d]! - target[d]!) > 1e-12) return undefined;
   const offsets = units.some((u) => u.unit.offset !== 0);
   if (dimension === "temperature") {

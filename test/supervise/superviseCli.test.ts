@@ -1,6 +1,7 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
+import { parse, parseDocument } from "yaml";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION, InputError, loadProfile } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
@@ -18,6 +19,22 @@ describe("heatledger supervise (in process)", () => {
     for (const heading of ["Timeout window", "Early-abort checks", "Rise-too-fast checks", "Retry storms", "Healthy corners", "Summary (Markdown", "Verdict: pass ("]) expect(text).toContain(heading);
     expect(text).toContain(GENERAL_CAUTION.slice(0, 40));
     expect(text).not.toMatch(/NaN|Infinity/);
+  });
+
+  test("--checks writes the recommended checks as circuit.protection, refuses to overwrite without --force", async () => {
+    const io = memoryIo({ "p.yaml": oneStageProfileText(BASE) });
+    expect(await runCli(["supervise", "p.yaml", "--no-chart", "--checks", "c.yaml"], io)).toBe(0);
+    const fragment = io.files["c.yaml"]!;
+    expect(fragment).toMatch(/^protection:\n {2}busChecks:\n {4}- \{ at: [0-9.e-]+, below: [0-9.e-]+ \}/m);
+    expect(io.stdout.join("")).toContain("Recommended checks as profile protection");
+    // pasted under circuit:, the profile loads with the checks on its completion rule
+    const doc = parseDocument(oneStageProfileText(BASE));
+    doc.setIn(["circuit", "protection"], (parse(fragment) as { protection: unknown }).protection);
+    const pasted = doc.toString();
+    expect(loadProfile(pasted, "p.yaml", () => "").circuit!.completion.protection!.busChecks!.length).toBeGreaterThan(0);
+    const again = memoryIo({ "p.yaml": oneStageProfileText(BASE), "c.yaml": "old" });
+    expect(await runCli(["supervise", "p.yaml", "--checks", "c.yaml"], again)).toBe(2);
+    expect(again.files["c.yaml"]).toBe("old");
   });
 
   test("no safe timeout: exit 1, says so with the reason; --json carries exists: false", async () => {

@@ -58,5 +58,5 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
       `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}`,
     );
   }
-  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus).verdict, options.strict === true);
+  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
 }

@@ -38,5 +38,5 @@ export function simulateAction(run: CliRun, file: string, options: SimulateFlags
     run.io.out(
       `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}`,
     );
-  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus).verdict, options.strict === true);
+  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
 }

@@ -8,6 +8,8 @@ import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 export const SUPERVISE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (window, checks, retry storms, envelope) instead of the text report" },
   { flags: "--no-chart", help: "leave the envelope and energy charts out of the text report" },
+  { flags: "--checks <file>", help: "write the recommended checks as a circuit.protection fragment (YAML) to paste into the profile" },
+  { flags: "--force", help: "overwrite the --checks file if it exists" },
   STRICT_OPTION,
 ] as const;
 
@@ -16,6 +18,8 @@ export interface SuperviseFlags {
   readonly json?: boolean;
   readonly chart: boolean;
   readonly strict?: boolean;
+  readonly checks?: string;
+  readonly force?: boolean;
 }
 
 /** `heatledger supervise PROFILE`: flags and help here; the run is loaded from superviseAction.ts when it starts. */
@@ -36,6 +40,9 @@ Attempts "back to back" are as close as the relay allows: its release plus opera
 (circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms), rounded up to the firmware's timer
 (firmware.timerResolution, default ${ATTEMPT_TIMING_DEFAULTS.timerResolutionS * 1000} ms).
 ${verdictHelp("Here the verdict judges the profile's own timeout: attempts into a short at that timeout, through the profile's retry policy (burst and burst + lockout repeated), worst part and bus voltage; pass when it is inside the window. A timeout shorter than the slowest healthy charge fails (healthy units would be stopped).")}
+Example: heatledger supervise profiles/electric-boat-72v-supervision.yaml --checks checks.yaml
+writes the recommended early-abort and rise-too-fast checks as circuit.protection keys; pasted
+under circuit:, simulate, retries, replay and size end each attempt where a check fires.
 See README, "Reading the supervision answers" and "Verdicts and exit status".`,
     );
   for (const option of SUPERVISE_OPTIONS) command.option(option.flags, option.help);

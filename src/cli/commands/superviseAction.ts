@@ -6,6 +6,9 @@ import { verdictExitStatus } from "../../stress/Verdict.js";
 import { attemptsProgress } from "../attemptsProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
+import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
+import { protectionFragment } from "../../report/protectionFragment.js";
+import { InputError } from "../../errors/InputError.js";
 import type { SuperviseFlags } from "./supervise.js";
 
 /**
@@ -15,6 +18,7 @@ import type { SuperviseFlags } from "./supervise.js";
  * @throws InputError for a bad profile or a file it names
  */
 export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
+  refuseExistingOutput(run.io, options.checks, options.force === true, "--checks");
   const profile = readProfileFile(run.io, file);
   const progress = attemptsProgress(run.io, "supervise");
   let report;
@@ -23,6 +27,11 @@ export function superviseAction(run: CliRun, file: string, options: SuperviseFla
     progress.finish();
   } finally {
     progress.done();
+  }
+  if (options.checks !== undefined) {
+    if (report.protection === null)
+      throw new InputError({ code: "bad-option", file: "", line: 0, field: "--checks", expected: "a usable early-abort or rise-too-fast check to write", found: "none at the profile's check times" });
+    writeOutputFile(run.io, options.checks, protectionFragment(report.protection.protection, `heatledger supervise: recommended checks of "${report.profile}"`), options.force === true, "--checks");
   }
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
   else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));

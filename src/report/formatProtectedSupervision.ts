@@ -1,0 +1,35 @@
+import type { ProtectedSupervision } from "../supervise/superviseProtection.js";
+import type { ForeverIntervalAnswer } from "../retry/minForeverInterval.js";
+import { wrapText } from "../text/cautions.js";
+import { formatDuration, formatNumber } from "../text/formatTable.js";
+
+const interval = (a: ForeverIntervalAnswer): string => (a.minimumIntervalS === null ? "none scanned is safe" : formatDuration(a.minimumIntervalS));
+
+/**
+ * The supervise report's block on the recommended checks as profile protection: for each check the
+ * energy before it fires into a hard short and into the weakest fault it catches, what a fault
+ * it misses puts in until the timeout, the healthy margin, and the retry-for-ever interval into a
+ * short without and with the checks (what `--checks` buys). Cost O(checks).
+ */
+export function formatProtectedSupervision(p: ProtectedSupervision, width: number): string[] {
+  const out = ["Recommended checks as profile protection (supervise --checks FILE writes them)"];
+  for (const c of p.checks) {
+    const what = c.kind === "early-abort" ? `bus below ${formatNumber(c.thresholdV, 4)} V at ${formatDuration(c.timeS)}` : `bus above ${formatNumber(c.thresholdV, 4)} V at ${formatDuration(c.timeS)}`;
+    const parts = [`  ${c.kind}: ${what}.`];
+    if (c.shortEnergyJ !== null) parts.push(`Into a hard short the part takes ${formatNumber(c.shortEnergyJ, 3)} J before it fires.`);
+    if (c.partialFault !== null)
+      parts.push(
+        `The weakest fault it catches is ${formatNumber(c.partialFault.resistanceOhm, 3)} ohm across the bus: ${formatNumber(c.partialFault.energyBeforeFiringJ, 3)} J before it fires;` +
+          ` a weaker fault runs to the timeout: ${formatNumber(c.partialFault.missedEnergyJ, 3)} J.`,
+      );
+    parts.push(`Healthy margin: ${formatNumber(c.healthyMarginV, 3)} V (${formatNumber(c.healthyMarginFraction * 100, 3)} %) from corner ${c.healthyCorner}.`);
+    out.push(wrapText(parts.join(" "), width));
+  }
+  out.push(
+    wrapText(
+      `  retry for ever into a short (start to start): ${interval(p.foreverWithout)} at the timeout alone; ${interval(p.foreverWith)} with these checks (${p.foreverWith.governing.corner}).`,
+      width,
+    ),
+  );
+  return out;
+}

@@ -1,0 +1,146 @@
+import type { AttemptProtection } from "../circuits/AttemptProtection.js";
+import type { CircuitModels } from "../profile/CircuitModels.js";
+import { ATTEMPT_TIMING_DEFAULTS } from "../profile/attemptTiming.js";
+import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
+import { type ForeverIntervalAnswer, minForeverInterval } from "../retry/minForeverInterval.js";
+import type { RetryScenario } from "../retry/RetryScenario.js";
+import type { AbortCheck, RiseCheck } from "./superviseChecks.js";
+import { shortedScenario } from "./superviseShortScenario.js";
+
+/** What one recommended check lets through, and how close healthy charges come to it. */
+export interface CheckExposure {
+  readonly kind: "early-abort" | "rise-too-fast";
+  readonly timeS: number;
+  /** the threshold as written into the profile fragment (rounded toward the healthy side) [V] */
+  readonly thresholdV: number;
+  /** energy a hard short puts into the part before the check fires [J] (early abort only) */
+  readonly shortEnergyJ: number | null;
+  /**
+   * the weakest resistive fault across the bus that the check still catches (the bus exactly at the
+   * threshold at the check time), the energy it puts into the part before the check fires, and what
+   * a fault a hair weaker puts in until the timeout (the check cannot see it); null for a rise check
+   * or when no resistive fault holds the bus at the threshold
+   */
+  readonly partialFault: { readonly resistanceOhm: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
+  /** closest healthy corner's distance from the threshold [V], as a fraction of its voltage, and the corner */
+  readonly healthyMarginV: number;
+  readonly healthyMarginFraction: number;
+  readonly healthyCorner: string;
+}
+
+/** The recommended checks as profile protection, what they let through, and the retry-for-ever interval they buy. */
+export interface ProtectedSupervision {
+  /** the checks as `circuit.protection` would hold them (what `supervise --checks` writes) */
+  readonly protection: AttemptProtection;
+  readonly checks: readonly CheckExposure[];
+  /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the checks */
+  readonly foreverWithout: ForeverIntervalAnswer;
+  readonly foreverWith: ForeverIntervalAnswer;
+}
+
+/** Significant digits of a threshold written into the profile fragment. */
+export const CHECK_THRESHOLD_DIGITS = 4;
+
+/** x rounded to CHECK_THRESHOLD_DIGITS significant digits, down (up = false) or up. */
+function roundSignificant(x: number, up: boolean): number {
+  if (!(x > 0)) return x;
+  const step = 10 ** (Math.floor(Math.log10(x)) - CHECK_THRESHOLD_DIGITS + 1);
+  let k = up ? Math.ceil(x / step) : Math.floor(x / step);
+  const at = (j: number): number => Number((j * step).toPrecision(CHECK_THRESHOLD_DIGITS));
+  // the written value must lie on the healthy side of x even after the decimal rounding
+  while (up ? at(k) < x : at(k) > x) k += up ? 1 : -1;
+  return at(k);
+}
+
+/** Bisection steps on log(resistance) for the weakest caught fault: 2^-60 of 30 decades. */
+const FAULT_BISECTION_STEPS = 60;
+
+/**
+ * The recommended early-abort and rise-too-fast checks turned into profile protection
+ * (thresholds rounded to CHECK_THRESHOLD_DIGITS digits toward the healthy side: an abort
+ * threshold down, a rise threshold up, so the margin to every healthy corner only grows), and
+ * for each: the energy into the part before it fires into a hard short (the short's trace
+ * integrated to the check time) and into the weakest resistive fault it catches (found by
+ * bisection on log R of the bus voltage at the check time, which rises with R), the healthy
+ * margin, and the shortest interval for retrying for ever into a short (minForeverInterval on the
+ * shorted scenarios at both bus-voltage ends) at the profile's timeout without and with the checks.
+ * Cost: 2 × 60 circuit runs per check for the partial fault, plus two retry-for-ever scans.
+ */
+export function superviseProtection(
+  profile: DutyProfile,
+  models: CircuitModels,
+  heated: readonly ProfilePart[],
+  busEnds: readonly number[],
+  abort: AbortCheck | null,
+  rise: RiseCheck | null,
+): ProtectedSupervision | null {
+  if (abort === null && rise === null) return null;
+  const circuit = profile.circuit!;
+  const timeoutS = circuit.completion.timeoutS;
+  const busChecks = [
+    ...(abort === null ? [] : [{ atS: abort.timeS, minV: roundSignificant(abort.thresholdV, false) }]),
+    ...(rise === null ? [] : [{ atS: rise.timeS, maxV: roundSignificant(rise.thresholdV, true) }]),
+  ];
+  const protection: AttemptProtection = { busChecks };
+  const primary = heated[0]!;
+  const highV = Math.max(...busEnds);
+  const checks: CheckExposure[] = [];
+  if (abort !== null) {
+    const thresholdV = busChecks[0]!.minV!;
+    checks.push({
+      kind: "early-abort",
+      timeS: abort.timeS,
+      thresholdV,
+      shortEnergyJ: abort.shortEnergyJ,
+      partialFault: weakestCaughtFault(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS),
+      healthyMarginV: abort.lowestHealthyV - thresholdV,
+      healthyMarginFraction: (abort.lowestHealthyV - thresholdV) / abort.lowestHealthyV,
+      healthyCorner: abort.slowestCorner,
+    });
+  }
+  if (rise !== null) {
+    const thresholdV = busChecks[busChecks.length - 1]!.maxV!;
+    checks.push({
+      kind: "rise-too-fast",
+      timeS: rise.timeS,
+      thresholdV,
+      shortEnergyJ: null,
+      partialFault: null,
+      healthyMarginV: thresholdV - rise.highestHealthyV,
+      healthyMarginFraction: (thresholdV - rise.highestHealthyV) / thresholdV,
+      healthyCorner: rise.fastestCorner,
+    });
+  }
+  const scenarios = (p?: AttemptProtection): RetryScenario[] => heated.flatMap((part) => busEnds.map((v) => shortedScenario(profile, part, v, timeoutS, models, p)));
+  // the timer the retry planner rounds to (planRetries passes the profile's), so the answers match
+  const options = { timerResolutionS: (profile.timing ?? ATTEMPT_TIMING_DEFAULTS).timerResolutionS };
+  return {
+    protection,
+    checks,
+    foreverWithout: minForeverInterval(scenarios(), options),
+    foreverWith: minForeverInterval(scenarios(protection), options),
+  };
+}
+
+/**
+ * The weakest resistive fault the early-abort check catches at the highest bus voltage: the fault
+ * resistance that holds the bus exactly at the threshold at the check time, the part's energy
+ * until then, and until the timeout (a fault a hair weaker runs that long). Null when even the
+ * strongest fault tried (1 µΩ) leaves the bus above the threshold, or the weakest (1 GΩ) below it.
+ */
+function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number) {
+  const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
+  const run = (ohm: number, untilS: number) =>
+    models.charge(circuit, { kind: "resistive", resistanceOhm: ohm }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS } });
+  let lo = Math.log(1e-6);
+  let hi = Math.log(1e9);
+  if (!(run(Math.exp(lo), timeS).endVoltageV < thresholdV) || !(run(Math.exp(hi), timeS).endVoltageV >= thresholdV)) return null;
+  for (let n = 0; n < FAULT_BISECTION_STEPS; n++) {
+    const mid = 0.5 * (lo + hi);
+    if (run(Math.exp(mid), timeS).endVoltageV < thresholdV) lo = mid;
+    else hi = mid;
+  }
+  const ohm = Math.exp(lo);
+  const role = part.role!;
+  return { resistanceOhm: ohm, energyBeforeFiringJ: run(ohm, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(ohm, timeoutS).energy.partsJ[role] ?? 0 };
+}
