@@ -141,7 +141,7 @@ function linearStretch(r: BusRegime, c: number, v0: number, maxS: number, levels
 }
 
 /** Where the bus goes from a state if nothing stops it: reaches the threshold, settles, or cycles. */
-type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | { kind: "cycles"; lowV: number; highV: number };
+export type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | { kind: "cycles"; lowV: number; highV: number };
 
 /**
  * Follow the bus on its phase line, without time, from regime r at V: it moves in the direction
@@ -150,7 +150,7 @@ type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | 
  * Source: Hirsch, Smale & Devaney (2013), ch. 1 (phase line of a first-order autonomous equation,
  * from memory).
  */
-function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
+export function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
   let r = r0;
   let v = v0;
   const seen = new Map<string, number>();
@@ -188,7 +188,8 @@ function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, l
   return { kind: "settles", voltageV: v };
 }
 
-function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusLevel): BusRegime {
+/** The regime after crossing a level: the load switching, clamping at 0 V, or the feed's next mode. */
+export function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusLevel): BusRegime {
   switch (level.key) {
     case "load-on":
       return buildRegime(model, load, r.mode, true, false);

@@ -28,6 +28,8 @@ export type ProfileCircuit = {
       readonly saturationCurrentA?: number;
       readonly rdsOnOhm: number;
       readonly thresholdTempcoVPerK?: number;
+      /** loop gain above which an event's electro-thermal margin is a warning */
+      readonly loopGainWarning?: number;
     }
   | {
       readonly topology: "converter";

@@ -46,6 +46,7 @@ export const defaultCircuitModels: CircuitModels = {
               ...(circuit.sourceResistorOhm === undefined ? {} : { sourceResistorOhm: circuit.sourceResistorOhm }),
               ...(circuit.saturationCurrentA === undefined ? {} : { saturationCurrentA: circuit.saturationCurrentA }),
               ...(circuit.thresholdTempcoVPerK === undefined ? {} : { thresholdTempcoVPerK: circuit.thresholdTempcoVPerK }),
+              ...(circuit.loopGainWarning === undefined ? {} : { loopGainWarning: circuit.loopGainWarning }),
             },
             conditions,
           );

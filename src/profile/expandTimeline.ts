@@ -1,4 +1,6 @@
 import type { CircuitOutcome, CircuitResult, CircuitSample } from "../circuits/CircuitResult.js";
+import type { ChargeThermalContext } from "../circuits/ChargeThermalContext.js";
+import type { ElectroThermalSummary } from "../circuits/ElectroThermalSummary.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -38,6 +40,10 @@ export interface TimelineEvent {
   readonly energyJ: readonly number[];
   /** circuit samples of a charging event in absolute time, when ExpandOptions.wantSamples asked for them */
   readonly samples?: readonly CircuitSample[];
+  /** a charging event's highest element current (inrush peak) [A], when its model reports it */
+  readonly peakCurrentA?: number;
+  /** the electro-thermal margin of a charge solved together with its parts' temperatures */
+  readonly electroThermal?: ElectroThermalSummary;
 }
 
 /** Time between events (a retry interval, the rest of a repeat period): no power, the bus as it was left. */
@@ -58,6 +64,8 @@ export interface ExpandOptions {
   readonly temperatureOf?: () => readonly number[];
   /** also carry each charging event's circuit samples (bus voltage, inrush current; for the SOA check); default false */
   readonly wantSamples?: boolean;
+  /** the parts' thermal context now, read at the start of every charge of a circuit whose values follow temperature */
+  readonly thermalOf?: () => ChargeThermalContext;
 }
 
 /**
@@ -149,7 +157,15 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     }
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
-    const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC, wantSamples });
+    const thermal = options.thermalOf?.();
+    const result = models.charge(c, load, {
+      sourceVoltageV: c.busVoltageV,
+      initialVoltageV: state.voltageV,
+      completion: c.completion,
+      partTemperatureC,
+      wantSamples,
+      ...(thermal === undefined ? {} : { thermal }),
+    });
     const traces = noPower();
     const energyJ = energyOf(result);
     for (let i = 0; i < partCount; i++) {
@@ -174,7 +190,14 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.voltageV = r.endVoltageV;
     }
     const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...samples };
+    const extra = {
+      ...(r.peakCurrentA === undefined ? {} : { peakCurrentA: r.peakCurrentA }),
+      ...(r.electroThermal === undefined ? {} : { electroThermal: r.electroThermal }),
+    };
+    return {
+      type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV,
+      endVoltageV: state.voltageV, traces, energyJ, ...samples, ...extra,
+    };
   };
 
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per

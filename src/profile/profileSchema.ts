@@ -181,6 +181,7 @@ const mosfetSchema = z.strictObject({
   saturationCurrent: quantity("current", { above: 0, words: 'a current > 0 such as "8 A"' }).optional(),
   rdsOn: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 mohm"' }),
   thresholdTempco: quantity("voltagePerKelvin", { words: 'a coefficient such as "-5 mV/K"' }).optional(),
+  loopGainWarning: quantity("dimensionless", { above: 0, words: "a loop gain > 0 such as 0.5" }).optional(),
 });
 
 const converterSchema = z.strictObject({

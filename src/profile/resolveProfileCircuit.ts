@@ -71,6 +71,7 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         ...(m.sourceResistor === undefined ? {} : { sourceResistorOhm: m.sourceResistor }),
         ...(m.saturationCurrent === undefined ? {} : { saturationCurrentA: m.saturationCurrent }),
         ...(m.thresholdTempco === undefined ? {} : { thresholdTempcoVPerK: m.thresholdTempco }),
+        ...(m.loopGainWarning === undefined ? {} : { loopGainWarning: m.loopGainWarning }),
       };
     }
     case "converter": {

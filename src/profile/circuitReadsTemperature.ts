@@ -1,0 +1,12 @@
+import type { ProfileCircuit } from "./DutyProfile.js";
+
+/**
+ * Whether a profile circuit's values follow its parts' temperatures during an event (a MOSFET
+ * threshold with a nonzero temperature coefficient), so that each charge needs the parts' thermal
+ * state and is solved together with it. Every other circuit keeps the exact closed forms and is
+ * never handed a thermal context. Cost O(1).
+ */
+export function circuitReadsTemperature(circuit: ProfileCircuit | undefined): boolean {
+  if (circuit === undefined) return false;
+  return circuit.topology === "linear-mosfet" && circuit.thresholdTempcoVPerK !== undefined && circuit.thresholdTempcoVPerK !== 0;
+}
