@@ -6,7 +6,11 @@
  */
 export const DEFAULT_LOOP_GAIN_WARNING = 0.5;
 
-/** Where an event's electro-thermal feedback reached a loop gain of 1 (the part runs away). */
+/**
+ * Where an event's electro-thermal feedback ran away: the loop gain reached 1, or the part got so
+ * hot that the element lost control of its current (a MOSFET threshold drifted to 0 V), whichever
+ * came first.
+ */
 export interface ThermalRunaway {
   /** time from the event start [s] */
   readonly timeS: number;
@@ -34,7 +38,7 @@ export interface ElectroThermalSummary {
   readonly maxLoopGainAtS: number;
   /** the loop gain level the profile warns above */
   readonly warningLoopGain: number;
-  /** the first time the loop gain reached 1; undefined when it stayed below */
+  /** the first time the loop gain reached 1 (or control was lost); undefined when neither happened */
   readonly runaway?: ThermalRunaway;
   /** the part's highest temperature in the coupled solution [°C] */
   readonly peakTemperatureC: number;

@@ -94,6 +94,7 @@ export function chargeLinearMosfet(params: LinearMosfetParams, conditions: Charg
       traceRoles: MOSFET_TRACE_ROLES,
       readsRole: "mosfet",
       warningLoopGain: warning,
+      ...(tempco < 0 ? { lostControlC: THRESHOLD_REFERENCE_TEMPERATURE_C - params.thresholdVoltageV / tempco } : {}),
       at: (temperatureC) => linearMosfetModel(params, vs, thresholdAt(params.thresholdVoltageV, tempco, temperatureC.mosfet ?? partC)),
     };
     return runCoupledChargeEvent(coupled, load, conditions, thermal);

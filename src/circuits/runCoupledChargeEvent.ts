@@ -20,6 +20,9 @@ export interface CoupledChargeModel {
   readonly readsRole: string;
   /** loop gain above which the event's margin is a warning */
   readonly warningLoopGain: number;
+  /** temperature of that part past which the element has lost control of its current (a MOSFET
+   *  threshold at 0 V) [°C]: reaching it is a runaway too; undefined: none */
+  readonly lostControlC?: number;
   /** the element with its values at these part temperatures [°C, by role] */
   at(temperatureC: Readonly<Record<string, number>>): ChargeModel;
 }
@@ -210,10 +213,15 @@ export function runCoupledChargeEvent(model: CoupledChargeModel, load: BusLoad, 
       maxGainAt = t1;
     }
     peakC = Math.max(peakC, p1.tempC[readIndex]!);
+    const tc1 = p1.tempC[readIndex]!;
     if (runaway === undefined && g1 >= 1) {
       const f = lastGain >= 1 ? 0 : (1 - lastGain) / (g1 - lastGain);
-      const tc0 = lastTempC;
-      runaway = { timeS: t0 + f * (t1 - t0), temperatureC: tc0 + f * (p1.tempC[readIndex]! - tc0) };
+      runaway = { timeS: t0 + f * (t1 - t0), temperatureC: lastTempC + f * (tc1 - lastTempC) };
+    }
+    const lost = model.lostControlC;
+    if (runaway === undefined && lost !== undefined && tc1 >= lost) {
+      const f = lastTempC >= lost ? 0 : (lost - lastTempC) / (tc1 - lastTempC);
+      runaway = { timeS: t0 + f * (t1 - t0), temperatureC: lost };
     }
     lastGain = g1;
     lastTempC = p1.tempC[readIndex]!;
@@ -413,14 +421,9 @@ export function runCoupledChargeEvent(model: CoupledChargeModel, load: BusLoad, 
           ...(runaway === undefined ? {} : { runaway }),
           peakTemperatureC: peakC,
         };
+  const energy = { sourceJ, storedJ: 0.5 * c * (v * v - v0 * v0), loadJ, partsJ };
   return {
-    outcome,
-    busStalled,
-    reason,
-    durationS: t,
-    endVoltageV: v,
-    traces,
-    energy: { sourceJ, storedJ: 0.5 * c * (v * v - v0 * v0), loadJ, partsJ },
+    ...{ outcome, busStalled, reason, durationS: t, endVoltageV: v, traces, energy },
     ...(wantSamples ? { samples } : {}),
     peakCurrentA,
     ...(electroThermal === undefined ? {} : { electroThermal }),
