@@ -93,6 +93,7 @@ export function chargeLinearMosfet(params: LinearMosfetParams, conditions: Charg
       capacitanceF: params.capacitanceF,
       traceRoles: MOSFET_TRACE_ROLES,
       readsRole: "mosfet",
+      reportsLoopGain: true,
       warningLoopGain: warning,
       ...(tempco < 0 ? { lostControlC: THRESHOLD_REFERENCE_TEMPERATURE_C - params.thresholdVoltageV / tempco } : {}),
       at: (temperatureC) => linearMosfetModel(params, vs, thresholdAt(params.thresholdVoltageV, tempco, temperatureC.mosfet ?? partC)),

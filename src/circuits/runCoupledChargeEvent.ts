@@ -16,8 +16,12 @@ import { EVENT_LIMITS, buildRegime, nextRegime, project } from "./runChargeEvent
 export interface CoupledChargeModel {
   readonly capacitanceF: number;
   readonly traceRoles: readonly string[];
-  /** the role whose temperature sets the element's values (its loop gain is reported) */
+  /** the role whose temperature sets the element's values */
   readonly readsRole: string;
+  /** report that part's loop gain (a current source whose current follows its temperature); false
+   *  for an element whose drive falls as the bus charges (an NTC), where the loop gain at a fixed
+   *  bus voltage says nothing about stability */
+  readonly reportsLoopGain: boolean;
   /** loop gain above which the event's margin is a warning */
   readonly warningLoopGain: number;
   /** temperature of that part past which the element has lost control of its current (a MOSFET
@@ -102,7 +106,7 @@ export function runCoupledChargeEvent(model: CoupledChargeModel, load: BusLoad, 
   const n = thermal.roles.length;
   const M = thermal.tauS.length;
   const tau = thermal.tauS;
-  const readIndex = thermal.roles.indexOf(model.readsRole);
+  const readIndex = model.reportsLoopGain ? thermal.roles.indexOf(model.readsRole) : -1;
   const fixedC = conditions.partTemperatureC ?? {};
 
   // temperatures by role: a role with no coupled part keeps its start temperature

@@ -7,6 +7,7 @@ import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
 import type { StressConfig } from "../stress/resolveStressConfig.js";
 import type { AttemptTiming } from "./attemptTiming.js";
+import type { ResistanceCurve } from "../circuits/ResistanceCurve.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -19,7 +20,13 @@ export type ProfileCircuit = {
   readonly completion: CompletionRule;
   readonly discharge: DischargePath;
 } & (
-  | { readonly topology: "series-resistor"; readonly resistanceOhm: number; readonly sourceResistanceOhm?: number }
+  | {
+      readonly topology: "series-resistor";
+      readonly resistanceOhm: number;
+      readonly sourceResistanceOhm?: number;
+      /** how the resistor's resistance follows its temperature; resistanceOhm is its value at the curve's reference */
+      readonly temperatureCurve?: ResistanceCurve;
+    }
   | {
       readonly topology: "linear-mosfet";
       readonly gateVoltageV: number;

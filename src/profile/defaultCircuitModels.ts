@@ -32,6 +32,7 @@ export const defaultCircuitModels: CircuitModels = {
               capacitanceF: circuit.capacitanceF,
               load,
               ...(circuit.sourceResistanceOhm === undefined ? {} : { sourceResistanceOhm: circuit.sourceResistanceOhm }),
+              ...(circuit.temperatureCurve === undefined ? {} : { temperatureCurve: circuit.temperatureCurve }),
             },
             conditions,
           );

@@ -4,6 +4,8 @@ import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ProfileCircuit } from "./DutyProfile.js";
 import { type CircuitInput, type LoadInput } from "./profileSchema.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
+import { resolveResistanceCurve } from "./resolveResistanceCurve.js";
+import type { ResistanceCurve } from "../circuits/ResistanceCurve.js";
 import type { CircuitRole } from "./DutyProfile.js";
 
 /*
@@ -50,9 +52,9 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         reader.fail("bad-profile", join(field, "resistance"), 'the pre-charge resistance, such as "10 ohm" (required for series-resistor)', "nothing");
         return undefined;
       }
-      return { ...common, topology: "series-resistor", resistanceOhm: c.resistance, ...(c.sourceResistance === undefined ? {} : { sourceResistanceOhm: c.sourceResistance }) };
+      return { ...common, topology: "series-resistor", resistanceOhm: c.resistance, ...(c.sourceResistance === undefined ? {} : { sourceResistanceOhm: c.sourceResistance }), ...curveOf(reader, c, field) };
     case "linear-mosfet": {
-      forbid(["resistance", "converter", "sourceResistance"]);
+      forbid(["resistance", "converter", "sourceResistance", "resistorTemperature"]);
       const m = c.mosfet;
       if (m === undefined) {
         reader.fail("bad-profile", join(field, "mosfet"), "a mosfet section (gateVoltage, thresholdVoltage, sourceResistor or saturationCurrent, rdsOn)", "nothing");
@@ -75,7 +77,7 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
       };
     }
     case "converter": {
-      forbid(["resistance", "mosfet", "sourceResistance"]);
+      forbid(["resistance", "mosfet", "sourceResistance", "resistorTemperature"]);
       const v = c.converter;
       if (v === undefined) {
         reader.fail("bad-profile", join(field, "converter"), "a converter section (mode, current or power, efficiency)", "nothing");
@@ -171,4 +173,10 @@ function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], fie
     case "active":
       return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }), ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
   }
+}
+
+/** The series resistor's temperature curve, when the profile gives one. */
+function curveOf(reader: FieldReader, c: CircuitInput, field: string): { temperatureCurve?: ResistanceCurve } {
+  const curve = resolveResistanceCurve(reader, c, join(field, "resistorTemperature"));
+  return curve === undefined ? {} : { temperatureCurve: curve };
 }

@@ -8,6 +8,7 @@ import type { PeakEnvelope } from "./PeakEnvelope.js";
 import { simulationVerdict } from "./simulationVerdict.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { verdictLine } from "../stress/Verdict.js";
+import { LOOP_GAIN_WARNING_MARK, formatLoopGainText, loopGainCell } from "./formatLoopGainText.js";
 
 /** A time on the profile's clock: "3 d 04:05:06.250" (milliseconds shown when not whole). */
 function clock(seconds: number): string {
@@ -102,6 +103,8 @@ export function formatSimulationText(
   const ids = profile.parts.map((p) => p.id);
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;
+  const coupled = digest.loopGain.coupled > 0;
+  const inrush = shown.some((e) => e.peakCurrentA !== undefined);
   out.push(
     formatTable(
       [
@@ -112,6 +115,8 @@ export function formatSimulationText(
         ...(hasCircuit ? [{ heading: "bus [V]", align: "right" as const }] : []),
         ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
         ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
+        ...(inrush ? [{ heading: "inrush [A]", align: "right" as const }] : []),
+        ...(coupled ? [{ heading: "loop gain", align: "right" as const }] : []),
       ],
       shown.map((e) => [
         String(e.index),
@@ -121,10 +126,14 @@ export function formatSimulationText(
         ...(hasCircuit ? [volts(e.startVoltageV) === volts(e.endVoltageV) ? volts(e.endVoltageV) : `${volts(e.startVoltageV)}→${volts(e.endVoltageV)}`] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
+        ...(inrush ? [e.peakCurrentA === undefined ? "" : formatNumber(e.peakCurrentA, 4)] : []),
+        ...(coupled ? [loopGainCell(e)] : []),
       ]),
     ),
   );
   if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
+  if (shown.some((e) => loopGainCell(e).endsWith(LOOP_GAIN_WARNING_MARK))) out.push(`${LOOP_GAIN_WARNING_MARK} loop gain above the warning level`);
+  out.push(...formatLoopGainText(digest.loopGain, width));
   if (envelope !== undefined) {
     profile.parts.forEach((p, i) => {
       out.push(`Temperature of ${p.id}`);

@@ -3,6 +3,7 @@ import type { SimulationResult } from "../profile/simulateProfile.js";
 import { reportCautions } from "../text/cautions.js";
 import type { EventDigest } from "../profile/EventDigest.js";
 import type { Verdict } from "../stress/Verdict.js";
+import { type LoopGainJson, loopGainJson } from "./loopGainJson.js";
 
 /** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */
 export interface JsonPartEvent {
@@ -39,6 +40,8 @@ export interface SimulationJson {
     readonly events: readonly JsonPartEvent[];
   }[];
   readonly cautions: readonly string[];
+  /** the charges' electro-thermal margins, when the circuit follows its parts' temperatures */
+  readonly electroThermal?: LoopGainJson;
 }
 
 /**
@@ -76,5 +79,12 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
       })),
     })),
     cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),
+    ...electroThermalOf(digest),
   };
+}
+
+/** The optional `electroThermal` key (absent when no charge followed its parts' temperatures). */
+function electroThermalOf(digest: EventDigest): { electroThermal?: LoopGainJson } {
+  const block = loopGainJson(digest);
+  return block === undefined ? {} : { electroThermal: block };
 }
