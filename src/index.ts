@@ -189,6 +189,8 @@ export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuit
 export type { ChargeThermalContext } from "./circuits/ChargeThermalContext.js";
 export { DEFAULT_LOOP_GAIN_WARNING } from "./circuits/ElectroThermalSummary.js";
 export type { ElectroThermalSummary, ThermalRunaway } from "./circuits/ElectroThermalSummary.js";
+export { resistanceAt, curveResistance, validateResistanceCurve, FULL_CURVE_REFERENCE_C } from "./circuits/ResistanceCurve.js";
+export type { ResistanceCurve } from "./circuits/ResistanceCurve.js";
 export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";
 export { chargeConverter } from "./circuits/chargeConverter.js";
 export type { ConverterParams } from "./circuits/chargeConverter.js";
