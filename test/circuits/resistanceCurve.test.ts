@@ -4,7 +4,18 @@ import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { type ChargeThermalContext, type ResistanceCurve, chargeSeriesResistor, curveResistance, resistanceAt, runThermalHistory, traceSteps } from "../../src/internal.js";
+import {
+  type ChargeThermalContext,
+  type ResistanceCurve,
+  chargeSeriesResistor,
+  curveResistance,
+  defaultCircuitModels,
+  loadProfile,
+  resistanceAt,
+  runThermalHistory,
+  simulateProfile,
+  traceSteps,
+} from "../../src/internal.js";
 import { requireNgspiceRan } from "../helpers/requireNgspice.js";
 
 const work = mkdtempSync(join(tmpdir(), "heatledger-rt-"));
@@ -144,5 +155,49 @@ wrdata ntc.dat v(th) v(en)
     // the event's own heating (peak rise less the start rise), the stricter comparison
     expect(Math.abs(ours.peakRiseK[0]! - spicePeakRise) / (spicePeakRise - start)).toBeLessThan(5e-3);
     expect(Math.abs(r.energy.partsJ.resistor! - spiceEnergy) / spiceEnergy).toBeLessThan(5e-3);
+  });
+});
+
+describe("resistorTemperature in a profile: bad input, exact messages", () => {
+  const profileWith = (curve: string) => `name: t
+ambient: 25 degC
+parts:
+  - id: ntc
+    role: resistor
+    network: { form: foster, stages: [{ r: 20 K/W, tau: 40 s }] }
+    limits: { maxTemperature: 200 degC }
+circuit:
+  topology: series-resistor
+  busVoltage: 325 V
+  capacitance: 1 mF
+  resistance: 10 ohm
+  resistorTemperature: ${curve}
+  completion: { fraction: 0.95, timeout: 1 s }
+  discharge: { kind: none }
+events:
+  - power-up: {}
+`;
+  const messageOf = (curve: string): string => {
+    try {
+      loadProfile(profileWith(curve), "p.yaml");
+    } catch (error) {
+      return (error as Error).message;
+    }
+    return "loaded";
+  };
+  test("a key the kind needs is missing, a key it does not take is there", () => {
+    expect(messageOf("{ kind: ntc-beta, ppmPerK: 3900 }")).toBe(
+      'p.yaml:13: circuit.resistorTemperature.ppmPerK: expected no "ppmPerK" for a ntc-beta curve (keys: beta, reference), found a value\n' +
+        "p.yaml:13: circuit.resistorTemperature.beta: expected this value (required for a ntc-beta curve), found nothing",
+    );
+  });
+  test("a table whose resistance at 25 °C is not the circuit's resistance", () => {
+    expect(messageOf("{ kind: table, points: [[25 degC, 12 ohm], [130 degC, 1 kohm]] }")).toBe(
+      "p.yaml:13: circuit.resistorTemperature.kind: expected a curve whose resistance at 25 °C is within 1 % of circuit.resistance (10 ohm), found 12 ohm at 25 °C",
+    );
+  });
+  test("the profile loads with a valid curve, and simulates", () => {
+    const profile = loadProfile(profileWith("{ kind: ntc-beta, beta: 3000 K }"), "p.yaml");
+    expect(simulateProfile(profile, { models: defaultCircuitModels }).parts[0]!.peakTemperatureC).toBeGreaterThan(25);
   });
 });
