@@ -261,6 +261,11 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
   }
   let changes = 0;
   let segmentCount = 0;
+  // the element's current is monotone along each stretch (V is, and the current is affine in V, or
+  // g0 − g1·V + h/V with h ≥ 0): its peak is at a stretch's start or end
+  // (a constant-power feed at 0 V, which no stretch starts from, counts without its h/V term)
+  const feedAt = (r: BusRegime, x: number): number => r.feed.g0 - r.feed.g1 * x + (r.feed.h === 0 || !(x > 0) ? 0 : r.feed.h / x);
+  let peakCurrentA = feedAt(regime, v);
   while (outcome === undefined) {
     const remaining = limitS - t;
     const levels = levelsOf(regime);
@@ -285,6 +290,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     loadJ += stretch.loadJ;
     for (const s of stretch.samples) samples.push({ ...s, timeS: s.timeS + t });
     t = stretch.level === undefined ? limitS : t + stretch.durationS;
+    peakCurrentA = Math.max(peakCurrentA, feedAt(regime, v), feedAt(regime, stretch.endVoltageV));
     v = stretch.endVoltageV;
     const level = stretch.level;
     if (level === undefined) {
@@ -343,6 +349,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     traces,
     energy: { sourceJ, storedJ: 0.5 * c * (v * v - v0 * v0), loadJ, partsJ },
     ...(wantSamples ? { samples } : {}),
+    peakCurrentA,
   };
   return result;
 }
