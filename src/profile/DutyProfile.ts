@@ -19,6 +19,8 @@ export type ProfileCircuit = {
   readonly load: BusLoad;
   readonly completion: CompletionRule;
   readonly discharge: DischargePath;
+  /** the charging element's peak (inrush) current rating [A], compared with each charge's peak */
+  readonly peakCurrentRatingA?: number;
 } & (
   | {
       readonly topology: "series-resistor";

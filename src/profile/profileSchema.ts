@@ -236,6 +236,7 @@ export const circuitSchema = z.strictObject({
   resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 ohm"' }).optional(),
   sourceResistance: quantity("resistance", { min: 0, words: 'a resistance ≥ 0 such as "20 mohm"' }).optional(),
   resistorTemperature: resistorTemperatureSchema.optional(),
+  peakCurrentRating: quantity("current", { above: 0, words: 'a current > 0 such as "60 A"' }).optional(),
   mosfet: mosfetSchema.optional(),
   converter: converterSchema.optional(),
   load: loadSchema.optional(),

@@ -44,6 +44,7 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
       ...(completion.dwell === undefined ? {} : { dwellS: completion.dwell }),
     },
     discharge: discharge ?? { kind: "none" as const },
+    ...(c.peakCurrentRating === undefined ? {} : { peakCurrentRatingA: c.peakCurrentRating }),
   };
   switch (c.topology) {
     case "series-resistor":

@@ -24,20 +24,24 @@ function eventWords(e: LoopGainEvent): string {
 }
 
 /**
- * The report's electro-thermal block: the largest inrush current of the charges solved with their
- * parts' temperatures, the largest loop gain G = ∂P/∂T·Zth(t) of those whose part follows its own
- * temperature as a current source, how many passed the warning level, and each runaway (up to the
- * tally's keep) with its time and temperature. Empty when no charge was coupled.
+ * The report's inrush line (the largest charging current, against the element's rating when
+ * given) and electro-thermal block: the largest loop gain G = ∂P/∂T·Zth(t) of the charges whose
+ * part follows its own temperature as a current source, how many passed the warning level, and
+ * each runaway (up to the tally's keep) with its time and temperature. The block is empty when no
+ * charge was coupled.
  * Cost O(runaways kept).
  */
-export function formatLoopGainText(tally: LoopGainTally, width: number): string[] {
-  if (tally.coupled === 0 && tally.inrush === undefined) return [];
-  const out: string[] = [tally.coupled === 0 ? "Electro-thermal coupling" : "Electro-thermal margin (loop gain ∂P/∂T·Zth(t) of each charge; 1 runs away)"];
+export function formatLoopGainText(tally: LoopGainTally, width: number, ratingA?: number): string[] {
+  const out: string[] = [];
+  const inrush = tally.inrush;
+  if (inrush !== undefined) {
+    const rated = ratingA === undefined ? "" : inrush.peakCurrentA > ratingA ? `, ABOVE the element's rating of ${formatNumber(ratingA, 4)} A` : `, within the element's rating of ${formatNumber(ratingA, 4)} A`;
+    out.push(wrapText(`Inrush: largest charging current ${formatNumber(inrush.peakCurrentA, 4)} A in event ${inrush.index} (${inrush.label})${rated}`, Math.min(width, 100)));
+  }
+  if (tally.coupled === 0) return out;
+  out.push("Electro-thermal margin (loop gain ∂P/∂T·Zth(t) of each charge; 1 runs away)");
   const w = tally.worst;
   const lines: string[] = [];
-  const inrush = tally.inrush;
-  if (inrush !== undefined)
-    lines.push(`largest inrush current ${formatNumber(inrush.peakCurrentA, 4)} A in event ${inrush.index} (${inrush.label}), with the element's values following its temperature`);
   if (w !== undefined) {
     const s = w.summary;
     lines.push(

@@ -104,7 +104,7 @@ export function formatSimulationText(
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;
   const coupled = digest.loopGain.coupled > 0;
-  const inrush = shown.some((e) => e.peakCurrentA !== undefined);
+  const inrush = coupled || profile.circuit?.peakCurrentRatingA !== undefined || profile.circuit?.topology === "series-resistor" && profile.circuit.temperatureCurve !== undefined;
   out.push(
     formatTable(
       [
@@ -133,7 +133,7 @@ export function formatSimulationText(
   );
   if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
   if (shown.some((e) => loopGainCell(e).endsWith(LOOP_GAIN_WARNING_MARK))) out.push(`${LOOP_GAIN_WARNING_MARK} loop gain above the warning level`);
-  out.push(...formatLoopGainText(digest.loopGain, width));
+  out.push(...formatLoopGainText(digest.loopGain, width, profile.circuit?.peakCurrentRatingA));
   if (envelope !== undefined) {
     profile.parts.forEach((p, i) => {
       out.push(`Temperature of ${p.id}`);

@@ -21,8 +21,7 @@ export interface LoopGainJson {
   readonly coupledCharges: number;
   readonly warnings: number;
   readonly runaways: number;
-  /** the largest inrush current of all charges [A] (null when none reported one) */
-  readonly peakCurrentA: number | null;
+
   /** every listed event that carries a margin (the listing limit of the events applies) */
   readonly events: readonly LoopGainJsonEvent[];
 }
@@ -34,15 +33,14 @@ export interface LoopGainJson {
  */
 export function loopGainJson(digest: EventDigest): LoopGainJson | undefined {
   const tally = digest.loopGain;
-  if (tally.coupled === 0 && tally.inrush === undefined) return undefined;
+  if (tally.coupled === 0) return undefined;
   return {
     coupledCharges: tally.coupled,
     warnings: tally.warnings,
     runaways: tally.runawayCount,
-    peakCurrentA: tally.inrush?.peakCurrentA ?? null,
     events: digest.all.flatMap((e) => {
       const s = e.electroThermal;
-      if (s === undefined && e.peakCurrentA === undefined) return [];
+      if (s === undefined) return [];
       const ran = s?.runaway !== undefined;
       return [
         {
@@ -58,4 +56,26 @@ export function loopGainJson(digest: EventDigest): LoopGainJson | undefined {
       ];
     }),
   };
+}
+
+/** The `inrush` block of `simulate --json`: the largest charging current of the run and its rating. */
+export interface InrushJson {
+  /** the largest current the charging element delivered in any charge [A] */
+  readonly peakCurrentA: number;
+  readonly eventIndex: number;
+  /** the profile's `circuit.peakCurrentRating` [A], or null */
+  readonly ratingA: number | null;
+  /** listed charges whose peak passed the rating */
+  readonly overRating: readonly { readonly index: number; readonly peakCurrentA: number }[];
+}
+
+/**
+ * The run's inrush peak for `--json` (undefined when no charge reported one), compared with the
+ * element's peak-current rating when the profile gives one. Cost O(events listed).
+ */
+export function inrushJson(digest: EventDigest, ratingA: number | undefined): InrushJson | undefined {
+  const peak = digest.loopGain.inrush;
+  if (peak === undefined) return undefined;
+  const over = ratingA === undefined ? [] : digest.all.filter((e) => (e.peakCurrentA ?? 0) > ratingA).map((e) => ({ index: e.index, peakCurrentA: e.peakCurrentA! }));
+  return { peakCurrentA: peak.peakCurrentA, eventIndex: peak.index, ratingA: ratingA ?? null, overRating: over };
 }
