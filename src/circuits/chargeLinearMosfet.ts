@@ -64,7 +64,7 @@ export interface LinearMosfetParams {
  * @throws InputError naming the field: `capacitanceF`, `rdsOnOhm`, `sourceResistorOhm`,
  *   `saturationCurrentA` (> 0; at least one of the two), `gateVoltageV` (above the threshold at the
  *   part's temperature), `thresholdVoltageV` (≥ 0), `thresholdTempcoVPerK` (finite),
- *   `partTemperatureC.mosfet` (finite), `load.*`, and the conditions' fields
+ *   `partTemperatureC.mosfet` (finite), `loopGainWarning` (> 0), `load.*`, and the conditions' fields
  */
 export function chargeLinearMosfet(params: LinearMosfetParams, conditions: ChargeConditions): CircuitResult {
   requirePositive(params.capacitanceF, "capacitanceF", "a capacitance > 0 F");

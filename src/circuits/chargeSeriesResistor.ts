@@ -49,7 +49,8 @@ export interface SeriesResistorParams {
  * Validity: ideal source and capacitor (no ESR); R(T) as the curve gives it.
  * Cost: see {@link runChargeEvent}; O(1) for no, resistive or shorted loads.
  * @throws InputError naming the field: `resistanceOhm` (> 0), `sourceResistanceOhm` (≥ 0),
- *   `capacitanceF` (> 0), `load.*`, and the conditions' fields
+ *   `capacitanceF` (> 0), `temperatureCurve.*` (validateResistanceCurve), `load.*`, and the
+ *   conditions' fields
  */
 export function chargeSeriesResistor(params: SeriesResistorParams, conditions: ChargeConditions): CircuitResult {
   requirePositive(params.resistanceOhm, "resistanceOhm", "a pre-charge resistance > 0 Ω");
