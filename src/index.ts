@@ -203,6 +203,11 @@ export type { HealthyCornerResult, TimeoutWindow, SupervisionEnvelope, RetryStor
 export { formatSupervisionText } from "./report/formatSupervisionText.js";
 export { supervisionJson } from "./report/supervisionJson.js";
 export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuits/chargeLinearMosfet.js";
+export type { ChargeThermalContext } from "./circuits/ChargeThermalContext.js";
+export { DEFAULT_LOOP_GAIN_WARNING } from "./circuits/ElectroThermalSummary.js";
+export type { ElectroThermalSummary, ThermalRunaway } from "./circuits/ElectroThermalSummary.js";
+export { resistanceAt, curveResistance, validateResistanceCurve, FULL_CURVE_REFERENCE_C } from "./circuits/ResistanceCurve.js";
+export type { ResistanceCurve } from "./circuits/ResistanceCurve.js";
 export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";
 export { chargeConverter } from "./circuits/chargeConverter.js";
 export type { ConverterParams } from "./circuits/chargeConverter.js";

@@ -48,6 +48,11 @@ export { runChargeEvent, buildRegime, SAMPLES_PER_STRETCH, EVENT_LIMITS } from "
 export { ProtectionMonitor } from "./circuits/ProtectionMonitor.js";
 export type { StretchPath } from "./circuits/ProtectionMonitor.js";
 export { stretchPath } from "./circuits/stretchPath.js";
+export { runCoupledChargeEvent, COUPLED_ACCURACY } from "./circuits/runCoupledChargeEvent.js";
+export type { CoupledChargeModel } from "./circuits/runCoupledChargeEvent.js";
+export { contextZth } from "./circuits/ChargeThermalContext.js";
+export { circuitReadsTemperature } from "./profile/circuitReadsTemperature.js";
+export { thermalContextSource } from "./profile/thermalContextSource.js";
 export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP, SETTLE_TOLERANCE } from "./circuits/integrateBusOde.js";
 export type { RegimeStretch } from "./circuits/integrateBusOde.js";
 export { FOSTER_TO_CAUER_CHECK_TIMES } from "./thermal/fosterToCauer.js";

@@ -1,5 +1,7 @@
 import type { PowerTrace } from "../thermal/powerTrace.js";
 import type { AttemptProtection, ProtectionFiring } from "./AttemptProtection.js";
+import type { ChargeThermalContext } from "./ChargeThermalContext.js";
+import type { ElectroThermalSummary } from "./ElectroThermalSummary.js";
 
 /**
  * How a pre-charge attempt ended, as the firmware sees it: the bus reached the completion threshold
@@ -20,6 +22,9 @@ export interface ChargeConditions {
   /** temperature of each dissipating part at the event start [°C], by role; models that
    *  depend on temperature (a MOSFET's threshold drift) read it, others ignore it */
   readonly partTemperatureC?: Readonly<Record<string, number>>;
+  /** the parts' thermal networks and start state, for models whose values follow the parts'
+   *  temperatures during the event (solved together with the charge); absent: frozen at the start */
+  readonly thermal?: ChargeThermalContext;
   /** also return a sampled time series of capacitor voltage and current (default false) */
   readonly wantSamples?: boolean;
 }
@@ -90,4 +95,8 @@ export interface CircuitResult {
   readonly trippedBy?: ProtectionFiring;
   /** present when ChargeConditions.wantSamples was true */
   readonly samples?: readonly CircuitSample[];
+  /** highest current the charging element delivered during the event (the inrush peak) [A] */
+  readonly peakCurrentA?: number;
+  /** the electro-thermal margin, for an event solved together with its parts' temperatures */
+  readonly electroThermal?: ElectroThermalSummary;
 }

@@ -4,6 +4,8 @@ import type { ChargeModel, FeedTerms } from "./BusRegime.js";
 import type { ChargeConditions, CircuitResult } from "./CircuitResult.js";
 import { requirePositive } from "./requirePositive.js";
 import { runChargeEvent } from "./runChargeEvent.js";
+import { type CoupledChargeModel, runCoupledChargeEvent } from "./runCoupledChargeEvent.js";
+import { DEFAULT_LOOP_GAIN_WARNING } from "./ElectroThermalSummary.js";
 
 /** Temperature at which `thresholdVoltageV` is given [°C] (the usual datasheet reference). */
 export const THRESHOLD_REFERENCE_TEMPERATURE_C = 25;
@@ -24,6 +26,8 @@ export interface LinearMosfetParams {
   readonly rdsOnOhm: number;
   /** threshold temperature coefficient [V/K] (negative for silicon MOSFETs); default 0 */
   readonly thresholdTempcoVPerK?: number;
+  /** loop gain above which an event's electro-thermal margin is a warning (default {@link DEFAULT_LOOP_GAIN_WARNING}) */
+  readonly loopGainWarning?: number;
   /** what else hangs on the bus (default none) */
   readonly load?: BusLoad;
 }
@@ -39,10 +43,13 @@ export interface LinearMosfetParams {
  * With no load the current-source stretch is an exact ramp Vc = V0 + I·t/C with MOSFET power
  * falling linearly; a resistive load gives exponentials, a constant-power load an ODE (odex).
  *
- * Threshold drift (an option that couples the circuit to the thermal engine): Vth(T) =
- * Vth + k·(T − 25 °C). This first version takes T as the MOSFET's temperature at the event start
- * (conditions.partTemperatureC.mosfet; 25 °C when absent) and holds it for the whole event; the
- * self-heating during the pulse (which raises the current when k < 0) is not followed.
+ * Threshold drift: Vth(T) = Vth + k·(T − 25 °C), floored at 0 V. When the conditions carry the
+ * parts' thermal context (`conditions.thermal`, as simulateProfile gives it) the junction
+ * temperature is followed through the event: the charge and the parts' modal states are solved
+ * together (runCoupledChargeEvent), so the current rises as the die heats (k < 0), and the result
+ * carries the event's electro-thermal loop gain (ElectroThermalSummary). Without a context T is
+ * the MOSFET's temperature at the event start (conditions.partTemperatureC.mosfet; 25 °C when
+ * absent), held for the whole event. With k = 0 the exact closed forms are used either way.
  * Caution for users: at high drain-source voltage a MOSFET in linear mode can fail by thermal
  * instability inside its thermal rating; check the maker's SOA for DC/linear operation.
  *
@@ -57,7 +64,7 @@ export interface LinearMosfetParams {
  * @throws InputError naming the field: `capacitanceF`, `rdsOnOhm`, `sourceResistorOhm`,
  *   `saturationCurrentA` (> 0; at least one of the two), `gateVoltageV` (above the threshold at the
  *   part's temperature), `thresholdVoltageV` (≥ 0), `thresholdTempcoVPerK` (finite),
- *   `partTemperatureC.mosfet` (finite), `load.*`, and the conditions' fields
+ *   `partTemperatureC.mosfet` (finite), `loopGainWarning` (> 0), `load.*`, and the conditions' fields
  * @example
  * const conditions = { sourceVoltageV: 48, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 1 } };
  * const params = { capacitanceF: 0.002, gateVoltageV: 5, thresholdVoltageV: 3, sourceResistorOhm: 1, rdsOnOhm: 0.01 };
@@ -81,15 +88,47 @@ export function chargeLinearMosfet(params: LinearMosfetParams, conditions: Charg
   const load = params.load ?? NO_BUS_LOAD;
   validateBusLoad(load);
 
+  const warning = params.loopGainWarning ?? DEFAULT_LOOP_GAIN_WARNING;
+  if (!(warning > 0) || !Number.isFinite(warning)) throw inputError("out-of-range", "loopGainWarning", "a loop gain > 0 such as 0.5", describeFound(warning));
+  const vs = conditions.sourceVoltageV;
+  const thermal = conditions.thermal;
+  if (tempco !== 0 && thermal !== undefined && thermal.roles.includes("mosfet")) {
+    const coupled: CoupledChargeModel = {
+      capacitanceF: params.capacitanceF,
+      traceRoles: MOSFET_TRACE_ROLES,
+      readsRole: "mosfet",
+      reportsLoopGain: true,
+      warningLoopGain: warning,
+      ...(tempco < 0 ? { lostControlC: THRESHOLD_REFERENCE_TEMPERATURE_C - params.thresholdVoltageV / tempco } : {}),
+      at: (temperatureC) => linearMosfetModel(params, vs, thresholdAt(params.thresholdVoltageV, tempco, temperatureC.mosfet ?? partC)),
+    };
+    return runCoupledChargeEvent(coupled, load, conditions, thermal);
+  }
+  return runChargeEvent(linearMosfetModel(params, vs, vth), load, conditions);
+}
+
+/** The roles a linear-mode MOSFET pre-charge reports a power trace for. */
+const MOSFET_TRACE_ROLES = ["mosfet", "sourceResistor"] as const;
+
+/**
+ * Threshold at a junction temperature, Vth + k·(T − 25 °C), floored at 0 V: past that point the
+ * gate has lost control of the current (the part has run away long before), and the floor keeps
+ * the lumped model's current bounded by Vgate/Rs.
+ */
+function thresholdAt(vth25: number, tempcoVPerK: number, temperatureC: number): number {
+  return Math.max(0, vth25 + tempcoVPerK * (temperatureC - THRESHOLD_REFERENCE_TEMPERATURE_C));
+}
+
+/** The feed of a linear-mode MOSFET pre-charge at one threshold voltage (see chargeLinearMosfet). */
+function linearMosfetModel(params: LinearMosfetParams, vs: number, vth: number): ChargeModel {
   const rs = params.sourceResistorOhm ?? 0;
   const rds = params.rdsOnOhm;
   const byResistor = rs > 0 ? (params.gateVoltageV - vth) / rs : Infinity;
-  const current = Math.min(byResistor, params.saturationCurrentA ?? Infinity);
-  const vs = conditions.sourceVoltageV;
+  const current = Math.max(0, Math.min(byResistor, params.saturationCurrentA ?? Infinity));
   const kneeV = vs - current * (rs + rds);
   const rt = rs + rds;
 
-  const linear: FeedTerms = {
+  const linear = (): FeedTerms => ({
     g0: current,
     g1: 0,
     h: 0,
@@ -97,9 +136,9 @@ export function chargeLinearMosfet(params: LinearMosfetParams, conditions: Charg
     partPower: { mosfet: { c0: (vs - current * rs) * current, c1: -current, c2: 0 }, sourceResistor: { c0: current * current * rs, c1: 0, c2: 0 } },
     levels: [{ voltageV: kneeV, rising: true, key: "mosfet-on" }],
     description: "current-source (linear) mode",
-  };
+  });
   const loss = (rk: number) => ({ c0: (vs * vs * rk) / (rt * rt), c1: (-2 * vs * rk) / (rt * rt), c2: rk / (rt * rt) });
-  const fullyOn: FeedTerms = {
+  const fullyOn = (): FeedTerms => ({
     g0: vs / rt,
     g1: 1 / rt,
     h: 0,
@@ -107,13 +146,15 @@ export function chargeLinearMosfet(params: LinearMosfetParams, conditions: Charg
     partPower: { mosfet: loss(rds), sourceResistor: loss(rs) },
     levels: kneeV > 0 ? [{ voltageV: kneeV, rising: false, key: "mosfet-linear" }] : [],
     description: "fully-on mode",
-  };
-  const model: ChargeModel = {
+  });
+  // each mode's terms built on first use (the coupled runner asks for one mode per temperature)
+  let linearTerms: FeedTerms | undefined;
+  let onTerms: FeedTerms | undefined;
+  return {
     capacitanceF: params.capacitanceF,
-    traceRoles: ["mosfet", "sourceResistor"],
-    feed: (mode) => (mode === "on" ? fullyOn : linear),
+    traceRoles: MOSFET_TRACE_ROLES,
+    feed: (mode) => (mode === "on" ? (onTerms ??= fullyOn()) : (linearTerms ??= linear())),
     initialMode: (v) => (v >= kneeV ? "on" : "linear"),
     nextMode: (_mode, key) => (key === "mosfet-on" ? "on" : "linear"),
   };
-  return runChargeEvent(model, load, conditions);
 }

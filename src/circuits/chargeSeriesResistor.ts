@@ -3,6 +3,9 @@ import type { ChargeModel, FeedTerms } from "./BusRegime.js";
 import type { ChargeConditions, CircuitResult } from "./CircuitResult.js";
 import { requirePositive } from "./requirePositive.js";
 import { runChargeEvent } from "./runChargeEvent.js";
+import { type ResistanceCurve, resistanceAt, validateResistanceCurve } from "./ResistanceCurve.js";
+import { runCoupledChargeEvent } from "./runCoupledChargeEvent.js";
+import { DEFAULT_LOOP_GAIN_WARNING } from "./ElectroThermalSummary.js";
 
 /** Parameters of a series-resistor pre-charge. */
 export interface SeriesResistorParams {
@@ -12,6 +15,9 @@ export interface SeriesResistorParams {
   readonly sourceResistanceOhm?: number;
   /** link capacitance C [F] */
   readonly capacitanceF: number;
+  /** how R follows the resistor's own temperature (default: it does not); `resistanceOhm` is then
+   *  its value at the curve's reference temperature */
+  readonly temperatureCurve?: ResistanceCurve;
   /** what else hangs on the bus (default none) */
   readonly load?: BusLoad;
 }
@@ -34,10 +40,17 @@ export interface SeriesResistorParams {
  * (capacitor energy C·V²/2) (section numbers from memory); the energy lost in charging through
  * any resistance, C·(Vs − V0)²/2 shared as R/Rt, is ∫i²·Rt dt = ∫(Vs − V)·C dV (i = C·dV/dt,
  * i·Rt = Vs − V), integrated here.
- * Validity: ideal source, resistor and capacitor (no ESR, no temperature dependence of R).
+ * Temperature dependence (`temperatureCurve`: linear TCR, NTC, PTC; see ResistanceCurve): when
+ * the conditions carry the parts' thermal context (as simulateProfile gives it) R follows the
+ * resistor's temperature through the event, solved together with its thermal network
+ * (runCoupledChargeEvent; the result carries the inrush peak, peakCurrentA); without one, R is
+ * taken at the resistor's start temperature (conditions.partTemperatureC.resistor, 25 °C when
+ * absent). Without a curve the exact closed forms are used.
+ * Validity: ideal source and capacitor (no ESR); R(T) as the curve gives it.
  * Cost: see {@link runChargeEvent}; O(1) for no, resistive or shorted loads.
  * @throws InputError naming the field: `resistanceOhm` (> 0), `sourceResistanceOhm` (≥ 0),
- *   `capacitanceF` (> 0), `load.*`, and the conditions' fields
+ *   `capacitanceF` (> 0), `temperatureCurve.*` (validateResistanceCurve), `load.*`, and the
+ *   conditions' fields
  * @example
  * const conditions = { sourceVoltageV: 48, initialVoltageV: 0, completion: { fraction: 0.95, timeoutS: 1 } };
  * chargeSeriesResistor({ resistanceOhm: 10, capacitanceF: 0.002 }, conditions).energy.partsJ.resistor // => 2.2982
@@ -48,10 +61,31 @@ export function chargeSeriesResistor(params: SeriesResistorParams, conditions: C
   requirePositive(params.capacitanceF, "capacitanceF", "a capacitance > 0 F");
   const load = params.load ?? NO_BUS_LOAD;
   validateBusLoad(load);
-  const r = params.resistanceOhm;
   const rSrc = params.sourceResistanceOhm ?? 0;
-  const rt = r + rSrc;
   const vs = conditions.sourceVoltageV;
+  const curve = params.temperatureCurve;
+  if (curve === undefined) return runChargeEvent(seriesResistorModel(params.resistanceOhm, rSrc, params.capacitanceF, vs), load, conditions);
+  validateResistanceCurve(curve, "temperatureCurve");
+  const thermal = conditions.thermal;
+  if (thermal !== undefined && thermal.roles.includes("resistor")) {
+    const coupled = {
+      capacitanceF: params.capacitanceF,
+      traceRoles: ["resistor"],
+      readsRole: "resistor",
+      reportsLoopGain: false,
+      warningLoopGain: DEFAULT_LOOP_GAIN_WARNING,
+      at: (temperatureC: Readonly<Record<string, number>>) => seriesResistorModel(resistanceAt(curve, params.resistanceOhm, temperatureC.resistor ?? 25), rSrc, params.capacitanceF, vs),
+    };
+    return runCoupledChargeEvent(coupled, load, conditions, thermal);
+  }
+  // no thermal context: R at the resistor's start temperature (25 °C when absent), held
+  const startC = conditions.partTemperatureC?.resistor ?? 25;
+  return runChargeEvent(seriesResistorModel(resistanceAt(curve, params.resistanceOhm, startC), rSrc, params.capacitanceF, vs), load, conditions);
+}
+
+/** The feed of a series-resistor pre-charge with resistance r (see chargeSeriesResistor). */
+function seriesResistorModel(r: number, rSrc: number, capacitanceF: number, vs: number): ChargeModel {
+  const rt = r + rSrc;
   // (Vs − V)²·Rk/Rt² for a series part of resistance Rk
   const loss = (rk: number) => ({ c0: (vs * vs * rk) / (rt * rt), c1: (-2 * vs * rk) / (rt * rt), c2: rk / (rt * rt) });
   const feed: FeedTerms = {
@@ -63,12 +97,11 @@ export function chargeSeriesResistor(params: SeriesResistorParams, conditions: C
     levels: [],
     description: "series resistor",
   };
-  const model: ChargeModel = {
-    capacitanceF: params.capacitanceF,
+  return {
+    capacitanceF,
     traceRoles: ["resistor"],
     feed: () => feed,
     initialMode: () => "resistor",
     nextMode: (mode) => mode,
   };
-  return runChargeEvent(model, load, conditions);
 }

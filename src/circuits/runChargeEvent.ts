@@ -144,7 +144,7 @@ function linearStretch(r: BusRegime, c: number, v0: number, maxS: number, levels
 }
 
 /** Where the bus goes from a state if nothing stops it: reaches the threshold, settles, or cycles. */
-type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | { kind: "cycles"; lowV: number; highV: number };
+export type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | { kind: "cycles"; lowV: number; highV: number };
 
 /**
  * Follow the bus on its phase line, without time, from regime r at V: it moves in the direction
@@ -153,7 +153,7 @@ type Projection = { kind: "reaches" } | { kind: "settles"; voltageV: number } | 
  * Source: Hirsch, Smale & Devaney (2013), ch. 1 (phase line of a first-order autonomous equation,
  * from memory).
  */
-function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
+export function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, levelsOf: (r: BusRegime) => readonly BusLevel[]): Projection {
   let r = r0;
   let v = v0;
   const seen = new Map<string, number>();
@@ -191,7 +191,8 @@ function project(model: ChargeModel, load: BusLoad, r0: BusRegime, v0: number, l
   return { kind: "settles", voltageV: v };
 }
 
-function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusLevel): BusRegime {
+/** The regime after crossing a level: the load switching, clamping at 0 V, or the feed's next mode. */
+export function nextRegime(model: ChargeModel, load: BusLoad, r: BusRegime, level: BusLevel): BusRegime {
   switch (level.key) {
     case "load-on":
       return buildRegime(model, load, r.mode, true, false);
@@ -268,6 +269,11 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
   }
   let changes = 0;
   let segmentCount = 0;
+  // the element's current is monotone along each stretch (V is, and the current is affine in V, or
+  // g0 − g1·V + h/V with h ≥ 0): its peak is at a stretch's start or end
+  // (a constant-power feed at 0 V, which no stretch starts from, counts without its h/V term)
+  const feedAt = (r: BusRegime, x: number): number => r.feed.g0 - r.feed.g1 * x + (r.feed.h === 0 || !(x > 0) ? 0 : r.feed.h / x);
+  let peakCurrentA = feedAt(regime, v);
   while (outcome === undefined) {
     const remaining = limitS - t;
     const levels = levelsOf(regime);
@@ -299,6 +305,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     loadJ += stretch.loadJ;
     for (const s of stretch.samples) samples.push({ ...s, timeS: s.timeS + t });
     t = trippedBy !== undefined ? trippedBy.timeS : stretch.level === undefined ? limitS : t + stretch.durationS;
+    peakCurrentA = Math.max(peakCurrentA, feedAt(regime, v), feedAt(regime, stretch.endVoltageV));
     v = stretch.endVoltageV;
     if (trippedBy !== undefined) {
       outcome = "tripped";
@@ -363,6 +370,7 @@ export function runChargeEvent(model: ChargeModel, load: BusLoad, conditions: Ch
     energy: { sourceJ, storedJ: 0.5 * c * (v * v - v0 * v0), loadJ, partsJ },
     ...(trippedBy === undefined ? {} : { trippedBy }),
     ...(wantSamples ? { samples } : {}),
+    peakCurrentA,
   };
   return result;
 }

@@ -8,6 +8,7 @@ import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { RetryPlanInput } from "./profileSchema.js";
 import type { StressConfig } from "../stress/resolveStressConfig.js";
 import type { AttemptTiming } from "./attemptTiming.js";
+import type { ResistanceCurve } from "../circuits/ResistanceCurve.js";
 
 /** The circuit role a part plays; the circuit models name their power traces by these. */
 export type CircuitRole = "resistor" | "mosfet" | "sourceResistor" | "switch";
@@ -21,8 +22,16 @@ export type ProfileCircuit = {
   readonly discharge: DischargePath;
   /** the main contactor's making-current rating and the loop it closes (`circuit.contactor`) */
   readonly contactor?: ContactorSpec;
+  /** the charging element's peak (inrush) current rating [A], compared with each charge's peak */
+  readonly peakCurrentRatingA?: number;
 } & (
-  | { readonly topology: "series-resistor"; readonly resistanceOhm: number; readonly sourceResistanceOhm?: number }
+  | {
+      readonly topology: "series-resistor";
+      readonly resistanceOhm: number;
+      readonly sourceResistanceOhm?: number;
+      /** how the resistor's resistance follows its temperature; resistanceOhm is its value at the curve's reference */
+      readonly temperatureCurve?: ResistanceCurve;
+    }
   | {
       readonly topology: "linear-mosfet";
       readonly gateVoltageV: number;
@@ -31,6 +40,8 @@ export type ProfileCircuit = {
       readonly saturationCurrentA?: number;
       readonly rdsOnOhm: number;
       readonly thresholdTempcoVPerK?: number;
+      /** loop gain above which an event's electro-thermal margin is a warning */
+      readonly loopGainWarning?: number;
     }
   | {
       readonly topology: "converter";

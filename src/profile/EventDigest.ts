@@ -1,5 +1,7 @@
 import type { EventTemperatures } from "./simulateProfile.js";
 import type { TimelineEvent } from "./expandTimeline.js";
+import type { ElectroThermalSummary } from "../circuits/ElectroThermalSummary.js";
+import { LoopGainTally } from "./LoopGainTally.js";
 
 /** What a report keeps of one event. */
 export interface EventRecord {
@@ -20,6 +22,10 @@ export interface EventRecord {
   readonly energyJ: readonly number[];
   readonly peakTemperatureC: readonly number[];
   readonly peakTimeS: readonly number[];
+  /** the electro-thermal margin of a charge solved with its parts' temperatures */
+  readonly electroThermal?: ElectroThermalSummary;
+  /** the charging element's highest current in the event (inrush peak) [A], when reported */
+  readonly peakCurrentA?: number;
 }
 
 /** How many events a digest keeps, declared once. */
@@ -47,6 +53,8 @@ export class EventDigest {
   readonly all: EventRecord[] = [];
   readonly hottest: EventRecord[] = [];
   count = 0;
+  /** the electro-thermal margins of every charge, kept or not */
+  readonly loopGain = new LoopGainTally();
   /** closeness of each record of `hottest`, same order */
   private readonly hottestCloseness: number[] = [];
   private readonly limits: readonly number[];
@@ -62,6 +70,7 @@ export class EventDigest {
   /** Record an event (in time order). */
   add(event: TimelineEvent, temperatures: EventTemperatures): void {
     this.count++;
+    this.loopGain.add(event);
     const keep = this.all.length < this.keepAll;
     const c = closenessOf(temperatures.peakTemperatureC, this.limits);
     const ranks = this.hottest.length < this.keepHottest || c > this.hottestCloseness[this.hottestCloseness.length - 1]!;
@@ -83,6 +92,8 @@ export class EventDigest {
       energyJ: event.energyJ,
       peakTemperatureC: temperatures.peakTemperatureC,
       peakTimeS: temperatures.peakTimeS,
+      ...(event.electroThermal === undefined ? {} : { electroThermal: event.electroThermal }),
+      ...(event.peakCurrentA === undefined ? {} : { peakCurrentA: event.peakCurrentA }),
     };
     if (keep) this.all.push(record);
     if (ranks) {

@@ -32,6 +32,7 @@ export const defaultCircuitModels: CircuitModels = {
               capacitanceF: circuit.capacitanceF,
               load,
               ...(circuit.sourceResistanceOhm === undefined ? {} : { sourceResistanceOhm: circuit.sourceResistanceOhm }),
+              ...(circuit.temperatureCurve === undefined ? {} : { temperatureCurve: circuit.temperatureCurve }),
             },
             conditions,
           );
@@ -46,6 +47,7 @@ export const defaultCircuitModels: CircuitModels = {
               ...(circuit.sourceResistorOhm === undefined ? {} : { sourceResistorOhm: circuit.sourceResistorOhm }),
               ...(circuit.saturationCurrentA === undefined ? {} : { saturationCurrentA: circuit.saturationCurrentA }),
               ...(circuit.thresholdTempcoVPerK === undefined ? {} : { thresholdTempcoVPerK: circuit.thresholdTempcoVPerK }),
+              ...(circuit.loopGainWarning === undefined ? {} : { loopGainWarning: circuit.loopGainWarning }),
             },
             conditions,
           );

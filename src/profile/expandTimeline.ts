@@ -1,6 +1,8 @@
 import type { ProtectionFiring } from "../circuits/AttemptProtection.js";
 import { type ContactorClosing, contactorClosing } from "../circuits/contactorClosing.js";
 import type { CircuitOutcome, CircuitResult, CircuitSample } from "../circuits/CircuitResult.js";
+import type { ChargeThermalContext } from "../circuits/ChargeThermalContext.js";
+import type { ElectroThermalSummary } from "../circuits/ElectroThermalSummary.js";
 import { inputError } from "../errors/InputError.js";
 import { type PowerTrace, segmentEnergy } from "../thermal/powerTrace.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -44,6 +46,10 @@ export interface TimelineEvent {
   readonly closing?: ContactorClosing;
   /** circuit samples of a charging event in absolute time, when ExpandOptions.wantSamples asked for them */
   readonly samples?: readonly CircuitSample[];
+  /** a charging event's highest element current (inrush peak) [A], when its model reports it */
+  readonly peakCurrentA?: number;
+  /** the electro-thermal margin of a charge solved together with its parts' temperatures */
+  readonly electroThermal?: ElectroThermalSummary;
 }
 
 /** Time between events (a retry interval, the rest of a repeat period): no power, the bus as it was left. */
@@ -64,6 +70,8 @@ export interface ExpandOptions {
   readonly temperatureOf?: () => readonly number[];
   /** also carry each charging event's circuit samples (bus voltage, inrush current; for the SOA check); default false */
   readonly wantSamples?: boolean;
+  /** the parts' thermal context now, read at the start of every charge of a circuit whose values follow temperature */
+  readonly thermalOf?: () => ChargeThermalContext;
 }
 
 /**
@@ -157,7 +165,15 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     }
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
-    const result = models.charge(c, load, { sourceVoltageV: c.busVoltageV, initialVoltageV: state.voltageV, completion: c.completion, partTemperatureC, wantSamples });
+    const thermal = options.thermalOf?.();
+    const result = models.charge(c, load, {
+      sourceVoltageV: c.busVoltageV,
+      initialVoltageV: state.voltageV,
+      completion: c.completion,
+      partTemperatureC,
+      wantSamples,
+      ...(thermal === undefined ? {} : { thermal }),
+    });
     const traces = noPower();
     const energyJ = energyOf(result);
     for (let i = 0; i < partCount; i++) {
@@ -184,7 +200,14 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const samples = r.samples === undefined ? {} : { samples: r.samples.map((x) => ({ ...x, timeS: x.timeS + startS })) };
     const closing = r.outcome === "completed" && c.contactor !== undefined ? { closing: contactorClosing(c.contactor, c.capacitanceF, c.busVoltageV - r.endVoltageV) } : {};
     const tripped = r.trippedBy === undefined ? {} : { trippedBy: r.trippedBy.kind };
-    return { type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV, endVoltageV: state.voltageV, traces, energyJ, ...tripped, ...closing, ...samples };
+    const extra = {
+      ...(r.peakCurrentA === undefined ? {} : { peakCurrentA: r.peakCurrentA }),
+      ...(r.electroThermal === undefined ? {} : { electroThermal: r.electroThermal }),
+    };
+    return {
+      type: "event", index: state.index++, kind, label, field, startS, durationS, outcome: r.outcome, busStalled: r.busStalled, reason, startVoltageV,
+      endVoltageV: state.voltageV, traces, energyJ, ...tripped, ...closing, ...samples, ...extra,
+    };
   };
 
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per

@@ -1,5 +1,6 @@
 import type { CircuitResult } from "../circuits/CircuitResult.js";
 import type { CircuitModels } from "./CircuitModels.js";
+import { circuitReadsTemperature } from "./circuitReadsTemperature.js";
 
 /** How many distinct charge events a memo keeps, declared once. */
 export const CIRCUIT_MEMO_SIZE = 64;
@@ -39,7 +40,7 @@ export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_
         last = undefined;
         lastCircuit = circuit;
       }
-      const readsTemperature = circuit.topology === "linear-mosfet" && circuit.thresholdTempcoVPerK !== undefined && circuit.thresholdTempcoVPerK !== 0;
+      const readsTemperature = circuitReadsTemperature(circuit);
       const wantSamples = conditions.wantSamples === true;
       if (
         !readsTemperature &&
@@ -59,7 +60,7 @@ export function memoizeCircuitModels(models: CircuitModels, size = CIRCUIT_MEMO_
 
   function keyed(circuit: ChargeArgs[0], load: ChargeArgs[1], conditions: ChargeArgs[2], readsTemperature: boolean): CircuitResult {
     const key = `${idOf(load)}|${conditions.sourceVoltageV}|${conditions.initialVoltageV}|${idOf(conditions.completion)}|${
-      readsTemperature ? JSON.stringify(conditions.partTemperatureC ?? {}) : ""
+      readsTemperature ? JSON.stringify([conditions.partTemperatureC ?? {}, conditions.thermal?.startRiseK ?? []]) : ""
     }|${conditions.wantSamples === true}`;
     const hit = memo.get(key);
     if (hit !== undefined) return hit;

@@ -181,6 +181,7 @@ const mosfetSchema = z.strictObject({
   saturationCurrent: quantity("current", { above: 0, words: 'a current > 0 such as "8 A"' }).optional(),
   rdsOn: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 mohm"' }),
   thresholdTempco: quantity("voltagePerKelvin", { words: 'a coefficient such as "-5 mV/K"' }).optional(),
+  loopGainWarning: quantity("dimensionless", { above: 0, words: "a loop gain > 0 such as 0.5" }).optional(),
 });
 
 const converterSchema = z.strictObject({
@@ -204,6 +205,21 @@ const dischargeSchema = z.strictObject({
   current: quantity("current", { above: 0, words: 'a current > 0 such as "10 mA"' }).optional(),
   until: quantity("voltage", { min: 0, words: 'a voltage ≥ 0 such as "5 V"' }).optional(),
   bleeder: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "47 kohm"' }).optional(),
+});
+
+/** How a series pre-charge resistor's resistance follows its temperature (resolveResistanceCurve.ts). */
+const resistorTemperatureSchema = z.strictObject({
+  kind: z.enum(["linear", "ntc-beta", "steinhart-hart", "table"]),
+  ppmPerK: quantity("dimensionless", { words: "a temperature coefficient in ppm/K such as 3900" }).optional(),
+  beta: quantity("temperatureDifference", { above: 0, words: 'a B value > 0 such as "3000 K"' }).optional(),
+  reference: quantity("temperature", { above: -273.15, words: 'a temperature such as "25 degC"' }).optional(),
+  a: quantity("dimensionless", { words: "a Steinhart-Hart coefficient in 1/K such as 1.009e-3" }).optional(),
+  b: quantity("dimensionless", { words: "a Steinhart-Hart coefficient in 1/K such as 2.378e-4" }).optional(),
+  c: quantity("dimensionless", { words: "a Steinhart-Hart coefficient in 1/K such as 2.019e-7" }).optional(),
+  points: z
+    .array(z.tuple([quantity("temperature", { above: -273.15, words: 'a temperature such as "120 degC"' }), quantity("resistance", { above: 0, words: 'a resistance > 0 such as "20 ohm"' })]))
+    .min(2)
+    .optional(),
 });
 
 /** The relay (or contactor) that starts and ends each pre-charge attempt: its switching times. */
@@ -246,6 +262,8 @@ export const circuitSchema = z.strictObject({
   capacitance: quantity("capacitance", { above: 0, words: 'a capacitance > 0 such as "4.7 mF"' }),
   resistance: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 ohm"' }).optional(),
   sourceResistance: quantity("resistance", { min: 0, words: 'a resistance ≥ 0 such as "20 mohm"' }).optional(),
+  resistorTemperature: resistorTemperatureSchema.optional(),
+  peakCurrentRating: quantity("current", { above: 0, words: 'a current > 0 such as "60 A"' }).optional(),
   mosfet: mosfetSchema.optional(),
   converter: converterSchema.optional(),
   load: loadSchema.optional(),

@@ -5,6 +5,8 @@ import type { ProfileCircuit } from "./DutyProfile.js";
 import { type CircuitInput, type LoadInput } from "./profileSchema.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 import { resolveContactor, resolveProtection } from "./resolveProtection.js";
+import { resolveResistanceCurve } from "./resolveResistanceCurve.js";
+import type { ResistanceCurve } from "../circuits/ResistanceCurve.js";
 import type { CircuitRole } from "./DutyProfile.js";
 
 /*
@@ -46,6 +48,7 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
     },
     discharge: discharge ?? { kind: "none" as const },
     ...(c.contactor === undefined ? {} : { contactor: resolveContactor(c.contactor) }),
+    ...(c.peakCurrentRating === undefined ? {} : { peakCurrentRatingA: c.peakCurrentRating }),
   };
   switch (c.topology) {
     case "series-resistor":
@@ -54,9 +57,9 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         reader.fail("bad-profile", join(field, "resistance"), 'the pre-charge resistance, such as "10 ohm" (required for series-resistor)', "nothing");
         return undefined;
       }
-      return { ...common, topology: "series-resistor", resistanceOhm: c.resistance, ...(c.sourceResistance === undefined ? {} : { sourceResistanceOhm: c.sourceResistance }) };
+      return { ...common, topology: "series-resistor", resistanceOhm: c.resistance, ...(c.sourceResistance === undefined ? {} : { sourceResistanceOhm: c.sourceResistance }), ...curveOf(reader, c, field) };
     case "linear-mosfet": {
-      forbid(["resistance", "converter", "sourceResistance"]);
+      forbid(["resistance", "converter", "sourceResistance", "resistorTemperature"]);
       const m = c.mosfet;
       if (m === undefined) {
         reader.fail("bad-profile", join(field, "mosfet"), "a mosfet section (gateVoltage, thresholdVoltage, sourceResistor or saturationCurrent, rdsOn)", "nothing");
@@ -75,10 +78,11 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         ...(m.sourceResistor === undefined ? {} : { sourceResistorOhm: m.sourceResistor }),
         ...(m.saturationCurrent === undefined ? {} : { saturationCurrentA: m.saturationCurrent }),
         ...(m.thresholdTempco === undefined ? {} : { thresholdTempcoVPerK: m.thresholdTempco }),
+        ...(m.loopGainWarning === undefined ? {} : { loopGainWarning: m.loopGainWarning }),
       };
     }
     case "converter": {
-      forbid(["resistance", "mosfet", "sourceResistance"]);
+      forbid(["resistance", "mosfet", "sourceResistance", "resistorTemperature"]);
       const v = c.converter;
       if (v === undefined) {
         reader.fail("bad-profile", join(field, "converter"), "a converter section (mode, current or power, efficiency)", "nothing");
@@ -174,4 +178,10 @@ function resolveDischarge(reader: FieldReader, d: CircuitInput["discharge"], fie
     case "active":
       return { kind: "active", resistanceOhm: d.resistance!, ...(d.until === undefined ? {} : { untilV: d.until }), ...(d.bleeder === undefined ? {} : { bleederOhm: d.bleeder }) };
   }
+}
+
+/** The series resistor's temperature curve, when the profile gives one. */
+function curveOf(reader: FieldReader, c: CircuitInput, field: string): { temperatureCurve?: ResistanceCurve } {
+  const curve = resolveResistanceCurve(reader, c, join(field, "resistorTemperature"));
+  return curve === undefined ? {} : { temperatureCurve: curve };
 }

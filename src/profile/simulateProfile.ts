@@ -9,6 +9,8 @@ import type { CircuitModels } from "./CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
 import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
 import { memoizeCircuitModels } from "./memoizeCircuitModels.js";
+import { circuitReadsTemperature } from "./circuitReadsTemperature.js";
+import { thermalContextSource } from "./thermalContextSource.js";
 
 /** A part's verdict: within the limit less its margin, inside the margin, or past the limit (src/stress/Verdict.ts). */
 export type PartVerdict = Verdict;
@@ -192,7 +194,10 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   // charge reads (temperatureOf) the parts' state after every earlier item.
   const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC) });
   try {
-    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true })) {
+    // a circuit whose values follow temperature is solved with the parts' modal state at each charge
+    const contextOf = circuitReadsTemperature(profile.circuit) ? thermalContextSource(parts, model) : undefined;
+    const thermalOf = contextOf === undefined ? {} : { thermalOf: () => contextOf(run.summary().endState) };
+    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true, ...thermalOf })) {
       if (item.type === "event") openEvent(item);
       const until = item.startS + item.durationS;
       // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge

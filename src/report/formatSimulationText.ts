@@ -9,6 +9,7 @@ import type { PeakEnvelope } from "./PeakEnvelope.js";
 import { simulationVerdict } from "./simulationVerdict.js";
 import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { verdictLine } from "../stress/Verdict.js";
+import { LOOP_GAIN_WARNING_MARK, formatLoopGainText, loopGainCell } from "./formatLoopGainText.js";
 
 /** A time on the profile's clock: "3 d 04:05:06.250" (milliseconds shown when not whole). */
 function clock(seconds: number): string {
@@ -112,6 +113,8 @@ export function formatSimulationText(
   const multi = ids.length > 1;
   const hasCircuit = profile.circuit !== undefined;
   const hasContactor = profile.circuit?.contactor !== undefined;
+  const coupled = digest.loopGain.coupled > 0;
+  const inrush = coupled || profile.circuit?.peakCurrentRatingA !== undefined || profile.circuit?.topology === "series-resistor" && profile.circuit.temperatureCurve !== undefined;
   out.push(
     formatTable(
       [
@@ -123,6 +126,8 @@ export function formatSimulationText(
         ...(hasContactor ? [{ heading: "close [A]", align: "right" as const }] : []),
         ...ids.map((id) => ({ heading: multi ? `${id} [J]` : "energy [J]", align: "right" as const })),
         ...ids.map((id) => ({ heading: multi ? `${id} [°C]` : "peak [°C]", align: "right" as const })),
+        ...(inrush ? [{ heading: "inrush [A]", align: "right" as const }] : []),
+        ...(coupled ? [{ heading: "loop gain", align: "right" as const }] : []),
       ],
       shown.map((e) => [
         String(e.index),
@@ -133,10 +138,14 @@ export function formatSimulationText(
         ...(hasContactor ? [e.closing === undefined ? "" : formatNumber(e.closing.peakCurrentA, 4)] : []),
         ...e.energyJ.map((j) => (j === 0 ? "" : formatNumber(j, 4))),
         ...e.peakTemperatureC.map((t) => formatNumber(t, 4)),
+        ...(inrush ? [e.peakCurrentA === undefined ? "" : formatNumber(e.peakCurrentA, 4)] : []),
+        ...(coupled ? [loopGainCell(e)] : []),
       ]),
     ),
   );
   if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
+  if (shown.some((e) => loopGainCell(e).endsWith(LOOP_GAIN_WARNING_MARK))) out.push(`${LOOP_GAIN_WARNING_MARK} loop gain above the warning level`);
+  out.push(...formatLoopGainText(digest.loopGain, width, profile.circuit?.peakCurrentRatingA));
   if (envelope !== undefined) {
     profile.parts.forEach((p, i) => {
       out.push(`Temperature of ${p.id}`);

@@ -4,6 +4,7 @@ import type { SimulationResult } from "../profile/simulateProfile.js";
 import { reportCautions } from "../text/cautions.js";
 import type { EventDigest } from "../profile/EventDigest.js";
 import type { Verdict } from "../stress/Verdict.js";
+import { type InrushJson, type LoopGainJson, inrushJson, loopGainJson } from "./loopGainJson.js";
 
 /** One event of one part in the JSON report (docs/design.md, "The JSON contract"). */
 export interface JsonPartEvent {
@@ -46,6 +47,10 @@ export interface SimulationJson {
   readonly cautions: readonly string[];
   /** the contactor's worst closing and its verdict, when the circuit gives `contactor` */
   readonly contactor?: ContactorSummary;
+  /** the charges' electro-thermal margins, when the circuit follows its parts' temperatures */
+  readonly electroThermal?: LoopGainJson;
+  /** the largest charging current of the run, against the element's rating when given */
+  readonly inrush?: InrushJson;
 }
 
 /**
@@ -91,5 +96,19 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
     })),
     cautions: reportCautions(profile.circuit?.topology === "linear-mosfet"),
     ...(result.contactor === undefined ? {} : { contactor: result.contactor }),
+    ...electroThermalOf(digest),
+    ...inrushOf(digest, profile.circuit?.peakCurrentRatingA),
   };
+}
+
+/** The optional `electroThermal` key (absent when no charge followed its parts' temperatures). */
+function electroThermalOf(digest: EventDigest): { electroThermal?: LoopGainJson } {
+  const block = loopGainJson(digest);
+  return block === undefined ? {} : { electroThermal: block };
+}
+
+/** The optional `inrush` key (absent when no charge reported its peak current). */
+function inrushOf(digest: EventDigest, ratingA: number | undefined): { inrush?: InrushJson } {
+  const block = inrushJson(digest, ratingA);
+  return block === undefined ? {} : { inrush: block };
 }

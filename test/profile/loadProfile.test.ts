@@ -60,7 +60,7 @@ describe("loadProfile: bad input, exact messages", () => {
     [
       "unknown key, with the nearest valid key",
       edit("resistance: 10 ohm", "resistence: 10 ohm"),
-      'p.yaml:12: circuit.resistence: expected one of the keys topology, busVoltage, capacitance, resistance, sourceResistance, mosfet, converter, load, completion, discharge, relay, protection, contactor (did you mean "resistance"?), found an unknown key',
+      'p.yaml:12: circuit.resistence: expected one of the keys topology, busVoltage, capacitance, resistance, sourceResistance, resistorTemperature, peakCurrentRating, mosfet, converter, load, completion, discharge, relay, protection, contactor (did you mean "resistance"?), found an unknown key',
     ],
     ["missing key", edit("  busVoltage: 48 V\n", ""), 'p.yaml:9: circuit.busVoltage: expected a voltage such as "48 V" (or a number in V) (required), found nothing'],
     ["negative time", edit("run: 10 s", "run: -3 s"), 'p.yaml:17: events[1].run: expected a run time ≥ 0 such as "10 s", found "-3 s"'],
