@@ -2,6 +2,7 @@ import { Command, CommanderError } from "commander";
 import { InputError, formatInputProblem } from "../errors/InputError.js";
 import { type CliIo, EXIT_INPUT, processIo } from "./CliIo.js";
 import { COMMANDS } from "./commands/registry.js";
+import { terminalSafeIo } from "./terminalSafeIo.js";
 
 /** Shared state of one CLI run: the io and the exit status a command sets. */
 export interface CliRun {
@@ -32,7 +33,8 @@ export function createProgram(run: CliRun): Command {
  * 0 all limits met, 1 a limit is crossed, 2 bad input. Never throws for bad input and never
  * prints a stack trace for it.
  */
-export async function runCli(argv: readonly string[], io: CliIo = processIo()): Promise<number> {
+export async function runCli(argv: readonly string[], rawIo: CliIo = processIo()): Promise<number> {
+  const io = terminalSafeIo(rawIo);
   const run: CliRun = { io, status: 0 };
   const program = createProgram(run);
   try {

@@ -16,6 +16,10 @@ export const INPUT_LIMITS = {
    * parsing when it holds more than 1.5 separators (`,` `:` `[` `{` newline) per allowed value.
    */
   maxDocumentNodes: { value: 500_000, env: "HEATLEDGER_MAX_NODES" },
+  /** most attempts a retry plan may ask about (`retryPlan.attempts`, the `attempts` of a retry event) */
+  maxPlanAttempts: { value: 10_000, env: "HEATLEDGER_MAX_PLAN_ATTEMPTS" },
+  /** most rows and columns of the lockout map (`retryPlan.map.attempts`, `retryPlan.map.points`): each cell is a burst simulated */
+  maxMapSide: { value: 1_000, env: "HEATLEDGER_MAX_MAP_SIDE" },
 } as const;
 
 /** Name of one of the input limits. */
@@ -38,6 +42,6 @@ export function inputLimit(name: InputLimitName, env: Readonly<Record<string, st
  * The words a refusal ends with: the limit's value and how to raise it.
  * Example: "64 levels (set HEATLEDGER_MAX_DEPTH to raise it)".
  */
-export function limitWords(name: InputLimitName, unit: string): string {
-  return `${inputLimit(name)} ${unit} (set ${INPUT_LIMITS[name].env} to raise it)`;
+export function limitWords(name: InputLimitName, unit = ""): string {
+  return `${inputLimit(name)}${unit === "" ? "" : ` ${unit}`} (set ${INPUT_LIMITS[name].env} to raise it)`;
 }
