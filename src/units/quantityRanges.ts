@@ -28,6 +28,11 @@ export const QUANTITY_RANGES: Readonly<Record<Exclude<Dimension, "dimensionless"
   voltagePerKelvin: { max: 1e3, minNonZero: 0 },
 };
 
+/** 1e12 rather than 1000000000000 in a message. */
+function short(x: number): string {
+  return x >= 1e5 || x < 1e-3 ? x.toExponential().replace("e+", "e") : String(x);
+}
+
 /** Absolute zero in °C: no absolute temperature lies below it. */
 const ABSOLUTE_ZERO_C = -273.15;
 
@@ -48,7 +53,7 @@ export function checkQuantityRange(si: number, dimension: Dimension, field: stri
     throw inputError(
       "out-of-range",
       field,
-      `${expectedWords(dimension)}, ${minNonZero > 0 ? `zero or between ${minNonZero} and ${max}` : `at most ${max}`} ${unit} in size`,
+      `${expectedWords(dimension)}, ${minNonZero > 0 ? `zero or between ${short(minNonZero)} and ${short(max)}` : `at most ${short(max)}`} ${unit} in size`,
       describeFound(raw),
     );
   return si;
