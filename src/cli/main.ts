@@ -45,7 +45,9 @@ export async function runCli(argv: readonly string[], rawIo: CliIo = processIo()
       return error.exitCode === 0 || error.code === "commander.helpDisplayed" || error.code === "commander.version" ? 0 : EXIT_INPUT;
     }
     if (error instanceof InputError) {
-      for (const problem of error.problems) io.err(`heatledger: ${formatInputProblem(problem)}\n`);
+      // loaded on this path only: it parses YAML, which --help never loads
+      const { locateProblems } = await import("./locateProblems.js");
+      for (const problem of locateProblems(rawIo, error.problems)) io.err(`heatledger: ${formatInputProblem(problem)}\n`);
       return EXIT_INPUT;
     }
     const message = error instanceof Error ? error.message : String(error);

@@ -44,6 +44,13 @@ describe("magnitudes outside the documented range are refused at their line", ()
   });
 });
 
+describe("problems found while a loaded profile runs get the line of their key", () => {
+  test("a repeat whose period is shorter than one repetition", async () => {
+    const result = await simulate(shortedBusProfile("  - repeat:\n      count: 3\n      period: 0.3 s\n      events:\n        - power-up: {}\n        - run: 0.2 s"));
+    expect(result.err).toMatch(/^heatledger: p\.yaml:18: events\[0\]\.repeat\.period: expected a period at least as long as one repetition \(repetition 1 took 0\.\d+ s\), found 0\.3 s\n$/);
+  });
+});
+
 describe("planner sizes are bounded, naming the limit and how to raise it", () => {
   test("retry attempts of a million", async () => {
     const result = await simulate(shortedBusProfile(shortedRetry("      attempts: 1000000\n      interval: 2 s\n      lockout: 1 min")));
@@ -79,7 +86,7 @@ describe("loads the circuit models cannot follow are refused under the key that 
     const result = await simulate(profile);
     expect(result.status).toBe(2);
     expect(result.err).toMatch(
-      /^heatledger: p\.yaml: circuit: expected a disable \(under-voltage lockout\) voltage the bus can be followed down to: the load's current P\/V grows without bound as the bus falls, and the integration could not go below [\d.e-]+ V; raise disableAt above that \(circuit model value load\.disableV\), found 1e-7 V\n$/,
+      /^heatledger: p\.yaml:9: circuit: expected a disable \(under-voltage lockout\) voltage the bus can be followed down to: the load's current P\/V grows without bound as the bus falls, and the integration could not go below [\d.e-]+ V; raise disableAt above that \(circuit model value load\.disableV\), found 1e-7 V\n$/,
     );
   });
 });
