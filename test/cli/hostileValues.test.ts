@@ -77,9 +77,8 @@ describe("loads the circuit models cannot follow are refused under the key that 
   });
 
   test("a constant-power load that pulls the bus to 0 V, switching off at 1e-7 V: exit 2 with the reason, not an internal error", async () => {
-    // 5 kW from 400 V through 20 ohm: the most the source can give the load is Vs²/4R = 2 kW, so
-    // the bus collapses toward 0 V (maximum power transfer, Hayt & Kemmerly, Engineering Circuit
-    // Analysis, 8th ed., §5.5: from memory)
+    // 5 kW from 400 V through 20 ohm: the most the source can give the load is Vs²/4R = 2 kW
+    // (maximum power transfer, common practice), so the bus collapses toward 0 V
     const profile = shortedBusProfile("  - power-up: {}")
       .replace("busVoltage: 48 V", "busVoltage: 400 V")
       .replace("resistance: 48 ohm", "resistance: 20 ohm\n  load: { kind: constant-power, power: 5 kW, enableAt: 100 V, disableAt: 1e-7 V }");
