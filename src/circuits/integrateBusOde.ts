@@ -1,3 +1,4 @@
+import { inputError } from "../errors/InputError.js";
 import type { PowerSegment } from "../thermal/powerTrace.js";
 import type { CircuitSample } from "./CircuitResult.js";
 import { type BusLevel, type BusRegime, type Quadratic, evalQuadratic } from "./BusRegime.js";
@@ -208,8 +209,21 @@ export function integrateBusOde(
         return false;
       }
     });
-    if (hit === undefined && settled === undefined && result.outcome !== ODEX_OUTCOME.converged)
+    if (hit === undefined && settled === undefined && result.outcome !== ODEX_OUTCOME.converged) {
+      // A load that draws P/V (h > 0 pulls the bus down as h/V) drives the bus to 0 V in finite
+      // time, its rate growing without bound: below some voltage no step size resolves it. When
+      // the load's switch-off level lies there, the value is the cause: refuse it, saying why.
+      const reachedV = uPrev * scaleV;
+      const off = levels.find((l) => l.key === "load-off" && !l.rising && l.voltageV < reachedV);
+      if (off !== undefined && h !== 0)
+        throw inputError(
+          "out-of-range",
+          "load.disableV",
+          `a disable (under-voltage lockout) voltage the bus can be followed down to: the load's current P/V grows without bound as the bus falls, and the integration could not go below ${reachedV.toPrecision(3)} V; raise disableAt above that`,
+          `${off.voltageV} V`,
+        );
       throw new Error(`odex stopped early (outcome ${result.outcome}) integrating the bus regime ${regime.key}`);
+    }
   }
   if (settled !== undefined) {
     // the settled tail: V = V*, every power constant, ∫V dt and ∫V² dt grow linearly

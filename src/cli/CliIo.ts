@@ -1,4 +1,5 @@
-import { existsSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync } from "node:fs";
+import { outputPathProblem, readBoundedTextFile, writeFileAtomically } from "./fileSystemIo.js";
 
 /** Everything the CLI does to the outside world, so commands can be tested in process. */
 export interface CliIo {
@@ -6,12 +7,14 @@ export interface CliIo {
   readonly out: (text: string) => void;
   /** write to standard error */
   readonly err: (text: string) => void;
-  /** read a UTF-8 text file */
+  /** read a UTF-8 text file (the process's: bounded in size, regular files only, strict UTF-8) */
   readonly readFile: (path: string) => string;
-  /** write a UTF-8 text file */
+  /** write a UTF-8 text file (the process's: atomically, through a temporary file renamed over it) */
   readonly writeFile: (path: string, text: string) => void;
   /** whether a path exists (commands refuse to overwrite without --force) */
   readonly exists: (path: string) => boolean;
+  /** why an output path cannot be written (a folder, a missing or read-only folder), checked before a run; absent: no check */
+  readonly outputProblem?: (path: string) => string | undefined;
   /** terminal width in columns, for charts and tables */
   readonly columns: number;
   /** raw writes for a progress line on an interactive terminal (stderr); absent when stderr is not one */
@@ -48,9 +51,10 @@ export function processIo(): CliIo {
   return {
     out: (text) => process.stdout.write(text),
     err: (text) => process.stderr.write(text),
-    readFile: (path) => readFileSync(path, "utf8"),
-    writeFile: (path, text) => writeFileSync(path, text, "utf8"),
+    readFile: readBoundedTextFile,
+    writeFile: writeFileAtomically,
     exists: (path) => existsSync(path),
+    outputProblem: outputPathProblem,
     columns: process.stdout.columns ?? 100,
     ...(process.stderr.isTTY ? { progress: (text: string) => void process.stderr.write(text) } : {}),
   };

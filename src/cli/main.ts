@@ -2,6 +2,7 @@ import { Command, CommanderError } from "commander";
 import { InputError, formatInputProblem } from "../errors/InputError.js";
 import { type CliIo, EXIT_INPUT, processIo } from "./CliIo.js";
 import { COMMANDS } from "./commands/registry.js";
+import { terminalSafeIo } from "./terminalSafeIo.js";
 
 /** Shared state of one CLI run: the io and the exit status a command sets. */
 export interface CliRun {
@@ -32,7 +33,8 @@ export function createProgram(run: CliRun): Command {
  * 0 all limits met, 1 a limit is crossed, 2 bad input. Never throws for bad input and never
  * prints a stack trace for it.
  */
-export async function runCli(argv: readonly string[], io: CliIo = processIo()): Promise<number> {
+export async function runCli(argv: readonly string[], rawIo: CliIo = processIo()): Promise<number> {
+  const io = terminalSafeIo(rawIo);
   const run: CliRun = { io, status: 0 };
   const program = createProgram(run);
   try {
@@ -43,7 +45,9 @@ export async function runCli(argv: readonly string[], io: CliIo = processIo()): 
       return error.exitCode === 0 || error.code === "commander.helpDisplayed" || error.code === "commander.version" ? 0 : EXIT_INPUT;
     }
     if (error instanceof InputError) {
-      for (const problem of error.problems) io.err(`heatledger: ${formatInputProblem(problem)}\n`);
+      // loaded on this path only: it parses YAML, which --help never loads
+      const { locateProblems } = await import("./locateProblems.js");
+      for (const problem of locateProblems(rawIo, error.problems)) io.err(`heatledger: ${formatInputProblem(problem)}\n`);
       return EXIT_INPUT;
     }
     const message = error instanceof Error ? error.message : String(error);

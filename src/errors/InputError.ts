@@ -1,3 +1,4 @@
+import { tidyNumbers } from "./tidyNumbers.js";
 /**
  * Stable codes for every kind of bad input heatledger can report. The CLI maps each of them to
  * exit status 2 and prints one line per problem.
@@ -65,7 +66,8 @@ export function inputError(code: InputErrorCode, field: string, expected: string
 }
 
 /**
- * One line per problem: `file:line: field: expected X, found Y`.
+ * One line per problem: `file:line: field: expected X, found Y`, with floating-point noise taken
+ * out of the numbers (tidyNumbers).
  * Example: `profiles/a.yaml:12: circuit.capacitance: expected a capacitance such as 4.7 mF, found "4.7 mV" (a voltage)`
  * @example
  * const problem = { code: "bad-unit", file: "p.yaml", line: 7, field: "circuit.resistance", expected: "a resistance", found: '"22 V"' };
@@ -74,7 +76,7 @@ export function inputError(code: InputErrorCode, field: string, expected: string
 export function formatInputProblem(problem: InputProblem): string {
   const where = problem.file === "" ? "" : problem.line > 0 ? `${problem.file}:${problem.line}: ` : `${problem.file}: `;
   const field = problem.field === "" ? "" : `${problem.field}: `;
-  return `${where}${field}expected ${problem.expected}, found ${problem.found}`;
+  return `${where}${field}expected ${tidyNumbers(problem.expected)}, found ${tidyNumbers(problem.found)}`;
 }
 
 /**

@@ -1,5 +1,7 @@
 import { LineCounter, isMap, isScalar, isSeq, parseDocument, type Node } from "yaml";
 import { InputError } from "../errors/InputError.js";
+import { inputLimit, limitWords } from "./inputLimits.js";
+import { measureDocument } from "./measureDocument.js";
 
 /** Parsed YAML or JSON text with a way back from a field path to its line. */
 export interface StructuredText {
@@ -39,20 +41,40 @@ export function splitFieldPath(field: string): (string | number)[] {
  */
 export function parseStructuredText(text: string, file: string): StructuredText {
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { lineCounter, uniqueKeys: true, prettyErrors: false });
+  const refuse = (line: number, expected: string, found: string): InputError =>
+    new InputError({ code: "bad-file", file, line, field: "", expected, found });
+  const separators = countSeparators(text);
+  if (separators > 1.5 * inputLimit("maxDocumentNodes"))
+    throw refuse(0, `a document of at most ${limitWords("maxDocumentNodes", "values")}`, `${separators} separators before parsing`);
+  let doc: ReturnType<typeof parseDocument>;
+  try {
+    doc = parseDocument(text, { lineCounter, uniqueKeys: true, prettyErrors: false });
+  } catch (error) {
+    // the parser recurses once per level: a deep enough document exhausts the stack
+    if (error instanceof RangeError) throw refuse(0, `a document nested at most ${limitWords("maxNestingDepth", "levels")}`, "a document nested deeper than the parser can follow");
+    throw error;
+  }
   if (doc.errors.length > 0) {
     throw new InputError(
-      doc.errors.map((e) => ({
-        code: "bad-file" as const,
-        file,
-        line: lineCounter.linePos(e.pos[0]).line,
-        field: "",
-        expected: "valid YAML or JSON",
-        found: e.message.split("\n")[0]!,
-      })),
+      doc.errors.map((e) => {
+        const line = lineCounter.linePos(e.pos[0]).line;
+        const message = e.message.split("\n")[0]!;
+        return /call stack/i.test(message)
+          ? { code: "bad-file" as const, file, line, field: "", expected: `a document nested at most ${limitWords("maxNestingDepth", "levels")}`, found: "a document nested deeper than the parser can follow" }
+          : { code: "bad-file" as const, file, line, field: "", expected: "valid YAML or JSON", found: message };
+      }),
     );
   }
-  const data: unknown = doc.toJS({ maxAliasCount: 100 });
+  // measured before toJS: the depth and the size once aliases are expanded are bounded, so an
+  // alias bomb or a deep nest is refused with a line instead of exhausting memory or the stack
+  measureDocument(doc.contents, (node) => (node?.range ? lineCounter.linePos(node.range[0]).line : 0), refuse);
+  let data: unknown;
+  try {
+    data = doc.toJS({ maxAliasCount: -1 });
+  } catch (error) {
+    if (error instanceof RangeError || error instanceof ReferenceError) throw refuse(0, "valid YAML or JSON", error.message);
+    throw error;
+  }
   const lineOf = (field: string): number => {
     let node: unknown = doc.contents;
     let line = 0;
@@ -81,4 +103,14 @@ export function parseStructuredText(text: string, file: string): StructuredText 
     return line;
   };
   return { data, lineOf };
+}
+
+/** Count the characters that can start or separate YAML values (`,` `:` `[` `{` newline): an upper guess of the values, cheap to take before the parser's 1 KB per value. */
+function countSeparators(text: string): number {
+  let n = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 44 || c === 58 || c === 91 || c === 123 || c === 10) n++;
+  }
+  return n;
 }

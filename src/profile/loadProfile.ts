@@ -68,6 +68,9 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));
   const supervision =
     input.supervision === undefined ? undefined : resolveSupervision(reader, input.supervision, "supervision", circuit, (l, f, busV) => resolveLoad(reader, l, f, busV));
+  const map = input.retryPlan?.map;
+  if (map?.from !== undefined && map.to !== undefined && !(map.to > map.from))
+    reader.fail("out-of-range", "retryPlan.map.to", `a longest interval above the shortest (retryPlan.map.from = ${map.from} s)`, `${map.to} s`);
   if (!reader.failed) {
     const bound = expandedEventBound(events);
     if (bound > PROFILE_DEFAULTS.maxExpandedEvents)

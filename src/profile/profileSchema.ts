@@ -1,5 +1,6 @@
 import * as z from "zod";
 import { InputError } from "../errors/InputError.js";
+import { type InputLimitName, inputLimit, limitWords } from "../format/inputLimits.js";
 import { type Dimension, expectedWords } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parseQuantity.js";
 import { stressKeysSchema } from "../stress/stressKeysSchema.js";
@@ -36,10 +37,12 @@ function describe(value: unknown): string {
 }
 
 /** A whole count ≥ min. */
-function count(min: number, words: string) {
+function count(min: number, words: string, limit?: InputLimitName) {
   return z.unknown().transform((value, ctx) => {
-    if (typeof value !== "number" || !Number.isInteger(value) || value < min || value > Number.MAX_SAFE_INTEGER) {
-      ctx.addIssue({ code: "custom", message: "count", params: { expected: words, found: describe(value) } });
+    const max = limit === undefined ? Number.MAX_SAFE_INTEGER : inputLimit(limit);
+    if (typeof value !== "number" || !Number.isInteger(value) || value < min || value > max) {
+      const expected = limit === undefined ? words : `${words}, at most ${limitWords(limit)}`;
+      ctx.addIssue({ code: "custom", message: "count", params: { expected, found: describe(value) } });
       return z.NEVER;
     }
     return value;
@@ -78,7 +81,7 @@ const powerUpSchema = z
   .transform((v) => v ?? {});
 
 const retrySchema = z.strictObject({
-  attempts: count(1, "a whole number of attempts ≥ 1"),
+  attempts: count(1, "a whole number of attempts ≥ 1", "maxPlanAttempts"),
   interval: positiveTime("a start-to-start interval"),
   backoff: quantity("dimensionless", { min: 1, words: "a back-off factor ≥ 1 such as 2" }).optional(),
   maxInterval: positiveTime("a longest interval").optional(),
@@ -292,16 +295,16 @@ const retryCornerSchema = z.strictObject({
 
 /** The retry plan: which questions to answer for the profile's fault and over which corners. */
 export const retryPlanSchema = z.strictObject({
-  attempts: count(1, "a whole number of attempts ≥ 1").optional(),
+  attempts: count(1, "a whole number of attempts ≥ 1", "maxPlanAttempts").optional(),
   interval: positiveTime("a retry interval").optional(),
   spacing: z.enum(["start-to-start", "end-to-start"]).optional(),
   nearAmbient: quantity("temperatureDifference", { above: 0, words: 'a temperature difference > 0 such as "2 K"' }).optional(),
   map: z
     .strictObject({
-      attempts: count(1, "a whole number of attempts ≥ 1").optional(),
+      attempts: count(1, "a whole number of attempts ≥ 1", "maxMapSide").optional(),
       from: positiveTime("a shortest interval").optional(),
       to: positiveTime("a longest interval").optional(),
-      points: count(2, "a whole number of intervals ≥ 2").optional(),
+      points: count(2, "a whole number of intervals ≥ 2", "maxMapSide").optional(),
     })
     .optional(),
   corners: z.array(retryCornerSchema).min(1).optional(),

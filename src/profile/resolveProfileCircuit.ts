@@ -136,6 +136,14 @@ export function resolveLoad(reader: FieldReader, l: LoadInput, field: string, bu
   if (l.enableAt !== undefined && l.disableAt !== undefined && l.disableAt > l.enableAt) {
     reader.fail("out-of-range", join(field, "disableAt"), `a voltage at or below enableAt (${l.enableAt} V)`, `${l.disableAt} V`);
     ok = false;
+  } else if (l.enableAt !== undefined && l.disableAt !== undefined && l.disableAt === l.enableAt && !(l.kind === "constant-current" && l.enableAt === 0)) {
+    // the circuit models need a band between the two levels (validateBusLoad): refused here, where the line is known
+    reader.fail("out-of-range", join(field, "disableAt"), `a voltage below enableAt (${l.enableAt} V): the load needs a band between switching on and off`, `${l.disableAt} V`);
+    ok = false;
+  }
+  if (l.kind === "constant-power" && l.disableAt !== undefined && !(l.disableAt > 0)) {
+    reader.fail("out-of-range", join(field, "disableAt"), "a disable (under-voltage lockout) voltage > 0 V: a constant-power load draws P/V, which grows without bound as the bus falls to 0 V", `${l.disableAt} V`);
+    ok = false;
   }
   if (!ok) return undefined;
   switch (l.kind) {

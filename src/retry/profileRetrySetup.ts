@@ -1,3 +1,4 @@
+import { inputLimit } from "../format/inputLimits.js";
 import type { ChargeConditions } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
@@ -168,7 +169,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
     spacing: plan.spacing ?? PLAN_DEFAULTS.spacing,
     nearAmbientK: plan.nearAmbient ?? PLAN_DEFAULTS.ambientReturnK,
     map: {
-      attempts: plan.map?.attempts ?? Math.max(10, RETRY_PLAN_DEFAULTS.mapAttemptsFactor * retry.attempts),
+      attempts: plan.map?.attempts ?? Math.min(inputLimit("maxMapSide"), Math.max(10, RETRY_PLAN_DEFAULTS.mapAttemptsFactor * retry.attempts)),
       fromS: mapFromS,
       toS: mapToS,
       points: plan.map?.points ?? RETRY_PLAN_DEFAULTS.mapPoints,

@@ -1,6 +1,7 @@
 import { describeFound, inputError } from "../errors/InputError.js";
 import { DIMENSIONS, type Dimension, expectedWords } from "./dimensions.js";
 import { loadMathjs } from "./loadMathjs.js";
+import { checkQuantityRange } from "./quantityRanges.js";
 import { quickSiValue } from "./quickSiValue.js";
 import type { Unit } from "mathjs";
 
@@ -70,11 +71,18 @@ function dimensionOf(unit: { equalBase(other: unknown): boolean }, math: ReturnT
  * @param dimension the dimension the field expects
  * @param field dotted field path, used in the error message
  * @returns the value in the dimension's SI unit
- * @throws InputError with code `bad-quantity`, `wrong-dimension`, `unknown-unit` or `not-finite`
+ * Magnitudes outside QUANTITY_RANGES (a resistance of 1e308 ohm) are refused here, where the
+ * line is known, rather than overflowing later.
+ * @throws InputError with code `bad-quantity`, `wrong-dimension`, `unknown-unit`, `not-finite` or `out-of-range`
  * @example
  * parseQuantity("4.7 mF", "capacitance", "circuit.capacitance") // => 0.0047
  */
 export function parseQuantity(value: unknown, dimension: Dimension, field: string): number {
+  return checkQuantityRange(siValue(value, dimension, field), dimension, field, value);
+}
+
+/** parseQuantity without the range check. */
+function siValue(value: unknown, dimension: Dimension, field: string): number {
   const expected = expectedWords(dimension);
   if (typeof value === "number") {
     if (!Number.isFinite(value)) throw inputError("not-finite", field, `${expected}, a finite number`, describeFound(value));

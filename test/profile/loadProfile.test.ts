@@ -99,7 +99,7 @@ describe("loadProfile: bad input, exact messages", () => {
     ["timer resolution not a time", edit("events:", "firmware: { timerResolution: 10 V }\nevents:"), 'p.yaml:15: firmware.timerResolution: expected a time such as "350 ms" (or a number in s), found "10 V" (a voltage)'],
     ["role not in the topology", edit("role: resistor", "role: mosfet"), 'p.yaml:5: parts[0].role: expected a role of a series-resistor circuit (resistor), found "mosfet"'],
     ["misspelt topology", edit("topology: series-resistor", "topology: series-resistr"), 'p.yaml:9: circuit.topology: expected one of series-resistor, linear-mosfet, converter (did you mean "series-resistor"?), found "series-resistr"'],
-    ["fractional attempts", edit("- run: 10 s", "- retry: { attempts: 2.5, interval: 2 s, lockout: 1 min }"), "p.yaml:17: events[1].retry.attempts: expected a whole number of attempts ≥ 1, found 2.5"],
+    ["fractional attempts", edit("- run: 10 s", "- retry: { attempts: 2.5, interval: 2 s, lockout: 1 min }"), "p.yaml:17: events[1].retry.attempts: expected a whole number of attempts ≥ 1, at most 10000 (set HEATLEDGER_MAX_PLAN_ATTEMPTS to raise it), found 2.5"],
     ["YAML syntax", edit("ambient: 25 degC", "ambient: [25 degC"), "p.yaml:3: expected valid YAML or JSON, found Flow sequence in block collection must be sufficiently indented and end with a ]"],
     ["duplicate key", edit("ambient: 25 degC", "ambient: 25 degC\nambient: 30 degC"), "p.yaml:3: expected valid YAML or JSON, found Map keys must be unique"],
     ["unreadable CSV", edit("- run: 10 s", "- power-trace: { part: r, file: nothere.csv }"), 'p.yaml:17: events[1].power-trace.file: expected a readable CSV file of time, power, found "nothere.csv" (ENOENT: no such file)'],

@@ -64,11 +64,12 @@ describe("profileRetrySetup", () => {
     expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow("events: expected a retry block with a fault (the fault the planner retries into), found none");
   });
 
-  test("a lockout map whose longest interval is not above its shortest is refused, naming both", () => {
+  test("a lockout map whose longest interval is not above its shortest is refused when the profile loads, naming both and the line", () => {
     const text = `${PROFILE("{ type: shorted-output }", "{ kind: none }")}retryPlan:
   map: { from: 2 s, to: 1 s }
 `;
-    expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow("retryPlan.map.to: expected a longest interval above the shortest (2 s), found 1 s");
+    const line = text.split("\n").findIndex((l) => l.includes("map: { from")) + 1;
+    expect(() => profileRetrySetup(loadProfile(text, "p.yaml"), defaultCircuitModels)).toThrow(`p.yaml:${line}: retryPlan.map.to: expected a longest interval above the shortest (retryPlan.map.from = 2 s), found 1 s`);
   });
 });
 

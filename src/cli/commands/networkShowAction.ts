@@ -8,6 +8,15 @@ import { logSpacedTimes, zth } from "../../thermal/zth.js";
 import type { CliRun } from "../main.js";
 import { readStructuredFile } from "../readInputFile.js";
 import { type NetworkShowFlags, ZTH_TABLE_ROWS } from "./networkShow.js";
+import { InputError } from "../../errors/InputError.js";
+
+/** The table's row count from --rows: a whole number from 2 to 200 (the default when absent). */
+function tableRows(text: string | undefined): number {
+  if (text === undefined) return ZTH_TABLE_ROWS;
+  const rows = /^\s*\d+\s*$/.test(text) ? Number(text) : Number.NaN;
+  if (rows >= 2 && rows <= 200) return rows;
+  throw new InputError({ code: "bad-option", file: "", line: 0, field: "--rows", expected: "a whole number of rows from 2 to 200", found: JSON.stringify(text) });
+}
 
 /**
  * The run of `heatledger network show FILE` (flags and help are in networkShow.ts, which loads
@@ -17,9 +26,9 @@ import { type NetworkShowFlags, ZTH_TABLE_ROWS } from "./networkShow.js";
  * @throws InputError for an unreadable or invalid network file
  */
 export function networkShowAction(run: CliRun, file: string, options: NetworkShowFlags): void {
+  const rows = tableRows(options.rows);
   const parsed = readStructuredFile(run.io, file, "network file", (data) => parseNetwork(data, ""));
   const model = networkToModal(parsed);
-  const rows = Math.max(2, Math.min(200, Number.parseInt(options.rows, 10) || ZTH_TABLE_ROWS));
   const description = describeNetwork(parsed, model, rows);
   if (options.json) {
     run.io.out(`${JSON.stringify({ ...description, cautions: reportCautions(false) }, null, 2)}\n`);

@@ -9,7 +9,7 @@ import { verdictExitStatus } from "../../stress/Verdict.js";
 import { formatCyclesCsv } from "../../report/formatCyclesCsv.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
-import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
+import { refuseExistingOutput, refuseSharedOutputs, writeOutputFile } from "../readInputFile.js";
 import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { SimulateFlags } from "./simulate.js";
 
@@ -20,6 +20,7 @@ import type { SimulateFlags } from "./simulate.js";
  * @throws InputError for a bad profile, a file it names, or an output file that exists without --force
  */
 export function simulateAction(run: CliRun, file: string, options: SimulateFlags): void {
+  refuseSharedOutputs([["--csv", options.csv], ["--cycles", options.cycles]]);
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   refuseExistingOutput(run.io, options.cycles, options.force === true, "--cycles");
   const profile = readProfileFile(run.io, file);
