@@ -35,3 +35,8 @@ export function axisTimeUnit(spanS: number): AxisTimeUnit {
 
 /** Chart size [px] shared by every report chart. */
 export const REPORT_CHART_SIZE = { width: 760, height: 260 } as const;
+
+/** A Vega-Lite quantitative field encoding: `{ field, type: "quantitative", title?, ...extra }`. */
+export function quantitativeField(field: string, title?: string, extra: Readonly<Record<string, unknown>> = {}): Record<string, unknown> {
+  return { field, type: "quantitative", ...(title === undefined ? {} : { title }), ...extra };
+}

@@ -1,4 +1,4 @@
-import type { Verdict } from "../stress/Verdict.js";
+import { VERDICTS, type Verdict } from "../stress/Verdict.js";
 
 /** A rendered chart for the page: its title, note and SVG text. */
 export interface HtmlChart {
@@ -12,7 +12,7 @@ export interface HtmlReportInput {
   /** "heatledger simulate: <profile name>" */
   readonly title: string;
   readonly verdict: Verdict;
-  /** the verdict line of the text report */
+  /** why, in words ("": the verdict's general meaning, VERDICTS) */
   readonly verdictText: string;
   /** the cautions, one paragraph each */
   readonly cautions: readonly string[];
@@ -60,7 +60,7 @@ pre { font-size: 0.8em; background: #f8f8f8; padding: 0.8em; overflow-x: auto; }
 </head>
 <body>
 <h1>${escapeHtml(input.title)}</h1>
-<div class="verdict"><strong>${input.verdict}</strong> ${escapeHtml(input.verdictText)}</div>
+<div class="verdict"><strong>${input.verdict}</strong> ${escapeHtml(input.verdictText === "" ? VERDICTS[input.verdict].meaning : input.verdictText)}</div>
 <div class="cautions">
 ${input.cautions.map((c) => `<p>${escapeHtml(c)}</p>`).join("\n")}
 </div>

@@ -4,7 +4,7 @@ import type { ProfileStressResult } from "../profile/ProfileStress.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { logSpacedTimes, zth } from "../thermal/zth.js";
 import type { ChartTrace } from "./ChartTrace.js";
-import { REPORT_CHART_SIZE, type ReportChart, axisTimeUnit } from "./ReportChart.js";
+import { REPORT_CHART_SIZE, type ReportChart, axisTimeUnit, quantitativeField } from "./ReportChart.js";
 
 /** What the simulation charts draw from. */
 export interface SimulationChartInput {
@@ -20,7 +20,7 @@ export interface SimulationChartInput {
 /** How many events the per-event charts and the event marks draw at most, and how many rainflow classes. */
 export const SIMULATION_CHART_LIMITS = { events: 5000, eventMarks: 400, rainflowClasses: 12, zthPoints: 80 } as const;
 
-const q = (field: string, title?: string, extra: Record<string, unknown> = {}): Record<string, unknown> => ({ field, type: "quantitative", ...(title === undefined ? {} : { title }), ...extra });
+const q = quantitativeField;
 const partColor = { field: "part", type: "nominal", title: "part" } as const;
 
 /** The limit rules and the margin bands (limit − margin to limit) of every part, as a layer list. */

@@ -22,3 +22,6 @@ export const SAMPLE_RATIO_OPTION = {
     "for --csv and --report, exact samples inside every step from a quarter of the fastest time constant on, each r times later " +
     `than the last, so cooling reads as a curve (default ${TIME_SERIES_DEFAULTS.sampleRatio}: one per octave; 0: step ends and peaks only)`,
 } as const;
+
+/** --force for the commands whose only output files are the chart files (supervise, size). */
+export const CHART_FORCE_OPTION = { flags: "--force", help: "overwrite the --report or --svg file if it exists" } as const;

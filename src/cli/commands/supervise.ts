@@ -2,12 +2,16 @@ import type { Command } from "commander";
 import { SUPERVISE_DEFAULTS } from "../../supervise/superviseDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
+import { CHART_FORCE_OPTION, REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger supervise`: one table drives the flags and their help. */
 export const SUPERVISE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (window, checks, retry storms, envelope) instead of the text report" },
   { flags: "--no-chart", help: "leave the envelope and energy charts out of the text report" },
+  REPORT_OPTION,
+  SVG_OPTION,
+  CHART_FORCE_OPTION,
   STRICT_OPTION,
 ] as const;
 
@@ -15,6 +19,9 @@ export const SUPERVISE_OPTIONS = [
 export interface SuperviseFlags {
   readonly json?: boolean;
   readonly chart: boolean;
+  readonly report?: string;
+  readonly svg?: string;
+  readonly force?: boolean;
   readonly strict?: boolean;
 }
 
@@ -41,6 +48,6 @@ See README, "Reading the supervision answers" and "Verdicts and exit status".`,
   for (const option of SUPERVISE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SuperviseFlags) => {
     const { superviseAction } = await import("./superviseAction.js");
-    superviseAction(run, file, options);
+    await superviseAction(run, file, options);
   });
 }
