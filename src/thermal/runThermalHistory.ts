@@ -247,7 +247,13 @@ export class ThermalRun {
         const offset = k * everyS - startS;
         if (offset > 0) out.push(offset);
       }
-      if (geometric) out.sort((a, b) => a - b);
+      if (geometric) {
+        out.sort((a, b) => a - b);
+        // a time both rules give is sampled once
+        let kept = 0;
+        for (const t of out) if (kept === 0 || t - out[kept - 1]! > 1e-12 * durationS) out[kept++] = t;
+        out.length = kept;
+      }
     }
     return out;
   }
