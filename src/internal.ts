@@ -132,3 +132,6 @@ export { supervisionCharts } from "./report/supervisionCharts.js";
 export { sizingCharts } from "./report/sizingCharts.js";
 export { escapeHtml, htmlReport } from "./report/htmlReport.js";
 export type { HtmlChart, HtmlReportInput } from "./report/htmlReport.js";
+export { fitTable } from "./text/fitTable.js";
+export type { FitTableOptions, FittedTable } from "./text/fitTable.js";
+export { wrapHanging } from "./text/wrapHanging.js";
