@@ -45,18 +45,20 @@ export interface Recorded<T> {
 /**
  * The samples a run takes between step ends for --csv, --report and --svg (none without them):
  * `--sample-ratio` geometric ones (default TIME_SERIES_DEFAULTS.sampleRatio, HistorySampling.ratio)
- * and, with `--sample-step`, one at every multiple of that time.
+ * with TIME_SERIES_DEFAULTS.sampleDivisions even ones per step (none with --sample-ratio 0) and,
+ * with `--sample-step`, one at every multiple of that time.
  * @throws InputError for a --sample-step that is not a positive time or a --sample-ratio that is neither 0 nor from 1.1 to 10
  */
 export function recordSampling(flags: RecordFlags): HistorySampling {
   const ratioText = flags.sampleRatio;
   const ratio = ratioText === undefined ? TIME_SERIES_DEFAULTS.sampleRatio : Number(ratioText);
   if (!(ratio === 0 || (ratio >= 1.1 && ratio <= 10))) throw inputError("bad-option", "--sample-ratio", "0 (no geometric samples) or a ratio from 1.1 to 10", describeFound(ratioText));
-  if (flags.sampleStep === undefined) return { ratio };
+  const divisions = ratio === 0 ? 0 : TIME_SERIES_DEFAULTS.sampleDivisions;
+  if (flags.sampleStep === undefined) return { ratio, divisions };
   const text = flags.sampleStep.trim();
   const everyS = parseQuantity(/^[-+]?[\d.]+(e[-+]?\d+)?$/i.test(text) ? Number(text) : text, "time", "--sample-step");
   if (!(everyS > 0) || !Number.isFinite(everyS)) throw inputError("bad-option", "--sample-step", "a positive time, e.g. 10 ms or 0.5", describeFound(flags.sampleStep));
-  return { ratio, everyS };
+  return { ratio, divisions, everyS };
 }
 
 /**

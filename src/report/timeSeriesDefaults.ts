@@ -11,6 +11,11 @@ export const TIME_SERIES_DEFAULTS = {
    * for log-spaced plots)
    */
   sampleRatio: 2,
+  /**
+   * and at the inner cuts of every step divided into this many equal parts
+   * (HistorySampling.divisions), so a plot on a linear time axis shows the tail of a long step as a curve
+   */
+  sampleDivisions: 8,
   /** the most rows a --csv file may take before the run stops with advice to sample less densely */
   maxCsvRows: 2_000_000,
   /** points the report keeps around its worst event (the inset), beyond which it stops recording */

@@ -54,6 +54,8 @@ export interface HistorySampling {
    * whatever the step's length (about log_ratio(4·duration/fastest tau) samples per step)
    */
   readonly ratio?: number;
+  /** the step cut into this many equal parts, a sample at each inner cut (so a linear time axis sees the tail of a long step too) */
+  readonly divisions?: number;
 }
 
 /** What a run leaves: peaks per observed node and the end state. */
@@ -239,7 +241,8 @@ export class ThermalRun {
     const out: number[] = [];
     const ratio = this.sampling?.ratio;
     if (ratio !== undefined && ratio > 1) for (let t = 0.25 * this.fastestTauS; t < durationS; t *= ratio) out.push(t);
-    const geometric = out.length > 0;
+    const divisions = this.sampling?.divisions ?? 0;
+    for (let k = 1; k < divisions; k++) out.push((durationS * k) / divisions);
     const everyS = this.sampling?.everyS;
     if (everyS !== undefined && everyS > 0) {
       const endS = startS + durationS;
@@ -247,14 +250,12 @@ export class ThermalRun {
         const offset = k * everyS - startS;
         if (offset > 0) out.push(offset);
       }
-      if (geometric) {
-        out.sort((a, b) => a - b);
-        // a time both rules give is sampled once
-        let kept = 0;
-        for (const t of out) if (kept === 0 || t - out[kept - 1]! > 1e-12 * durationS) out[kept++] = t;
-        out.length = kept;
-      }
     }
+    out.sort((a, b) => a - b);
+    // a time two rules give is sampled once
+    let kept = 0;
+    for (const t of out) if (kept === 0 || t - out[kept - 1]! > 1e-12 * durationS) out[kept++] = t;
+    out.length = kept;
     return out;
   }
 

@@ -20,7 +20,7 @@ export const SAMPLE_RATIO_OPTION = {
   flags: "--sample-ratio <r>",
   help:
     "for --csv and --report, exact samples inside every step from a quarter of the fastest time constant on, each r times later " +
-    `than the last, so cooling reads as a curve (default ${TIME_SERIES_DEFAULTS.sampleRatio}: one per octave; 0: step ends and peaks only)`,
+    `than the last, plus ${TIME_SERIES_DEFAULTS.sampleDivisions - 1} evenly spaced, so cooling reads as a curve (default ${TIME_SERIES_DEFAULTS.sampleRatio}: one per octave; 0: step ends and peaks only)`,
 } as const;
 
 /** --force for the commands whose only output files are the chart files (supervise, size). */
