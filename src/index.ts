@@ -30,7 +30,7 @@ export { networkToModal } from "./thermal/ThermalNetwork.js";
 export type { ThermalNetwork } from "./thermal/ThermalNetwork.js";
 export { parseNetwork, NETWORK_FORMS } from "./thermal/parseNetwork.js";
 export { formatNetworkFile, networkToDocument } from "./thermal/formatNetworkFile.js";
-export type { HistoryOptions, HistoryPoint, HistorySummary } from "./thermal/runThermalHistory.js";
+export type { HistoryOptions, HistoryPoint, HistorySampling, HistorySummary } from "./thermal/runThermalHistory.js";
 // thermal: networks from the data engineers have (fit, pulse rating, lumped)
 export { fitFosterNetwork, FIT_DEFAULTS } from "./thermal/fitFosterNetwork.js";
 export type { FitOptions, ResolvedFitOptions, FitCandidate, FosterFit } from "./thermal/fitFosterNetwork.js";

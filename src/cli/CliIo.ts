@@ -15,7 +15,7 @@ export interface CliIo {
   readonly exists: (path: string) => boolean;
   /** why an output path cannot be written (a folder, a missing or read-only folder), checked before a run; absent: no check */
   readonly outputProblem?: (path: string) => string | undefined;
-  /** terminal width in columns, for charts and tables */
+  /** width of the text reports in columns: the terminal's, else COLUMNS up to PIPED_COLUMNS, else PIPED_COLUMNS; --width sets it */
   readonly columns: number;
   /** raw writes for a progress line on an interactive terminal (stderr); absent when stderr is not one */
   readonly progress?: (text: string) => void;
@@ -27,6 +27,20 @@ export interface CliIo {
  * for warn).
  */
 export const EXIT_INPUT = 2;
+
+/** The width of the text reports when standard output is not a terminal (a pipe or a file) [columns]. */
+export const PIPED_COLUMNS = 100;
+
+/**
+ * The report width: the terminal's when standard output is one; otherwise the COLUMNS variable
+ * when it holds a whole number from 40 up, never more than PIPED_COLUMNS; else PIPED_COLUMNS.
+ */
+export function reportColumns(stdoutColumns: number | undefined, columnsVariable: string | undefined): number {
+  if (stdoutColumns !== undefined && stdoutColumns > 0) return stdoutColumns;
+  const fromVariable = Number(columnsVariable);
+  if (Number.isInteger(fromVariable) && fromVariable >= 40) return Math.min(fromVariable, PIPED_COLUMNS);
+  return PIPED_COLUMNS;
+}
 
 let pipesGuarded = false;
 
@@ -55,7 +69,7 @@ export function processIo(): CliIo {
     writeFile: writeFileAtomically,
     exists: (path) => existsSync(path),
     outputProblem: outputPathProblem,
-    columns: process.stdout.columns ?? 100,
+    columns: reportColumns(process.stdout.isTTY ? process.stdout.columns : undefined, process.env.COLUMNS),
     ...(process.stderr.isTTY ? { progress: (text: string) => void process.stderr.write(text) } : {}),
   };
 }

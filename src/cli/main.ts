@@ -1,14 +1,18 @@
 import { Command, CommanderError } from "commander";
-import { InputError, formatInputProblem } from "../errors/InputError.js";
-import { type CliIo, EXIT_INPUT, processIo } from "./CliIo.js";
+import { InputError, describeFound, formatInputProblem, inputError } from "../errors/InputError.js";
+import { type CliIo, EXIT_INPUT, PIPED_COLUMNS, processIo } from "./CliIo.js";
 import { COMMANDS } from "./commands/registry.js";
 import { terminalSafeIo } from "./terminalSafeIo.js";
 
 /** Shared state of one CLI run: the io and the exit status a command sets. */
 export interface CliRun {
-  readonly io: CliIo;
+  /** replaced once before a command runs when --width is given (its columns) */
+  io: CliIo;
   status: number;
 }
+
+/** The narrowest and widest --width accepted [columns]. */
+export const WIDTH_RANGE = { min: 60, max: 400 } as const;
 
 /**
  * Build the heatledger command tree (a factory, so tests run it in process). Commander's own
@@ -23,7 +27,16 @@ export function createProgram(run: CliRun): Command {
     .version("0.1.0", "--version", "print the version")
     .exitOverride()
     .configureOutput({ writeOut: (t) => run.io.out(t), writeErr: (t) => run.io.err(t), outputError: (t, write) => write(t) })
-    .showHelpAfterError("(run with --help for usage)");
+    .showHelpAfterError("(run with --help for usage)")
+    .option("--width <columns>", `width of the text reports (default: the terminal's; ${PIPED_COLUMNS} when the output is not a terminal)`)
+    .hook("preAction", () => {
+      const text = program.opts<{ width?: string }>().width;
+      if (text === undefined) return;
+      const columns = Number(text);
+      if (!Number.isInteger(columns) || columns < WIDTH_RANGE.min || columns > WIDTH_RANGE.max)
+        throw inputError("bad-option", "--width", `a whole number of columns from ${WIDTH_RANGE.min} to ${WIDTH_RANGE.max}`, describeFound(text));
+      run.io = { ...run.io, columns };
+    });
   for (const register of COMMANDS) register(program, run);
   return program;
 }

@@ -2,7 +2,7 @@ import { type ContactorSummary, ContactorTally } from "./ContactorTally.js";
 import { InputError, withLocation } from "../errors/InputError.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
-import { ThermalRun } from "../thermal/runThermalHistory.js";
+import { type HistorySampling, ThermalRun } from "../thermal/runThermalHistory.js";
 import { traceSteps } from "../thermal/traceSteps.js";
 import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 import type { CircuitModels } from "./CircuitModels.js";
@@ -67,6 +67,10 @@ export interface SimulateOptions {
    * refilled at every point (copy what you keep)
    */
   readonly onPoint?: (timeS: number, temperatureC: readonly number[], kind: "step-end" | "peak", eventIndex: number) => void;
+  /** extra samples between step ends for plots and the --csv file (default none); they reach only onSample, never the peaks or verdicts */
+  readonly sampling?: HistorySampling;
+  /** called for every extra sample with each part's temperature [°C] (refilled array: copy what you keep), in time order with onPoint's points */
+  readonly onSample?: (timeS: number, temperatureC: readonly number[], eventIndex: number) => void;
   /** carry the circuit samples on each charging event handed to onEvent (for the SOA check); default false */
   readonly wantSamples?: boolean;
   /** called every {@link PROGRESS_EVENTS} events with the events opened so far and the profile time reached [s] */
@@ -190,9 +194,21 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     }
   };
 
+  const sampleTemperatures = new Array<number>(count).fill(0);
+  const userSample = options.onSample;
+  const onSample =
+    userSample === undefined
+      ? undefined
+      : (timeS: number, riseK: readonly number[]): void => {
+          for (let i = 0; i < count; i++) sampleTemperatures[i] = ambient[i]! + riseK[i]!;
+          userSample(timeS, sampleTemperatures, current?.index ?? lastIndex);
+        };
+
   // The walk is pulled item by item and each item's steps are pushed into the run at once, so a
   // charge reads (temperatureOf) the parts' state after every earlier item.
-  const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC) });
+  const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC),
+    ...(onSample === undefined ? {} : { onSample, ...(options.sampling === undefined ? {} : { sampling: options.sampling }) }),
+  });
   try {
     // a circuit whose values follow temperature is solved with the parts' modal state at each charge
     const contextOf = circuitReadsTemperature(profile.circuit) ? thermalContextSource(parts, model) : undefined;

@@ -3,7 +3,9 @@ import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
 import { EVENT_DIGEST_DEFAULTS, type EventDigest, type EventRecord } from "../profile/EventDigest.js";
-import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
+import { formatDuration, formatNumber } from "../text/formatTable.js";
+import { fitTable } from "../text/fitTable.js";
+import { wrapHanging } from "../text/wrapHanging.js";
 import { lineChart } from "./lineChart.js";
 import type { PeakEnvelope } from "./PeakEnvelope.js";
 import { simulationVerdict } from "./simulationVerdict.js";
@@ -68,7 +70,7 @@ export function formatSimulationText(
   ratingStatus: RatingStatus = "pass",
 ): string {
   const out: string[] = [];
-  out.push(`heatledger ${header.command ?? "simulate"}: ${profile.name}`);
+  out.push(wrapText(`heatledger ${header.command ?? "simulate"}: ${profile.name}`, width).trimEnd());
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
   const o = result.outcomes;
@@ -81,7 +83,7 @@ export function formatSimulationText(
   out.push("");
   out.push("Parts");
   out.push(
-    formatTable(
+    fitTable(
       [
         { heading: "part" },
         { heading: "peak [°C]", align: "right" },
@@ -104,7 +106,8 @@ export function formatSimulationText(
         p.firstExceedanceS === undefined ? "never" : formatDuration(p.firstExceedanceS),
         formatNumber(p.energyJ, 4),
       ]),
-    ),
+      { width },
+    ).text,
   );
   const short = digest.count <= EVENT_DIGEST_DEFAULTS.terminalAll && digest.all.length === digest.count;
   const shown: readonly EventRecord[] = short ? digest.all : [...digest.hottest].sort((a, b) => a.index - b.index);
@@ -115,8 +118,7 @@ export function formatSimulationText(
   const hasContactor = profile.circuit?.contactor !== undefined;
   const coupled = digest.loopGain.coupled > 0;
   const inrush = coupled || profile.circuit?.peakCurrentRatingA !== undefined || profile.circuit?.topology === "series-resistor" && profile.circuit.temperatureCurve !== undefined;
-  out.push(
-    formatTable(
+  const events = fitTable(
       [
         { heading: "#", align: "right" },
         { heading: "start [d h:m:s]", align: "right" },
@@ -141,8 +143,10 @@ export function formatSimulationText(
         ...(inrush ? [e.peakCurrentA === undefined ? "" : formatNumber(e.peakCurrentA, 4)] : []),
         ...(coupled ? [loopGainCell(e)] : []),
       ]),
-    ),
-  );
+      { width, keyColumns: 2, cutColumn: 2, cutMin: 24 },
+    );
+  out.push(events.text);
+  if (events.cutCells > 0) out.push(`(${events.cutCells} event names cut to fit ${width} columns, ended with …; --width or --json shows them whole)`);
   if (shown.some((e) => e.busStalled)) out.push(`${STALLED_MARK} timed out with the bus stalled below the completion threshold: it would never have got there`);
   if (shown.some((e) => loopGainCell(e).endsWith(LOOP_GAIN_WARNING_MARK))) out.push(`${LOOP_GAIN_WARNING_MARK} loop gain above the warning level`);
   out.push(...formatLoopGainText(digest.loopGain, width, profile.circuit?.peakCurrentRatingA));
@@ -165,5 +169,10 @@ export function formatSimulationText(
   out.push(wrapText(verdictLine(verdict.verdict, verdict.reason), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(profile.circuit?.topology === "linear-mosfet", Math.min(width, 100)));
-  return out.join("\n");
+  // sentences longer than the width wrap under themselves (the tables and charts above fit already)
+  return out
+    .join("\n")
+    .split("\n")
+    .map((l) => wrapHanging(l, width))
+    .join("\n");
 }

@@ -4,12 +4,17 @@ import { verdictLine } from "../stress/Verdict.js";
 import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
 import { formatProtectedSupervision } from "./formatProtectedSupervision.js";
+import { wrapHanging } from "../text/wrapHanging.js";
 
 const dur = (s: number): string => (s === Infinity ? "unbounded" : formatDuration(s));
 const volts = (v: number): string => `${formatNumber(v, 3)} V`;
 
-/** The answers a firmware engineer pastes into a design note: a Markdown table of the chosen numbers. */
-export function supervisionSummaryTable(report: SupervisionReport): string {
+/**
+ * The answers a firmware engineer pastes into a design note: a Markdown table of the chosen
+ * numbers (quantity, value, basis). When it is wider than `width`, the basis column leaves the
+ * table and follows it as a Markdown list, one wrapped item per quantity (nothing is cut).
+ */
+export function supervisionSummaryTable(report: SupervisionReport, width = Infinity): string {
   const w = report.window;
   const rows: [string, string, string][] = [
     ["pre-charge timeout, lowest", dur(w.lowerS), `slowest healthy corner: ${w.lowerCorner}`],
@@ -28,9 +33,14 @@ export function supervisionSummaryTable(report: SupervisionReport): string {
   rows.push(["attempts back to back before the limit", count(s.backToBack), `at the ${dur(s.timeoutS)} timeout, ${dur(s.backToBackWaitS)} apart (relay)`]);
   if (s.atPolicyInterval !== null && report.policy !== null)
     rows.push([`attempts ${dur(report.policy.intervalS)} apart before the limit`, count(s.atPolicyInterval), `policy: ${report.policy.attempts} attempts, lockout ${dur(report.policy.lockoutS)}`]);
-  const widths = [0, 1, 2].map((j) => Math.max(["quantity", "value", "basis"][j]!.length, ...rows.map((row) => row[j]!.length)));
-  const line = (cells: readonly string[]): string => `| ${cells.map((c, j) => c.padEnd(widths[j]!)).join(" | ")} |`;
-  return [line(["quantity", "value", "basis"]), `|${widths.map((x) => "-".repeat(x + 2)).join("|")}|`, ...rows.map(line)].join("\n") + "\n";
+  const headings = ["quantity", "value", "basis"];
+  const widths = [0, 1, 2].map((j) => Math.max(headings[j]!.length, ...rows.map((row) => row[j]!.length)));
+  const wide = widths.reduce((a, b) => a + b, 0) + 3 * widths.length + 1 > width;
+  const kept = wide ? 2 : 3;
+  const line = (cells: readonly string[]): string => `| ${cells.slice(0, kept).map((c, j) => c.padEnd(widths[j]!)).join(" | ")} |`;
+  const table = [line(headings), `|${widths.slice(0, kept).map((x) => "-".repeat(x + 2)).join("|")}|`, ...rows.map(line)];
+  if (wide) table.push("", "Basis:", ...rows.filter((row) => row[2] !== "").map((row) => wrapHanging(`- ${row[0]}: ${row[2]}`, width)));
+  return table.join("\n") + "\n";
 }
 
 /**
@@ -124,12 +134,17 @@ export function formatSupervisionText(report: SupervisionReport, width = 100, ch
     out.push(lineChart([{ label: "short-circuit energy", points: points(e.shortEnergyJ) }], { width: Math.min(width, 100), height: 6, yUnit: "J" }));
   }
   out.push("Summary (Markdown, for a design note)");
-  out.push(supervisionSummaryTable(report));
+  out.push(supervisionSummaryTable(report, width));
   for (const p of report.problems) out.push(`Problem: ${p}`);
   out.push(wrapText(verdictLine(report.verdict, verdictReason(report)), Math.min(width, 100)));
   out.push("");
   out.push(formatCautions(report.linearMosfet, Math.min(width, 100)));
-  return out.join("\n");
+  // sentences longer than the width wrap under themselves (the tables and charts above fit already)
+  return out
+    .join("\n")
+    .split("\n")
+    .map((l) => wrapHanging(l, width))
+    .join("\n");
 }
 
 /** Why the supervision verdict is what it is, in words. */

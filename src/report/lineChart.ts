@@ -75,5 +75,7 @@ export function lineChart(series: readonly ChartSeries[], options: LineChartOpti
     ...series.map((s, i) => `${i === 0 ? "curve" : `curve ${i + 1}`}: ${s.label}${unit}`),
     ...(options.lines ?? []).map((l) => `flat line: ${l.label} = ${formatNumber(l.y, 4)}${options.yUnit === undefined ? "" : ` ${options.yUnit}`}`),
   ];
-  return `${plot}\n${axisLine}${options.logX ? "  (log time axis)" : ""}\n${legend.map((l) => `  ${l}`).join("\n")}\n`;
+  // the log-axis note goes under the axis, so the axis line stays within the width
+  if (options.logX) legend.unshift("time axis: logarithmic");
+  return `${plot}\n${axisLine}\n${legend.map((l) => `  ${l}`).join("\n")}\n`;
 }

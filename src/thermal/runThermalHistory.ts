@@ -33,6 +33,29 @@ export interface HistoryOptions {
    * ends are seen, so a crossing inside a step that ends below the level is missed. Default: none.
    */
   readonly crossingRiseK?: readonly number[];
+  /** extra samples between step ends for plots and time-series files (default: none); see {@link HistorySampling} */
+  readonly sampling?: HistorySampling;
+  /** called for every extra sample (absolute time [s], rise per observed node [K]; the array is refilled, copy what you keep), in time order with the points */
+  readonly onSample?: (timeS: number, riseK: readonly number[]) => void;
+}
+
+/**
+ * Where a run samples the history between step ends (each sample exact: the closed-form modal
+ * advance from the step start). Samples never feed the peaks, crossings or the summary: they are
+ * only handed to HistoryOptions.onSample, so a run's answers do not depend on them.
+ */
+export interface HistorySampling {
+  /** a sample at every whole multiple of this time inside each step [s] (evenly spaced on the absolute clock) */
+  readonly everyS?: number;
+  /**
+   * geometric samples inside every step: the first a quarter of the model's fastest time constant
+   * after the step start, each next one `ratio` times later (> 1), up to the step end: denser near
+   * the start, where a sum of exponentials bends most, so every mode's decay is drawn as a curve
+   * whatever the step's length (about log_ratio(4·duration/fastest tau) samples per step)
+   */
+  readonly ratio?: number;
+  /** the step cut into this many equal parts, a sample at each inner cut (so a linear time axis sees the tail of a long step too) */
+  readonly divisions?: number;
 }
 
 /** What a run leaves: peaks per observed node and the end state. */
@@ -98,6 +121,10 @@ export class ThermalRun {
   /** nodes still below their level (none: no start state is kept per step) */
   private pending: number;
   private readonly startState: ModalState;
+  private readonly sampling: HistorySampling | undefined;
+  private readonly onSample: ((timeS: number, riseK: readonly number[]) => void) | undefined;
+  private readonly sampleRise: number[];
+  private readonly fastestTauS: number;
 
   constructor(model: ModalModel, options: HistoryOptions = {}) {
     this.model = model;
@@ -115,6 +142,10 @@ export class ThermalRun {
     this.crossings = new Array<number | undefined>(this.observed).fill(undefined);
     this.startState = new Float64Array(this.state.length);
     this.pending = 0;
+    this.onSample = options.onSample;
+    this.sampling = options.onSample === undefined ? undefined : options.sampling;
+    this.sampleRise = new Array<number>(this.observed).fill(0);
+    this.fastestTauS = model.tauS.length === 0 ? 1 : Math.min(...model.tauS);
     for (let o = 0; o < this.observed; o++) {
       const r = modalRise(model, this.state, o);
       if (r > this.peakRiseK[o]!) this.peakRiseK[o] = r;
@@ -156,6 +187,12 @@ export class ThermalRun {
     const { model, state, observed, visit, peakRiseK, peakTimeS } = this;
     const levels = this.pending > 0 ? this.levels : undefined;
     if (levels !== undefined) this.startState.set(state);
+    const samples = this.sampling === undefined ? undefined : this.sampleOffsets(s.startS, s.durationS);
+    let nextSample = 0;
+    const sampleUntil = (atS: number): void => {
+      if (samples === undefined) return;
+      while (nextSample < samples.length && samples[nextSample]! < atS) this.emitSample(s, samples[nextSample++]!);
+    };
     if (this.findPeaks) {
       let found: { atS: number; riseK: number; o: number }[] | undefined;
       for (let o = 0; o < observed; o++) {
@@ -175,6 +212,7 @@ export class ThermalRun {
         }
         if (visit !== undefined) {
           for (const p of found) {
+            sampleUntil(p.atS);
             const riseK = this.pointArray();
             if (observed === 1) riseK[0] = p.riseK;
             else {
@@ -186,6 +224,7 @@ export class ThermalRun {
         }
       }
     }
+    sampleUntil(s.durationS);
     this.step(state, s.durationS, s.powers);
     const endTimeS = s.startS + s.durationS;
     this.endTimeS = endTimeS;
@@ -202,6 +241,36 @@ export class ThermalRun {
       if (levels !== undefined && this.crossings[o] === undefined && r > levels[o]!) this.cross(o, s.startS, s.durationS, s.powers);
     }
     if (visit !== undefined) visit(this.point(endTimeS, riseK!, "step-end"));
+  }
+
+  /** Offsets [s] of the samples strictly inside a step, ascending (HistorySampling). */
+  private sampleOffsets(startS: number, durationS: number): number[] {
+    const out: number[] = [];
+    const ratio = this.sampling?.ratio;
+    if (ratio !== undefined && ratio > 1) for (let t = 0.25 * this.fastestTauS; t < durationS; t *= ratio) out.push(t);
+    const divisions = this.sampling?.divisions ?? 0;
+    for (let k = 1; k < divisions; k++) out.push((durationS * k) / divisions);
+    const everyS = this.sampling?.everyS;
+    if (everyS !== undefined && everyS > 0) {
+      const endS = startS + durationS;
+      for (let k = Math.floor(startS / everyS) + 1; k * everyS < endS; k++) {
+        const offset = k * everyS - startS;
+        if (offset > 0) out.push(offset);
+      }
+    }
+    out.sort((a, b) => a - b);
+    // a time two rules give is sampled once
+    let kept = 0;
+    for (const t of out) if (kept === 0 || t - out[kept - 1]! > 1e-12 * durationS) out[kept++] = t;
+    out.length = kept;
+    return out;
+  }
+
+  /** Hand onSample the rise at `offsetS` into step s (the state is still the step's start state). */
+  private emitSample(s: TimedStep, offsetS: number): void {
+    advanceModalState(this.model, this.state, offsetS, s.powers, this.scratch);
+    for (let o = 0; o < this.observed; o++) this.sampleRise[o] = modalRise(this.model, this.scratch, o);
+    this.onSample!(s.startS + offsetS, this.sampleRise);
   }
 
   /** The point handed to the visitor: one object refilled when freshPoints is false, else a new one. */

@@ -63,4 +63,20 @@ describe("runCli loads each command's implementation only when it runs", () => {
     expect(loads.dist).toContain("dist/cli/commands/networkFitAction.js");
     expect(loads.dist).not.toContain("dist/index.js");
   });
+
+  test("the chart packages (vega, vega-lite) load only for --report or --svg", () => {
+    const CHART_PACKAGES = ["vega", "vega-lite"];
+    for (const args of [["simulate", "profiles/warehouse-robot-48v.yaml"], ["retries", "profiles/warehouse-robot-48v.yaml", "--json"]]) {
+      const loads = cliModuleLoads(args);
+      expect(loads.status).toBe(0);
+      expect(loads.packages.filter((name) => CHART_PACKAGES.includes(name))).toEqual([]);
+      expect(loads.dist.filter((file) => /renderChartSvg|writeChartReport|simulationCharts/.test(file))).toEqual([]);
+    }
+    // the helper's io refuses every write: the run renders the chart, then stops at the write
+    // (a write error is the user's to mend: status 2)
+    const loads = cliModuleLoads(["simulate", "profiles/warehouse-robot-48v.yaml", "--svg", "never-written.svg"]);
+    expect(loads.status).toBe(2);
+    expect(loads.packages).toEqual(expect.arrayContaining(CHART_PACKAGES));
+    expect(loads.dist).toContain("dist/report/renderChartSvg.js");
+  });
 });

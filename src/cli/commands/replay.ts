@@ -2,6 +2,7 @@ import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 import { LOG_COLUMNS, LOG_WORDS } from "../../replay/logWords.js";
 import { CSV_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
+import { REPORT_OPTION, SAMPLE_RATIO_OPTION, SAMPLE_STEP_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger replay`: one table drives the flags and their help. */
@@ -9,7 +10,11 @@ export const REPLAY_OPTIONS = [
   { flags: "--profile <file>", help: "duty profile (YAML or JSON) giving the parts, circuit and limits (required; its own events are ignored)" },
   { flags: "--json", help: "print one JSON object (verdict, parts, events, replay) instead of the text report" },
   CSV_OPTION,
-  { flags: "--force", help: "overwrite the --csv file if it exists" },
+  SAMPLE_STEP_OPTION,
+  SAMPLE_RATIO_OPTION,
+  REPORT_OPTION,
+  SVG_OPTION,
+  { flags: "--force", help: "overwrite the --csv, --report or --svg file if it exists" },
   NO_CHART_OPTION,
   STRICT_OPTION,
 ] as const;
@@ -19,6 +24,10 @@ export interface ReplayFlags {
   readonly profile?: string;
   readonly json?: boolean;
   readonly csv?: string;
+  readonly sampleStep?: string;
+  readonly sampleRatio?: string;
+  readonly report?: string;
+  readonly svg?: string;
   readonly force?: boolean;
   readonly chart: boolean;
   readonly strict?: boolean;
@@ -59,7 +68,7 @@ docs/field-logs.md (shipped in the package).`,
   for (const option of REPLAY_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: ReplayFlags) => {
     const { replayAction } = await import("./replayAction.js");
-    replayAction(run, file, options);
+    await replayAction(run, file, options);
   });
 }
 

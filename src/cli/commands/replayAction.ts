@@ -25,7 +25,7 @@ const REPLAY_HISTORY_WORDS = { perRepetition: "to date (the whole log)", repetit
  * the report; sets the exit status from the verdict as `simulate` does.
  * @throws InputError for a missing --profile, a bad log or profile, or an output file that exists without --force
  */
-export function replayAction(run: CliRun, file: string, options: ReplayFlags): void {
+export async function replayAction(run: CliRun, file: string, options: ReplayFlags): Promise<void> {
   if (options.profile === undefined)
     throw new InputError({
       code: "bad-option",
@@ -36,26 +36,34 @@ export function replayAction(run: CliRun, file: string, options: ReplayFlags): v
       found: "nothing",
     });
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const log = parseEventLog(readTextFile(run.io, file, "event log"), file);
   const profile = readProfileFile(run.io, options.profile);
   const replayed = replayProfile(profile, log);
-  const stress = new ProfileStress(replayed, { mode: "open" });
-  const { result: replay, digest, envelope, csv } = recordSimulation(run.io, profile, options, stress, "replaying", (simulate) => replayEventLog(profile, log, simulate, replayed));
+  const stress = new ProfileStress(replayed, { mode: "open", keepCycles: options.report !== undefined });
+  const { result: replay, digest, envelope, csv, trace } = recordSimulation(run.io, profile, options, stress, "replaying", (simulate) => replayEventLog(profile, log, simulate, replayed));
   const result = replay.simulation;
   const stressResult = stress.finish(result.endTimeS);
   const summary = replaySummary(log, replay, stressResult);
   const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
+  const stressText = formatProfileStress(replay.profile, stressResult, {
+    history: REPLAY_HISTORY_WORDS,
+    damageNote: "Damage to date is Miner's rule over the whole log, counted as a one-off history (ASTM E1049 §5.4.4: half cycles from the residue); the cycling life left depends on what the unit did outside the log.",
+  });
+  const header = formatReplayHeader(summary, profile.parts.map((p) => p.limitC));
+  let chartNote = "";
+  if (trace !== undefined) {
+    const { writeSimulationReport } = await import("../simulationReport.js");
+    const text = formatSimulationText(replay.profile, result, digest, undefined, 100, stressText, { command: "replay", lines: header }, stressResult.ratingStatus);
+    chartNote = await writeSimulationReport(run.io, options, { command: "replay", profile: replay.profile, result, digest, trace, stress: stressResult, text });
+  }
   if (options.json) {
     const json = simulationStressJson(simulationJson(replay.profile, result, digest), stressResult, undefined);
     run.io.out(`${JSON.stringify({ ...json, replay: summary }, null, 2)}\n`);
   } else {
-    const stressText = formatProfileStress(replay.profile, stressResult, {
-      history: REPLAY_HISTORY_WORDS,
-      damageNote: "Damage to date is Miner's rule over the whole log, counted as a one-off history (ASTM E1049 §5.4.4: half cycles from the residue); the cycling life left depends on what the unit did outside the log.",
-    });
-    const header = formatReplayHeader(summary, profile.parts.map((p) => p.limitC));
     run.io.out(
-      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}`,
+      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}${chartNote}`,
     );
   }
   run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);

@@ -2,13 +2,16 @@ import type { Command } from "commander";
 import { PLAN_DEFAULTS } from "../../retry/planDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger retries`: one table drives the flags and their help. */
 export const RETRIES_OPTIONS = [
   { flags: "--json", help: "print every answer as one JSON object instead of the text report" },
   { flags: "--csv <file>", help: "write the lockout map (attempts x interval: worst peak, verdict, governing corner) to a CSV file" },
-  { flags: "--force", help: "overwrite the --csv file if it exists" },
+  REPORT_OPTION,
+  SVG_OPTION,
+  { flags: "--force", help: "overwrite the --csv, --report or --svg file if it exists" },
   STRICT_OPTION,
 ] as const;
 
@@ -16,6 +19,8 @@ export const RETRIES_OPTIONS = [
 export interface RetriesFlags {
   readonly json?: boolean;
   readonly csv?: string;
+  readonly report?: string;
+  readonly svg?: string;
   readonly force?: boolean;
   readonly strict?: boolean;
 }
@@ -46,6 +51,6 @@ See README, "Reading the retry plan" and "Verdicts and exit status".`,
   for (const option of RETRIES_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: RetriesFlags) => {
     const { retriesAction } = await import("./retriesAction.js");
-    retriesAction(run, file, options);
+    await retriesAction(run, file, options);
   });
 }

@@ -17,8 +17,10 @@ import type { RetriesFlags } from "./retries.js";
  * the profile's own policy (verdictExitStatus).
  * @throws InputError for a bad profile, a file it names, or a --csv file that exists without --force
  */
-export function retriesAction(run: CliRun, file: string, options: RetriesFlags): void {
+export async function retriesAction(run: CliRun, file: string, options: RetriesFlags): Promise<void> {
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const profile = readProfileFile(run.io, file);
   const progress = attemptsProgress(run.io, "retries");
   let report;
@@ -29,7 +31,13 @@ export function retriesAction(run: CliRun, file: string, options: RetriesFlags):
     progress.done();
   }
   if (options.csv !== undefined) writeOutputFile(run.io, options.csv, lockoutMapCsv(report.map), options.force === true, "--csv");
+  let chartNote = "";
+  if (options.report !== undefined || options.svg !== undefined) {
+    const [{ writeChartReport }, { retryCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/retryCharts.js"), import("../../text/cautions.js")]);
+    const page = { title: `heatledger retries: ${profile.name}`, verdict: report.policy.verdict, verdictText: report.policy.reasons.join("; "), cautions: reportCautions(report.setup.linearMosfet), text: formatRetryPlanText(report, 100) };
+    chartNote = await writeChartReport(run.io, options, page, retryCharts(profile, report));
+  }
   if (options.json) run.io.out(`${JSON.stringify(retryPlanJson(report), null, 2)}\n`);
-  else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}`);
+  else run.io.out(`${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}${chartNote}`);
   run.status = verdictExitStatus(report.policy.verdict, options.strict === true);
 }

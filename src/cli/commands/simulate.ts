@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION, SAMPLE_RATIO_OPTION, SAMPLE_STEP_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** The time-series flag, shared by the commands that simulate a history (simulate, replay). */
@@ -11,8 +12,12 @@ export const NO_CHART_OPTION = { flags: "--no-chart", help: "leave the temperatu
 export const SIMULATE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (verdict, parts, events) instead of the text report" },
   CSV_OPTION,
+  SAMPLE_STEP_OPTION,
+  SAMPLE_RATIO_OPTION,
+  REPORT_OPTION,
+  SVG_OPTION,
   { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" },
-  { flags: "--force", help: "overwrite the --csv or --cycles file if it exists" },
+  { flags: "--force", help: "overwrite the --csv, --cycles, --report or --svg file if it exists" },
   NO_CHART_OPTION,
   STRICT_OPTION,
 ] as const;
@@ -22,6 +27,10 @@ export interface SimulateFlags {
   readonly json?: boolean;
   readonly csv?: string;
   readonly cycles?: string;
+  readonly sampleStep?: string;
+  readonly sampleRatio?: string;
+  readonly report?: string;
+  readonly svg?: string;
   readonly force?: boolean;
   readonly chart: boolean;
   readonly strict?: boolean;
@@ -50,6 +59,6 @@ exit status".`,
   for (const option of SIMULATE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SimulateFlags) => {
     const { simulateAction } = await import("./simulateAction.js");
-    simulateAction(run, file, options);
+    await simulateAction(run, file, options);
   });
 }

@@ -19,13 +19,15 @@ import type { SimulateFlags } from "./simulate.js";
  * the --csv / --cycles files and print the report; sets the exit status from the verdict (verdictExitStatus; --strict makes warn exit 1).
  * @throws InputError for a bad profile, a file it names, or an output file that exists without --force
  */
-export function simulateAction(run: CliRun, file: string, options: SimulateFlags): void {
-  refuseSharedOutputs([["--csv", options.csv], ["--cycles", options.cycles]]);
+export async function simulateAction(run: CliRun, file: string, options: SimulateFlags): Promise<void> {
+  refuseSharedOutputs([["--csv", options.csv], ["--cycles", options.cycles], ["--report", options.report], ["--svg", options.svg]]);
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   refuseExistingOutput(run.io, options.cycles, options.force === true, "--cycles");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const profile = readProfileFile(run.io, file);
-  const stress = new ProfileStress(profile, { keepCycles: options.cycles !== undefined });
-  const { result, digest, envelope, csv } = recordSimulation(run.io, profile, options, stress, "simulating", (simulate) => simulateProfile(profile, simulate));
+  const stress = new ProfileStress(profile, { keepCycles: options.cycles !== undefined || options.report !== undefined });
+  const { result, digest, envelope, csv, trace } = recordSimulation(run.io, profile, options, stress, "simulating", (simulate) => simulateProfile(profile, simulate));
   const stressResult = stress.finish(result.endTimeS);
   const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
   let cyclesNote = "";
@@ -34,10 +36,16 @@ export function simulateAction(run: CliRun, file: string, options: SimulateFlags
     writeOutputFile(run.io, options.cycles, formatCyclesCsv(parts), options.force === true, "--cycles");
     cyclesNote = `Cycles: ${parts.reduce((n, p) => n + p.cycles.length, 0)} rows written to ${options.cycles}\n`;
   }
+  let chartNote = "";
+  if (trace !== undefined) {
+    const { writeSimulationReport } = await import("../simulationReport.js");
+    const text = formatSimulationText(profile, result, digest, undefined, 100, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus);
+    chartNote = await writeSimulationReport(run.io, options, { command: "simulate", profile, result, digest, trace, stress: stressResult, text });
+  }
   if (options.json) run.io.out(`${JSON.stringify(simulationStressJson(simulationJson(profile, result, digest), stressResult, profile.occursPerYear), null, 2)}\n`);
   else
     run.io.out(
-      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}`,
+      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}${chartNote}`,
     );
   run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
 }

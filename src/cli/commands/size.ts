@@ -2,6 +2,7 @@ import type { Command } from "commander";
 import { SIZE_DEFAULTS, SIZE_SCALE_SCOPES } from "../../size/sizeDefaults.js";
 import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
+import { CHART_FORCE_OPTION, REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger size`: one table drives the flags and their help. */
@@ -14,6 +15,9 @@ export const SIZE_OPTIONS = [
   },
   { flags: "--material <preset>", help: `give the adiabatic and element capacities as masses of a material preset: ${MATERIALS.map((m) => m.id).join(", ")}` },
   { flags: "--margin <K>", help: "size to this margin below each limit (default: each part's own margin from the profile)" },
+  REPORT_OPTION,
+  SVG_OPTION,
+  CHART_FORCE_OPTION,
   STRICT_OPTION,
 ] as const;
 
@@ -24,6 +28,9 @@ export interface SizeFlags {
   readonly material?: string;
   readonly scale?: string;
   readonly margin?: string;
+  readonly report?: string;
+  readonly svg?: string;
+  readonly force?: boolean;
   readonly strict?: boolean;
 }
 
@@ -55,6 +62,6 @@ See README, "Sizing a pre-charge part" and "Verdicts and exit status".`,
   }
   command.action(async (file: string, options: SizeFlags) => {
     const { sizeAction } = await import("./sizeAction.js");
-    sizeAction(run, file, options);
+    await sizeAction(run, file, options);
   });
 }

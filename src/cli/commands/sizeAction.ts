@@ -10,6 +10,7 @@ import { verdictExitStatus } from "../../stress/Verdict.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
+import { refuseExistingOutput } from "../readInputFile.js";
 import type { SizeFlags } from "./size.js";
 
 /**
@@ -19,7 +20,9 @@ import type { SizeFlags } from "./size.js";
  * size exists).
  * @throws InputError for a bad profile, a file it names, --material, --margin or --scale
  */
-export function sizeAction(run: CliRun, file: string, options: SizeFlags): void {
+export async function sizeAction(run: CliRun, file: string, options: SizeFlags): Promise<void> {
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const material = options.material === undefined ? undefined : materialPreset(options.material, "--material");
   const marginK = options.margin === undefined ? undefined : parseQuantity(/^\s*[-+]?[\d.]+(e[-+]?\d+)?\s*$/i.test(options.margin) ? Number(options.margin) : options.margin, "temperatureDifference", "--margin");
   const scope = options.scale === undefined ? undefined : scaleScope(options.scale);
@@ -38,8 +41,14 @@ export function sizeAction(run: CliRun, file: string, options: SizeFlags): void 
   } finally {
     progress.done();
   }
+  let chartNote = "";
+  if (options.report !== undefined || options.svg !== undefined) {
+    const [{ writeChartReport }, { sizingCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/sizingCharts.js"), import("../../text/cautions.js")]);
+    const page = { title: `heatledger size: ${profile.name}`, verdict: report.verdict, verdictText: report.infeasibleReasons.join(" "), cautions: reportCautions(report.linearMosfet), text: formatSizingText(report, 100) };
+    chartNote = await writeChartReport(run.io, options, page, sizingCharts(profile, report));
+  }
   if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
-  else run.io.out(formatSizingText(report, Math.min(run.io.columns, 120)));
+  else run.io.out(`${formatSizingText(report, Math.min(run.io.columns, 120))}${chartNote}`);
   run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
 

@@ -2,6 +2,7 @@ import type { Command } from "commander";
 import { SUPERVISE_DEFAULTS } from "../../supervise/superviseDefaults.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../../profile/attemptTiming.js";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger supervise`: one table drives the flags and their help. */
@@ -9,7 +10,9 @@ export const SUPERVISE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (window, checks, retry storms, envelope) instead of the text report" },
   { flags: "--no-chart", help: "leave the envelope and energy charts out of the text report" },
   { flags: "--checks <file>", help: "write the recommended checks as a circuit.protection fragment (YAML) to paste into the profile" },
-  { flags: "--force", help: "overwrite the --checks file if it exists" },
+  REPORT_OPTION,
+  SVG_OPTION,
+  { flags: "--force", help: "overwrite the --checks, --report or --svg file if it exists" },
   STRICT_OPTION,
 ] as const;
 
@@ -17,9 +20,11 @@ export const SUPERVISE_OPTIONS = [
 export interface SuperviseFlags {
   readonly json?: boolean;
   readonly chart: boolean;
+  readonly report?: string;
+  readonly svg?: string;
+  readonly force?: boolean;
   readonly strict?: boolean;
   readonly checks?: string;
-  readonly force?: boolean;
 }
 
 /** `heatledger supervise PROFILE`: flags and help here; the run is loaded from superviseAction.ts when it starts. */
@@ -48,6 +53,6 @@ See README, "Reading the supervision answers" and "Verdicts and exit status".`,
   for (const option of SUPERVISE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SuperviseFlags) => {
     const { superviseAction } = await import("./superviseAction.js");
-    superviseAction(run, file, options);
+    await superviseAction(run, file, options);
   });
 }

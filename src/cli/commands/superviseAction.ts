@@ -17,8 +17,10 @@ import type { SuperviseFlags } from "./supervise.js";
  * exit status follows the verdict on the profile's timeout (verdictExitStatus).
  * @throws InputError for a bad profile or a file it names
  */
-export function superviseAction(run: CliRun, file: string, options: SuperviseFlags): void {
+export async function superviseAction(run: CliRun, file: string, options: SuperviseFlags): Promise<void> {
   refuseExistingOutput(run.io, options.checks, options.force === true, "--checks");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const profile = readProfileFile(run.io, file);
   const progress = attemptsProgress(run.io, "supervise");
   let report;
@@ -33,7 +35,13 @@ export function superviseAction(run: CliRun, file: string, options: SuperviseFla
       throw new InputError({ code: "bad-option", file: "", line: 0, field: "--checks", expected: "a usable early-abort or rise-too-fast check to write", found: "none at the profile's check times" });
     writeOutputFile(run.io, options.checks, protectionFragment(report.protection.protection, `heatledger supervise: recommended checks of "${report.profile}"`), options.force === true, "--checks");
   }
+  let chartNote = "";
+  if (options.report !== undefined || options.svg !== undefined) {
+    const [{ writeChartReport }, { supervisionCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/supervisionCharts.js"), import("../../text/cautions.js")]);
+    const page = { title: `heatledger supervise: ${profile.name}`, verdict: report.verdict, verdictText: report.problems.join(" "), cautions: reportCautions(report.linearMosfet), text: formatSupervisionText(report, 100, false) };
+    chartNote = await writeChartReport(run.io, options, page, supervisionCharts(profile, report));
+  }
   if (options.json) run.io.out(`${JSON.stringify(supervisionJson(report), null, 2)}\n`);
-  else run.io.out(formatSupervisionText(report, run.io.columns, options.chart));
+  else run.io.out(`${formatSupervisionText(report, run.io.columns, options.chart)}${chartNote}`);
   run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
