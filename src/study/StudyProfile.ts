@@ -67,6 +67,8 @@ function joinSteps(steps: readonly Step[]): string {
  */
 export class StudyProfile {
   readonly file: string;
+  /** the profile's text as read */
+  readonly text: string;
   private readonly document: Document;
   private readonly networks = new Map<string, Document>();
   private readonly readCache = new Map<string, string>();
@@ -84,6 +86,7 @@ export class StudyProfile {
    */
   constructor(text: string, file: string, readNamed?: ReadNamedFile) {
     this.file = file;
+    this.text = text;
     this.readNamed = readNamed;
     this.nominal = loadProfile(text, file, this.reader(new Map()));
     this.document = parseDocument(text);

@@ -44,6 +44,8 @@ export const STUDY_DEFAULTS = {
   seed: 1,
   /** confidence level of the crossing probability's interval */
   confidence: 0.95,
+  /** the standard normal quantile Φ⁻¹(0.975) of that two-sided 95 % level */
+  confidenceZ: 1.959963984540054,
   /** most points of a sweep (a guard against a mistyped range) */
   maxPoints: 10_000,
   /** most draws a truncated distribution may reject in a row before it refuses */
