@@ -120,3 +120,16 @@ export type { OdexSolver } from "./circuits/loadOdex.js";
 export { requirePositive } from "./circuits/requirePositive.js";
 export { firstUnsafeAttempt } from "./retry/firstUnsafeAttempt.js";
 export type { FirstUnsafeAttempt } from "./retry/firstUnsafeAttempt.js";
+// design studies (sweep, sensitivity, montecarlo)
+export { StudyProfile } from "./study/StudyProfile.js";
+export type { StudyParameter, StudyAssignment } from "./study/StudyProfile.js";
+export { evaluateStudyAnswers } from "./study/evaluateStudyAnswers.js";
+export { parseSweepAxis } from "./study/sweepAxis.js";
+export { runSweep } from "./study/runSweep.js";
+export { computeSensitivities } from "./study/computeSensitivities.js";
+export { SeededRandom } from "./study/SeededRandom.js";
+export { parseStudyDistribution, drawStudyValue } from "./study/StudyDistribution.js";
+export { runMonteCarloSamples } from "./study/runMonteCarloSamples.js";
+export { summarizeMonteCarlo } from "./study/summarizeMonteCarlo.js";
+export { wilsonInterval } from "./study/wilsonInterval.js";
+export { STUDY_ANSWERS, STUDY_DEFAULTS } from "./study/studyDefaults.js";
