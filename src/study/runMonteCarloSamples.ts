@@ -1,4 +1,5 @@
 import { InputError } from "../errors/InputError.js";
+import { forgetPeakGuess } from "../thermal/segmentPeak.js";
 import { type StudyAnswerOptions, type StudyAnswers, evaluateStudyAnswers } from "./evaluateStudyAnswers.js";
 import { SeededRandom } from "./SeededRandom.js";
 import { type StudyDistribution, drawStudyValue } from "./StudyDistribution.js";
@@ -18,7 +19,8 @@ export interface MonteCarloSample {
  * Run samples `from` ≤ index < `to` of a Monte Carlo run: each draws its values in the order of
  * the distributions from its own stream (SeededRandom.forSample(seed, index)), loads the profile
  * with them and works out the answers. The result of a sample depends only on the seed and its
- * index, so the samples can be split among workers in any way.
+ * index, so the samples can be split among workers in any way (the peak search's warm start
+ * is forgotten before each sample, so not even the last bit depends on the sample before).
  * Cost: (to − from) × (one profile load + the answers' commands).
  * @param onSample called after each sample
  */
@@ -34,6 +36,7 @@ export function runMonteCarloSamples(
 ): MonteCarloSample[] {
   const out: MonteCarloSample[] = [];
   for (let index = from; index < to; index++) {
+    forgetPeakGuess();
     const random = SeededRandom.forSample(seed, index);
     const values = distributions.map((d) => drawStudyValue(d, random));
     try {
