@@ -21,6 +21,16 @@ export class SeededRandom {
     return new SeededRandom(seed, index);
   }
 
+  /**
+   * A generator started from four given state words (not all zero), for checking the outputs
+   * against the published reference code.
+   */
+  static fromState(words: readonly [number, number, number, number]): SeededRandom {
+    const random = new SeededRandom(0, 0);
+    random.s.set(words.map((w) => w >>> 0));
+    return random;
+  }
+
   private constructor(seed: number, index: number) {
     let x = (Math.floor(seed) ^ Math.imul(index + 1, 0x9e3779b9)) >>> 0;
     const high = Math.floor(seed / 0x100000000) >>> 0;
