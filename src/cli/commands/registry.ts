@@ -8,6 +8,7 @@ import { registerSupervise } from "./supervise.js";
 import { registerSweep } from "./sweep.js";
 import { registerSensitivity } from "./sensitivity.js";
 import { registerMonteCarlo } from "./montecarlo.js";
+import { registerCompare } from "./compare.js";
 import type { CliRun } from "../main.js";
 
 /**
@@ -19,4 +20,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare];
