@@ -49,7 +49,8 @@ Answers:
 ${answerHelp()}
 ${PATH_HELP}
 Example:
-  heatledger sweep profiles/warehouse-robot-48v.yaml --vary "circuit.resistance=10 ohm..100 ohm:7:log" \\
+  heatledger sweep profiles/warehouse-robot-48v.yaml \\
+    --vary "circuit.resistance=10 ohm..100 ohm:7:log" \\
     --vary "circuit.capacitance=2.2 mF,3.3 mF,4.7 mF" --answer peak,margin,energy`,
     )
     .action(async (file: string, options: SweepFlags) => {
