@@ -1,32 +1,22 @@
 // Design-study speed figures: a 20 × 20 sweep of simulate on a bundled profile (target < 10 s on
 // one core), and Monte Carlo samples per second per core on 1 and 2 worker threads with the
-// speed-up from 1 to 2 (the samples run through the CLI's own pool). Printed, never asserted.
+// speed-up from 1 to 2 (fresh processes of the built CLI: start-up and every thread's module loading included). Printed, never asserted.
 // BENCH_MC_SAMPLES sets the Monte Carlo sample count (default 400; 10,000 takes minutes).
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { projectRoot } from "./projectRoot.js";
-import { runCli } from "../../src/cli/main.js";
+import { spawnSync } from "node:child_process";
 import { StudyProfile, defaultCircuitModels, parseSweepAxis, runSweep } from "../../src/internal.js";
 
 const PROFILE = join(projectRoot, "profiles", "warehouse-robot-48v.yaml");
 
-/** Wall and CPU seconds (every thread of the process) of one montecarlo run. */
+/** Wall and CPU seconds (every thread, from GNU time) of one montecarlo run of the built CLI in a fresh process. */
 async function monteCarloSeconds(workers: number, samples: number): Promise<{ wall: number; cpu: number }> {
-  const io = {
-    out: () => {},
-    err: (t: string) => void process.stderr.write(t),
-    readFile: (p: string) => readFileSync(p, "utf8"),
-    writeFile: () => {},
-    exists: () => false,
-    columns: 100,
-  };
-  const args = ["montecarlo", PROFILE, "--samples", String(samples), "--seed", "3", "--workers", String(workers), "--vary", "circuit.resistance=tolerance 5 %", "--vary", "circuit.busVoltage=normal 1 %", "--vary", "parts[0].network.stages[0].r=normal 10 % within 25 %"];
-  const t0 = performance.now();
-  const c0 = process.cpuUsage();
-  const status = await runCli(args, io);
-  if (status !== 0) throw new Error(`montecarlo exited ${status}`);
-  const c = process.cpuUsage(c0);
-  return { wall: (performance.now() - t0) / 1000, cpu: (c.user + c.system) / 1e6 };
+  const args = ["-f", "%e %U %S", process.execPath, join(projectRoot, "bin", "heatledger.js"), "montecarlo", PROFILE, "--samples", String(samples), "--seed", "3", "--workers", String(workers), "--vary", "circuit.resistance=tolerance 5 %", "--vary", "circuit.busVoltage=normal 1 %", "--vary", "parts[0].network.stages[0].r=normal 10 % within 25 %"];
+  const run = spawnSync("/usr/bin/time", args, { encoding: "utf8" });
+  if (run.status !== 0) throw new Error(`montecarlo exited ${run.status}: ${run.stderr}`);
+  const [wall, user, system] = run.stderr.trim().split("\n").at(-1)!.split(" ").map(Number) as [number, number, number];
+  return { wall, cpu: user + system };
 }
 
 export async function run(print: (line: string) => void): Promise<void> {

@@ -25,7 +25,7 @@ export function registerMonteCarlo(program: Command, run: CliRun): void {
     .option("--vary <path=distribution>", 'a quantity and its spread: "normal 5 %", "normal 0.1 mF within 10 %", "uniform A..B", "tolerance 10 %" (repeat)', collect)
     .option("--samples <n>", `number of samples (default ${STUDY_DEFAULTS.samples})`)
     .option("--seed <n>", `random seed: the same seed gives the same numbers on any number of workers (default ${STUDY_DEFAULTS.seed})`)
-    .option("--workers <n>", "worker threads (default: the CPU cores, at most one per 16 samples)")
+    .option("--workers <n>", "worker threads (default: the CPU cores, one per 500 samples at most; never more than one per 16)")
     .option("--answer <names>", `answers, comma separated (default ${STUDY_DEFAULTS.monteCarloAnswers.join(",")}; margin is always worked out)`)
     .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
     .option("--worst <file>", "write the worst sample as a profile that reproduces it (an edited network file beside it)")

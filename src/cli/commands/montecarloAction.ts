@@ -17,8 +17,13 @@ import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
 import { parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { MonteCarloFlags } from "./montecarlo.js";
 
-/** Fewest samples per worker: below it a thread costs more than it saves. */
+/** Fewest samples per worker asked for with --workers (and the batch size in this thread). */
 const SAMPLES_PER_WORKER = 16;
+/**
+ * Fewest samples per worker by default: a worker thread loads the library and warms up on its own
+ * (about a CPU-second on the build machine, `npm run bench -- study`), so short runs stay in one thread.
+ */
+const DEFAULT_SAMPLES_PER_WORKER = 500;
 
 /** A whole number option ≥ min. */
 function wholeOption(text: string | undefined, fallback: number, min: number, option: string, words: string): number {
@@ -39,7 +44,8 @@ export async function monteCarloAction(run: CliRun, file: string, options: Monte
   refuseExistingOutput(run.io, options.worst, options.force === true, "--worst");
   const samples = wholeOption(options.samples, STUDY_DEFAULTS.samples, 1, "--samples", "a whole number of samples ≥ 1");
   const seed = wholeOption(options.seed, STUDY_DEFAULTS.seed, 0, "--seed", "a whole number ≥ 0");
-  const workers = Math.min(wholeOption(options.workers, Math.max(1, availableParallelism()), 1, "--workers", "a whole number of workers ≥ 1"), Math.max(1, Math.floor(samples / SAMPLES_PER_WORKER)));
+  const fallback = Math.max(1, Math.min(availableParallelism(), Math.floor(samples / DEFAULT_SAMPLES_PER_WORKER)));
+  const workers = Math.min(wholeOption(options.workers, fallback, 1, "--workers", "a whole number of workers ≥ 1"), Math.max(1, Math.floor(samples / SAMPLES_PER_WORKER)));
   const answers = parseAnswerNames(options.answer, STUDY_DEFAULTS.monteCarloAnswers);
   if (!answers.includes("margin")) answers.push("margin");
   const vary = options.vary ?? [];
