@@ -35,3 +35,12 @@ export function parseAnswerNames(text: string | undefined, fallback: readonly St
   if (names.length === 0) throw inputError("bad-option", "--answer", `one or more of ${STUDY_ANSWER_NAMES.join(", ")}`, describeFound(text));
   return [...new Set(names)] as StudyAnswerName[];
 }
+
+/**
+ * Check a --part option against the profile's part ids.
+ * @throws InputError `bad-option` listing the ids
+ */
+export function checkPartOption(study: StudyProfile, part: string | undefined): void {
+  if (part !== undefined && !study.nominal.parts.some((p) => p.id === part))
+    throw inputError("bad-option", "--part", `a part id of the profile (${study.nominal.parts.map((p) => p.id).join(", ")})`, describeFound(part));
+}

@@ -4,7 +4,7 @@ import { parseQuantity } from "../units/parseQuantity.js";
 import type { SeededRandom } from "./SeededRandom.js";
 import type { StudyParameter, StudyProfile } from "./StudyProfile.js";
 import { STUDY_DEFAULTS } from "./studyDefaults.js";
-import { splitVariation } from "./sweepAxis.js";
+import { parseStudyValue, splitVariation } from "./sweepAxis.js";
 
 /** How one parameter varies from unit to unit in a Monte Carlo run (values SI). */
 export interface StudyDistribution {
@@ -37,7 +37,7 @@ export function parseStudyDistribution(study: StudyProfile, text: string, option
   const field = `${option} ${parameter.path}`;
   const nominal = parameter.nominal;
   if (nominal === undefined) throw inputError("bad-option", field, "a quantity the profile writes (its value is the distribution's centre)", describeFound(path));
-  const value = (v: string): number => parseQuantity(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(v) ? Number(v) : v.trim(), parameter.dimension, field);
+  const value = (v: string): number => parseStudyValue(v, parameter, field);
   const relative = (v: string): number => {
     const m = /^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*%\s*$/.exec(v);
     return m === null ? (parameter.dimension === "temperature" ? parseQuantity(v.trim(), "temperatureDifference", field) : value(v)) : (Math.abs(nominal) * Number(m[1])) / 100;

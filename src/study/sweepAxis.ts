@@ -20,6 +20,15 @@ export function splitVariation(text: string, option: string, example: string): r
 }
 
 /**
+ * A value the user typed for a parameter: a plain number (SI) or a number with a unit of the
+ * parameter's dimension.
+ * @throws InputError naming `field` and the dimension expected
+ */
+export function parseStudyValue(text: string, parameter: StudyParameter, field: string): number {
+  return parseQuantity(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(text) ? Number(text) : text.trim(), parameter.dimension, field);
+}
+
+/**
  * Parse one `--vary` of a sweep: `PATH=v1,v2,...` (a list), `PATH=A..B:N` (N values evenly
  * spaced from A to B, both ends included) or `PATH=A..B:N:log` (N values evenly spaced in
  * ln p: A·(B/A)^(k/(N−1)), A and B of one sign and not zero). Values take the unit of the
@@ -33,7 +42,7 @@ export function parseSweepAxis(study: StudyProfile, text: string, option: string
   const [path, spec] = splitVariation(text, option, example);
   const parameter = study.parameter(path, option);
   const field = `${option} ${parameter.path}`;
-  const value = (v: string): number => parseQuantity(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(v) ? Number(v) : v.trim(), parameter.dimension, field);
+  const value = (v: string): number => parseStudyValue(v, parameter, field);
   const range = /^(.+?)\.\.(.+?):\s*(\d+)\s*(?::\s*(lin|linear|log))?\s*$/i.exec(spec);
   if (range === null) {
     const values = spec.split(",").map(value);

@@ -14,7 +14,7 @@ import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { type MonteCarloTask, runMonteCarloTask } from "../monteCarloWorker.js";
 import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
-import { parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
+import { checkPartOption, parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { MonteCarloFlags } from "./montecarlo.js";
 
 /** Fewest samples per worker asked for with --workers (and the batch size in this thread). */
@@ -52,8 +52,7 @@ export async function monteCarloAction(run: CliRun, file: string, options: Monte
   if (vary.length === 0) throw inputError("bad-option", "--vary", 'one or more --vary PATH=DISTRIBUTION such as "circuit.capacitance=normal 5 %"', "none");
   const study = readStudyProfile(run.io, file);
   const distributions = vary.map((v) => parseStudyDistribution(study, v, "--vary"));
-  if (options.part !== undefined && !study.nominal.parts.some((p) => p.id === options.part))
-    throw inputError("bad-option", "--part", `a part id of the profile (${study.nominal.parts.map((p) => p.id).join(", ")})`, describeFound(options.part));
+  checkPartOption(study, options.part);
   const task = (from: number, to: number): MonteCarloTask => ({ profileText: study.text, file, namedFiles: [...study.namedFiles], vary, answers, partId: options.part, seed, from, to });
   let done = 0;
   const progress = commandProgress(run.io, "montecarlo", () => `, ${done} of ${samples} samples`);

@@ -7,7 +7,7 @@ import type { StudyParameter, StudyProfile } from "../../study/StudyProfile.js";
 import { STUDY_DEFAULTS, type StudyAnswerName } from "../../study/studyDefaults.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
-import { parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
+import { checkPartOption, parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { SensitivityFlags } from "./sensitivity.js";
 
 /** Keys of the circuit a sensitivity run takes when no --vary is given. */
@@ -22,6 +22,7 @@ export function sensitivityAction(run: CliRun, file: string, options: Sensitivit
   const step = options.step === undefined ? STUDY_DEFAULTS.sensitivityStep : Number(options.step);
   if (!(step > 0 && step <= 0.5)) throw inputError("bad-option", "--step", "a relative step above 0 and at most 0.5 such as 0.01", describeFound(options.step));
   const study = readStudyProfile(run.io, file);
+  checkPartOption(study, options.part);
   const parameters = options.vary?.map((v) => study.parameter(v, "--vary")) ?? defaultParameters(study);
   if (parameters.length === 0) throw inputError("bad-option", "--vary", "one or more quantities to study (the profile has no circuit to take them from)", "none");
   const answers = options.answer === undefined ? defaultAnswers(study) : parseAnswerNames(options.answer, STUDY_DEFAULTS.sensitivityAnswers);

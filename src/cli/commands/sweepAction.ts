@@ -1,4 +1,4 @@
-import { describeFound, inputError } from "../../errors/InputError.js";
+import { inputError } from "../../errors/InputError.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSweepCsv, formatSweepText, sweepJson } from "../../report/formatSweep.js";
 import { runSweep } from "../../study/runSweep.js";
@@ -7,7 +7,7 @@ import { parseSweepAxis } from "../../study/sweepAxis.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
-import { parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
+import { checkPartOption, parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { SweepFlags } from "./sweep.js";
 
 /**
@@ -21,8 +21,7 @@ export function sweepAction(run: CliRun, file: string, options: SweepFlags): voi
   const vary = options.vary ?? [];
   if (vary.length < 1 || vary.length > 2) throw inputError("bad-option", "--vary", "one or two --vary PATH=VALUES", `${vary.length}`);
   const study = readStudyProfile(run.io, file);
-  if (options.part !== undefined && !study.nominal.parts.some((p) => p.id === options.part))
-    throw inputError("bad-option", "--part", `a part id of the profile (${study.nominal.parts.map((p) => p.id).join(", ")})`, describeFound(options.part));
+  checkPartOption(study, options.part);
   const axes = vary.map((v) => parseSweepAxis(study, v, "--vary"));
   const points = axes.reduce((n, a) => n * a.values.length, 1);
   if (points > STUDY_DEFAULTS.maxPoints) throw inputError("bad-option", "--vary", `at most ${STUDY_DEFAULTS.maxPoints} points in all`, `${points} points`);
