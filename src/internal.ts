@@ -163,3 +163,16 @@ export type { HtmlChart, HtmlReportInput } from "./report/htmlReport.js";
 export { fitTable } from "./text/fitTable.js";
 export type { FitTableOptions, FittedTable } from "./text/fitTable.js";
 export { wrapHanging } from "./text/wrapHanging.js";
+// design studies (sweep, sensitivity, montecarlo)
+export { StudyProfile } from "./study/StudyProfile.js";
+export type { StudyParameter, StudyAssignment } from "./study/StudyProfile.js";
+export { evaluateStudyAnswers } from "./study/evaluateStudyAnswers.js";
+export { parseSweepAxis } from "./study/sweepAxis.js";
+export { runSweep } from "./study/runSweep.js";
+export { computeSensitivities } from "./study/computeSensitivities.js";
+export { SeededRandom } from "./study/SeededRandom.js";
+export { parseStudyDistribution, drawStudyValue } from "./study/StudyDistribution.js";
+export { runMonteCarloSamples } from "./study/runMonteCarloSamples.js";
+export { summarizeMonteCarlo } from "./study/summarizeMonteCarlo.js";
+export { wilsonInterval } from "./study/wilsonInterval.js";
+export { STUDY_ANSWERS, STUDY_DEFAULTS } from "./study/studyDefaults.js";

@@ -364,6 +364,16 @@ function singleTurnOfRates(n: number, h: number): number | undefined {
 let lastTurnStepS = Number.NaN;
 let lastTurnS = Number.NaN;
 
+/**
+ * Forget the previous turn: the warm start changes where Newton stops inside its 1e-12·h
+ * tolerance, so the last bits of a peak depend on the run before it. Runs that must give the
+ * same bits in any order (Monte Carlo samples split among workers) call this first. Cost O(1).
+ */
+export function forgetPeakGuess(): void {
+  lastTurnStepS = Number.NaN;
+  lastTurnS = Number.NaN;
+}
+
 /** Safeguarded Newton on the scratch sum inside [lo, hi] from x, S(lo) > 0 ≥ S(hi). */
 function turnInside(n: number, h: number, lo: number, hi: number, x: number): number {
   for (let iteration = 0; iteration < 200; iteration++) {

@@ -6,6 +6,10 @@ import { registerRetries } from "./retries.js";
 import { registerSimulate } from "./simulate.js";
 import { registerSize } from "./size.js";
 import { registerSupervise } from "./supervise.js";
+import { registerSweep } from "./sweep.js";
+import { registerSensitivity } from "./sensitivity.js";
+import { registerMonteCarlo } from "./montecarlo.js";
+import { registerCompare } from "./compare.js";
 import type { CliRun } from "../main.js";
 
 /**
@@ -17,4 +21,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare];

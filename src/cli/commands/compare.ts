@@ -1,0 +1,34 @@
+import type { Command } from "commander";
+import type { CliRun } from "../main.js";
+import { PATH_HELP, collect } from "./sweep.js";
+
+/** What the flags of `heatledger compare` parse to. */
+export interface CompareFlags {
+  readonly set?: string[];
+  readonly part?: string;
+  readonly json?: boolean;
+}
+
+/** `heatledger compare A [B]`: flags and help here; the run is loaded from compareAction.ts. */
+export function registerCompare(program: Command, run: CliRun): void {
+  program
+    .command("compare")
+    .argument("<a>", "duty profile A (YAML or JSON)")
+    .argument("[b]", "duty profile B (default: A with the --set values)")
+    .description("two designs side by side: peak, rise, margin, verdict, energy, damage, retry intervals and the differences")
+    .option("--set <path=value>", "change a quantity of B (of A when B is not given); repeat", collect)
+    .option("--part <id>", "the part to follow (default: A's part with the least margin)")
+    .option("--json", "print one JSON object instead of the table")
+    .addHelpText(
+      "after",
+      `
+${PATH_HELP}
+Examples:
+  heatledger compare profiles/warehouse-robot-48v.yaml --set "circuit.resistance=47 ohm"
+  heatledger compare design-a.yaml design-b.yaml --json`,
+    )
+    .action(async (a: string, b: string | undefined, options: CompareFlags) => {
+      const { compareAction } = await import("./compareAction.js");
+      compareAction(run, a, b, options);
+    });
+}
