@@ -75,6 +75,25 @@ function odexRise(rth: number, tau: number, times: readonly number[]): number[] 
   return out;
 }
 
+/**
+ * The two-mode case both outside references run (odex and ngspice): a 400 V, 1.5 mF link charged
+ * through a linear-mode MOSFET at Vg 4.6 V, Vth 3.5 V, −6 mV/K, Rs 2.2 Ω, on a Foster network of
+ * 0.45 K/W, 5.4 ms and 0.5 K/W, 2 s, completing within 10 V of the bus.
+ */
+function twoModeCharge() {
+  const [c, vs, vg, vth, rs, k, ambient] = [1.5e-3, 400, 4.6, 3.5, 2.2, -6e-3, 40];
+  const tau = [0.0054, 2];
+  const rf = [0.45, 0.5];
+  const thermal: ChargeThermalContext = { roles: ["mosfet"], ambientC: [ambient], tauS: tau, gainKPerW: [[rf]], startRiseK: [[0, 0]] };
+  const r = chargeLinearMosfet({ capacitanceF: c, gateVoltageV: vg, thresholdVoltageV: vth, sourceResistorOhm: rs, rdsOnOhm: 0.12, thresholdTempcoVPerK: k }, {
+    sourceVoltageV: vs,
+    initialVoltageV: 0,
+    completion: { withinV: 10, timeoutS: 3 },
+    thermal,
+  });
+  return { c, vs, vg, vth, rs, k, ambient, tau, rf, r };
+}
+
 describe("linear-mode MOSFET with threshold drift, solved with its thermal network", () => {
   test("constant parameters give today's results bit for bit: tempco 0, or no thermal context", () => {
     const base = { capacitanceF: 1.5e-3, gateVoltageV: 4.6, thresholdVoltageV: 3.5, sourceResistorOhm: 2.2, rdsOnOhm: 0.12 };
@@ -147,18 +166,7 @@ describe("linear-mode MOSFET with threshold drift, solved with its thermal netwo
   });
 
   test("a capacitor charge with a two-mode network matches odex on [V, y1, y2] (duration, peak, energy)", () => {
-    const c = 1.5e-3;
-    const vs = 400;
-    const [vg, vth, rs, k, ambient] = [4.6, 3.5, 2.2, -6e-3, 40];
-    const tau = [0.0054, 2];
-    const rf = [0.45, 0.5];
-    const thermal: ChargeThermalContext = { roles: ["mosfet"], ambientC: [ambient], tauS: tau, gainKPerW: [[rf]], startRiseK: [[0, 0]] };
-    const r = chargeLinearMosfet({ capacitanceF: c, gateVoltageV: vg, thresholdVoltageV: vth, sourceResistorOhm: rs, rdsOnOhm: 0.12, thresholdTempcoVPerK: k }, {
-      sourceVoltageV: vs,
-      initialVoltageV: 0,
-      completion: { withinV: 10, timeoutS: 3 },
-      thermal,
-    });
+    const { c, vs, vg, vth, rs, k, ambient, tau, rf, r } = twoModeCharge();
     // the reference: linear mode all the way to 390 V (the knee sits near 397.5 V)
     const temp = (y: number[]) => ambient + rf[0]! * y[1]! + rf[1]! * y[2]!;
     const current = (y: number[]) => (vg - (vth + k * (temp(y) - 25))) / rs;
@@ -255,16 +263,7 @@ describe("MOSFET with threshold drift against ngspice", () => {
   afterAll(() => rmSync(work, { recursive: true, force: true }));
 
   test("peak junction temperature rise and MOSFET energy within 0.5 %", () => {
-    const [c, vs, vg, vth, rs, k, ambient] = [1.5e-3, 400, 4.6, 3.5, 2.2, -6e-3, 40];
-    const tau = [0.0054, 2];
-    const rf = [0.45, 0.5];
-    const thermal: ChargeThermalContext = { roles: ["mosfet"], ambientC: [ambient], tauS: tau, gainKPerW: [[rf]], startRiseK: [[0, 0]] };
-    const r = chargeLinearMosfet({ capacitanceF: c, gateVoltageV: vg, thresholdVoltageV: vth, sourceResistorOhm: rs, rdsOnOhm: 0.12, thresholdTempcoVPerK: k }, {
-      sourceVoltageV: vs,
-      initialVoltageV: 0,
-      completion: { withinV: 10, timeoutS: 3 },
-      thermal,
-    });
+    const { c, vs, vg, vth, rs, k, ambient, tau, rf, r } = twoModeCharge();
     const tstop = r.durationS;
     const current = `((${vg}-(${vth}+(${k})*(v(j)+${ambient - 25})))/${rs})`;
     const power = `((${vs}-v(bus)-${current}*${rs})*${current})`;
