@@ -3,6 +3,7 @@ import { STUDY_ANSWERS, type StudyAnswerName } from "../study/studyDefaults.js";
 import { DIMENSIONS } from "../units/dimensions.js";
 import { formatCautions, reportCautions } from "../text/cautions.js";
 import { formatNumber } from "../text/formatTable.js";
+import { lazyCsv } from "../format/lazyCsv.js";
 import { studyTable } from "./studyTable.js";
 
 /** "[ohm]" after a heading, nothing for a plain number. */
@@ -21,7 +22,7 @@ export function answerHeading(name: StudyAnswerName): string {
   return `${name}${unitSuffix(STUDY_ANSWERS[name].unit)}`;
 }
 
-/** An answer's value for a table: "none" for an answer the command does not have. */
+/** An answer's value for a table: "none" for an answer the command does not have (no safe interval, no lifetime model, ...). */
 export function answerCell(value: number | null | undefined): string {
   return value === null || value === undefined ? "none" : formatNumber(value);
 }
@@ -57,14 +58,13 @@ export function formatSweepText(result: SweepResult, profileName: string, width:
     "",
     studyTable(columns, rows, result.axes.length, w),
     ...(notes.length > 0 ? [`Points the profile refused:\n${notes.join("\n")}\n`] : []),
-    `Answers:\n${legend.join("\n")}\n`,
+    `Answers:\n${legend.join("\n")}\n${rows.some((r) => r.includes("none")) ? `  none: the command has no such answer at that point (no safe interval, a corner that never\n  completes, no lifetime model)\n` : ""}`,
     formatCautions(linearMosfet, w),
   ].join("\n");
 }
 
 /** The sweep as CSV: one header row (paths and answers with units), one row per point; empty cells for answers a point does not have. */
 export function formatSweepCsv(result: SweepResult): string {
-  const quote = (s: string): string => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
   const header = [...result.axes.map((_, i) => axisHeading(result, i)), ...result.answers.map(answerHeading), "verdict", "problem"];
   const rows = result.points.map((p) => [
     ...p.values.map(String),
@@ -72,7 +72,7 @@ export function formatSweepCsv(result: SweepResult): string {
     p.answers?.verdict ?? "",
     p.problem ?? "",
   ]);
-  return [header, ...rows].map((r) => r.map(quote).join(",")).join("\n") + "\n";
+  return lazyCsv.stringify([header, ...rows]);
 }
 
 /** The `sweep --json` object: parameters (path, dimension, SI unit, profile value, values), answers, points, cautions. */

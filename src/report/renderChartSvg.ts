@@ -1,6 +1,7 @@
 import * as vega from "vega";
 import { compile } from "vega-lite";
 import type { ReportChart } from "./ReportChart.js";
+import { escapeHtml } from "./htmlReport.js";
 
 /** Settings every report chart shares: system fonts only (the page loads nothing), plain white background. */
 const CHART_CONFIG = {
@@ -24,8 +25,7 @@ export async function renderChartSvg(chart: ReportChart): Promise<string> {
   const view = new vega.View(vega.parse(compile(spec as Parameters<typeof compile>[0]).spec), { renderer: "none" });
   try {
     const svg = await view.toSVG();
-    const label = chart.title.replace(/&/g, "&amp;").replace(/"/g, "&quot;").replace(/</g, "&lt;");
-    return svg.replace(/^<svg /, `<svg id="chart-${chart.id}" role="img" aria-label="${label}" `);
+    return svg.replace(/^<svg /, `<svg id="chart-${chart.id}" role="img" aria-label="${escapeHtml(chart.title)}" `);
   } finally {
     view.finalize();
   }
