@@ -1,11 +1,11 @@
-// vitest global setup: compile src/ to dist/ once, so end-to-end tests spawn the real bin.
+// vitest global setup: compile src/ to dist/ once and bundle the CLI as the bin runs it
+// (scripts/bundle-cli.mjs), so end-to-end tests spawn the real bin.
 import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 
 export default function setup(): void {
   const root = fileURLToPath(new URL("../..", import.meta.url));
-  execFileSync(process.execPath, ["node_modules/typescript/bin/tsc", "-p", "tsconfig.build.json"], {
-    cwd: root,
-    stdio: "inherit",
-  });
+  for (const script of [["node_modules/typescript/bin/tsc", "-p", "tsconfig.build.json"], ["scripts/bundle-cli.mjs"]]) {
+    execFileSync(process.execPath, script, { cwd: root, stdio: "inherit" });
+  }
 }
