@@ -26,9 +26,10 @@ export interface NetworkDriveGains {
  * ambient (G·1 = g). The ambient therefore enters exactly like a heat flow T_amb/R_i,amb into
  * every node i linked to it, so its gain is Σ_i gain[o][i][m]/R_i,amb over those nodes (one more
  * input column of the same modal form), and Σ_m of it is (G⁻¹·g)_o = 1.
- * Source: Norton (source transformation) equivalent of a temperature source behind a resistance,
- * e.g. Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §3.1.3
- * (thermal circuits); the modal form as in graphToModal.
+ * Source: the Norton equivalent of a source behind a resistance, Hayt, Kemmerly & Durbin,
+ * Engineering Circuit Analysis, 8th ed. (2012), §5.3, applied to the thermal circuit of
+ * Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §3.1.2 (the
+ * electrical analogy); the modal form as in graphToModal.
  * Cost O(nodes³).
  * @param network the network as written (the one networkToModal reduced)
  * @param observed the observed node names the gains are wanted for
