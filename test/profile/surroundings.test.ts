@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
-import { InputError, defaultCircuitModels, hottestSteadySurroundings, loadProfile, simulateProfile } from "../../src/internal.js";
+import { InputError, defaultCircuitModels, hottestSteadySurroundings, loadProfile, profileRetrySetup, simulateProfile } from "../../src/internal.js";
 
 const root = join(import.meta.dirname, "..", "..", "profiles");
 const bundled = (path: string): string => readFileSync(join(root, path), "utf8");
@@ -61,6 +61,27 @@ events:
     expect(result.parts[0]!.peakTimeS).toBeCloseTo(15 * 3600, 3);
   });
 
+  test("a daily cosine reaches its maximum at maxAt and its minimum twelve hours later", () => {
+    // Closed form: T(h) = (max + min)/2 + (max − min)/2·cos(2π(h − maxAt)/24 h), drawn as 96 straight
+    // pieces whose corners lie on the cosine (maxAt and maxAt + 12 h are corners here).
+    const text = `name: d
+ambientProfile: { daily: { min: 21 degC, max: 41 degC, maxAt: 15 h }, startAt: 6 h }
+parts:
+  - { id: r, network: networks/wirewound-resistor-foster.yaml, limits: { maxTemperature: 200 degC } }
+events:
+  - wait: 24 h
+`;
+    const profile = loadProfile(text, "d.yaml", reader({}));
+    expect(profile.parts[0]!.ambientC).toBeCloseTo(31 + 10 * Math.cos((2 * Math.PI * (6 - 15)) / 24), 12);
+    const low: { timeS: number; c: number }[] = [];
+    const result = simulateProfile(profile, { models: defaultCircuitModels, onPoint: (timeS, c) => low.push({ timeS, c: c[0]! }) });
+    expect(result.parts[0]!.peakTemperatureC).toBeCloseTo(41, 9);
+    expect(result.parts[0]!.peakTimeS).toBeCloseTo(9 * 3600, 6);
+    const coldest = low.reduce((a, b) => (b.c < a.c ? b : a));
+    expect(coldest.c).toBeCloseTo(21, 9);
+    expect(coldest.timeS).toBeCloseTo(21 * 3600, 6);
+  });
+
   test("after a step in ambient a one-node part settles as 1 − e^(−t/RC) to the new ambient", () => {
     // Closed form: C·dT/dt = (T_amb − T)/R, so after a step ΔT at t0, T = T0 + ΔT·(1 − e^(−(t−t0)/(R·C)))
     // (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed. (2011), §5.1, lumped
@@ -103,6 +124,14 @@ describe("extra heat sources and the planners' bound", () => {
     const bounded = hottestSteadySurroundings(profile);
     expect(bounded.surroundings).toBeUndefined();
     for (const p of bounded.parts) expect(p.ambientC).toBeCloseTo(41 + 175 * 0.22, 9);
+  });
+
+  test("the retry planner runs at the bound, and a corner's own ambient still gets the heat sources' rise", () => {
+    // Closed form as above: 41 °C + 175 W × 0.22 K/W; a corner at 30 °C: 30 °C + 38.5 K.
+    const profile = loadProfile(text, "r.yaml", reader({}));
+    expect(profileRetrySetup(profile, defaultCircuitModels).scenarios.map((s) => s.ambientC)).toEqual([79.5, 79.5].map((c) => expect.closeTo(c, 9)));
+    const cornered = loadProfile(`${text}  corners: [{ name: cool, ambient: 30 degC }]\n`, "r.yaml", reader({}));
+    expect(profileRetrySetup(cornered, defaultCircuitModels).scenarios.map((s) => s.ambientC)).toEqual([68.5, 68.5].map((c) => expect.closeTo(c, 9)));
   });
 
   test("bad surroundings keys are named with what was expected", () => {
