@@ -24,14 +24,14 @@ export interface SurroundingsBound {
 export function surroundingsBound(profile: DutyProfile): SurroundingsBound {
   const parts = profile.parts;
   const surroundings = profile.surroundings;
-  const hottestAmbientC = surroundings?.ambientC === undefined ? Math.max(...parts.map((p) => p.ambientC)) : Math.max(...surroundings.ambientC.values);
+  const hottestAmbientC = surroundings?.ambientC === undefined ? largest(parts.map((p) => p.ambientC)) : largest(surroundings.ambientC.values);
   const heatRiseK = parts.map((p) => {
     let sum = 0;
     for (const h of surroundings?.heatSources ?? []) {
       const host = parts[h.partIndex]!;
       if (host.networkKey !== p.networkKey || p.network === undefined) continue;
       const gains = networkDriveGains(p.network, [p.model.observed[p.observedIndex]!], [h.node], h.field);
-      sum += Math.max(...h.powerW.values) * gains.sourceGainKPerW[0]![0]!.reduce((a, g) => a + g, 0);
+      sum += largest(h.powerW.values) * gains.sourceGainKPerW[0]![0]!.reduce((a, g) => a + g, 0);
     }
     return sum;
   });
@@ -50,4 +50,11 @@ export function hottestSteadySurroundings(profile: DutyProfile): DutyProfile {
   const parts: ProfilePart[] = profile.parts.map((p, i) => ({ ...p, ambientC: bound.hottestAmbientC + bound.heatRiseK[i]! }));
   const { surroundings: _dropped, ...rest } = profile;
   return { ...rest, parts };
+}
+
+/** The largest value of a list (a loop: a long trace would overflow Math.max's argument list). */
+export function largest(values: readonly number[]): number {
+  let max = -Infinity;
+  for (const v of values) if (v > max) max = v;
+  return max;
 }

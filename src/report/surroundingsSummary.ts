@@ -1,5 +1,5 @@
 import type { DutyProfile } from "../profile/DutyProfile.js";
-import { surroundingsBound } from "../profile/hottestSteadySurroundings.js";
+import { largest, surroundingsBound } from "../profile/hottestSteadySurroundings.js";
 import { wrapText } from "../text/cautions.js";
 import { formatNumber } from "../text/formatTable.js";
 
@@ -28,7 +28,7 @@ export function surroundingsJson(profile: DutyProfile): SurroundingsJson | undef
     ambient: s.ambientWords ?? null,
     referenceAmbientC: profile.parts[0]!.ambientC,
     hottestAmbientC: bound.hottestAmbientC,
-    heatSources: s.heatSources.map((h) => ({ label: h.label ?? h.field, part: profile.parts[h.partIndex]!.id, node: h.node, maxPowerW: Math.max(...h.powerW.values) })),
+    heatSources: s.heatSources.map((h) => ({ label: h.label ?? h.field, part: profile.parts[h.partIndex]!.id, node: h.node, maxPowerW: largest(h.powerW.values) })),
     boundingAmbientC: Object.fromEntries(profile.parts.map((p, i) => [p.id, bound.hottestAmbientC + bound.heatRiseK[i]!])),
   };
 }
