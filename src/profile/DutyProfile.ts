@@ -1,4 +1,5 @@
 import type { BusLoad } from "../circuits/BusLoad.js";
+import type { ProfileSurroundings } from "./ProfileSurroundings.js";
 import type { CompletionRule } from "../circuits/CircuitResult.js";
 import type { DischargePath } from "../circuits/dischargeVoltage.js";
 import type { ContactorSpec } from "../circuits/contactorClosing.js";
@@ -135,6 +136,8 @@ export interface DutyProfile {
   readonly supervision?: SupervisionSpec;
   /** how many times a year the whole profile happens (for calendar life); undefined: not stated */
   readonly occursPerYear?: number;
+  /** an ambient that varies with time and extra heat sources on network nodes; undefined: constant ambient */
+  readonly surroundings?: ProfileSurroundings;
 }
 
 /** A closed range of one quantity [SI]; low = high for a single value. */

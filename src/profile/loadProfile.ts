@@ -12,6 +12,9 @@ import { TOPOLOGY_ROLES, resolveCircuit, resolveLoad } from "./resolveProfileCir
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 import type { ReadNamedFile } from "./ReadNamedFile.js";
 import { type EventContext, resolveEvent } from "./resolveProfileEvents.js";
+import type { ProfileSurroundings } from "./ProfileSurroundings.js";
+import { resolveAmbientProfile, resolveHeatSources } from "./resolveSurroundings.js";
+import { seriesValueAt } from "../thermal/PiecewiseLinearSeries.js";
 
 
 
@@ -45,7 +48,21 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
   const input = parsed.data;
   const circuit = input.circuit === undefined ? undefined : resolveCircuit(reader, input.circuit, "circuit");
   const networks = new Map<string, ResolvedNetwork | undefined>();
-  const parts = input.parts.map((part, i) => resolvePart(reader, part, `parts[${i}]`, input.ambient, input.circuit?.topology, file, source.lineOf, readFile, networks));
+  const ambientSeries = input.ambientProfile === undefined ? undefined : resolveAmbientProfile(reader, input.ambientProfile, readFile);
+  if ((input.ambient === undefined) === (input.ambientProfile === undefined))
+    reader.fail("bad-profile", "ambient", "exactly one of ambient (a constant such as \"40 degC\") or ambientProfile (a daily profile or a trace)", input.ambient === undefined ? "neither" : "both");
+  input.parts.forEach((p, i) => {
+    if (input.ambientProfile !== undefined && p.ambient !== undefined)
+      reader.fail("bad-profile", `parts[${i}].ambient`, "no part ambient when the profile's ambient is an ambientProfile", describeFound(p.ambient));
+  });
+  // without either (already an error) 0 °C only lets the parts be checked
+  const ambientC = input.ambient ?? (ambientSeries === undefined ? 0 : seriesValueAt(ambientSeries.series, 0));
+  const parts = input.parts.map((part, i) => resolvePart(reader, part, `parts[${i}]`, ambientC, input.circuit?.topology, file, source.lineOf, readFile, networks));
+  const heatSources = input.heatSources === undefined ? [] : resolveHeatSources(reader, input.heatSources, parts, input.parts.map((p) => p.id), readFile);
+  const surroundings: ProfileSurroundings | undefined =
+    ambientSeries === undefined && heatSources.length === 0
+      ? undefined
+      : { ...(ambientSeries === undefined ? {} : { ambientC: ambientSeries.series, ambientWords: ambientSeries.words }), heatSources };
   const used = new Set<string>();
   parts.forEach((p, i) => {
     if (p === undefined) return;
@@ -93,6 +110,7 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     ...(input.retryPlan === undefined ? {} : { retryPlan: input.retryPlan }),
     ...(supervision === undefined ? {} : { supervision }),
     ...(input.occursPerYear === undefined ? {} : { occursPerYear: input.occursPerYear }),
+    ...(surroundings === undefined ? {} : { surroundings }),
   };
 }
 

@@ -376,6 +376,27 @@ export const supervisionSchema = z.strictObject({
 /** A validated supervision section (SI numbers). */
 export type SupervisionInput = z.output<typeof supervisionSchema>;
 
+const temperatureKey = (example: string) => quantity("temperature", { above: -273.15, words: `a temperature such as "${example}"` });
+const timeOfDay = (what: string) => quantity("time", { min: 0, max: 86_400, words: `${what} from 0 to 24 h, such as "15 h"` });
+
+/** `ambientProfile`: the ambient as a time series (a daily cosine, a daily table, or a CSV trace); see docs/profile-format.md. */
+export const ambientProfileSchema = z.strictObject({
+  daily: z.strictObject({ min: temperatureKey("18 degC"), max: temperatureKey("34 degC"), maxAt: timeOfDay("the time of day of the maximum") }).optional(),
+  table: z.array(z.tuple([timeOfDay("a time of day"), temperatureKey("25 degC")])).min(1).optional(),
+  file: z.string().min(1).optional(),
+  startAt: timeOfDay("the time of day at the profile's start").optional(),
+});
+
+/** One `heatSources` item: extra heat on a node of a part's graph or Cauer network, constant or a CSV power trace. */
+export const heatSourceSchema = z.strictObject({
+  part: z.string().min(1),
+  node: z.string().min(1),
+  power: quantity("power", { min: 0, words: 'a power ≥ 0 such as "150 W"' }).optional(),
+  file: z.string().min(1).optional(),
+  scale: quantity("dimensionless", { min: 0, words: "a scale factor ≥ 0 such as 1" }).optional(),
+  label: z.string().optional(),
+});
+
 /**
  * The duty-profile file, validated and with every quantity converted to SI (temperatures in °C).
  * Networks and trace files are still references here; loadProfile resolves them.
@@ -384,7 +405,9 @@ export type SupervisionInput = z.output<typeof supervisionSchema>;
 export const profileSchema = z.strictObject({
   name: z.string().min(1),
   description: z.string().optional(),
-  ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "40 degC"' }),
+  ambient: quantity("temperature", { above: -273.15, words: 'a temperature such as "40 degC"' }).optional(),
+  ambientProfile: ambientProfileSchema.optional(),
+  heatSources: z.array(heatSourceSchema).min(1).optional(),
   parts: z.array(partSchema).min(1),
   circuit: circuitSchema.optional(),
   events: z.array(eventSchema).min(1),

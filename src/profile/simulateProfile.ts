@@ -3,7 +3,8 @@ import { InputError, withLocation } from "../errors/InputError.js";
 import type { ModalModel } from "../thermal/ModalModel.js";
 import { type SourcePowers, modalRise } from "../thermal/modalStep.js";
 import { type HistorySampling, ThermalRun } from "../thermal/runThermalHistory.js";
-import { traceSteps } from "../thermal/traceSteps.js";
+import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
+import { SurroundingsDrive } from "./SurroundingsDrive.js";
 import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 import type { CircuitModels } from "./CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
@@ -129,7 +130,9 @@ export function combinedModel(parts: readonly ProfilePart[]): ModalModel {
  */
 export function simulateProfile(profile: DutyProfile, options: SimulateOptions): SimulationResult {
   const parts = profile.parts;
-  const model = combinedModel(parts);
+  // an ambient that varies, or extra heat sources, widen the model by their input columns
+  const drive = profile.surroundings === undefined ? undefined : new SurroundingsDrive(parts, combinedModel(parts), profile.surroundings);
+  const model = drive?.model ?? combinedModel(parts);
   const count = parts.length;
   const ambient = parts.map((p) => p.ambientC);
   const now = new Float64Array(count);
@@ -209,16 +212,18 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC),
     ...(onSample === undefined ? {} : { onSample, ...(options.sampling === undefined ? {} : { sampling: options.sampling }) }),
   });
+  const pushRun = (step: TimedStep): void => run.push(step);
   try {
     // a circuit whose values follow temperature is solved with the parts' modal state at each charge
     const contextOf = circuitReadsTemperature(profile.circuit) ? thermalContextSource(parts, model) : undefined;
     const thermalOf = contextOf === undefined ? {} : { thermalOf: () => contextOf(run.summary().endState) };
+    const push = drive === undefined ? (step: TimedStep): void => run.push(step) : (step: TimedStep): void => drive.split(step, pushRun);
     for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true, ...thermalOf })) {
       if (item.type === "event") openEvent(item);
       const until = item.startS + item.durationS;
       // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge
-      if (item.type === "event" && item.traces.some((t) => t !== undefined)) for (const step of traceSteps(item.traces, item.startS, until)) run.push(step);
-      else if (until > item.startS) run.push({ startS: item.startS, durationS: until - item.startS, powers: NO_POWERS });
+      if (item.type === "event" && item.traces.some((t) => t !== undefined)) for (const step of traceSteps(item.traces, item.startS, until)) push(step);
+      else if (until > item.startS) push({ startS: item.startS, durationS: until - item.startS, powers: NO_POWERS });
     }
     closeEvent();
   } catch (error) {

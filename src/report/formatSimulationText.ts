@@ -1,4 +1,5 @@
 import { formatContactorLines } from "./formatContactorLines.js";
+import { surroundingsLines } from "./surroundingsSummary.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
@@ -73,6 +74,7 @@ export function formatSimulationText(
   out.push(wrapText(`heatledger ${header.command ?? "simulate"}: ${profile.name}`, width).trimEnd());
   out.push(`profile ${profile.file}: ${result.eventCount} events over ${formatDuration(result.endTimeS)}`);
   if (header.lines !== undefined) out.push(...header.lines);
+  out.push(...surroundingsLines(profile));
   const o = result.outcomes;
   const charges = o.completed + o["timed-out"] + o.tripped;
   if (charges > 0)

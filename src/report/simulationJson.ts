@@ -1,4 +1,5 @@
 import type { ContactorSummary } from "../profile/ContactorTally.js";
+import { type SurroundingsJson, surroundingsJson } from "./surroundingsSummary.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { reportCautions } from "../text/cautions.js";
@@ -51,6 +52,8 @@ export interface SimulationJson {
   readonly electroThermal?: LoopGainJson;
   /** the largest charging current of the run, against the element's rating when given */
   readonly inrush?: InrushJson;
+  /** an ambient that varies and extra heat sources, when the profile has them */
+  readonly surroundings?: SurroundingsJson;
 }
 
 /**
@@ -98,7 +101,14 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
     ...(result.contactor === undefined ? {} : { contactor: result.contactor }),
     ...electroThermalOf(digest),
     ...inrushOf(digest, profile.circuit?.peakCurrentRatingA),
+    ...surroundingsOf(profile),
   };
+}
+
+/** The optional `surroundings` key (absent for a constant ambient without heat sources). */
+function surroundingsOf(profile: DutyProfile): { surroundings?: SurroundingsJson } {
+  const surroundings = surroundingsJson(profile);
+  return surroundings === undefined ? {} : { surroundings };
 }
 
 /** The optional `electroThermal` key (absent when no charge followed its parts' temperatures). */

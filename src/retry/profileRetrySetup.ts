@@ -1,4 +1,5 @@
 import { inputLimit } from "../format/inputLimits.js";
+import { hottestSteadySurroundings, surroundingsBound } from "../profile/hottestSteadySurroundings.js";
 import type { ChargeConditions } from "../circuits/CircuitResult.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
@@ -81,7 +82,10 @@ const ATTEMPT_MEMO_SIZE = 512;
  * @example
  * profileRetrySetup(profile("warehouse-robot-48v.yaml"), defaultCircuitModels).attempts // => 8
  */
-export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): ProfileRetrySetup {
+export function profileRetrySetup(given: DutyProfile, models: CircuitModels): ProfileRetrySetup {
+  // an ambient that varies and extra heat sources: plan at the constant ambient that bounds them
+  const heatRiseK = given.surroundings === undefined ? undefined : surroundingsBound(given).heatRiseK;
+  const profile = hottestSteadySurroundings(given);
   const circuit = profile.circuit;
   if (circuit === undefined) throw inputError("bad-profile", "circuit", "a pre-charge circuit (the retry planner needs one)", "none");
   const retry = firstRetryBlock(profile.events, (block) => block.fault !== undefined);
@@ -141,7 +145,7 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
         model: part.model,
         source: part.model.sources[part.sourceIndex]!,
         observe: part.model.observed[part.observedIndex]!,
-        ambientC: spec.ambient ?? part.ambientC,
+        ambientC: spec.ambient === undefined ? part.ambientC : spec.ambient + (heatRiseK?.[profile.parts.indexOf(part)] ?? 0),
         limitC: part.limitC,
         marginK: part.marginK,
         initialVoltageV: 0,

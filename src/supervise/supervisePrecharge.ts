@@ -1,4 +1,5 @@
 import { inputError } from "../errors/InputError.js";
+import { hottestSteadySurroundings } from "../profile/hottestSteadySurroundings.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../text/formatTable.js";
@@ -147,7 +148,9 @@ export interface SupervisionReport {
  * @example
  * supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels).window.lowerS // => 0.5695
  */
-export function supervisePrecharge(profile: DutyProfile, models: CircuitModels): SupervisionReport {
+export function supervisePrecharge(given: DutyProfile, models: CircuitModels): SupervisionReport {
+  // an ambient that varies and extra heat sources: answer at the constant ambient that bounds them
+  const profile = hottestSteadySurroundings(given);
   const circuit = profile.circuit;
   if (circuit === undefined) throw inputError("bad-profile", "circuit", "a `circuit` section (the supervision answers are about its pre-charge)", "a profile without one");
   const spec: SupervisionSpec | undefined = profile.supervision;
