@@ -81,6 +81,12 @@ export function formatFleetText(summary: FleetSummary, width: number, tableRows:
     });
     out.push(studyTable(columns, cells, 2, w));
     if (replayed.length > shown.length) out.push(`... and ${replayed.length - shown.length} more units (every unit is in --csv, --ndjson and --json)`, "");
+    const judged = shown.filter((r) => r.verdict !== "pass");
+    if (judged.length > 0) {
+      out.push("Why:");
+      for (const row of judged) out.push(wrapHanging(`  ${row.unit}: ${row.reason}`, w));
+      out.push("");
+    }
   }
   const broken = rows.filter((r) => r.error !== null);
   if (broken.length > 0) {
