@@ -89,7 +89,9 @@ Example:
     );
   for (const option of FLEET_OUTPUT_OPTIONS) merge.option(option.flags, option.help);
   merge.action(async (partitions: string[], options: FleetOutputFlags) => {
+    // commander reads an option known to `fleet` wherever it stands, so the shared output flags
+    // written after `merge` land on `fleet`: take both
     const { fleetMergeAction } = await import("./fleetMergeAction.js");
-    await fleetMergeAction(run, partitions, options);
+    await fleetMergeAction(run, partitions, { ...fleet.opts<FleetFlags>(), ...options });
   });
 }
