@@ -11,7 +11,7 @@ export interface UnitLog {
   readonly badLine?: number;
 }
 
-/** A tiny linear congruential generator (Numerical Recipes constants, from memory): jitter only. */
+/** A tiny 32-bit linear congruential generator (multiplier 1664525, increment 1013904223; common practice, from memory): jitter only. */
 function jitter(seed: number): () => number {
   let state = (seed * 2654435761) >>> 0;
   return () => {
