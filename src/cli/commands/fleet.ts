@@ -35,7 +35,7 @@ export interface FleetFlags extends FleetOutputFlags {
 }
 
 const STATUS_HELP = verdictHelp(
-  "The fleet's verdict is the worst of its units' (each as replay judges it); when a log could not be replayed the run still reports every other unit and exits with status 2.",
+  "Here the verdict is the worst of the units' (each as replay judges it); when a log could not be replayed the run still reports every other unit and exits with status 2.",
 );
 
 /** `heatledger fleet PROFILE LOGS...` and `heatledger fleet merge PARTS...`: flags and help here; the runs load from fleetAction.ts and fleetMergeAction.ts. */
@@ -66,6 +66,8 @@ ${STATUS_HELP}
 See docs/fleet.md (shipped in the package).`,
     );
   for (const option of FLEET_OUTPUT_OPTIONS) fleet.option(option.flags, option.help);
+  // list the subcommand by its name alone, so its arguments do not widen the help's columns
+  fleet.configureHelp({ subcommandTerm: (sub) => sub.name() });
   fleet.action(async (profile: string, logs: string[], options: FleetFlags) => {
     const { fleetAction } = await import("./fleetAction.js");
     await fleetAction(run, profile, logs, options);
