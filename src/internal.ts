@@ -185,3 +185,22 @@ export { DAILY_AMBIENT_PIECES, DAY_S } from "./profile/resolveSurroundings.js";
 export { FOLLOW_TAU_S, SurroundingsDrive } from "./profile/SurroundingsDrive.js";
 export { hottestSteadySurroundings, surroundingsBound } from "./profile/hottestSteadySurroundings.js";
 export type { SurroundingsBound } from "./profile/hottestSteadySurroundings.js";
+
+// fleet (many units' logs: one row per unit, risk ranking, partitions that merge)
+export { replayFleetUnit } from "./fleet/replayFleetUnit.js";
+export type { FleetLog, FleetUnitOptions } from "./fleet/replayFleetUnit.js";
+export type { FleetUnitRow, FleetReplayedRow, FleetBrokenRow, FleetPartRow } from "./fleet/FleetUnitRow.js";
+export { fleetHeader, FLEET_FORMAT } from "./fleet/FleetHeader.js";
+export type { FleetHeader } from "./fleet/FleetHeader.js";
+export { compareFleetRows, leastMarginK, greatestDamage } from "./fleet/compareFleetRows.js";
+export { fleetSummary } from "./fleet/fleetSummary.js";
+export type { FleetSummary, FleetRowSource } from "./fleet/fleetSummary.js";
+export { fleetNdjson, fleetRowJson, fleetHeaderJson, fleetCautions } from "./fleet/fleetNdjson.js";
+export { parseFleetNdjson } from "./fleet/parseFleetNdjson.js";
+export type { FleetPartition } from "./fleet/parseFleetNdjson.js";
+export { mergeFleetPartitions } from "./fleet/mergeFleetPartitions.js";
+export { formatFleetText, earliestExceedance, leastRemainingLifeYears, remainingLifeWords } from "./fleet/formatFleetText.js";
+export { formatFleetCsv } from "./fleet/formatFleetCsv.js";
+export { fleetJson } from "./fleet/fleetJson.js";
+export { fleetCharts } from "./fleet/fleetCharts.js";
+export { FLEET_DEFAULTS } from "./fleet/fleetDefaults.js";

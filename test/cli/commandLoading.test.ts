@@ -10,7 +10,7 @@ import { cliModuleLoads } from "../helpers/cliModuleLoads.js";
 const FITTING_PACKAGES = ["ml-fcnnls", "ml-levenberg-marquardt", "ml-matrix"];
 
 describe("runCli loads each command's implementation only when it runs", () => {
-  test.each([[["--help"]], [["--version"]], [["simulate", "--help"]], [["replay", "--help"]], [["network", "--help"]], [["network", "fit", "--help"]], [["size", "--help"]], [["guard", "--help"]]])(
+  test.each([[["--help"]], [["--version"]], [["simulate", "--help"]], [["replay", "--help"]], [["network", "--help"]], [["network", "fit", "--help"]], [["size", "--help"]], [["guard", "--help"]], [["fleet", "--help"]]])(
     "%j loads commander and the definitions, no library package and no action module",
     (args) => {
       const loads = cliModuleLoads(args);

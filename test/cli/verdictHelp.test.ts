@@ -6,7 +6,7 @@ import { memoryIo } from "../helpers/memoryIo.js";
 // Every judging command states the one verdict rule and takes --strict; the paragraph is built
 // from VERDICTS, so the words and exit statuses cannot drift apart between commands.
 describe("--help of every judging command", () => {
-  test.each([["simulate"], ["replay"], ["retries"], ["supervise"], ["size"]])("%s: the verdict words, their exit statuses and --strict", async (command) => {
+  test.each([["simulate"], ["replay"], ["retries"], ["supervise"], ["size"], ["fleet"]])("%s: the verdict words, their exit statuses and --strict", async (command) => {
     const io = memoryIo({});
     expect(await runCli([command, "--help"], io)).toBe(0);
     const help = io.stdout.join("");
