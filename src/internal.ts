@@ -176,3 +176,15 @@ export { runMonteCarloSamples } from "./study/runMonteCarloSamples.js";
 export { summarizeMonteCarlo } from "./study/summarizeMonteCarlo.js";
 export { wilsonInterval } from "./study/wilsonInterval.js";
 export { STUDY_ANSWERS, STUDY_DEFAULTS } from "./study/studyDefaults.js";
+// corners in every command (--corners of simulate, size, replay)
+export { profileCorners, PROFILE_CORNER_FIELD } from "./profile/profileCorners.js";
+export type { ProfileCorner } from "./profile/profileCorners.js";
+export { cornerAnswer } from "./profile/CornerAnswers.js";
+export type { CornerAnswer, CornerAnswers } from "./profile/CornerAnswers.js";
+export { simulateCorner } from "./profile/simulateCorner.js";
+export type { CornerSimulation } from "./profile/simulateCorner.js";
+export { simulationCornerAnswers } from "./report/simulationCornerAnswers.js";
+export { sizingCornerAnswers } from "./report/sizingCornerAnswers.js";
+export { formatCornerAnswers } from "./report/formatCornerAnswers.js";
+export { cornerAnswersJson } from "./report/cornerAnswersJson.js";
+export type { CornerAnswersJson } from "./report/cornerAnswersJson.js";
