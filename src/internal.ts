@@ -188,3 +188,7 @@ export { sizingCornerAnswers } from "./report/sizingCornerAnswers.js";
 export { formatCornerAnswers } from "./report/formatCornerAnswers.js";
 export { cornerAnswersJson } from "./report/cornerAnswersJson.js";
 export type { CornerAnswersJson } from "./report/cornerAnswersJson.js";
+export { EventEnergyTally } from "./study/EventEnergyTally.js";
+export type { EventEnergy } from "./study/EventEnergyTally.js";
+export { readStudySpec, STUDY_SPEC_COMMANDS } from "./study/readStudySpec.js";
+export type { StudySpec, StudySpecItem, StudySpecCommand } from "./study/readStudySpec.js";
