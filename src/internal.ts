@@ -192,3 +192,4 @@ export { EventEnergyTally } from "./study/EventEnergyTally.js";
 export type { EventEnergy } from "./study/EventEnergyTally.js";
 export { readStudySpec, STUDY_SPEC_COMMANDS } from "./study/readStudySpec.js";
 export type { StudySpec, StudySpecItem, StudySpecCommand } from "./study/readStudySpec.js";
+export { sweepCharts } from "./report/sweepCharts.js";
