@@ -193,3 +193,5 @@ export type { EventEnergy } from "./study/EventEnergyTally.js";
 export { readStudySpec, STUDY_SPEC_COMMANDS } from "./study/readStudySpec.js";
 export type { StudySpec, StudySpecItem, StudySpecCommand } from "./study/readStudySpec.js";
 export { sweepCharts } from "./report/sweepCharts.js";
+export { sensitivityCharts } from "./report/sensitivityCharts.js";
+export { monteCarloCharts } from "./report/monteCarloCharts.js";

@@ -21,7 +21,7 @@ export function registerStudy(program: Command, run: CliRun): void {
     .option("--json", "print one JSON object instead of the text report")
     .option("--csv <file>", "sweep: write the points to a CSV file")
     .option("--worst <file>", "montecarlo: write the worst sample as a profile that reproduces it")
-    .option("--report <file>", "sweep: write an HTML report with the sweep's chart")
+    .option("--report <file>", "sweep, sensitivity, montecarlo: write the HTML report with the study's charts")
     .option("--force", "overwrite the --csv, --worst or --report file if it exists")
     .option(STRICT_OPTION.flags, `compare: ${STRICT_OPTION.help}`)
     .addHelpText(

@@ -38,14 +38,14 @@ export async function studyAction(run: CliRun, file: string, options: StudyFlags
       }
       case "sensitivity": {
         const { sensitivityAction } = await import("./sensitivityAction.js");
-        sensitivityAction(run, located(spec.profile), { ...common, ...answer, ...(spec.vary.length === 0 ? {} : { vary: spec.vary.map((v) => v.option) }), ...(spec.step === undefined ? {} : { step: String(spec.step) }) });
+        await sensitivityAction(run, located(spec.profile), { ...common, ...answer, ...(options.report === undefined ? {} : { report: options.report }), ...(spec.vary.length === 0 ? {} : { vary: spec.vary.map((v) => v.option) }), ...(spec.step === undefined ? {} : { step: String(spec.step) }) });
         break;
       }
       case "montecarlo": {
         const { monteCarloAction } = await import("./montecarloAction.js");
         const numbers = { samples: spec.samples, seed: spec.seed, workers: spec.workers };
         const given = Object.fromEntries(Object.entries(numbers).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]));
-        await monteCarloAction(run, located(spec.profile), { ...common, ...answer, ...given, vary: spec.vary.map((v) => v.option), ...(options.worst === undefined ? {} : { worst: options.worst }) });
+        await monteCarloAction(run, located(spec.profile), { ...common, ...answer, ...given, vary: spec.vary.map((v) => v.option), ...(options.worst === undefined ? {} : { worst: options.worst }), ...(options.report === undefined ? {} : { report: options.report }) });
         break;
       }
       case "compare": {
