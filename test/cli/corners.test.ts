@@ -1,6 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { ADIABATIC } from "../helpers/adiabaticProfile.js";
 
 // `--corners` of simulate, size and replay against hand calculations. One Foster stage with
 // tau = 1e7 s and r = 1e5 K/W (heat capacity tau/r = 100 J/K) takes the whole charging loss of a
@@ -14,23 +15,8 @@ import { memoryIo } from "../helpers/memoryIo.js";
 //   high bus    Vs = 66 V:                    E = 2e-3·4356·0.49875   = 4.34511 J, rise 0.0434511 K
 //   big C       C = 2.4 mF, R = 3 ohm:        E = 2.4e-3·3600·0.49875 = 4.3092 J,  rise 0.043092 K
 // What the stage leaks in the ~40 ms charge is about 1e-9 of the rise.
-const PROFILE = (limits: string): string => `name: corners by hand
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 100000 K/W, tau: 10000000 s }] }
-    limits: ${limits}
-circuit:
-  topology: series-resistor
-  busVoltage: 60 V
-  capacitance: 2 mF
-  resistance: 6 ohm
-  completion: { fraction: 0.95, timeout: 1 s }
-  discharge: { kind: none }
-events:
-  - power-up: {}
-retryPlan:
+const PROFILE = (limits: string): string =>
+  `${ADIABATIC.replace("name: adiabatic limit", "name: corners by hand").replace("limits: { maxTemperature: 100 degC }", `limits: ${limits}`)}retryPlan:
   corners:
     - { name: cold, ambient: -10 degC }
     - { name: high bus, busVoltage: 66 V }

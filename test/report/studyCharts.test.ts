@@ -2,29 +2,13 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { StudyProfile, computeSensitivities, defaultCircuitModels, monteCarloCharts, sensitivityCharts } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { ADIABATIC } from "../helpers/adiabaticProfile.js";
 
 // The adiabatic limit (one Foster stage, heat capacity 100 J/K, nothing flows out during the
 // charge): the rise is the charging loss C·Vs²·(f − f²/2) over the heat capacity (capacitor
 // energy C·v²/2: Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., §7.1, from
 // memory; E = C·ΔT: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §5.3),
 // so the tornado's bars are 2 for Vs, 1 for C and 0 for R.
-const ADIABATIC = `name: adiabatic limit
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 100000 K/W, tau: 10000000 s }] }
-    limits: { maxTemperature: 100 degC }
-circuit:
-  topology: series-resistor
-  busVoltage: 60 V
-  capacitance: 2 mF
-  resistance: 6 ohm
-  completion: { fraction: 0.95, timeout: 1 s }
-  discharge: { kind: none }
-events:
-  - power-up: {}
-`;
 
 describe("study charts", () => {
   test("sensitivity: the tornado draws S = 2 for Vs, 1 for C, 0 for R, largest first", () => {

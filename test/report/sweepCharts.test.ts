@@ -2,6 +2,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { StudyProfile, defaultCircuitModels, parseSweepAxis, runSweep, sweepCharts } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { splitProfile } from "../helpers/adiabaticProfile.js";
 
 // A sweep of the series resistance R with a source resistance Rs = 2 ohm: each charge from 0 to
 // f·Vs loses C·Vs²·(f − f²/2) whatever the resistances (the source gives C·Vs·f·Vs, the
@@ -9,24 +10,7 @@ import { memoryIo } from "../helpers/memoryIo.js";
 // Analysis, 8th ed., §7.1, from memory), split as R/(R + Rs) by the one current through both
 // (Joule heating i²R: the same book, §2.4, from memory). C = 2 mF, Vs = 60 V, f = 0.95:
 // E = 2e-3·3600·0.49875 = 3.591 J; R = 2, 6, 18 ohm: 0.5·E, 0.75·E, 0.9·E.
-const SPLIT = `name: split
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 1 K/W, tau: 1000 s }] }
-    limits: { maxTemperature: 200 degC, margin: 10 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 60 V
-  capacitance: 2 mF
-  resistance: 6 ohm
-  sourceResistance: 2 ohm
-  completion: { fraction: 0.95, timeout: 1 s }
-  discharge: { kind: none }
-events:
-  - power-up: {}
-`;
+const SPLIT = splitProfile(200);
 const E = 2e-3 * 3600 * 0.49875;
 
 describe("sweep charts", () => {

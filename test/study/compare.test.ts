@@ -4,6 +4,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { defaultCircuitModels, loadProfile, planRetries, simulateProfile } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { splitProfile } from "../helpers/adiabaticProfile.js";
 
 const ROOT = join(import.meta.dirname, "..", "..");
 const BUNDLED = "profiles/warehouse-robot-48v.yaml";
@@ -40,29 +41,8 @@ describe("compare", () => {
 // Engineering Circuit Analysis, 8th ed., §7.1, from memory), and one current through both splits
 // it as R/(R + Rs) (Joule heating i²R in series: the same book, §2.4, from memory).
 // C = 2 mF, Vs = 60 V, f = 0.95: E = 2e-3·3600·0.49875 = 3.591 J; R = 6, Rs = 2: 0.75·E; R = 2: 0.5·E.
-const SPLIT = (maxC: number) => `name: split
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 1 K/W, tau: 1000 s }] }
-    limits: { maxTemperature: ${maxC} degC, margin: 1 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 60 V
-  capacitance: 2 mF
-  resistance: 6 ohm
-  sourceResistance: 2 ohm
-  completion: { fraction: 0.95, timeout: 1 s }
-  discharge: { kind: bleeder, resistance: 10 ohm }
-events:
-  - repeat:
-      count: 3
-      period: 100 s
-      events:
-        - power-up: { label: start }
-        - power-down: { off: 10 s }
-`;
+const SPLIT = (maxC: number): string =>
+  splitProfile(maxC, "  - repeat:\n      count: 3\n      period: 100 s\n      events:\n        - power-up: { label: start }\n        - power-down: { off: 10 s }\n", "{ kind: bleeder, resistance: 10 ohm }");
 
 describe("compare: energy per event and exit status", () => {
   test("the resistor's energy per power-up is its share R/(R + Rs) of C·Vs²·(f − f²/2) in both designs", async () => {
