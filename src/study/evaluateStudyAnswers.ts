@@ -8,6 +8,7 @@ import { sizeProfile } from "../size/sizeProfile.js";
 import type { Verdict } from "../stress/Verdict.js";
 import { supervisePrecharge } from "../supervise/supervisePrecharge.js";
 import { STUDY_ANSWERS, type StudyAnswerName } from "./studyDefaults.js";
+import type { TimelineEvent } from "../profile/expandTimeline.js";
 
 /** The answers of one profile: a number (SI; °C for peak) or null where the command has none. */
 export interface StudyAnswers {
@@ -23,6 +24,8 @@ export interface StudyAnswerOptions {
   readonly models: CircuitModels;
   /** the part to follow; default the part with the least margin in the simulation (else the first) */
   readonly partId?: string;
+  /** handed every event of the simulate run as its window closes (compare's energy per event) */
+  readonly onEvent?: (event: TimelineEvent) => void;
 }
 
 const finite = (x: number | null | undefined): number | null => (x === null || x === undefined || !Number.isFinite(x) ? null : x);
@@ -46,12 +49,19 @@ export function evaluateStudyAnswers(profile: DutyProfile, answers: readonly Stu
   let verdict: Verdict | undefined;
   if (wants("simulate")) {
     const stress = answers.includes("damage") ? new ProfileStress(profile) : undefined;
+    const onEvent = options.onEvent;
     const result = simulateProfile(profile, {
       models: options.models,
       wantSamples: stress?.wantsSamples ?? false,
-      ...(stress === undefined
+      ...(stress === undefined && onEvent === undefined
         ? {}
-        : { onEvent: (event) => stress.addEvent(event), onPoint: (timeS, temperatureC, kind, eventIndex) => stress.addPoint(timeS, temperatureC, kind, eventIndex) }),
+        : {
+            onEvent: (event) => {
+              stress?.addEvent(event);
+              onEvent?.(event);
+            },
+          }),
+      ...(stress === undefined ? {} : { onPoint: (timeS, temperatureC, kind, eventIndex) => stress.addPoint(timeS, temperatureC, kind, eventIndex) }),
     });
     const index = options.partId === undefined ? result.parts.reduce((best, p, i) => (p.marginK < result.parts[best]!.marginK ? i : best), 0) : result.parts.findIndex((p) => p.id === options.partId);
     const part = result.parts[index]!;

@@ -1,5 +1,5 @@
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -34,5 +34,22 @@ describe("design studies, the built bin", () => {
     expect(readFileSync(worst, "utf8")).toContain("network: worst-wirewound-resistor-foster.yaml");
     const again = heatledger("simulate", worst, "--json");
     expect(again.status).toBe(0);
+  });
+
+  test("a study file, simulate --corners and compare's exit status, through the built bin", () => {
+    const dir = mkdtempSync(join(tmpdir(), "heatledger-study-"));
+    const spec = join(dir, "sweep.yaml");
+    writeFileSync(spec, `study: sweep\nprofile: ${join(root, "profiles", "warehouse-robot-48v.yaml")}\nanswers: [peak]\nvary:\n  - { path: circuit.resistance, values: [22 ohm, 47 ohm] }\n`);
+    const study = heatledger("study", spec, "--json");
+    expect(study.stderr).toBe("");
+    expect(study.status).toBe(0);
+    expect((JSON.parse(study.stdout) as { points: unknown[] }).points).toHaveLength(2);
+    const corners = heatledger("simulate", "profiles/heat-pump-trip-retries.yaml", "--corners", "--json");
+    expect(corners.status).toBe(0);
+    expect((JSON.parse(corners.stdout) as { corners: { names: string[] } }).corners.names).toEqual(["as written", "nominal", "hot and high", "cold and low"]);
+    // 10 ohm makes the robot's resistor pass its limit in B: compare exits 1
+    const compare = heatledger("compare", "profiles/warehouse-robot-48v.yaml", "--set", "circuit.resistance=10 ohm");
+    expect(compare.status).toBe(1);
+    expect(compare.stdout).toContain("Verdict: fail");
   });
 });

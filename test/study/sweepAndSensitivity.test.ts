@@ -4,6 +4,7 @@ import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { StudyProfile, computeSensitivities, defaultCircuitModels, loadProfile, planRetries, simulateProfile } from "../../src/internal.js";
 import { memoryIo } from "../helpers/memoryIo.js";
+import { ADIABATIC } from "../helpers/adiabaticProfile.js";
 
 const ROOT = join(import.meta.dirname, "..", "..");
 const BUNDLED = "profiles/warehouse-robot-48v.yaml";
@@ -51,23 +52,6 @@ describe("sweep", () => {
 // when nothing flows out: Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §5.3).
 // Hence d ln(ΔT)/d ln(C) = 1, d ln(ΔT)/d ln(Vs) = 2, d ln(ΔT)/d ln(R) = 0 exactly; what the
 // stage leaks in the ~30 ms charge is about 1e-9 of the rise.
-const ADIABATIC = `name: adiabatic limit
-ambient: 25 degC
-parts:
-  - id: r
-    role: resistor
-    network: { form: foster, stages: [{ r: 100000 K/W, tau: 10000000 s }] }
-    limits: { maxTemperature: 100 degC }
-circuit:
-  topology: series-resistor
-  busVoltage: 60 V
-  capacitance: 2 mF
-  resistance: 6 ohm
-  completion: { fraction: 0.95, timeout: 1 s }
-  discharge: { kind: none }
-events:
-  - power-up: {}
-`;
 
 describe("sensitivities", () => {
   test("adiabatic limit: S = 1 for C, 2 for V, 0 for R (the charging loss C·V²·(f − f²/2))", () => {

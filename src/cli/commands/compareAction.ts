@@ -7,10 +7,12 @@ import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
 import { readStudyProfile } from "../readStudyProfile.js";
 import type { CompareFlags } from "./compare.js";
+import { verdictExitStatus } from "../../stress/Verdict.js";
 
 /**
  * The run of `heatledger compare A [B]` (flags and help in compare.ts): load A, and B (or A with
- * the --set values), compare them and print the table or the JSON.
+ * the --set values), compare them and print the table or the JSON; the exit status follows the
+ * worse of the two verdicts (verdictExitStatus; --strict makes warn exit 1).
  * @throws InputError for a bad profile, path, value or part, or neither B nor --set
  */
 export function compareAction(run: CliRun, fileA: string, fileB: string | undefined, options: CompareFlags): void {
@@ -39,4 +41,5 @@ export function compareAction(run: CliRun, fileA: string, fileB: string | undefi
   const linearMosfet = [a, b].some((p) => p.circuit?.topology === "linear-mosfet");
   if (options.json) run.io.out(`${JSON.stringify(comparisonJson(result, [a.name, nameB], linearMosfet), null, 2)}\n`);
   else run.io.out(formatComparisonText(result, [a.name, nameB], run.io.columns, linearMosfet));
+  run.status = verdictExitStatus(result.verdict, options.strict === true);
 }

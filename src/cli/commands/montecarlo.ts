@@ -1,6 +1,7 @@
 import type { Command } from "commander";
 import { STUDY_DEFAULTS } from "../../study/studyDefaults.js";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION } from "./chartOptions.js";
 import { PATH_HELP, answerHelp, collect } from "./sweep.js";
 
 /** What the flags of `heatledger montecarlo` parse to. */
@@ -14,6 +15,8 @@ export interface MonteCarloFlags {
   readonly worst?: string;
   readonly force?: boolean;
   readonly json?: boolean;
+  /** --report FILE.html: the page with a histogram per answer */
+  readonly report?: string;
 }
 
 /** `heatledger montecarlo PROFILE`: flags and help here; the run is loaded from montecarloAction.ts. */
@@ -29,7 +32,8 @@ export function registerMonteCarlo(program: Command, run: CliRun): void {
     .option("--answer <names>", `answers, comma separated (default ${STUDY_DEFAULTS.monteCarloAnswers.join(",")}; margin is always worked out)`)
     .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
     .option("--worst <file>", "write the worst sample as a profile that reproduces it (an edited network file beside it)")
-    .option("--force", "overwrite the --worst file if it exists")
+    .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a histogram per answer`)
+    .option("--force", "overwrite the --worst or --report file if it exists")
     .option("--json", "print one JSON object instead of the text report")
     .addHelpText(
       "after",

@@ -42,6 +42,7 @@ function wholeOption(text: string | undefined, fallback: number, min: number, op
  */
 export async function monteCarloAction(run: CliRun, file: string, options: MonteCarloFlags): Promise<void> {
   refuseExistingOutput(run.io, options.worst, options.force === true, "--worst");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
   const samples = wholeOption(options.samples, STUDY_DEFAULTS.samples, 1, "--samples", "a whole number of samples ≥ 1");
   const seed = wholeOption(options.seed, STUDY_DEFAULTS.seed, 0, "--seed", "a whole number ≥ 0");
   const fallback = Math.max(1, Math.min(availableParallelism(), Math.floor(samples / DEFAULT_SAMPLES_PER_WORKER)));
@@ -72,6 +73,18 @@ export async function monteCarloAction(run: CliRun, file: string, options: Monte
     const written = worstSampleFiles(study, distributions.map((d, i) => [d.parameter, worst.values[i]!] as const), file, options.worst);
     for (const [path, text] of written) writeOutputFile(run.io, path, text, options.force === true, "--worst");
     note = `Worst sample written to ${written.map(([p]) => p).join(" and ")}\n`;
+  }
+  if (options.report !== undefined) {
+    const [{ writeChartReport }, { monteCarloCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/monteCarloCharts.js"), import("../../text/cautions.js")]);
+    const verdict = summary.worst?.answers?.verdict ?? "pass";
+    const page = {
+      title: `heatledger montecarlo: ${study.nominal.name}`,
+      verdict,
+      verdictText: `the worst sample's (${summary.crossings} of ${summary.judged} samples above the limit); the study sets no exit status`,
+      cautions: reportCautions(report.linearMosfet),
+      text: formatMonteCarloText(summary, report, 100),
+    };
+    note += await writeChartReport(run.io, { report: options.report, force: options.force === true }, page, monteCarloCharts(results, answers));
   }
   if (options.json) run.io.out(`${JSON.stringify(monteCarloJson(summary, report), null, 2)}\n`);
   else run.io.out(`${formatMonteCarloText(summary, report, run.io.columns)}${note}`);

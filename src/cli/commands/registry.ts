@@ -11,6 +11,7 @@ import { registerSensitivity } from "./sensitivity.js";
 import { registerMonteCarlo } from "./montecarlo.js";
 import { registerCompare } from "./compare.js";
 import { registerFleet } from "./fleet.js";
+import { registerStudy } from "./study.js";
 import type { CliRun } from "../main.js";
 
 /**
@@ -22,4 +23,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerFleet, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerFleet, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare, registerStudy];

@@ -1,7 +1,7 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 import { LOG_COLUMNS, LOG_WORDS } from "../../replay/logWords.js";
-import { CSV_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
+import { CORNERS_HELP, CORNERS_OPTION, CSV_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
 import { REPORT_OPTION, SAMPLE_RATIO_OPTION, SAMPLE_STEP_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
@@ -16,6 +16,7 @@ export const REPLAY_OPTIONS = [
   SVG_OPTION,
   { flags: "--force", help: "overwrite the --csv, --report or --svg file if it exists" },
   NO_CHART_OPTION,
+  CORNERS_OPTION,
   STRICT_OPTION,
 ] as const;
 
@@ -30,6 +31,7 @@ export interface ReplayFlags {
   readonly svg?: string;
   readonly force?: boolean;
   readonly chart: boolean;
+  readonly corners?: boolean;
   readonly strict?: boolean;
 }
 
@@ -62,6 +64,7 @@ Example:
     --profile profiles/irrigation-pump-decade.yaml
 
 ${verdictHelp(`${SIMULATION_VERDICT_COVERS} The history is the log's.`)}
+${CORNERS_HELP}
 Damage to date counts the log as a one-off history (ASTM E1049 §5.4.4). See
 docs/field-logs.md (shipped in the package).`,
     );

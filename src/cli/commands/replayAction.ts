@@ -14,6 +14,8 @@ import { readProfileFile } from "../readProfileFile.js";
 import { readTextFile, refuseExistingOutput } from "../readInputFile.js";
 import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { ReplayFlags } from "./replay.js";
+import { simulateCorner } from "../../profile/simulateCorner.js";
+import { simulationCorners } from "../simulationCorners.js";
 
 /** The damage lines of a replay: one pass of the history is the whole log. */
 const REPLAY_HISTORY_WORDS = { perRepetition: "to date (the whole log)", repetitions: "logs like this one" } as const;
@@ -58,13 +60,18 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
     const text = formatSimulationText(replay.profile, result, digest, undefined, 100, stressText, { command: "replay", lines: header }, stressResult.ratingStatus);
     chartNote = await writeSimulationReport(run.io, options, { command: "replay", profile: replay.profile, result, digest, trace, stress: stressResult, text });
   }
+  // --corners: the log replayed on the profile at each corner of its corner set
+  const corners = simulationCorners(run, profile, options.corners === true, { result, stress: stressResult }, (corner, models) => {
+    const at = replayProfile(corner.profile, log);
+    return simulateCorner(at, models, "open", (simulate) => replayEventLog(corner.profile, log, simulate, at).simulation);
+  }, "replay");
   if (options.json) {
     const json = simulationStressJson(simulationJson(replay.profile, result, digest), stressResult, undefined);
-    run.io.out(`${JSON.stringify({ ...json, replay: summary }, null, 2)}\n`);
+    run.io.out(`${JSON.stringify({ ...json, replay: summary, ...(corners.json === undefined ? {} : { corners: corners.json }) }, null, 2)}\n`);
   } else {
     run.io.out(
-      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}${chartNote}`,
+      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}${chartNote}${corners.text}`,
     );
   }
-  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
+  run.status = verdictExitStatus(corners.verdict ?? simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
 }

@@ -1,6 +1,7 @@
 import type { Command } from "commander";
 import { STUDY_DEFAULTS } from "../../study/studyDefaults.js";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION } from "./chartOptions.js";
 import { PATH_HELP, answerHelp, collect } from "./sweep.js";
 
 /** What the flags of `heatledger sensitivity` parse to. */
@@ -10,6 +11,9 @@ export interface SensitivityFlags {
   readonly part?: string;
   readonly step?: string;
   readonly json?: boolean;
+  /** --report FILE.html: the page with a tornado chart per answer */
+  readonly report?: string;
+  readonly force?: boolean;
 }
 
 /** `heatledger sensitivity PROFILE`: flags and help here; the run is loaded from sensitivityAction.ts. */
@@ -23,6 +27,8 @@ export function registerSensitivity(program: Command, run: CliRun): void {
     .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
     .option("--step <fraction>", `relative step h of the central difference (default ${STUDY_DEFAULTS.sensitivityStep})`)
     .option("--json", "print one JSON object instead of the tables")
+    .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a tornado chart per answer`)
+    .option("--force", "overwrite the --report file if it exists")
     .addHelpText(
       "after",
       `
@@ -38,6 +44,6 @@ Example:
     )
     .action(async (file: string, options: SensitivityFlags) => {
       const { sensitivityAction } = await import("./sensitivityAction.js");
-      sensitivityAction(run, file, options);
+      await sensitivityAction(run, file, options);
     });
 }

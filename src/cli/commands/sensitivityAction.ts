@@ -7,6 +7,7 @@ import type { StudyParameter, StudyProfile } from "../../study/StudyProfile.js";
 import { STUDY_DEFAULTS, type StudyAnswerName } from "../../study/studyDefaults.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
+import { refuseExistingOutput } from "../readInputFile.js";
 import { checkPartOption, parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { SensitivityFlags } from "./sensitivity.js";
 
@@ -18,7 +19,8 @@ const DEFAULT_CIRCUIT_KEYS = ["busVoltage", "capacitance", "resistance", "source
  * parameters, work out every answer at p(1 ± h) and print the ranked tables or the JSON.
  * @throws InputError for a bad profile, path, answer, part or step
  */
-export function sensitivityAction(run: CliRun, file: string, options: SensitivityFlags): void {
+export async function sensitivityAction(run: CliRun, file: string, options: SensitivityFlags): Promise<void> {
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
   const step = options.step === undefined ? STUDY_DEFAULTS.sensitivityStep : Number(options.step);
   if (!(step > 0 && step <= 0.5)) throw inputError("bad-option", "--step", "a relative step above 0 and at most 0.5 such as 0.01", describeFound(options.step));
   const study = readStudyProfile(run.io, file);
@@ -48,8 +50,21 @@ export function sensitivityAction(run: CliRun, file: string, options: Sensitivit
     progress.done();
   }
   const linearMosfet = study.nominal.circuit?.topology === "linear-mosfet";
+  let chartNote = "";
+  if (options.report !== undefined) {
+    const [{ writeChartReport }, { sensitivityCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/sensitivityCharts.js"), import("../../text/cautions.js")]);
+    const verdict = evaluateStudyAnswers(study.nominal, ["peak"], { models: defaultCircuitModels, ...(options.part === undefined ? {} : { partId: options.part }) }).verdict;
+    const page = {
+      title: `heatledger sensitivity: ${study.nominal.name}`,
+      verdict,
+      verdictText: "the profile as written (simulate's temperature verdict); the sensitivities set no exit status",
+      cautions: reportCautions(linearMosfet),
+      text: formatSensitivityText(result, answers, step, study.nominal.name, 100, linearMosfet),
+    };
+    chartNote = await writeChartReport(run.io, { report: options.report, force: options.force === true }, page, sensitivityCharts(result, answers));
+  }
   if (options.json) run.io.out(`${JSON.stringify(sensitivityJson(result, answers, step, study.nominal.name, linearMosfet), null, 2)}\n`);
-  else run.io.out(formatSensitivityText(result, answers, step, study.nominal.name, run.io.columns, linearMosfet));
+  else run.io.out(`${formatSensitivityText(result, answers, step, study.nominal.name, run.io.columns, linearMosfet)}${chartNote}`);
 }
 
 /** The circuit's own quantities the profile writes. */

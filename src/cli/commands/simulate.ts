@@ -8,6 +8,20 @@ export const CSV_OPTION = { flags: "--csv <file>", help: "write the time series 
 /** The flag that drops the charts, shared as CSV_OPTION. */
 export const NO_CHART_OPTION = { flags: "--no-chart", help: "leave the temperature charts out of the text report" } as const;
 
+/** The flag that runs a command at every corner of the profile's corner set (simulate, size, replay). */
+export const CORNERS_OPTION = {
+  flags: "--corners",
+  help: "also run at every corner of the profile's retryPlan.corners: each answer with its governing corner; the verdict is the worst over the corners",
+} as const;
+
+/** What --corners does, for the help of simulate, size and replay. */
+export const CORNERS_HELP = `Corners (--corners): the profile as written and every corner of its
+retryPlan.corners (each changes only the bus voltage, capacitance, series resistance or ambient
+it names) are run; the report adds a table per part with each answer at every corner and names
+the governing corner of each (the one where the answer is worst), in text and in the JSON
+"corners"; the verdict and exit status are the worst over the corners. Without the flag only the
+profile as written runs, and a profile with a corner set gets a note saying so.`;
+
 /** Options of `heatledger simulate`: one table drives the flags and their help. */
 export const SIMULATE_OPTIONS = [
   { flags: "--json", help: "print one JSON object (verdict, parts, events) instead of the text report" },
@@ -19,6 +33,7 @@ export const SIMULATE_OPTIONS = [
   { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" },
   { flags: "--force", help: "overwrite the --csv, --cycles, --report or --svg file if it exists" },
   NO_CHART_OPTION,
+  CORNERS_OPTION,
   STRICT_OPTION,
 ] as const;
 
@@ -33,6 +48,7 @@ export interface SimulateFlags {
   readonly svg?: string;
   readonly force?: boolean;
   readonly chart: boolean;
+  readonly corners?: boolean;
   readonly strict?: boolean;
 }
 
@@ -52,6 +68,8 @@ export function registerSimulate(program: Command, run: CliRun): void {
       "after",
       `
 ${verdictHelp(SIMULATION_VERDICT_COVERS)}
+${CORNERS_HELP}
+Example: heatledger simulate profiles/heat-pump-trip-retries.yaml --corners
 Network and CSV files named in the profile are read relative to the profile's folder. See
 docs/profile-format.md and docs/stress.md (shipped in the package); README, "Verdicts and
 exit status".`,

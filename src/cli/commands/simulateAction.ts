@@ -12,6 +12,8 @@ import { readProfileFile } from "../readProfileFile.js";
 import { refuseExistingOutput, refuseSharedOutputs, writeOutputFile } from "../readInputFile.js";
 import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { SimulateFlags } from "./simulate.js";
+import { simulateCorner } from "../../profile/simulateCorner.js";
+import { simulationCorners } from "../simulationCorners.js";
 
 /**
  * The run of `heatledger simulate PROFILE` (flags and help are in simulate.ts, which loads this
@@ -42,10 +44,13 @@ export async function simulateAction(run: CliRun, file: string, options: Simulat
     const text = formatSimulationText(profile, result, digest, undefined, 100, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus);
     chartNote = await writeSimulationReport(run.io, options, { command: "simulate", profile, result, digest, trace, stress: stressResult, text });
   }
-  if (options.json) run.io.out(`${JSON.stringify(simulationStressJson(simulationJson(profile, result, digest), stressResult, profile.occursPerYear), null, 2)}\n`);
-  else
+  const corners = simulationCorners(run, profile, options.corners === true, { result, stress: stressResult }, (corner, models) => simulateCorner(corner.profile, models));
+  if (options.json) {
+    const json = simulationStressJson(simulationJson(profile, result, digest), stressResult, profile.occursPerYear);
+    run.io.out(`${JSON.stringify(corners.json === undefined ? json : { ...json, corners: corners.json }, null, 2)}\n`);
+  } else
     run.io.out(
-      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}${chartNote}`,
+      `${formatSimulationText(profile, result, digest, envelope, run.io.columns, formatProfileStress(profile, stressResult), {}, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}${chartNote}${corners.text}`,
     );
-  run.status = verdictExitStatus(simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
+  run.status = verdictExitStatus(corners.verdict ?? simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);
 }

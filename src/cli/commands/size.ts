@@ -4,6 +4,7 @@ import { MATERIALS } from "../../thermal/materials.js";
 import type { CliRun } from "../main.js";
 import { CHART_FORCE_OPTION, REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
+import { CORNERS_OPTION } from "./simulate.js";
 
 /** Options of `heatledger size`: one table drives the flags and their help. */
 export const SIZE_OPTIONS = [
@@ -18,6 +19,7 @@ export const SIZE_OPTIONS = [
   REPORT_OPTION,
   SVG_OPTION,
   CHART_FORCE_OPTION,
+  CORNERS_OPTION,
   STRICT_OPTION,
 ] as const;
 
@@ -31,6 +33,7 @@ export interface SizeFlags {
   readonly report?: string;
   readonly svg?: string;
   readonly force?: boolean;
+  readonly corners?: boolean;
   readonly strict?: boolean;
 }
 
@@ -54,6 +57,12 @@ exact Cauer ladder first) and gives it as C1 and, with --material, as the elemen
 series (or source) resistance, or the smallest charging current or power, that completes a
 healthy power-up from 0 V within the profile's timeout.
 ${verdictHelp("Here the verdict judges the answers: fail when a part or the charging element has no feasible size (the report says why); warn when a part sized to a smaller --margin than its profile wants peaks inside that margin; else pass.")}
+Corners (--corners): each part is sized, and the charging element chosen, for the profile as
+written and at every corner of its retryPlan.corners; the report adds a table of each answer at
+every corner and names the governing corner (largest capacity; smallest resistance, or largest
+current or power), whose value holds at every corner. The verdict and exit status are the worst
+over the corners. Without the flag a profile with a corner set gets a note.
+Example: heatledger size profiles/heat-pump-trip-retries.yaml --corners
 See README, "Sizing a pre-charge part" and "Verdicts and exit status".`,
     );
   for (const option of SIZE_OPTIONS) {

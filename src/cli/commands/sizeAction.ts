@@ -12,6 +12,16 @@ import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { refuseExistingOutput } from "../readInputFile.js";
 import type { SizeFlags } from "./size.js";
+import type { CircuitModels } from "../../profile/CircuitModels.js";
+import type { DutyProfile } from "../../profile/DutyProfile.js";
+import { type ProfileCorner, profileCorners } from "../../profile/profileCorners.js";
+import type { SizingReport } from "../../size/sizeProfile.js";
+import { cornerAnswersJson } from "../../report/cornerAnswersJson.js";
+import { formatCornerAnswers } from "../../report/formatCornerAnswers.js";
+import { sizingCornerAnswers } from "../../report/sizingCornerAnswers.js";
+import { worstVerdict } from "../../stress/Verdict.js";
+import { runCorners } from "../runCorners.js";
+import { type CornerReport, cornerNames, cornerNote } from "../simulationCorners.js";
 
 /**
  * The run of `heatledger size PROFILE` (flags and help are in size.ts, which loads this module
@@ -41,15 +51,32 @@ export async function sizeAction(run: CliRun, file: string, options: SizeFlags):
   } finally {
     progress.done();
   }
+  const corners = sizingCorners(run, profile, options, report, (corner, models) =>
+    sizeProfile(corner.profile, {
+      models,
+      ...(material === undefined ? {} : { material }),
+      ...(marginK === undefined ? {} : { marginK }),
+      ...(options.part === undefined ? {} : { partIds: options.part }),
+      ...(scope === undefined ? {} : { scope }),
+    }),
+  );
   let chartNote = "";
   if (options.report !== undefined || options.svg !== undefined) {
     const [{ writeChartReport }, { sizingCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/sizingCharts.js"), import("../../text/cautions.js")]);
     const page = { title: `heatledger size: ${profile.name}`, verdict: report.verdict, verdictText: report.infeasibleReasons.join(" "), cautions: reportCautions(report.linearMosfet), text: formatSizingText(report, 100) };
     chartNote = await writeChartReport(run.io, options, page, sizingCharts(profile, report));
   }
-  if (options.json) run.io.out(`${JSON.stringify(sizingJson(report), null, 2)}\n`);
-  else run.io.out(`${formatSizingText(report, Math.min(run.io.columns, 120))}${chartNote}`);
-  run.status = verdictExitStatus(report.verdict, options.strict === true);
+  if (options.json) run.io.out(`${JSON.stringify(corners.json === undefined ? sizingJson(report) : { ...sizingJson(report), corners: corners.json }, null, 2)}\n`);
+  else run.io.out(`${formatSizingText(report, Math.min(run.io.columns, 120))}${chartNote}${corners.text}`);
+  run.status = verdictExitStatus(corners.verdict ?? report.verdict, options.strict === true);
+}
+
+/** The --corners part of `size`: each corner sized as the profile was, the section, JSON and verdict over them all. */
+function sizingCorners(run: CliRun, profile: DutyProfile, options: SizeFlags, nominal: SizingReport, sizeAt: (corner: ProfileCorner, models: CircuitModels) => SizingReport): CornerReport {
+  if (options.corners !== true) return { text: cornerNote(profile, run.io.columns, "size") };
+  const corners = profileCorners(profile);
+  const answers = sizingCornerAnswers(cornerNames(corners), [nominal, ...runCorners(run.io, corners, "corners", sizeAt)]);
+  return { text: `\n${formatCornerAnswers(answers, run.io.columns)}`, json: cornerAnswersJson(answers), verdict: worstVerdict(answers.verdicts) };
 }
 
 /** The value of --scale, checked. */

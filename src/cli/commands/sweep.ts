@@ -1,6 +1,7 @@
 import type { Command } from "commander";
 import { STUDY_ANSWERS, STUDY_ANSWER_NAMES, STUDY_DEFAULTS } from "../../study/studyDefaults.js";
 import type { CliRun } from "../main.js";
+import { REPORT_OPTION } from "./chartOptions.js";
 
 /** Collects a repeated option into a list. */
 export function collect(value: string, previous: string[] | undefined): string[] {
@@ -25,6 +26,8 @@ export interface SweepFlags {
   readonly part?: string;
   readonly json?: boolean;
   readonly csv?: string;
+  /** --report FILE.html: the page with a chart per answer */
+  readonly report?: string;
   readonly force?: boolean;
 }
 
@@ -39,7 +42,8 @@ export function registerSweep(program: Command, run: CliRun): void {
     .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
     .option("--json", "print one JSON object (parameters, answers, points) instead of the table")
     .option("--csv <file>", "also write the points to a CSV file")
-    .option("--force", "overwrite the --csv file if it exists")
+    .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a line chart per answer (1-D), a heat map (2-D)`)
+    .option("--force", "overwrite the --csv or --report file if it exists")
     .addHelpText(
       "after",
       `
@@ -55,6 +59,6 @@ Example:
     )
     .action(async (file: string, options: SweepFlags) => {
       const { sweepAction } = await import("./sweepAction.js");
-      sweepAction(run, file, options);
+      await sweepAction(run, file, options);
     });
 }

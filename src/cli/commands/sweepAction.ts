@@ -6,7 +6,8 @@ import { STUDY_DEFAULTS } from "../../study/studyDefaults.js";
 import { parseSweepAxis } from "../../study/sweepAxis.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
-import { refuseExistingOutput, writeOutputFile } from "../readInputFile.js";
+import { refuseExistingOutput, refuseSharedOutputs, writeOutputFile } from "../readInputFile.js";
+import { worstVerdict } from "../../stress/Verdict.js";
 import { checkPartOption, parseAnswerNames, readStudyProfile } from "../readStudyProfile.js";
 import type { SweepFlags } from "./sweep.js";
 
@@ -15,8 +16,10 @@ import type { SweepFlags } from "./sweep.js";
  * profile, run every point, write the --csv file and print the table or the JSON.
  * @throws InputError for a bad profile, path, value, answer name or part, or a --csv file that exists without --force
  */
-export function sweepAction(run: CliRun, file: string, options: SweepFlags): void {
+export async function sweepAction(run: CliRun, file: string, options: SweepFlags): Promise<void> {
+  refuseSharedOutputs([["--csv", options.csv], ["--report", options.report]]);
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
   const answers = parseAnswerNames(options.answer, STUDY_DEFAULTS.sweepAnswers);
   const vary = options.vary ?? [];
   if (vary.length < 1 || vary.length > 2) throw inputError("bad-option", "--vary", "one or two --vary PATH=VALUES", `${vary.length}`);
@@ -39,6 +42,21 @@ export function sweepAction(run: CliRun, file: string, options: SweepFlags): voi
   }
   const linearMosfet = study.nominal.circuit?.topology === "linear-mosfet";
   if (options.csv !== undefined) writeOutputFile(run.io, options.csv, formatSweepCsv(result), options.force === true, "--csv");
+  let chartNote = "";
+  if (options.report !== undefined) {
+    const [{ writeChartReport }, { sweepCharts }, { reportCautions }] = await Promise.all([import("../writeChartReport.js"), import("../../report/sweepCharts.js"), import("../../text/cautions.js")]);
+    const verdicts = result.points.map((p) => p.answers?.verdict ?? "pass");
+    const verdict = worstVerdict(verdicts);
+    const count = verdicts.filter((v) => v === verdict).length;
+    const page = {
+      title: `heatledger sweep: ${study.nominal.name}`,
+      verdict,
+      verdictText: `the worst point of the sweep (${count} of ${result.points.length} points ${verdict}); the sweep explores and sets no exit status`,
+      cautions: reportCautions(linearMosfet),
+      text: formatSweepText(result, study.nominal.name, 100, linearMosfet),
+    };
+    chartNote = await writeChartReport(run.io, { report: options.report, force: options.force === true }, page, sweepCharts(result));
+  }
   if (options.json) run.io.out(`${JSON.stringify(sweepJson(result, study.nominal.name, linearMosfet), null, 2)}\n`);
-  else run.io.out(`${formatSweepText(result, study.nominal.name, run.io.columns, linearMosfet)}${options.csv === undefined ? "" : `Points written to ${options.csv}\n`}`);
+  else run.io.out(`${formatSweepText(result, study.nominal.name, run.io.columns, linearMosfet)}${options.csv === undefined ? "" : `Points written to ${options.csv}\n`}${chartNote}`);
 }
