@@ -52,9 +52,10 @@ export function registerSimulate(program: Command, run: CliRun): void {
       "after",
       `
 ${verdictHelp(SIMULATION_VERDICT_COVERS)}
-Network and CSV files named in the profile are read relative to the profile's folder. See
-docs/profile-format.md and docs/stress.md (shipped in the package); README, "Verdicts and
-exit status".`,
+Network and CSV files named in the profile are read relative to the profile's folder. Every
+key is in docs/profile-reference.md, the rules in docs/profile-format.md and docs/stress.md
+(shipped in the package: node_modules/heatledger/docs/); README, "Verdicts and exit status".
+\`heatledger init\` writes a starting profile.`,
     );
   for (const option of SIMULATE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SimulateFlags) => {
