@@ -183,3 +183,5 @@ export type { ProfileKeyRow } from "./profile/profileKeyRows.js";
 export { PROFILE_KEY_NOTES } from "./report/profileKeyNotes.js";
 export type { ProfileKeyNote } from "./report/profileKeyNotes.js";
 export { PROFILE_REFERENCE_COMMAND, profileKeyExample, profileKeyNote, profileReferenceMarkdown } from "./report/profileReferenceMarkdown.js";
+export { STARTER_CIRCUITS, starterProfileText } from "./profile/starterProfile.js";
+export type { StarterCircuit } from "./profile/starterProfile.js";
