@@ -46,7 +46,7 @@ export const SIMULATION_VERDICT_COVERS =
 export function registerSimulate(program: Command, run: CliRun): void {
   const command = program
     .command("simulate")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("run a duty profile: every part's temperature history, peaks, margins and a pass/warn/fail verdict")
     .addHelpText(
       "after",
