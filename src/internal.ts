@@ -158,6 +158,7 @@ export type { RainflowClass, SimulationChartInput } from "./report/simulationCha
 export { retryCharts } from "./report/retryCharts.js";
 export { supervisionCharts } from "./report/supervisionCharts.js";
 export { sizingCharts } from "./report/sizingCharts.js";
+export { fosterFitCharts } from "./report/fosterFitCharts.js";
 export { escapeHtml, htmlReport } from "./report/htmlReport.js";
 export type { HtmlChart, HtmlReportInput } from "./report/htmlReport.js";
 export { fitTable } from "./text/fitTable.js";
