@@ -158,6 +158,7 @@ export type { RainflowClass, SimulationChartInput } from "./report/simulationCha
 export { retryCharts } from "./report/retryCharts.js";
 export { supervisionCharts } from "./report/supervisionCharts.js";
 export { sizingCharts } from "./report/sizingCharts.js";
+export { fosterFitCharts } from "./report/fosterFitCharts.js";
 export { escapeHtml, htmlReport } from "./report/htmlReport.js";
 export type { HtmlChart, HtmlReportInput } from "./report/htmlReport.js";
 export { fitTable } from "./text/fitTable.js";
@@ -223,3 +224,12 @@ export type { StudySpec, StudySpecItem, StudySpecCommand } from "./study/readStu
 export { sweepCharts } from "./report/sweepCharts.js";
 export { sensitivityCharts } from "./report/sensitivityCharts.js";
 export { monteCarloCharts } from "./report/monteCarloCharts.js";
+export { profileKeyMeta } from "./profile/profileKeyMeta.js";
+export type { ProfileKeyMeta } from "./profile/profileKeyMeta.js";
+export { profileKeyRows } from "./profile/profileKeyRows.js";
+export type { ProfileKeyRow } from "./profile/profileKeyRows.js";
+export { PROFILE_KEY_NOTES } from "./report/profileKeyNotes.js";
+export type { ProfileKeyNote } from "./report/profileKeyNotes.js";
+export { PROFILE_REFERENCE_COMMAND, profileKeyExample, profileKeyNote, profileReferenceMarkdown } from "./report/profileReferenceMarkdown.js";
+export { STARTER_CIRCUITS, starterProfileText } from "./profile/starterProfile.js";
+export type { StarterCircuit } from "./profile/starterProfile.js";

@@ -1,5 +1,5 @@
 import { existsSync } from "node:fs";
-import { outputPathProblem, readBoundedTextFile, writeFileAtomically } from "./fileSystemIo.js";
+import { outputPathProblem, readBoundedStdin, readBoundedTextFile, writeFileAtomically } from "./fileSystemIo.js";
 
 /** Everything the CLI does to the outside world, so commands can be tested in process. */
 export interface CliIo {
@@ -9,6 +9,8 @@ export interface CliIo {
   readonly err: (text: string) => void;
   /** read a UTF-8 text file (the process's: bounded in size, regular files only, strict UTF-8) */
   readonly readFile: (path: string) => string;
+  /** read standard input to its end as UTF-8 text (the process's: bounded as a file; a terminal is refused); absent: no standard input */
+  readonly readStdin?: () => string;
   /** write a UTF-8 text file (the process's: atomically, through a temporary file renamed over it) */
   readonly writeFile: (path: string, text: string) => void;
   /** whether a path exists (commands refuse to overwrite without --force) */
@@ -66,6 +68,7 @@ export function processIo(): CliIo {
     out: (text) => process.stdout.write(text),
     err: (text) => process.stderr.write(text),
     readFile: readBoundedTextFile,
+    readStdin: readBoundedStdin,
     writeFile: writeFileAtomically,
     exists: (path) => existsSync(path),
     outputProblem: outputPathProblem,

@@ -52,6 +52,40 @@ export function readBoundedTextFile(path: string): string {
   }
 }
 
+/**
+ * Read standard input to its end as UTF-8 text, with the same bounds as a file: more than
+ * INPUT_LIMITS.maxInputMiB is refused naming the limit, bytes that are not UTF-8 with their
+ * line. A terminal is refused (a profile is piped or redirected, never typed), so a run never
+ * waits for input nobody gives. A non-blocking pipe that has no data yet is waited for.
+ * Cost O(size of the input).
+ * @throws Error with code EREFUSED (see fileErrorReason) or a system code
+ */
+export function readBoundedStdin(): string {
+  if (process.stdin.isTTY === true) throw refused("a terminal (pipe a profile in, or redirect a file with <)");
+  const maxBytes = inputLimit("maxInputMiB") * 1024 * 1024;
+  const chunks: Buffer[] = [];
+  let total = 0;
+  const chunk = Buffer.alloc(1 << 16);
+  for (;;) {
+    let n: number;
+    try {
+      n = readSync(0, chunk, 0, chunk.length, null);
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code === "EAGAIN") {
+        Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 5); // no data yet: wait 5 ms
+        continue;
+      }
+      if ((error as NodeJS.ErrnoException).code === "EOF") break;
+      throw error;
+    }
+    if (n === 0) break;
+    total += n;
+    if (total > maxBytes) throw refused(`more than ${limitWords("maxInputMiB", "MiB")}`);
+    chunks.push(Buffer.from(chunk.subarray(0, n)));
+  }
+  return decodeUtf8(Buffer.concat(chunks));
+}
+
 /** Decode UTF-8 strictly; name the line of the first malformed byte. */
 function decodeUtf8(bytes: Uint8Array): string {
   try {

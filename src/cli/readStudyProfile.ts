@@ -1,11 +1,9 @@
-import { dirname, isAbsolute, join } from "node:path";
 import { describeFound, inputError } from "../errors/InputError.js";
-import type { ReadNamedFile } from "../profile/ReadNamedFile.js";
 import { StudyProfile } from "../study/StudyProfile.js";
 import { STUDY_ANSWER_NAMES, type StudyAnswerName } from "../study/studyDefaults.js";
 import { nearestKey } from "../errors/nearestKey.js";
 import type { CliIo } from "./CliIo.js";
-import { readTextFile } from "./readInputFile.js";
+import { readProfileSource } from "./readProfileSource.js";
 
 /**
  * Read a duty profile for a study: as readProfileFile (the files it names are read relative to
@@ -13,10 +11,8 @@ import { readTextFile } from "./readInputFile.js";
  * @throws InputError for an unreadable or invalid profile, or a file it names
  */
 export function readStudyProfile(io: CliIo, file: string): StudyProfile {
-  const folder = dirname(file);
-  const located = (path: string): string => (isAbsolute(path) ? path : join(folder, path));
-  const readNamed: ReadNamedFile = Object.assign((path: string): string => readTextFile(io, located(path), "file named in the profile"), { displayName: located });
-  return new StudyProfile(readTextFile(io, file, "duty profile"), file, readNamed);
+  const source = readProfileSource(io, file);
+  return new StudyProfile(source.text, source.name, source.readNamed);
 }
 
 /**

@@ -4,6 +4,7 @@ import { type InputLimitName, inputLimit, limitWords } from "../format/inputLimi
 import { type Dimension, expectedWords } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parseQuantity.js";
 import { stressKeysSchema } from "../stress/stressKeysSchema.js";
+import { profileKeyMeta } from "./profileKeyMeta.js";
 
 /**
  * A quantity field: a number in SI or a unit string, parsed by parseQuantity into SI. A failure
@@ -29,7 +30,7 @@ function quantity(dimension: Dimension, check?: { min?: number; above?: number; 
       ctx.addIssue({ code: "custom", message: "quantity", params: { expected: problem?.expected ?? dimension, found: problem?.found ?? describe(value) } });
       return z.NEVER;
     }
-  });
+  }).register(profileKeyMeta, { kind: "quantity", dimension, words: check?.words ?? expectedWords(dimension) });
 }
 
 function describe(value: unknown): string {
@@ -46,7 +47,7 @@ function count(min: number, words: string, limit?: InputLimitName) {
       return z.NEVER;
     }
     return value;
-  });
+  }).register(profileKeyMeta, { kind: "count", words });
 }
 
 const positiveTime = (what: string) => quantity("time", { above: 0, words: `${what} > 0 such as "3 s"` });
@@ -352,7 +353,7 @@ function quantityRange(dimension: Dimension, check?: { min?: number; above?: num
       return z.NEVER;
     }
     return { low, high };
-  });
+  }).register(profileKeyMeta, { kind: "range", dimension, words: check?.words ?? expectedWords(dimension) });
 }
 
 /** The healthy systems a supervisor must let through: ranges of what varies between units and over life. */

@@ -4,6 +4,7 @@ import { fosterToModal } from "../thermal/fosterNetwork.js";
 import { logSpacedTimes, zth } from "../thermal/zth.js";
 import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
+import { wrapText } from "../text/cautions.js";
 
 /** Points of the fitted curve drawn in the chart (resampled to the width by lineChart). */
 const CURVE_POINTS = 400;
@@ -38,13 +39,16 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
         ? `1 stage (the most ${fit.pointCount} points allow)`
         : `${stages.length} stage${stages.length === 1 ? "" : "s"} chosen by ${fit.criterion.toUpperCase()} among 1 to ${fit.candidates.length} tried`;
   const out: string[] = [
-    `Foster network: ${how}; total Rth = ${formatNumber(total)} K/W`,
+    wrapText(`Foster network: ${how}; total Rth = ${formatNumber(total)} K/W`, width),
     formatTable(
       [{ heading: "stage" }, { heading: "R [K/W]", align: "right" }, { heading: "tau", align: "right" }, { heading: "C = tau/R [J/K]", align: "right" }],
       stages.map((s, i) => [String(i + 1), formatNumber(s.rKPerW), formatDuration(s.tauS), formatNumber(s.tauS / s.rKPerW)]),
     ),
-    `Fit against ${fit.pointCount} points from ${formatDuration(first)} to ${formatDuration(last)}: ` +
-      `max relative error ${percent(fit.errors.maxRelativeError)} (at ${formatDuration(fit.errors.worstTimeS)}), RMS ${percent(fit.errors.rmsRelativeError)}`,
+    wrapText(
+      `Fit against ${fit.pointCount} points from ${formatDuration(first)} to ${formatDuration(last)}: ` +
+        `max relative error ${percent(fit.errors.maxRelativeError)} (at ${formatDuration(fit.errors.worstTimeS)}), RMS ${percent(fit.errors.rmsRelativeError)}`,
+      width,
+    ),
   ];
   if (fit.candidates.length > 1) {
     const chosen = stages.length;

@@ -60,9 +60,10 @@ export function lockoutMapCsv(map: LockoutMap): string {
 }
 
 /**
- * The lockout map as a terminal heat map: one row per burst length (1 at the top), one column
- * per interval (two characters each), the interval axis labelled below, and a legend of the
- * symbols (LOCKOUT_MAP_SYMBOLS). Cost O(cells).
+ * The lockout map as a terminal heat map within `width` columns: one row per burst length (1 at
+ * the top), one column per interval (two characters each, or one when two do not fit; blocks of
+ * intervals one above the other when one does not), the interval axis labelled below, and a
+ * legend of the symbols (LOCKOUT_MAP_SYMBOLS). Cost O(cells).
  * @example
  * const scenario = {
  *   name: "short", model: fosterToModal({ kind: "foster", stages: [{ rKPerW: 0.5, tauS: 2 }] }),
@@ -72,30 +73,40 @@ export function lockoutMapCsv(map: LockoutMap): string {
  * };
  * lockoutMapHeatmap(lockoutMap([scenario], 3, [0.6, 2, 10])).split("\n").slice(1, 4) // => ["1 | ......", "2 | ==::..", "3 | !!::.."]
  */
-export function lockoutMapHeatmap(map: LockoutMap): string {
+export function lockoutMapHeatmap(map: LockoutMap, width = 100): string {
   const labelWidth = String(map.attempts[map.attempts.length - 1] ?? 1).length;
+  const room = Math.max(10, width - labelWidth - 3);
+  // two characters a cell when the whole map fits, else one; else blocks of intervals one above the other
+  const cellWidth = map.intervalsS.length * 2 <= room ? 2 : 1;
+  const perBlock = Math.max(1, Math.floor(room / cellWidth));
   const lines: string[] = [];
-  lines.push(`${"".padStart(labelWidth)}   interval (${map.spacing}) ->`);
-  map.cells.forEach((row, a) => {
-    const cells = row.map((c) => symbolOf(c).repeat(2)).join("");
-    lines.push(`${String(map.attempts[a]).padStart(labelWidth)} | ${cells}`);
-  });
-  const width = map.intervalsS.length * 2;
-  lines.push(`${"".padStart(labelWidth)} +-${"-".repeat(width)}`);
-  // Interval labels: place a label at a column when it fits after the previous one.
-  let axis = "";
-  let ticks = "";
-  map.intervalsS.forEach((t, i) => {
-    const at = i * 2;
-    const text = seconds(t);
-    if (at >= axis.length + (axis.length === 0 ? 0 : 1) && at + text.length <= width + 8) {
-      axis = axis.padEnd(at) + text;
-      ticks = ticks.padEnd(at) + "^";
-    }
-  });
-  lines.push(`${"".padStart(labelWidth)}   ${ticks}`);
-  lines.push(`${"".padStart(labelWidth)}   ${axis}  [s]`);
+  for (let from = 0; from < map.intervalsS.length; from += perBlock) {
+    const to = Math.min(map.intervalsS.length, from + perBlock);
+    if (from > 0) lines.push("");
+    lines.push(`${"".padStart(labelWidth)}   interval (${map.spacing}) ->${from === 0 && to === map.intervalsS.length ? "" : ` ${from + 1} to ${to} of ${map.intervalsS.length}`}`);
+    map.cells.forEach((row, a) => {
+      const cells = row
+        .slice(from, to)
+        .map((c) => symbolOf(c).repeat(cellWidth))
+        .join("");
+      lines.push(`${String(map.attempts[a]).padStart(labelWidth)} | ${cells}`);
+    });
+    lines.push(`${"".padStart(labelWidth)} +-${"-".repeat((to - from) * cellWidth)}`);
+    // Interval labels: place a label at a column when it fits after the previous one and the line ends within the width.
+    let axis = "";
+    let ticks = "";
+    map.intervalsS.slice(from, to).forEach((t, i) => {
+      const at = i * cellWidth;
+      const text = seconds(t);
+      if (at >= axis.length + (axis.length === 0 ? 0 : 1) && at + text.length <= room - 5) {
+        axis = axis.padEnd(at) + text;
+        ticks = ticks.padEnd(at) + "^";
+      }
+    });
+    lines.push(`${"".padStart(labelWidth)}   ${ticks}`);
+    lines.push(`${"".padStart(labelWidth)}   ${axis}  [s]`);
+  }
   lines.push("attempts in a burst down the side; each cell is the worst corner's highest temperature:");
-  for (const s of LOCKOUT_MAP_SYMBOLS) lines.push(`  ${s.symbol.repeat(2)}  ${s.status.padEnd(10)}  ${s.meaning}`);
+  for (const s of LOCKOUT_MAP_SYMBOLS) lines.push(`  ${s.symbol.repeat(cellWidth).padEnd(2)}  ${s.status.padEnd(10)}  ${s.meaning}`);
   return `${lines.join("\n")}\n`;
 }

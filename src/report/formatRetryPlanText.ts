@@ -131,7 +131,7 @@ export function formatRetryPlanText(report: RetryPlanReport, width = 100): strin
   out.push("");
 
   out.push(`6. Lockout map: the worst corner's peak for bursts of 1 to ${report.map.attempts.length} attempts at ${report.map.intervalsS.length} intervals.`);
-  out.push(lockoutMapHeatmap(report.map).trimEnd());
+  out.push(lockoutMapHeatmap(report.map, width).trimEnd());
   out.push("");
   out.push(formatCautions(setup.linearMosfet, width).trimEnd());
   return `${fitToWidth(out.join("\n"), width)}\n`;

@@ -1,7 +1,8 @@
 import type { SizingReport } from "../size/sizeProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
-import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
+import { formatDuration, formatNumber } from "../text/formatTable.js";
+import { fitTable } from "../text/fitTable.js";
 
 const grams = (kg: number | undefined): string => (kg === undefined ? "" : formatNumber(kg * 1000));
 
@@ -16,6 +17,8 @@ const grams = (kg: number | undefined): string => (kg === undefined ? "" : forma
  * formatSizingText(report).split("\n")[0] // => "heatledger size: 48 V warehouse robot drive, firmware retries into a shorted bus"
  */
 export function formatSizingText(report: SizingReport, width = 100): string {
+  /** a table within the width: split into parts that repeat the part column when it is wider */
+  const fitWidth = (columns: Parameters<typeof fitTable>[0], rows: Parameters<typeof fitTable>[1]): string => fitTable(columns, rows, { width }).text;
   const out: string[] = [];
   out.push(wrapText(`heatledger size: ${report.profileName}`, width), `profile ${report.file}`, "");
   const m = report.material;
@@ -44,7 +47,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
     ),
   );
   out.push(
-    formatTable(
+    fitWidth(
       [
         { heading: "part" },
         { heading: "target [°C]", align: "right" },
@@ -73,7 +76,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
   const answer = (p: SizingReport["parts"][number], text: () => string): string => (p.inversion.status === "sized" ? text() : p.inversion.status);
   out.push(
     whole
-      ? formatTable(
+      ? fitWidth(
           [
             { heading: "part" },
             { heading: "peak now [°C]", align: "right" },
@@ -84,7 +87,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
           ],
           report.parts.map((p) => [p.partId, formatNumber(p.presentPeakC), formatNumber(p.presentCapacityJPerK), answer(p, () => formatNumber(p.inversion.scale)), answer(p, () => formatNumber(p.inversion.capacityJPerK)), formatNumber(p.inversion.peakTemperatureC)]),
         )
-      : formatTable(
+      : fitWidth(
           [
             { heading: "part" },
             { heading: "peak now [°C]", align: "right" },
@@ -123,7 +126,7 @@ export function formatSizingText(report: SizingReport, width = 100): string {
   else {
     const unit = c.knob.unit === "ohm" ? "Ω" : c.knob.unit;
     out.push(
-      formatTable(
+      fitWidth(
         [
           { heading: "value" },
           { heading: `now [${unit}]`, align: "right" },

@@ -32,7 +32,7 @@ describe("heatledger network fit", () => {
     expect(r.out).toContain("Foster network: 4 stages chosen by BIC among 1 to 6 tried");
     expect(r.out).toMatch(/max relative error [0-9.]+ % \(at [^)]+\), RMS [0-9.]+ %/);
     expect(r.out).toContain("time axis: logarithmic");
-    expect(r.out).toContain("curve 2: fitted Foster network [K/W]");
+    expect(r.out).toContain("curve 2 (*): fitted Foster network [K/W]");
     expect(r.out).toContain("Network file (no --out given");
     expect(r.out).toContain("Caution: these results are only as good as the thermal network");
   });

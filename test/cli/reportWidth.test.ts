@@ -6,7 +6,7 @@ import { fitTable } from "../../src/internal.js";
 
 // Text reports fit their width: 100 columns when the output is not a terminal (a pipe, a file),
 // the terminal's otherwise, or --width N. Every command's text report on every bundled profile is
-// checked line by line at the piped width; the simulation and supervision reports also at 80.
+// checked line by line at the piped width, and every report that judges a part also at 80.
 
 /** Real files in, output collected, at the width a pipe gets. */
 function pipedIo(columns = reportColumns(undefined, undefined)): CliIo & { stdout: string[] } {
@@ -73,6 +73,9 @@ describe("every text report fits 100 columns when piped", () => {
   const narrow: [string, string[]][] = [
     ...bundled.map((f): [string, string[]] => [`simulate ${f}`, ["simulate", `profiles/${f}`]]),
     ...supervised.map((f): [string, string[]] => [`supervise ${f}`, ["supervise", `profiles/${f}`]]),
+    ...retried.map((f): [string, string[]] => [`retries ${f}`, ["retries", `profiles/${f}`]]),
+    ...bundled.map((f): [string, string[]] => [`size ${f}`, ["size", `profiles/${f}`]]),
+    ["network fit example-zth.csv", ["network", "fit", "profiles/networks/example-zth.csv"]],
     ["replay irrigation log", ["replay", "profiles/logs/irrigation-pump-returned-unit.csv", "--profile", "profiles/irrigation-pump-decade.yaml"]],
   ];
   test.each(narrow)("%s --width 80", { timeout: 120_000 }, async (_, args) => {

@@ -39,6 +39,28 @@ describe("lockoutMap", () => {
     expect(text).not.toContain("NaN");
   });
 
+  test("the heat map keeps within a narrow width: one character a cell, then blocks of intervals, every cell kept", () => {
+    const many = lockoutMap(corners, 5, Array.from({ length: 60 }, (_, i) => 0.3 * 10 ** (i / 20)));
+    const cellsOf = (text: string): Map<string, string> => {
+      const rows = new Map<string, string>();
+      for (const line of text.split("\n")) {
+        const m = /^\s*(\d+) \| (.*)$/.exec(line);
+        if (m !== null) rows.set(m[1]!, (rows.get(m[1]!) ?? "") + m[2]!);
+      }
+      return rows;
+    };
+    const wide = cellsOf(lockoutMapHeatmap(many, 400));
+    expect(wide.get("1")).toHaveLength(120);
+    // room for cells: the width less "5 | "; two characters a cell need 120, one 60
+    for (const [width, cellWidth, blocks] of [[130, 2, 1], [100, 1, 1], [64, 1, 1], [60, 1, 2], [40, 1, 2]] as const) {
+      const text = lockoutMapHeatmap(many, width);
+      for (const line of text.split("\n").filter((l) => /^\s*\d+ \| |\^|\[s\]|\+-/.test(l))) expect(line.length, line).toBeLessThanOrEqual(width);
+      expect(text.split("\n").filter((l) => l.startsWith("1 | "))).toHaveLength(blocks);
+      const narrow = cellsOf(text);
+      for (const [attempts, cells] of wide) expect(narrow.get(attempts)).toBe([...cells].filter((_, i) => i % 2 === 0).map((c) => c.repeat(cellWidth)).join(""));
+    }
+  });
+
   test("one word per status everywhere: the CSV's status words are the legend's, and the verdict words", () => {
     const statusColumn = 7;
     const used = new Set(lockoutMapCsv(map).trim().split("\n").slice(1).map((row) => row.split(",")[statusColumn]!));

@@ -15,7 +15,7 @@ export interface CompareFlags {
 export function registerCompare(program: Command, run: CliRun): void {
   program
     .command("compare")
-    .argument("<a>", "duty profile A (YAML or JSON)")
+    .argument("<a>", "duty profile A (YAML or JSON), or - for standard input")
     .argument("[b]", "duty profile B (default: A with the --set values)")
     .description("two designs side by side: peak, rise, margin, verdict, energy per event, damage, retry intervals and the differences")
     .option("--set <path=value>", "change a quantity of B (of A when B is not given); repeat", collect)

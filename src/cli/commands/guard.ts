@@ -39,7 +39,7 @@ export interface GuardFlags {
 export function registerGuard(program: Command, run: CliRun): void {
   const command = program
     .command("guard")
-    .argument("<profile>", "duty profile (YAML or JSON) with a retry block that meets a fault")
+    .argument("<profile>", "duty profile (YAML or JSON; - for standard input) with a retry block that meets a fault")
     .description("export a thermal guard the firmware runs: modal model at the tick, may-start rule, C source, test vectors")
     .addHelpText(
       "after",

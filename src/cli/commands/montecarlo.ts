@@ -23,7 +23,7 @@ export interface MonteCarloFlags {
 export function registerMonteCarlo(program: Command, run: CliRun): void {
   program
     .command("montecarlo")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("Monte Carlo over part tolerances: distribution of peak and margin, probability of crossing the limit, worst unit")
     .option("--vary <path=distribution>", 'a quantity and its spread: "normal 5 %", "normal 0.1 mF within 10 %", "uniform A..B", "tolerance 10 %" (repeat)', collect)
     .option("--samples <n>", `number of samples (default ${STUDY_DEFAULTS.samples})`)

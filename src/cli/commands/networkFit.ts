@@ -2,9 +2,10 @@ import type { Command } from "commander";
 import { FIT_DEFAULTS } from "../../thermal/fitDefaults.js";
 import type { CliRun } from "../main.js";
 import { type OutputFlags, addFitFlags, addOutputFlags } from "./networkBuildFlags.js";
+import { REPORT_OPTION, SVG_OPTION } from "./chartOptions.js";
 
 /** What the flags of `heatledger network fit` parse to (the fit flags are read by readFitFlags). */
-export type NetworkFitFlags = Record<string, unknown> & OutputFlags & { readonly timeUnit?: string; readonly zthUnit?: string };
+export type NetworkFitFlags = Record<string, unknown> & OutputFlags & { readonly timeUnit?: string; readonly zthUnit?: string; readonly report?: string; readonly svg?: string };
 
 /** `heatledger network fit POINTS.csv`: flags and help here; the run is loaded from networkFitAction.ts when it starts. */
 export function registerNetworkFit(network: Command, run: CliRun): void {
@@ -16,6 +17,7 @@ export function registerNetworkFit(network: Command, run: CliRun): void {
     .option("--zth-unit <unit>", "unit of the Zth column when the header has none (K/W)");
   addFitFlags(command);
   addOutputFlags(command);
+  command.option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: the points with the fitted curve, and the fit residuals (--force overwrites it)`).option(SVG_OPTION.flags, SVG_OPTION.help);
   command.addHelpText(
     "after",
     `
@@ -44,6 +46,6 @@ Examples:
   );
   command.action(async (file: string, options: NetworkFitFlags) => {
     const { networkFitAction } = await import("./networkFitAction.js");
-    networkFitAction(run, file, options);
+    await networkFitAction(run, file, options);
   });
 }

@@ -8,7 +8,7 @@ import { networkToDocument } from "../../thermal/formatNetworkFile.js";
 import type { CliIo } from "../CliIo.js";
 import { commandProgress } from "../commandProgress.js";
 import type { CliRun } from "../main.js";
-import { readTextFile } from "../readInputFile.js";
+import { readTextFile, refuseExistingOutput, refuseSharedOutputs } from "../readInputFile.js";
 import { emitNetwork } from "./emitNetwork.js";
 import { readFitFlags } from "./networkBuildFlags.js";
 import type { NetworkFitFlags } from "./networkFit.js";
@@ -59,10 +59,14 @@ export function fitJson(fit: FosterFit, source: string, written: string | null, 
 /**
  * The run of `heatledger network fit POINTS.csv` (flags and help are in networkFit.ts, which loads
  * this module, and with it the fitting libraries, only when the command runs): read the points,
- * fit a Foster network, print the report and write or print the network file.
- * @throws InputError for a bad points file, bad fit flags, or an --out file that exists without --force
+ * fit a Foster network, print the report and write or print the network file; with --report or
+ * --svg, the page of the fit's charts (fosterFitCharts: the points and the curve, the residuals).
+ * @throws InputError for a bad points file, bad fit flags, or an --out, --report or --svg file that exists without --force
  */
-export function networkFitAction(run: CliRun, file: string, options: NetworkFitFlags): void {
+export async function networkFitAction(run: CliRun, file: string, options: NetworkFitFlags): Promise<void> {
+  refuseSharedOutputs([["--out", options.out], ["--report", options.report], ["--svg", options.svg]]);
+  refuseExistingOutput(run.io, options.report, options.force === true, "--report");
+  refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
   const table = parseQuantityTable(
     readTextFile(run.io, file, "Zth points file"),
     [
@@ -78,5 +82,23 @@ export function networkFitAction(run: CliRun, file: string, options: NetworkFitF
     run.io.out(`${JSON.stringify(fitJson(fit, file, emitted.written, {}, options.name), null, 2)}\n`);
     return;
   }
-  run.io.out(`Fit of ${file} (${table.units[0]}, ${table.units[1]})\n${formatFosterFit(fit, points, Math.min(run.io.columns, 100))}\n${emitted.text}\n${formatCautions(false)}`);
+  const text = `Fit of ${file} (${table.units[0]}, ${table.units[1]})\n${formatFosterFit(fit, points, Math.min(run.io.columns, 100))}\n${emitted.text}\n`;
+  let chartNote = "";
+  if (options.report !== undefined || options.svg !== undefined) {
+    const [{ writeChartReport }, { fosterFitCharts }] = await Promise.all([import("../writeChartReport.js"), import("../../report/fosterFitCharts.js")]);
+    const quality = `max relative error ${Number((fit.errors.maxRelativeError * 100).toPrecision(2))} %, RMS ${Number((fit.errors.rmsRelativeError * 100).toPrecision(2))} % over ${fit.pointCount} points`;
+    chartNote = await writeChartReport(
+      run.io,
+      options,
+      {
+        title: `heatledger network fit: ${file}`,
+        verdict: fit.warnings.length > 0 ? "warn" : "pass",
+        verdictText: `Fit quality (not a judgement of the part): ${quality}${fit.warnings.length > 0 ? `; ${fit.warnings.join("; ")}` : ""}.`,
+        cautions: reportCautions(false),
+        text,
+      },
+      fosterFitCharts(fit, points),
+    );
+  }
+  run.io.out(`${text}${chartNote}${chartNote === "" ? "" : "\n"}${formatCautions(false, Math.min(run.io.columns, 100))}`);
 }

@@ -1,5 +1,6 @@
 import type { Command } from "commander";
 import { registerGuard } from "./guard.js";
+import { registerInit } from "./init.js";
 import { registerNetwork } from "./network.js";
 import { registerReplay } from "./replay.js";
 import { registerRetries } from "./retries.js";
@@ -23,4 +24,4 @@ import type { CliRun } from "../main.js";
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
 /** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerFleet, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare, registerStudy];
+export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerFleet, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare, registerStudy, registerInit];

@@ -7,7 +7,7 @@ import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
 /** Options of `heatledger replay`: one table drives the flags and their help. */
 export const REPLAY_OPTIONS = [
-  { flags: "--profile <file>", help: "duty profile (YAML or JSON) giving the parts, circuit and limits (required; its own events are ignored)" },
+  { flags: "--profile <file>", help: "duty profile (YAML or JSON; - for standard input) giving the parts, circuit and limits (required; its own events are ignored)" },
   { flags: "--json", help: "print one JSON object (verdict, parts, events, replay) instead of the text report" },
   CSV_OPTION,
   SAMPLE_STEP_OPTION,

@@ -32,7 +32,7 @@ const ms = (s: number): string => `${Number((s * 1000).toPrecision(6))} ms`;
 export function registerRetries(program: Command, run: CliRun): void {
   const command = program
     .command("retries")
-    .argument("<profile>", "duty profile (YAML or JSON) with a retry block that meets a fault")
+    .argument("<profile>", "duty profile (YAML or JSON; - for standard input) with a retry block that meets a fault")
     .description("plan retries into a fault: shortest safe interval, attempt count, retry-for-ever interval, fastest schedule, lockout, lockout map")
     .addHelpText(
       "after",

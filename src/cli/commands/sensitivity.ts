@@ -20,7 +20,7 @@ export interface SensitivityFlags {
 export function registerSensitivity(program: Command, run: CliRun): void {
   program
     .command("sensitivity")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("normalised sensitivities d ln(answer)/d ln(p) of the peak rise and the retry-for-ever interval, ranked (tornado)")
     .option("--vary <path>", "a quantity to study (repeat; default every quantity the profile's circuit writes)", collect)
     .option("--answer <names>", `answers, comma separated (default ${STUDY_DEFAULTS.sensitivityAnswers.join(",")}; forever only when the profile has a retry block with a fault)`)

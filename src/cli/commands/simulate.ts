@@ -62,7 +62,7 @@ export const SIMULATION_VERDICT_COVERS =
 export function registerSimulate(program: Command, run: CliRun): void {
   const command = program
     .command("simulate")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("run a duty profile: every part's temperature history, peaks, margins and a pass/warn/fail verdict")
     .addHelpText(
       "after",
@@ -70,9 +70,10 @@ export function registerSimulate(program: Command, run: CliRun): void {
 ${verdictHelp(SIMULATION_VERDICT_COVERS)}
 ${CORNERS_HELP}
 Example: heatledger simulate profiles/heat-pump-trip-retries.yaml --corners
-Network and CSV files named in the profile are read relative to the profile's folder. See
-docs/profile-format.md and docs/stress.md (shipped in the package); README, "Verdicts and
-exit status".`,
+Network and CSV files named in the profile are read relative to the profile's folder. Every
+key is in docs/profile-reference.md, the rules in docs/profile-format.md and docs/stress.md
+(shipped in the package: node_modules/heatledger/docs/); README, "Verdicts and exit status".
+\`heatledger init\` writes a starting profile.`,
     );
   for (const option of SIMULATE_OPTIONS) command.option(option.flags, option.help);
   command.action(async (file: string, options: SimulateFlags) => {

@@ -41,7 +41,7 @@ export interface SizeFlags {
 export function registerSize(program: Command, run: CliRun): void {
   const command = program
     .command("size")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("smallest heat capacity (or mass) per part, and the slowest charging element that still completes in time")
     .addHelpText(
       "after",

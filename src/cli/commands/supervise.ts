@@ -31,7 +31,7 @@ export interface SuperviseFlags {
 export function registerSupervise(program: Command, run: CliRun): void {
   const command = program
     .command("supervise")
-    .argument("<profile>", "duty profile (YAML or JSON) with a circuit and a supervision section")
+    .argument("<profile>", "duty profile (YAML or JSON; - for standard input) with a circuit and a supervision section")
     .description("pre-charge supervision numbers: timeout window, early-abort and rise-too-fast checks, attempts before lockout")
     .addHelpText(
       "after",

@@ -35,7 +35,7 @@ export interface SweepFlags {
 export function registerSweep(program: Command, run: CliRun): void {
   program
     .command("sweep")
-    .argument("<profile>", "duty profile (YAML or JSON)")
+    .argument("<profile>", "duty profile (YAML or JSON), or - for standard input")
     .description("sweep one or two quantities of a profile and tabulate the answers of simulate, retries, supervise or size")
     .option("--vary <path=values>", "a quantity and its values: PATH=v1,v2,... or PATH=A..B:N (linear) or PATH=A..B:N:log; once or twice (grid)", collect)
     .option("--answer <names>", `answers to report, comma separated (default ${STUDY_DEFAULTS.sweepAnswers.join(",")})`)
