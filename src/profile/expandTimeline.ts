@@ -9,6 +9,7 @@ import type { CircuitModels } from "./CircuitModels.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
+import { loadProblemsAt } from "./loadProblemsAt.js";
 
 /** The kinds of events a timeline holds. */
 export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
@@ -155,7 +156,9 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
 
   // tripAfterS: the system trips that long after the contactor closes on a completed charge (0:
   // at the moment it closes); undefined: no trip, the bus stays on
-  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined): TimelineEvent => {
+  // loadField: where the load's keys are written, so a circuit model's complaint about them names
+  // that key (undefined: the circuit's own load)
+  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined, loadField?: string): TimelineEvent => {
     const c = circuit!;
     const temps = temperatureOf();
     const partTemperatureC: Record<string, number> = {};
@@ -166,14 +169,19 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     const thermal = options.thermalOf?.();
-    const result = models.charge(c, load, {
-      sourceVoltageV: c.busVoltageV,
-      initialVoltageV: state.voltageV,
-      completion: c.completion,
-      partTemperatureC,
-      wantSamples,
-      ...(thermal === undefined ? {} : { thermal }),
-    });
+    let result: CircuitResult;
+    try {
+      result = models.charge(c, load, {
+        sourceVoltageV: c.busVoltageV,
+        initialVoltageV: state.voltageV,
+        completion: c.completion,
+        partTemperatureC,
+        wantSamples,
+        ...(thermal === undefined ? {} : { thermal }),
+      });
+    } catch (error) {
+      throw loadProblemsAt(error, loadField);
+    }
     const traces = noPower();
     const energyJ = energyOf(result);
     for (let i = 0; i < partCount; i++) {
@@ -244,10 +252,10 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const e = frame.events[frame.index++]!;
     switch (e.kind) {
       case "power-up":
-        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined);
+        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined, e.loadField);
         break;
       case "fault":
-        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.tripAfterS);
+        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.tripAfterS, e.fault.loadField);
         break;
       case "run":
         yield plain("run", e.field, e.label ?? "run", e.durationS);
@@ -280,7 +288,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
           const startS = state.timeS;
           const faulty = e.fault !== undefined && k <= e.faultyAttempts;
           const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
-          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.tripAfterS) : charge("power-up", e.field, label, circuit!.load, undefined);
+          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.tripAfterS, e.fault!.loadField) : charge("power-up", e.field, label, circuit!.load, undefined);
           yield event;
           if (event.outcome === "completed" && !(faulty && e.fault!.tripAfterS !== undefined)) {
             done = true;

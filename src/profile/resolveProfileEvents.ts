@@ -48,7 +48,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, f.load, join(field, "load"), busV);
-      return load === undefined ? undefined : { type: f.type, load };
+      return load === undefined ? undefined : { type: f.type, load, loadField: join(field, "load") };
     }
     case "converter-early": {
       forbid(["load", "after"]);
@@ -57,7 +57,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, { kind: "constant-power", power: f.power, enableAt: f.enableAt, disableAt: f.disableAt }, field, busV);
-      return load === undefined ? undefined : { type: f.type, load };
+      return load === undefined ? undefined : { type: f.type, load, loadField: field };
     }
     case "trip-after-close":
       forbid(["power", "enableAt", "disableAt"]);
@@ -65,7 +65,8 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         ctx.reader.fail("bad-profile", join(field, "after"), 'the time from contactor closing to the trip, such as "200 ms"', "nothing");
         return undefined;
       }
-      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), tripAfterS: f.after };
+      if (f.load === undefined) return { type: f.type, load: ctx.circuit?.load ?? NO_LOAD, tripAfterS: f.after };
+      return { type: f.type, load: resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD, loadField: join(field, "load"), tripAfterS: f.after };
   }
 }
 
@@ -80,7 +81,7 @@ export function resolveEvent(ctx: EventContext, e: EventInput, field: string): P
     needCircuit(ctx, at, "power-up");
     const v = e["power-up"];
     const load = v.load === undefined ? undefined : resolveLoad(ctx.reader, v.load, join(at, "load"), ctx.circuit?.busVoltageV ?? Infinity);
-    return { kind: "power-up", field: at, ...label(v), ...(load === undefined ? {} : { load }) };
+    return { kind: "power-up", field: at, ...label(v), ...(load === undefined ? {} : { load, loadField: join(at, "load") }) };
   }
   if ("fault" in e) {
     const at = join(field, "fault");

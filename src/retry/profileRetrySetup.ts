@@ -1,5 +1,6 @@
 import { inputLimit } from "../format/inputLimits.js";
-import type { ChargeConditions } from "../circuits/CircuitResult.js";
+import type { ChargeConditions, CircuitResult } from "../circuits/CircuitResult.js";
+import { loadProblemsAt } from "../profile/loadProblemsAt.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, FaultSpec, ProfileCircuit } from "../profile/DutyProfile.js";
@@ -124,7 +125,12 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
         const partTemperatureC: Record<string, number> = {};
         for (const h of heated) partTemperatureC[h.role!] = context.partTemperatureC;
         const conditions: ChargeConditions = { sourceVoltageV: c.busVoltageV, initialVoltageV: context.capacitorVoltageV, completion: c.completion, partTemperatureC };
-        const r = models.charge(c, fault.load, conditions);
+        let r: CircuitResult;
+        try {
+          r = models.charge(c, fault.load, conditions);
+        } catch (error) {
+          throw loadProblemsAt(error, fault.loadField);
+        }
         const completed = r.outcome === "completed";
         const durationS = r.durationS + (completed ? (fault.tripAfterS ?? 0) : 0);
         const own: PowerTrace = part.role === undefined ? [] : (r.traces[part.role] ?? []);

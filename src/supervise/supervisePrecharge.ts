@@ -1,4 +1,5 @@
 import { inputError } from "../errors/InputError.js";
+import { inProfileFile } from "../profile/inProfileFile.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../text/formatTable.js";
@@ -148,6 +149,11 @@ export interface SupervisionReport {
  * supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels).window.lowerS // => 0.5695
  */
 export function supervisePrecharge(profile: DutyProfile, models: CircuitModels): SupervisionReport {
+  // a problem found while the answers are computed (a circuit model refusing a load) names the profile
+  return inProfileFile(profile.file, () => superviseProfile(profile, models));
+}
+
+function superviseProfile(profile: DutyProfile, models: CircuitModels): SupervisionReport {
   const circuit = profile.circuit;
   if (circuit === undefined) throw inputError("bad-profile", "circuit", "a `circuit` section (the supervision answers are about its pre-charge)", "a profile without one");
   const spec: SupervisionSpec | undefined = profile.supervision;
