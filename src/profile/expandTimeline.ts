@@ -10,6 +10,7 @@ import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 import { loadProblemsAt } from "./loadProblemsAt.js";
+import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "./attemptTiming.js";
 
 /** The kinds of events a timeline holds. */
 export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
@@ -158,6 +159,8 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
   // at the moment it closes); undefined: no trip, the bus stays on
   // loadField: where the load's keys are written, so a circuit model's complaint about them names
   // that key (undefined: the circuit's own load)
+  const contactorOperateS = profile.timing?.contactorOperateS ?? 0;
+  const waitS = shortestAttemptWaitS(profile.timing ?? ATTEMPT_TIMING_DEFAULTS);
   const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined, loadField?: string): TimelineEvent => {
     const c = circuit!;
     const temps = temperatureOf();
@@ -196,10 +199,13 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.busOn = true;
       state.voltageV = c.busVoltageV;
       if (tripAfterS !== undefined) {
-        advance(tripAfterS, field);
-        durationS += tripAfterS;
+        // the contactor's contacts close its operate time after the charge completes; the trip
+        // counts from there
+        const closedAfterS = contactorOperateS + tripAfterS;
+        advance(closedAfterS, field);
+        durationS += closedAfterS;
         state.busOn = false;
-        reason = `${reason}; the system tripped ${tripAfterS} s after the contactor closed`;
+        reason = `${reason}; the system tripped ${tripAfterS} s after the contactor closed${contactorOperateS > 0 ? ` (its operate time ${contactorOperateS} s later)` : ""}`;
       }
     } else {
       state.busOn = false;
@@ -296,6 +302,15 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
           }
           if (k < e.attempts) {
             const rest = startS + interval - state.timeS;
+            // the interval (start to start) must hold this attempt as it ran (protection may have
+            // ended it before its timeout) and the switches' dead time
+            if (rest < waitS - 1e-9 * Math.max(1, interval))
+              throw inputError(
+                "out-of-range",
+                `${e.field}.interval`,
+                `an interval (start to start) at least as long as attempt ${k} lasted plus the relay's and contactor's dead time (${Number((state.timeS - startS + waitS).toPrecision(9))} s: ${Number((state.timeS - startS).toPrecision(9))} s, ${event.reason}, and ${Number(waitS.toPrecision(9))} s)`,
+                `${interval} s`,
+              );
             if (rest > 0) yield gap(rest, e.field);
             interval = Math.min(interval * e.backoff, e.maxIntervalS);
           }

@@ -132,7 +132,9 @@ export function profileRetrySetup(profile: DutyProfile, models: CircuitModels): 
           throw loadProblemsAt(error, fault.loadField);
         }
         const completed = r.outcome === "completed";
-        const durationS = r.durationS + (completed ? (fault.tripAfterS ?? 0) : 0);
+        // a charge that completes and then trips lasts until the trip, counted from the contactor's
+        // contacts closing (its operate time after the completion)
+        const durationS = r.durationS + (completed && fault.tripAfterS !== undefined ? (timing.contactorOperateS ?? 0) + fault.tripAfterS : 0);
         const own: PowerTrace = part.role === undefined ? [] : (r.traces[part.role] ?? []);
         const otherTraces: Record<string, PowerTrace> = {};
         for (const h of sameNetwork) {

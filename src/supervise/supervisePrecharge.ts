@@ -218,7 +218,7 @@ function superviseProfile(profile: DutyProfile, models: CircuitModels): Supervis
   const recommendedAbort = aborts.filter((c) => c.usable).reduce<AbortCheck | null>((best, c) => (best === null || c.shortEnergyJ < best.shortEnergyJ ? c : best), null);
   const rises = riseChecks(buses, riseTimes, marginFraction, floorV, spec.busVoltageV.low);
   const recommendedRise = rises.find((c) => c.usable) ?? null;
-  const protection = superviseProtection(profile, models, heated, busEnds, recommendedAbort, recommendedRise);
+  const protection = superviseProtection(profile, models, heated, busEnds, recommendedAbort, recommendedRise, { buses, marginFraction, startVoltageV: spec.startVoltageV, horizonS });
 
   // 3. retry storms at the profile's timeout, through the retry planner
   const stormScenarios = heated.flatMap((part) => busEnds.map((v) => shortedScenario(profile, part, v, timeoutS, models)));

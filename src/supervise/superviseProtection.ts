@@ -6,6 +6,8 @@ import { type ForeverIntervalAnswer, minForeverInterval } from "../retry/minFore
 import type { RetryScenario } from "../retry/RetryScenario.js";
 import type { AbortCheck, RiseCheck } from "./superviseChecks.js";
 import { shortedScenario } from "./superviseShortScenario.js";
+import type { HealthyBus } from "./superviseHealthyBus.js";
+import { type LimitRecommendation, superviseLimits } from "./superviseLimits.js";
 
 /** What one recommended check lets through, and how close healthy charges come to it. */
 export interface CheckExposure {
@@ -18,7 +20,8 @@ export interface CheckExposure {
   /**
    * the weakest resistive fault across the bus that the check still catches (the bus exactly at the
    * threshold at the check time), the energy it puts into the part before the check fires, and what
-   * a fault a hair weaker puts in until the timeout (the check cannot see it); null for a rise check
+   * a fault a hair weaker puts in until the timeout or a recommended limit (I²t, on-time) ends it
+   * (the check cannot see it); null for a rise check
    * or when no resistive fault holds the bus at the threshold
    */
   readonly partialFault: { readonly resistanceOhm: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
@@ -30,12 +33,24 @@ export interface CheckExposure {
 
 /** The recommended checks as profile protection, what they let through, and the retry-for-ever interval they buy. */
 export interface ProtectedSupervision {
-  /** the checks as `circuit.protection` would hold them (what `supervise --checks` writes) */
+  /** the checks and limits as `circuit.protection` would hold them (what `supervise --checks` writes) */
   readonly protection: AttemptProtection;
   readonly checks: readonly CheckExposure[];
-  /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the checks */
+  /** the firmware I²t limit and the maximum on-time, each when it helps (superviseLimits) */
+  readonly limits: readonly LimitRecommendation[];
+  /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the whole protection */
   readonly foreverWithout: ForeverIntervalAnswer;
   readonly foreverWith: ForeverIntervalAnswer;
+  /** the same with the limits alone (no bus checks: firmware that cannot measure the bus); null without limits */
+  readonly foreverWithLimits: ForeverIntervalAnswer | null;
+}
+
+/** What superviseProtection needs of the healthy corners to recommend limits beside the checks. */
+export interface HealthyCharges {
+  readonly buses: readonly HealthyBus[];
+  readonly marginFraction: number;
+  readonly startVoltageV: number;
+  readonly horizonS: number;
 }
 
 /** Significant digits of a threshold written into the profile fragment. */
@@ -64,7 +79,10 @@ const FAULT_BISECTION_STEPS = 60;
  * bisection on log R of the bus voltage at the check time, which rises with R), the healthy
  * margin, and the shortest interval for retrying for ever into a short (minForeverInterval on the
  * shorted scenarios at both bus-voltage ends) at the profile's timeout without and with the checks.
- * Cost: 2 × 60 circuit runs per check for the partial fault, plus two retry-for-ever scans.
+ * Beside the checks, the limits of superviseLimits (a firmware I²t limit, a maximum on-time) join
+ * the same protection when they help, and the interval with the limits alone is answered too.
+ * Cost: 2 × 60 circuit runs per check for the partial fault, about 60 per healthy corner for the
+ * I²t, plus three retry-for-ever scans.
  */
 export function superviseProtection(
   profile: DutyProfile,
@@ -73,17 +91,25 @@ export function superviseProtection(
   busEnds: readonly number[],
   abort: AbortCheck | null,
   rise: RiseCheck | null,
+  healthy: HealthyCharges,
 ): ProtectedSupervision | null {
-  if (abort === null && rise === null) return null;
   const circuit = profile.circuit!;
   const timeoutS = circuit.completion.timeoutS;
+  const primary = heated[0]!;
+  const highV = Math.max(...busEnds);
+  const limits = superviseLimits(profile, models, primary.role!, healthy.buses, highV, healthy.marginFraction, healthy.startVoltageV, healthy.horizonS);
+  if (abort === null && rise === null && limits.length === 0) return null;
   const busChecks = [
     ...(abort === null ? [] : [{ atS: abort.timeS, minV: roundSignificant(abort.thresholdV, false) }]),
     ...(rise === null ? [] : [{ atS: rise.timeS, maxV: roundSignificant(rise.thresholdV, true) }]),
   ];
-  const protection: AttemptProtection = { busChecks };
-  const primary = heated[0]!;
-  const highV = Math.max(...busEnds);
+  const i2t = limits.find((l) => l.kind === "firmware-i2t");
+  const onTime = limits.find((l) => l.kind === "max-on-time");
+  const limitProtection: AttemptProtection = {
+    ...(i2t === undefined ? {} : { i2t: [{ limitA2s: i2t.value, kind: "firmware" as const }] }),
+    ...(onTime === undefined ? {} : { maxOnTimeS: onTime.value }),
+  };
+  const protection: AttemptProtection = { ...(busChecks.length === 0 ? {} : { busChecks }), ...limitProtection };
   const checks: CheckExposure[] = [];
   if (abort !== null) {
     const thresholdV = busChecks[0]!.minV!;
@@ -92,7 +118,7 @@ export function superviseProtection(
       timeS: abort.timeS,
       thresholdV,
       shortEnergyJ: abort.shortEnergyJ,
-      partialFault: weakestCaughtFault(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS),
+      partialFault: weakestCaughtFault(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS, limitProtection),
       healthyMarginV: abort.lowestHealthyV - thresholdV,
       healthyMarginFraction: (abort.lowestHealthyV - thresholdV) / abort.lowestHealthyV,
       healthyCorner: abort.slowestCorner,
@@ -117,21 +143,24 @@ export function superviseProtection(
   return {
     protection,
     checks,
+    limits,
     foreverWithout: minForeverInterval(scenarios(), options),
     foreverWith: minForeverInterval(scenarios(protection), options),
+    foreverWithLimits: limits.length === 0 ? null : minForeverInterval(scenarios(limitProtection), options),
   };
 }
 
 /**
  * The weakest resistive fault the early-abort check catches at the highest bus voltage: the fault
  * resistance that holds the bus exactly at the threshold at the check time, the part's energy
- * until then, and until the timeout (a fault a hair weaker runs that long). Null when even the
+ * until then, and until the timeout or a recommended limit ends it (a fault a hair weaker runs
+ * that long: the check cannot see it). Null when even the
  * strongest fault tried (1 µΩ) leaves the bus above the threshold, or the weakest (1 GΩ) below it.
  */
-function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number) {
+function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
   const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
-  const run = (ohm: number, untilS: number) =>
-    models.charge(circuit, { kind: "resistive", resistanceOhm: ohm }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS } });
+  const run = (ohm: number, untilS: number, protection?: AttemptProtection) =>
+    models.charge(circuit, { kind: "resistive", resistanceOhm: ohm }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS, ...(protection === undefined ? {} : { protection }) } });
   let lo = Math.log(1e-6);
   let hi = Math.log(1e9);
   if (!(run(Math.exp(lo), timeS).endVoltageV < thresholdV) || !(run(Math.exp(hi), timeS).endVoltageV >= thresholdV)) return null;
@@ -142,5 +171,5 @@ function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: P
   }
   const ohm = Math.exp(lo);
   const role = part.role!;
-  return { resistanceOhm: ohm, energyBeforeFiringJ: run(ohm, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(ohm, timeoutS).energy.partsJ[role] ?? 0 };
+  return { resistanceOhm: ohm, energyBeforeFiringJ: run(ohm, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(ohm, timeoutS, limits).energy.partsJ[role] ?? 0 };
 }
