@@ -22,7 +22,12 @@ export function formatProtectedSupervision(p: ProtectedSupervision, width: numbe
     if (c.partialFault !== null)
       parts.push(
         `The weakest fault it catches is ${formatNumber(c.partialFault.resistanceOhm, 3)} ohm across the bus: ${formatNumber(c.partialFault.energyBeforeFiringJ, 3)} J before it fires;` +
-          ` a weaker fault runs to the timeout: ${formatNumber(c.partialFault.missedEnergyJ, 3)} J.`,
+          ` a weaker fault runs until the timeout or a limit ends it: ${formatNumber(c.partialFault.missedEnergyJ, 3)} J.`,
+      );
+    if (c.currentFault !== null)
+      parts.push(
+        `The smallest constant current it catches is ${formatNumber(c.currentFault.currentA, 3)} A: ${formatNumber(c.currentFault.energyBeforeFiringJ, 3)} J before it fires;` +
+          ` a smaller one: ${formatNumber(c.currentFault.missedEnergyJ, 3)} J.`,
       );
     parts.push(`Healthy margin: ${formatNumber(c.healthyMarginV, 3)} V (${formatNumber(c.healthyMarginFraction * 100, 3)} %) from corner ${c.healthyCorner}.`);
     out.push(wrapText(parts.join(" "), width));

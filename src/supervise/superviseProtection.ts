@@ -1,4 +1,6 @@
 import type { AttemptProtection } from "../circuits/AttemptProtection.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { CircuitResult } from "../circuits/CircuitResult.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../profile/attemptTiming.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
@@ -25,6 +27,11 @@ export interface CheckExposure {
    * or when no resistive fault holds the bus at the threshold
    */
   readonly partialFault: { readonly resistanceOhm: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
+  /**
+   * the same for a fault that draws a constant current from the bus (always on): the smallest
+   * current the check still catches; null for a rise check or when none is in reach
+   */
+  readonly currentFault: { readonly currentA: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
   /** closest healthy corner's distance from the threshold [V], as a fraction of its voltage, and the corner */
   readonly healthyMarginV: number;
   readonly healthyMarginFraction: number;
@@ -118,7 +125,7 @@ export function superviseProtection(
       timeS: abort.timeS,
       thresholdV,
       shortEnergyJ: abort.shortEnergyJ,
-      partialFault: weakestCaughtFault(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS, limitProtection),
+      ...weakestCaughtFaults(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS, limitProtection),
       healthyMarginV: abort.lowestHealthyV - thresholdV,
       healthyMarginFraction: (abort.lowestHealthyV - thresholdV) / abort.lowestHealthyV,
       healthyCorner: abort.slowestCorner,
@@ -132,6 +139,7 @@ export function superviseProtection(
       thresholdV,
       shortEnergyJ: null,
       partialFault: null,
+      currentFault: null,
       healthyMarginV: thresholdV - rise.highestHealthyV,
       healthyMarginFraction: (thresholdV - rise.highestHealthyV) / thresholdV,
       healthyCorner: rise.fastestCorner,
@@ -150,26 +158,58 @@ export function superviseProtection(
   };
 }
 
+/** What a fault of one family does at one strength: the part's energy until a time, the bus voltage then. */
+type FaultRun = (strength: number, untilS: number, protection?: AttemptProtection) => CircuitResult;
+
 /**
- * The weakest resistive fault the early-abort check catches at the highest bus voltage: the fault
- * resistance that holds the bus exactly at the threshold at the check time, the part's energy
- * until then, and until the timeout or a recommended limit ends it (a fault a hair weaker runs
- * that long: the check cannot see it). Null when even the
- * strongest fault tried (1 µΩ) leaves the bus above the threshold, or the weakest (1 GΩ) below it.
+ * The weakest fault of a one-parameter family that the early-abort check catches at the highest
+ * bus voltage: the strength that holds the bus exactly at the threshold at the check time (the bus
+ * voltage then is monotone in the strength: a smaller resistance or a larger current pulls it
+ * lower), found by bisection on the log of the strength between `strong` (caught) and `weak` (not
+ * caught); the part's energy until the check fires, and until the timeout or a recommended limit
+ * ends it (a fault a hair weaker runs that long: the check cannot see it). Null when even the
+ * strong end leaves the bus above the threshold, or the weak end below it.
  */
-function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
-  const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
-  const run = (ohm: number, untilS: number, protection?: AttemptProtection) =>
-    models.charge(circuit, { kind: "resistive", resistanceOhm: ohm }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS, ...(protection === undefined ? {} : { protection }) } });
-  let lo = Math.log(1e-6);
-  let hi = Math.log(1e9);
-  if (!(run(Math.exp(lo), timeS).endVoltageV < thresholdV) || !(run(Math.exp(hi), timeS).endVoltageV >= thresholdV)) return null;
+function weakestCaught(run: FaultRun, role: string, strong: number, weak: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
+  const caught = (x: number): boolean => run(x, timeS).endVoltageV < thresholdV;
+  let lo = Math.log(strong);
+  let hi = Math.log(weak);
+  if (!caught(strong) || caught(weak)) return null;
   for (let n = 0; n < FAULT_BISECTION_STEPS; n++) {
     const mid = 0.5 * (lo + hi);
-    if (run(Math.exp(mid), timeS).endVoltageV < thresholdV) lo = mid;
+    if (caught(Math.exp(mid))) lo = mid;
     else hi = mid;
   }
-  const ohm = Math.exp(lo);
+  const x = Math.exp(lo);
+  return { strength: x, energyBeforeFiringJ: run(x, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(x, timeoutS, limits).energy.partsJ[role] ?? 0 };
+}
+
+/**
+ * The weakest resistive fault (1 µΩ to 1 GΩ) and the weakest constant-current fault (always on;
+ * from the current that holds the bus at 0 V, Vs over the circuit's resistance, down to 1e-9 of it)
+ * the early-abort check catches. A constant-power fault is not searched: it switches on only at its
+ * enable voltage, so whether a check sees it depends on that voltage (below the threshold: caught
+ * like an overload; above it: never, the bus passes the threshold first) rather than on its power,
+ * and there is no single weakest one (docs/planners.md, "Supervision answers").
+ */
+function weakestCaughtFaults(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
+  const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
+  const runWith =
+    (load: (x: number) => BusLoad): FaultRun =>
+    (x, untilS, protection) =>
+      models.charge(circuit, load(x), { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS, ...(protection === undefined ? {} : { protection }) } });
   const role = part.role!;
-  return { resistanceOhm: ohm, energyBeforeFiringJ: run(ohm, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(ohm, timeoutS, limits).energy.partsJ[role] ?? 0 };
+  const resistive = weakestCaught(runWith((ohm) => ({ kind: "resistive", resistanceOhm: ohm })), role, 1e-6, 1e9, timeS, thresholdV, timeoutS, limits);
+  // the largest current the source can push into a bus at 0 V: the short-circuit current of the
+  // path, found from the shorted run's energy balance (source energy / (Vs · t))
+  const short = models.charge(circuit, { kind: "short" }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: timeS, timeoutS: timeS } });
+  const shortCurrentA = short.energy.sourceJ / (busV * timeS);
+  const current =
+    shortCurrentA > 0 && Number.isFinite(shortCurrentA)
+      ? weakestCaught(runWith((a) => ({ kind: "constant-current", currentA: a })), role, shortCurrentA, 1e-9 * shortCurrentA, timeS, thresholdV, timeoutS, limits)
+      : null;
+  return {
+    partialFault: resistive === null ? null : { resistanceOhm: resistive.strength, energyBeforeFiringJ: resistive.energyBeforeFiringJ, missedEnergyJ: resistive.missedEnergyJ },
+    currentFault: current === null ? null : { currentA: current.strength, energyBeforeFiringJ: current.energyBeforeFiringJ, missedEnergyJ: current.missedEnergyJ },
+  };
 }

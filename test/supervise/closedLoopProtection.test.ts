@@ -59,12 +59,26 @@ describe("supervise --checks: the fragment pasted into the profile gives the pro
     const [abort, rise] = reportOf().protection!.checks;
     expect(abort!.kind).toBe("early-abort");
     // the weakest fault it catches takes no more than a hard short before the check fires (the
-    // resistor's power (Vs − V)²·R/Rt² falls as the bus rises), and what it misses runs to the timeout
+    // resistor's power (Vs − V)²·R/Rt² falls as the bus rises), and what it misses runs until the timeout or a recommended limit
     expect(abort!.partialFault!.energyBeforeFiringJ).toBeLessThanOrEqual(abort!.shortEnergyJ!);
     expect(abort!.partialFault!.missedEnergyJ).toBeGreaterThan(abort!.shortEnergyJ!);
     expect(abort!.healthyMarginFraction).toBeGreaterThanOrEqual(0.2 - 1e-12);
     expect(rise!.healthyMarginV).toBeGreaterThan(0);
   });
+});
+
+test("the smallest constant-current fault the early abort catches, against the RC closed form", () => {
+  // An always-on load of I across the bus: by superposition the bus follows
+  // V(t) = (Vs − I·Rt)·(1 − e^(−t/(Rt·C))) (driven RC circuit, Hayt, Kemmerly & Durbin, Engineering
+  // Circuit Analysis, 8th ed. (2012), §8.8), so the check (V < Vthr at t) catches I above
+  // (Vs − Vthr/(1 − e^(−t/(Rt·C))))/Rt, solved by hand.
+  const abort = reportOf().protection!.checks[0]!;
+  const rt = 47 + 0.08;
+  const rise = 1 - Math.exp(-abort.timeS / (rt * 3.3e-3));
+  const expectedA = (reportOf().shortBusVoltageV - abort.thresholdV / rise) / rt;
+  expect(abort.currentFault!.currentA).toBeCloseTo(expectedA, 9);
+  // a current the check misses runs until a limit ends it: more energy than the caught one gets
+  expect(abort.currentFault!.missedEnergyJ).toBeGreaterThan(abort.currentFault!.energyBeforeFiringJ);
 });
 
 describe("supervise --checks: the firmware I²t limit and the maximum on-time", () => {
