@@ -71,6 +71,7 @@ export { profileSchema, partSchema, circuitSchema, loadSchema, supervisionSchema
 export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile, QuantityRange, SupervisionSpec } from "./profile/DutyProfile.js";
 export { resolveSupervision } from "./profile/resolveSupervision.js";
 export { shortestAttemptWaitS } from "./profile/attemptTiming.js";
+export { loadProblemsAt, circuitLoadField, CIRCUIT_LOAD_FIELD } from "./profile/loadProblemsAt.js";
 export { expandedEventBound } from "./profile/loadProfile.js";
 export type { ReadNamedFile } from "./profile/ReadNamedFile.js";
 export { powerTracePoints, pointsToSegments } from "./profile/powerTracePoints.js";
@@ -142,7 +143,9 @@ export { runGuardBurst } from "./guard/runGuardBurst.js";
 export type { GuardBurst, GuardBurstOptions, GuardAttempt, GuardVectorStep } from "./guard/runGuardBurst.js";
 export { GUARD_CAUTION } from "./text/guardCaution.js";
 export { superviseProtection, CHECK_THRESHOLD_DIGITS } from "./supervise/superviseProtection.js";
-export type { ProtectedSupervision, CheckExposure } from "./supervise/superviseProtection.js";
+export type { ProtectedSupervision, CheckExposure, HealthyCharges } from "./supervise/superviseProtection.js";
+export { superviseLimits, healthyChargeI2t, roundLimitUp } from "./supervise/superviseLimits.js";
+export type { LimitRecommendation } from "./supervise/superviseLimits.js";
 export { protectionFragment } from "./report/protectionFragment.js";
 export { contactorClosing } from "./circuits/contactorClosing.js";
 export type { ContactorSpec, ContactorClosing } from "./circuits/contactorClosing.js";

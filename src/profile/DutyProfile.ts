@@ -89,6 +89,8 @@ export interface FaultSpec {
   readonly type: "shorted-output" | "overloaded-bus" | "converter-early" | "trip-after-close";
   /** the load the bus presents during the attempt */
   readonly load: BusLoad;
+  /** the profile path where the load's keys are written (for messages); undefined: `circuit.load` */
+  readonly loadField?: string;
   /**
    * time from the contactor closing to the trip [s] (trip-after-close; 0 is a trip at the moment
    * the contactor closes); undefined: the fault does not trip the system, the bus stays on
@@ -98,7 +100,7 @@ export interface FaultSpec {
 
 /** One event of a profile, resolved to SI, with its field path for messages. */
 export type ProfileEvent = { readonly field: string; readonly label?: string } & (
-  | { readonly kind: "power-up"; readonly load?: BusLoad }
+  | { readonly kind: "power-up"; readonly load?: BusLoad; readonly loadField?: string }
   | { readonly kind: "fault"; readonly fault: FaultSpec }
   | { readonly kind: "run" | "wait" | "lockout"; readonly durationS: number }
   | { readonly kind: "power-down"; readonly offS: number }

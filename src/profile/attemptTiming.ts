@@ -10,6 +10,18 @@ export interface AttemptTiming {
   readonly releaseS: number;
   /** the firmware timer's resolution: every wait, interval and lockout it times is a whole number of these [s]; 0: no rounding */
   readonly timerResolutionS: number;
+  /**
+   * the main contactor's operate time (`circuit.contactor.operate`): from the command to close it
+   * after a completed charge to its contacts closing; an attempt that completes and then trips
+   * lasts this much longer [s]; undefined: 0
+   */
+  readonly contactorOperateS?: number;
+  /**
+   * the main contactor's release time (`circuit.contactor.release`): the next attempt may not
+   * start before the contactor is open, or the pre-charge element would be bypassed [s];
+   * undefined: 0
+   */
+  readonly contactorReleaseS?: number;
 }
 
 /**
@@ -23,11 +35,14 @@ export interface AttemptTiming {
 export const ATTEMPT_TIMING_DEFAULTS: AttemptTiming = Object.freeze({ operateS: 0.02, releaseS: 0.01, timerResolutionS: 0.001 });
 
 /**
- * The shortest time from the end of one attempt to the start of the next that the relay allows:
- * it must open (release time) and close again (operate time). Attempts are counted from contact
- * closing to contact opening, so this is dead time between them.
- * Source: the relay's two switching times added (common practice). Cost O(1).
+ * The shortest time from the end of one attempt to the start of the next that the switches allow:
+ * the pre-charge relay must open (release time) and close again (operate time), and the main
+ * contactor, commanded open with it, must be open before the relay closes again (a closed
+ * contactor would bypass the pre-charge element): max(relay release, contactor release) + relay
+ * operate. Attempts are counted from contact closing to contact opening, so this is dead time
+ * between them.
+ * Source: the switching times added along the sequence (common practice). Cost O(1).
  */
 export function shortestAttemptWaitS(timing: AttemptTiming): number {
-  return timing.releaseS + timing.operateS;
+  return Math.max(timing.releaseS, timing.contactorReleaseS ?? 0) + timing.operateS;
 }

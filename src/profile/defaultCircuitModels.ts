@@ -4,14 +4,25 @@ import { chargeSeriesResistor } from "../circuits/chargeSeriesResistor.js";
 import { dischargeVoltage } from "../circuits/dischargeVoltage.js";
 import { InputError } from "../errors/InputError.js";
 import type { CircuitModels } from "./CircuitModels.js";
+import { circuitLoadField } from "./loadProblemsAt.js";
 
-/** Prefix circuit-model problems with the profile section their values came from. */
+/**
+ * Prefix circuit-model problems with the profile section their values came from: a load value
+ * goes to its profile key under `circuit.load` (the event that brought its own load moves it on,
+ * loadProblemsAt), anything else to `circuit`, naming the model's value.
+ */
 function inCircuit<T>(compute: () => T): T {
   try {
     return compute();
   } catch (error) {
     if (error instanceof InputError)
-      throw new InputError(error.problems.map((p) => ({ ...p, field: "circuit", expected: p.field === "" ? p.expected : `${p.expected} (circuit model value ${p.field})` })));
+      throw new InputError(
+        error.problems.map((p) => {
+          const load = circuitLoadField(p.field);
+          if (load !== undefined) return { ...p, field: load };
+          return { ...p, field: "circuit", expected: p.field === "" ? p.expected : `${p.expected} (circuit model value ${p.field})` };
+        }),
+      );
     throw error;
   }
 }

@@ -9,6 +9,8 @@ import type { CircuitModels } from "./CircuitModels.js";
 import type { BusLoad } from "../circuits/BusLoad.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "./DutyProfile.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
+import { loadProblemsAt } from "./loadProblemsAt.js";
+import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "./attemptTiming.js";
 
 /** The kinds of events a timeline holds. */
 export type TimelineKind = "power-up" | FaultSpec["type"] | "run" | "wait" | "power-down" | "lockout" | "power-trace";
@@ -155,7 +157,11 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
 
   // tripAfterS: the system trips that long after the contactor closes on a completed charge (0:
   // at the moment it closes); undefined: no trip, the bus stays on
-  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined): TimelineEvent => {
+  // loadField: where the load's keys are written, so a circuit model's complaint about them names
+  // that key (undefined: the circuit's own load)
+  const contactorOperateS = profile.timing?.contactorOperateS ?? 0;
+  const waitS = shortestAttemptWaitS(profile.timing ?? ATTEMPT_TIMING_DEFAULTS);
+  const charge = (kind: TimelineKind, field: string, label: string, load: BusLoad, tripAfterS: number | undefined, loadField?: string): TimelineEvent => {
     const c = circuit!;
     const temps = temperatureOf();
     const partTemperatureC: Record<string, number> = {};
@@ -166,14 +172,19 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const startS = state.timeS;
     const startVoltageV = state.voltageV;
     const thermal = options.thermalOf?.();
-    const result = models.charge(c, load, {
-      sourceVoltageV: c.busVoltageV,
-      initialVoltageV: state.voltageV,
-      completion: c.completion,
-      partTemperatureC,
-      wantSamples,
-      ...(thermal === undefined ? {} : { thermal }),
-    });
+    let result: CircuitResult;
+    try {
+      result = models.charge(c, load, {
+        sourceVoltageV: c.busVoltageV,
+        initialVoltageV: state.voltageV,
+        completion: c.completion,
+        partTemperatureC,
+        wantSamples,
+        ...(thermal === undefined ? {} : { thermal }),
+      });
+    } catch (error) {
+      throw loadProblemsAt(error, loadField);
+    }
     const traces = noPower();
     const energyJ = energyOf(result);
     for (let i = 0; i < partCount; i++) {
@@ -188,10 +199,13 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       state.busOn = true;
       state.voltageV = c.busVoltageV;
       if (tripAfterS !== undefined) {
-        advance(tripAfterS, field);
-        durationS += tripAfterS;
+        // the contactor's contacts close its operate time after the charge completes; the trip
+        // counts from there
+        const closedAfterS = contactorOperateS + tripAfterS;
+        advance(closedAfterS, field);
+        durationS += closedAfterS;
         state.busOn = false;
-        reason = `${reason}; the system tripped ${tripAfterS} s after the contactor closed`;
+        reason = `${reason}; the system tripped ${tripAfterS} s after the contactor closed${contactorOperateS > 0 ? ` (its operate time ${contactorOperateS} s later)` : ""}`;
       }
     } else {
       state.busOn = false;
@@ -244,10 +258,10 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
     const e = frame.events[frame.index++]!;
     switch (e.kind) {
       case "power-up":
-        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined);
+        yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined, e.loadField);
         break;
       case "fault":
-        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.tripAfterS);
+        yield charge(e.fault.type, e.field, e.label ?? `fault: ${e.fault.type}`, e.fault.load, e.fault.tripAfterS, e.fault.loadField);
         break;
       case "run":
         yield plain("run", e.field, e.label ?? "run", e.durationS);
@@ -280,7 +294,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
           const startS = state.timeS;
           const faulty = e.fault !== undefined && k <= e.faultyAttempts;
           const label = `${name}: attempt ${k} of ${e.attempts}${faulty ? ` (${e.fault!.type})` : ""}`;
-          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.tripAfterS) : charge("power-up", e.field, label, circuit!.load, undefined);
+          const event = faulty ? charge(e.fault!.type, e.field, label, e.fault!.load, e.fault!.tripAfterS, e.fault!.loadField) : charge("power-up", e.field, label, circuit!.load, undefined);
           yield event;
           if (event.outcome === "completed" && !(faulty && e.fault!.tripAfterS !== undefined)) {
             done = true;
@@ -288,6 +302,15 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
           }
           if (k < e.attempts) {
             const rest = startS + interval - state.timeS;
+            // the interval (start to start) must hold this attempt as it ran (protection may have
+            // ended it before its timeout) and the switches' dead time
+            if (rest < waitS - 1e-9 * Math.max(1, interval))
+              throw inputError(
+                "out-of-range",
+                `${e.field}.interval`,
+                `an interval (start to start) at least as long as attempt ${k} lasted plus the relay's and contactor's dead time (${Number((state.timeS - startS + waitS).toPrecision(9))} s: ${Number((state.timeS - startS).toPrecision(9))} s, ${event.reason}, and ${Number(waitS.toPrecision(9))} s)`,
+                `${interval} s`,
+              );
             if (rest > 0) yield gap(rest, e.field);
             interval = Math.min(interval * e.backoff, e.maxIntervalS);
           }

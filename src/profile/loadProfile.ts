@@ -80,6 +80,8 @@ export function loadProfile(text: string, file: string, readFile?: ReadNamedFile
     operateS: input.circuit?.relay?.operate ?? ATTEMPT_TIMING_DEFAULTS.operateS,
     releaseS: input.circuit?.relay?.release ?? ATTEMPT_TIMING_DEFAULTS.releaseS,
     timerResolutionS: input.firmware?.timerResolution ?? ATTEMPT_TIMING_DEFAULTS.timerResolutionS,
+    ...(input.circuit?.contactor?.operate === undefined ? {} : { contactorOperateS: input.circuit.contactor.operate }),
+    ...(input.circuit?.contactor?.release === undefined ? {} : { contactorReleaseS: input.circuit.contactor.release }),
   };
   const context: EventContext = { reader, circuit, partIds: input.parts.map((p) => p.id), readFile, timing };
   const events = input.events.map((e, i) => resolveEvent(context, e, `events[${i}]`));

@@ -257,6 +257,8 @@ export const contactorSchema = z.strictObject({
   makingCurrent: quantity("current", { above: 0, words: 'a making-current rating > 0 such as "150 A"' }),
   loopResistance: quantity("resistance", { above: 0, words: 'a loop resistance > 0 such as "30 mohm"' }),
   loopInductance: quantity("inductance", { min: 0, words: 'a loop inductance ≥ 0 such as "2 uH"' }).optional(),
+  operate: quantity("time", { min: 0, words: 'an operate time ≥ 0 such as "30 ms"' }).optional(),
+  release: quantity("time", { min: 0, words: 'a release time ≥ 0 such as "15 ms"' }).optional(),
 });
 
 /** The pre-charge circuit: topology, bus, capacitor, load, completion rule, discharge path and relay. */

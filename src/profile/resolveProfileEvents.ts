@@ -48,7 +48,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, f.load, join(field, "load"), busV);
-      return load === undefined ? undefined : { type: f.type, load };
+      return load === undefined ? undefined : { type: f.type, load, loadField: join(field, "load") };
     }
     case "converter-early": {
       forbid(["load", "after"]);
@@ -57,7 +57,7 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         return undefined;
       }
       const load = resolveLoad(ctx.reader, { kind: "constant-power", power: f.power, enableAt: f.enableAt, disableAt: f.disableAt }, field, busV);
-      return load === undefined ? undefined : { type: f.type, load };
+      return load === undefined ? undefined : { type: f.type, load, loadField: field };
     }
     case "trip-after-close":
       forbid(["power", "enableAt", "disableAt"]);
@@ -65,7 +65,8 @@ function resolveFault(ctx: EventContext, f: FaultInput, field: string): FaultSpe
         ctx.reader.fail("bad-profile", join(field, "after"), 'the time from contactor closing to the trip, such as "200 ms"', "nothing");
         return undefined;
       }
-      return { type: f.type, load: f.load === undefined ? (ctx.circuit?.load ?? NO_LOAD) : (resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD), tripAfterS: f.after };
+      if (f.load === undefined) return { type: f.type, load: ctx.circuit?.load ?? NO_LOAD, tripAfterS: f.after };
+      return { type: f.type, load: resolveLoad(ctx.reader, f.load, join(field, "load"), busV) ?? NO_LOAD, loadField: join(field, "load"), tripAfterS: f.after };
   }
 }
 
@@ -80,7 +81,7 @@ export function resolveEvent(ctx: EventContext, e: EventInput, field: string): P
     needCircuit(ctx, at, "power-up");
     const v = e["power-up"];
     const load = v.load === undefined ? undefined : resolveLoad(ctx.reader, v.load, join(at, "load"), ctx.circuit?.busVoltageV ?? Infinity);
-    return { kind: "power-up", field: at, ...label(v), ...(load === undefined ? {} : { load }) };
+    return { kind: "power-up", field: at, ...label(v), ...(load === undefined ? {} : { load, loadField: join(at, "load") }) };
   }
   if ("fault" in e) {
     const at = join(field, "fault");
@@ -97,14 +98,22 @@ export function resolveEvent(ctx: EventContext, e: EventInput, field: string): P
     const r = e.retry;
     needCircuit(ctx, at, "retry block");
     const fault = r.fault === undefined ? undefined : resolveFault(ctx, r.fault, join(at, "fault"));
-    // start to start, an interval must hold the longest attempt and the relay's opening and closing again
-    const attemptS = (ctx.circuit?.completion.timeoutS ?? 0) + (fault?.tripAfterS ?? 0);
-    const shortestS = attemptS + shortestAttemptWaitS(ctx.timing);
-    if (ctx.circuit !== undefined && r.interval < shortestS * (1 - 1e-12))
+    // start to start, an interval must hold the longest attempt and the relay's opening and closing
+    // again. Without protection that ends an attempt at a level the bus reaches (checks, current,
+    // I²t), the longest attempt is known now: the timeout (or a shorter maximum on-time), plus the
+    // contactor's operate time and the trip delay of a fault that trips after closing. With such
+    // protection only a run knows how long each attempt lasts: expandTimeline checks each one.
+    const circuit = ctx.circuit;
+    const guard = circuit?.completion.protection;
+    const levelProtected = guard !== undefined && ((guard.busChecks?.length ?? 0) > 0 || (guard.riseChecks?.length ?? 0) > 0 || guard.overCurrent !== undefined || (guard.i2t?.length ?? 0) > 0);
+    const onS = Math.min(circuit?.completion.timeoutS ?? 0, guard?.maxOnTimeS ?? Infinity);
+    const closedS = fault?.tripAfterS === undefined ? 0 : (ctx.timing.contactorOperateS ?? 0) + fault.tripAfterS;
+    const shortestS = onS + closedS + shortestAttemptWaitS(ctx.timing);
+    if (circuit !== undefined && !levelProtected && r.interval < shortestS * (1 - 1e-12))
       ctx.reader.fail(
         "out-of-range",
         join(at, "interval"),
-        `an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (${Number(shortestS.toPrecision(12))} s: the completion timeout${fault?.tripAfterS === undefined ? "" : ", the trip delay"} and ${Number(shortestAttemptWaitS(ctx.timing).toPrecision(12))} s for the relay)`,
+        `an interval (start to start) at least as long as an attempt can last plus the relay's release and operate times (${Number(shortestS.toPrecision(12))} s: the ${onS < circuit.completion.timeoutS ? "maximum on-time" : "completion timeout"}${fault?.tripAfterS === undefined ? "" : (ctx.timing.contactorOperateS ?? 0) > 0 ? ", the contactor's operate time, the trip delay" : ", the trip delay"} and ${Number(shortestAttemptWaitS(ctx.timing).toPrecision(12))} s for the relay)`,
         `${r.interval} s`,
       );
     const maxIntervalS = r.maxInterval ?? Infinity;

@@ -1,4 +1,5 @@
 import type { CircuitModels } from "../profile/CircuitModels.js";
+import { inProfileFile } from "../profile/inProfileFile.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import { type BackoffRuleAnswer, backoffRule, firstWaitCandidates } from "./backoffRule.js";
 import { type FastestScheduleAnswer, fastestSchedule } from "./fastestSchedule.js";
@@ -43,6 +44,11 @@ export interface RetryPlanReport {
  * planRetries(profile("warehouse-robot-48v.yaml"), defaultCircuitModels).forever.minimumIntervalS // => 4.918
  */
 export function planRetries(profile: DutyProfile, models: CircuitModels): RetryPlanReport {
+  // a problem found while the answers are computed (a circuit model refusing a load) names the profile
+  return inProfileFile(profile.file, () => planProfileRetries(profile, models));
+}
+
+function planProfileRetries(profile: DutyProfile, models: CircuitModels): RetryPlanReport {
   const setup = profileRetrySetup(profile, models);
   const corners = setup.scenarios;
   const policy = retryPolicyVerdict(corners, setup.policy, setup.lockoutS);

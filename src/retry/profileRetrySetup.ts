@@ -1,6 +1,7 @@
 import { inputLimit } from "../format/inputLimits.js";
 import { hottestSteadySurroundings, surroundingsBound } from "../profile/hottestSteadySurroundings.js";
-import type { ChargeConditions } from "../circuits/CircuitResult.js";
+import type { ChargeConditions, CircuitResult } from "../circuits/CircuitResult.js";
+import { loadProblemsAt } from "../profile/loadProblemsAt.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, FaultSpec, ProfileCircuit } from "../profile/DutyProfile.js";
@@ -128,9 +129,16 @@ export function profileRetrySetup(given: DutyProfile, models: CircuitModels): Pr
         const partTemperatureC: Record<string, number> = {};
         for (const h of heated) partTemperatureC[h.role!] = context.partTemperatureC;
         const conditions: ChargeConditions = { sourceVoltageV: c.busVoltageV, initialVoltageV: context.capacitorVoltageV, completion: c.completion, partTemperatureC };
-        const r = models.charge(c, fault.load, conditions);
+        let r: CircuitResult;
+        try {
+          r = models.charge(c, fault.load, conditions);
+        } catch (error) {
+          throw loadProblemsAt(error, fault.loadField);
+        }
         const completed = r.outcome === "completed";
-        const durationS = r.durationS + (completed ? (fault.tripAfterS ?? 0) : 0);
+        // a charge that completes and then trips lasts until the trip, counted from the contactor's
+        // contacts closing (its operate time after the completion)
+        const durationS = r.durationS + (completed && fault.tripAfterS !== undefined ? (timing.contactorOperateS ?? 0) + fault.tripAfterS : 0);
         const own: PowerTrace = part.role === undefined ? [] : (r.traces[part.role] ?? []);
         const otherTraces: Record<string, PowerTrace> = {};
         for (const h of sameNetwork) {

@@ -1,5 +1,6 @@
 import { inputError } from "../errors/InputError.js";
 import { hottestSteadySurroundings } from "../profile/hottestSteadySurroundings.js";
+import { inProfileFile } from "../profile/inProfileFile.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart, SupervisionSpec } from "../profile/DutyProfile.js";
 import { formatDuration } from "../text/formatTable.js";
@@ -149,6 +150,11 @@ export interface SupervisionReport {
  * supervisePrecharge(profile("electric-boat-72v-supervision.yaml"), defaultCircuitModels).window.lowerS // => 0.5695
  */
 export function supervisePrecharge(given: DutyProfile, models: CircuitModels): SupervisionReport {
+  // a problem found while the answers are computed (a circuit model refusing a load) names the profile
+  return inProfileFile(given.file, () => superviseProfile(given, models));
+}
+
+function superviseProfile(given: DutyProfile, models: CircuitModels): SupervisionReport {
   // an ambient that varies and extra heat sources: answer at the constant ambient that bounds them
   const profile = hottestSteadySurroundings(given);
   const circuit = profile.circuit;
@@ -215,7 +221,7 @@ export function supervisePrecharge(given: DutyProfile, models: CircuitModels): S
   const recommendedAbort = aborts.filter((c) => c.usable).reduce<AbortCheck | null>((best, c) => (best === null || c.shortEnergyJ < best.shortEnergyJ ? c : best), null);
   const rises = riseChecks(buses, riseTimes, marginFraction, floorV, spec.busVoltageV.low);
   const recommendedRise = rises.find((c) => c.usable) ?? null;
-  const protection = superviseProtection(profile, models, heated, busEnds, recommendedAbort, recommendedRise);
+  const protection = superviseProtection(profile, models, heated, busEnds, recommendedAbort, recommendedRise, { buses, marginFraction, startVoltageV: spec.startVoltageV, horizonS });
 
   // 3. retry storms at the profile's timeout, through the retry planner
   const stormScenarios = heated.flatMap((part) => busEnds.map((v) => shortedScenario(profile, part, v, timeoutS, models)));

@@ -1,4 +1,6 @@
 import type { AttemptProtection } from "../circuits/AttemptProtection.js";
+import type { BusLoad } from "../circuits/BusLoad.js";
+import type { CircuitResult } from "../circuits/CircuitResult.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import { ATTEMPT_TIMING_DEFAULTS } from "../profile/attemptTiming.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
@@ -6,6 +8,8 @@ import { type ForeverIntervalAnswer, minForeverInterval } from "../retry/minFore
 import type { RetryScenario } from "../retry/RetryScenario.js";
 import type { AbortCheck, RiseCheck } from "./superviseChecks.js";
 import { shortedScenario } from "./superviseShortScenario.js";
+import type { HealthyBus } from "./superviseHealthyBus.js";
+import { type LimitRecommendation, superviseLimits } from "./superviseLimits.js";
 
 /** What one recommended check lets through, and how close healthy charges come to it. */
 export interface CheckExposure {
@@ -18,10 +22,16 @@ export interface CheckExposure {
   /**
    * the weakest resistive fault across the bus that the check still catches (the bus exactly at the
    * threshold at the check time), the energy it puts into the part before the check fires, and what
-   * a fault a hair weaker puts in until the timeout (the check cannot see it); null for a rise check
+   * a fault a hair weaker puts in until the timeout or a recommended limit (I²t, on-time) ends it
+   * (the check cannot see it); null for a rise check
    * or when no resistive fault holds the bus at the threshold
    */
   readonly partialFault: { readonly resistanceOhm: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
+  /**
+   * the same for a fault that draws a constant current from the bus (always on): the smallest
+   * current the check still catches; null for a rise check or when none is in reach
+   */
+  readonly currentFault: { readonly currentA: number; readonly energyBeforeFiringJ: number; readonly missedEnergyJ: number } | null;
   /** closest healthy corner's distance from the threshold [V], as a fraction of its voltage, and the corner */
   readonly healthyMarginV: number;
   readonly healthyMarginFraction: number;
@@ -30,12 +40,24 @@ export interface CheckExposure {
 
 /** The recommended checks as profile protection, what they let through, and the retry-for-ever interval they buy. */
 export interface ProtectedSupervision {
-  /** the checks as `circuit.protection` would hold them (what `supervise --checks` writes) */
+  /** the checks and limits as `circuit.protection` would hold them (what `supervise --checks` writes) */
   readonly protection: AttemptProtection;
   readonly checks: readonly CheckExposure[];
-  /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the checks */
+  /** the firmware I²t limit and the maximum on-time, each when it helps (superviseLimits) */
+  readonly limits: readonly LimitRecommendation[];
+  /** shortest interval for retrying for ever into a short at the profile's timeout, without and with the whole protection */
   readonly foreverWithout: ForeverIntervalAnswer;
   readonly foreverWith: ForeverIntervalAnswer;
+  /** the same with the limits alone (no bus checks: firmware that cannot measure the bus); null without limits */
+  readonly foreverWithLimits: ForeverIntervalAnswer | null;
+}
+
+/** What superviseProtection needs of the healthy corners to recommend limits beside the checks. */
+export interface HealthyCharges {
+  readonly buses: readonly HealthyBus[];
+  readonly marginFraction: number;
+  readonly startVoltageV: number;
+  readonly horizonS: number;
 }
 
 /** Significant digits of a threshold written into the profile fragment. */
@@ -64,7 +86,10 @@ const FAULT_BISECTION_STEPS = 60;
  * bisection on log R of the bus voltage at the check time, which rises with R), the healthy
  * margin, and the shortest interval for retrying for ever into a short (minForeverInterval on the
  * shorted scenarios at both bus-voltage ends) at the profile's timeout without and with the checks.
- * Cost: 2 × 60 circuit runs per check for the partial fault, plus two retry-for-ever scans.
+ * Beside the checks, the limits of superviseLimits (a firmware I²t limit, a maximum on-time) join
+ * the same protection when they help, and the interval with the limits alone is answered too.
+ * Cost: 2 × 60 circuit runs per check for the partial fault, about 60 per healthy corner for the
+ * I²t, plus three retry-for-ever scans.
  */
 export function superviseProtection(
   profile: DutyProfile,
@@ -73,17 +98,25 @@ export function superviseProtection(
   busEnds: readonly number[],
   abort: AbortCheck | null,
   rise: RiseCheck | null,
+  healthy: HealthyCharges,
 ): ProtectedSupervision | null {
-  if (abort === null && rise === null) return null;
   const circuit = profile.circuit!;
   const timeoutS = circuit.completion.timeoutS;
+  const primary = heated[0]!;
+  const highV = Math.max(...busEnds);
+  const limits = superviseLimits(profile, models, primary.role!, healthy.buses, highV, healthy.marginFraction, healthy.startVoltageV, healthy.horizonS);
+  if (abort === null && rise === null && limits.length === 0) return null;
   const busChecks = [
     ...(abort === null ? [] : [{ atS: abort.timeS, minV: roundSignificant(abort.thresholdV, false) }]),
     ...(rise === null ? [] : [{ atS: rise.timeS, maxV: roundSignificant(rise.thresholdV, true) }]),
   ];
-  const protection: AttemptProtection = { busChecks };
-  const primary = heated[0]!;
-  const highV = Math.max(...busEnds);
+  const i2t = limits.find((l) => l.kind === "firmware-i2t");
+  const onTime = limits.find((l) => l.kind === "max-on-time");
+  const limitProtection: AttemptProtection = {
+    ...(i2t === undefined ? {} : { i2t: [{ limitA2s: i2t.value, kind: "firmware" as const }] }),
+    ...(onTime === undefined ? {} : { maxOnTimeS: onTime.value }),
+  };
+  const protection: AttemptProtection = { ...(busChecks.length === 0 ? {} : { busChecks }), ...limitProtection };
   const checks: CheckExposure[] = [];
   if (abort !== null) {
     const thresholdV = busChecks[0]!.minV!;
@@ -92,7 +125,7 @@ export function superviseProtection(
       timeS: abort.timeS,
       thresholdV,
       shortEnergyJ: abort.shortEnergyJ,
-      partialFault: weakestCaughtFault(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS),
+      ...weakestCaughtFaults(profile, models, primary, highV, abort.timeS, thresholdV, timeoutS, limitProtection),
       healthyMarginV: abort.lowestHealthyV - thresholdV,
       healthyMarginFraction: (abort.lowestHealthyV - thresholdV) / abort.lowestHealthyV,
       healthyCorner: abort.slowestCorner,
@@ -106,6 +139,7 @@ export function superviseProtection(
       thresholdV,
       shortEnergyJ: null,
       partialFault: null,
+      currentFault: null,
       healthyMarginV: thresholdV - rise.highestHealthyV,
       healthyMarginFraction: (thresholdV - rise.highestHealthyV) / thresholdV,
       healthyCorner: rise.fastestCorner,
@@ -117,30 +151,65 @@ export function superviseProtection(
   return {
     protection,
     checks,
+    limits,
     foreverWithout: minForeverInterval(scenarios(), options),
     foreverWith: minForeverInterval(scenarios(protection), options),
+    foreverWithLimits: limits.length === 0 ? null : minForeverInterval(scenarios(limitProtection), options),
   };
 }
 
+/** What a fault of one family does at one strength: the part's energy until a time, the bus voltage then. */
+type FaultRun = (strength: number, untilS: number, protection?: AttemptProtection) => CircuitResult;
+
 /**
- * The weakest resistive fault the early-abort check catches at the highest bus voltage: the fault
- * resistance that holds the bus exactly at the threshold at the check time, the part's energy
- * until then, and until the timeout (a fault a hair weaker runs that long). Null when even the
- * strongest fault tried (1 µΩ) leaves the bus above the threshold, or the weakest (1 GΩ) below it.
+ * The weakest fault of a one-parameter family that the early-abort check catches at the highest
+ * bus voltage: the strength that holds the bus exactly at the threshold at the check time (the bus
+ * voltage then is monotone in the strength: a smaller resistance or a larger current pulls it
+ * lower), found by bisection on the log of the strength between `strong` (caught) and `weak` (not
+ * caught); the part's energy until the check fires, and until the timeout or a recommended limit
+ * ends it (a fault a hair weaker runs that long: the check cannot see it). Null when even the
+ * strong end leaves the bus above the threshold, or the weak end below it.
  */
-function weakestCaughtFault(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number) {
-  const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
-  const run = (ohm: number, untilS: number) =>
-    models.charge(circuit, { kind: "resistive", resistanceOhm: ohm }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS } });
-  let lo = Math.log(1e-6);
-  let hi = Math.log(1e9);
-  if (!(run(Math.exp(lo), timeS).endVoltageV < thresholdV) || !(run(Math.exp(hi), timeS).endVoltageV >= thresholdV)) return null;
+function weakestCaught(run: FaultRun, role: string, strong: number, weak: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
+  const caught = (x: number): boolean => run(x, timeS).endVoltageV < thresholdV;
+  let lo = Math.log(strong);
+  let hi = Math.log(weak);
+  if (!caught(strong) || caught(weak)) return null;
   for (let n = 0; n < FAULT_BISECTION_STEPS; n++) {
     const mid = 0.5 * (lo + hi);
-    if (run(Math.exp(mid), timeS).endVoltageV < thresholdV) lo = mid;
+    if (caught(Math.exp(mid))) lo = mid;
     else hi = mid;
   }
-  const ohm = Math.exp(lo);
+  const x = Math.exp(lo);
+  return { strength: x, energyBeforeFiringJ: run(x, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(x, timeoutS, limits).energy.partsJ[role] ?? 0 };
+}
+
+/**
+ * The weakest resistive fault (1 µΩ to 1 GΩ) and the weakest constant-current fault (always on;
+ * from the current that holds the bus at 0 V, Vs over the circuit's resistance, down to 1e-9 of it)
+ * the early-abort check catches. A constant-power fault is not searched: it switches on only at its
+ * enable voltage, so whether a check sees it depends on that voltage (below the threshold: caught
+ * like an overload; above it: never, the bus passes the threshold first) rather than on its power,
+ * and there is no single weakest one (docs/planners.md, "Supervision answers").
+ */
+function weakestCaughtFaults(profile: DutyProfile, models: CircuitModels, part: ProfilePart, busV: number, timeS: number, thresholdV: number, timeoutS: number, limits: AttemptProtection) {
+  const circuit = { ...profile.circuit!, busVoltageV: busV } as NonNullable<DutyProfile["circuit"]>;
+  const runWith =
+    (load: (x: number) => BusLoad): FaultRun =>
+    (x, untilS, protection) =>
+      models.charge(circuit, load(x), { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: untilS, timeoutS: untilS, ...(protection === undefined ? {} : { protection }) } });
   const role = part.role!;
-  return { resistanceOhm: ohm, energyBeforeFiringJ: run(ohm, timeS).energy.partsJ[role] ?? 0, missedEnergyJ: run(ohm, timeoutS).energy.partsJ[role] ?? 0 };
+  const resistive = weakestCaught(runWith((ohm) => ({ kind: "resistive", resistanceOhm: ohm })), role, 1e-6, 1e9, timeS, thresholdV, timeoutS, limits);
+  // the largest current the source can push into a bus at 0 V: the short-circuit current of the
+  // path, found from the shorted run's energy balance (source energy / (Vs · t))
+  const short = models.charge(circuit, { kind: "short" }, { sourceVoltageV: busV, initialVoltageV: 0, completion: { dwellS: timeS, timeoutS: timeS } });
+  const shortCurrentA = short.energy.sourceJ / (busV * timeS);
+  const current =
+    shortCurrentA > 0 && Number.isFinite(shortCurrentA)
+      ? weakestCaught(runWith((a) => ({ kind: "constant-current", currentA: a })), role, shortCurrentA, 1e-9 * shortCurrentA, timeS, thresholdV, timeoutS, limits)
+      : null;
+  return {
+    partialFault: resistive === null ? null : { resistanceOhm: resistive.strength, energyBeforeFiringJ: resistive.energyBeforeFiringJ, missedEnergyJ: resistive.missedEnergyJ },
+    currentFault: current === null ? null : { currentA: current.strength, energyBeforeFiringJ: current.energyBeforeFiringJ, missedEnergyJ: current.missedEnergyJ },
+  };
 }

@@ -38,6 +38,23 @@ describe("magnitudes outside the documented range are refused at their line", ()
     expect(result.err).toBe('heatledger: p.yaml:17: events[1].run: expected a time such as "350 ms" (or a number in s), zero or between 1e-12 and 1e12 s in size, found 1e+308\n');
   });
 
+  // the planners read the same profile: each refuses the value at its line before any arithmetic
+  // (no "NaN" from an attempt trace, no "Infinity °C"), with exit 2, never 1 or 3
+  test.each(["retries", "supervise", "size"])("%s refuses resistance and r of 1e308 and run: 1e308 at their lines", async (command) => {
+    const events = shortedRetry("      attempts: 3\n      interval: 2 s\n      lockout: 1 min");
+    const cases: [string, string][] = [
+      [shortedBusProfile(events).replace("resistance: 48 ohm", "resistance: 1e308 ohm"), "p.yaml:12: circuit.resistance:"],
+      [shortedBusProfile(events).replace("r: 2 K/W", "r: 1e308 K/W"), "p.yaml:6: parts[0].network.stages[0].r:"],
+      [shortedBusProfile(`${events}\n  - run: 1e308`), "p.yaml:21: events[1].run:"],
+    ];
+    for (const [profile, where] of cases) {
+      const result = await run([command, "p.yaml"], { "p.yaml": profile });
+      expect(result.status).toBe(2);
+      expect(result.err.startsWith(`heatledger: ${where} expected `)).toBe(true);
+      expect(result.out + result.err).not.toMatch(/NaN|Infinity/);
+    }
+  });
+
   test("an ambient below absolute zero", async () => {
     const result = await simulate(shortedBusProfile("  - power-up: {}").replace("ambient: 25 degC", "ambient: -300 degC"));
     expect(result.err).toBe('heatledger: p.yaml:2: ambient: expected a temperature such as "40 degC" (or a number in degC), at or above absolute zero (-273.15 degC), found "-300 degC"\n');
@@ -85,8 +102,33 @@ describe("loads the circuit models cannot follow are refused under the key that 
     const result = await simulate(profile);
     expect(result.status).toBe(2);
     expect(result.err).toMatch(
-      /^heatledger: p\.yaml:9: circuit: expected a disable \(under-voltage lockout\) voltage the bus can be followed down to: the load's current P\/V grows without bound as the bus falls, and the integration could not go below [\d.e-]+ V; raise disableAt above that \(circuit model value load\.disableV\), found 1e-7 V\n$/,
+      /^heatledger: p\.yaml:13: circuit\.load\.disableAt: expected a disable \(under-voltage lockout\) voltage the bus can be followed down to: the load's current P\/V grows without bound as the bus falls, and the integration could not go below [\d.e-]+ V; raise disableAt above that, found 1e-7 V\n$/,
     );
+  });
+
+  // The same collapsing load brought by an event names the event's own key and line, in simulate
+  // and in retries (which runs the fault's attempts itself). 5 kW from 400 V through 20 ohm, as above.
+  const collapsing = (events: string) => shortedBusProfile(events).replace("busVoltage: 48 V", "busVoltage: 400 V").replace("resistance: 48 ohm", "resistance: 20 ohm");
+  const cp = "power: 5 kW, enableAt: 100 V, disableAt: 1e-7 V";
+  const refusal = (line: number, field: string) =>
+    new RegExp(`^heatledger: p\\.yaml:${line}: ${field.replace(/[.[\]]/g, "\\$&")}: expected a disable \\(under-voltage lockout\\) voltage the bus can be followed down to: .*, found 1e-7 V\\n$`);
+  test.each([
+    ["a converter-early fault", `  - fault: { type: converter-early, ${cp} }`, 16, "events[0].fault.disableAt"],
+    ["an overloaded-bus fault", `  - fault: { type: overloaded-bus, load: { kind: constant-power, ${cp} } }`, 16, "events[0].fault.load.disableAt"],
+    ["a power-up's own load", `  - power-up: { load: { kind: constant-power, ${cp} } }`, 16, "events[0].power-up.load.disableAt"],
+  ])("%s: simulate names the event's key", async (_, events, line, field) => {
+    const result = await simulate(collapsing(events));
+    expect(result.status).toBe(2);
+    expect(result.err).toMatch(refusal(line, field));
+  });
+
+  test("a retry block's converter-early fault: simulate and retries both name the retry's fault key and the file", async () => {
+    const retry = shortedRetry("      attempts: 2\n      interval: 5 s\n      lockout: 1 min").replace("fault: { type: shorted-output }", `fault: { type: converter-early, ${cp} }`);
+    for (const command of ["simulate", "retries"]) {
+      const result = await run([command, "p.yaml"], { "p.yaml": collapsing(retry) });
+      expect(result.status).toBe(2);
+      expect(result.err).toMatch(refusal(20, "events[0].retry.fault.disableAt"));
+    }
   });
 });
 

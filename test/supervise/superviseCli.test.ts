@@ -26,7 +26,7 @@ describe("heatledger supervise (in process)", () => {
     expect(await runCli(["supervise", "p.yaml", "--no-chart", "--checks", "c.yaml"], io)).toBe(0);
     const fragment = io.files["c.yaml"]!;
     expect(fragment).toMatch(/^protection:\n {2}busChecks:\n {4}- \{ at: [0-9.e-]+, below: [0-9.e-]+ \}/m);
-    expect(io.stdout.join("")).toContain("Recommended checks as profile protection");
+    expect(io.stdout.join("")).toContain("Recommended checks and limits as profile protection");
     // pasted under circuit:, the profile loads with the checks on its completion rule
     const doc = parseDocument(oneStageProfileText(BASE));
     doc.setIn(["circuit", "protection"], (parse(fragment) as { protection: unknown }).protection);

@@ -42,8 +42,9 @@ sets the attempts and interval to ask about, the spacing (start-to-start or end-
 "near ambient" distance (default ${PLAN_DEFAULTS.ambientReturnK} K), the lockout map and the corner set (busVoltage,
 ambient, capacitance, resistance). Safe means at or below the part's limit minus its margin.
 The relay that starts each attempt must open and close again between attempts (circuit.relay:
-operate, default ${ms(ATTEMPT_TIMING_DEFAULTS.operateS)}; release, default ${ms(ATTEMPT_TIMING_DEFAULTS.releaseS)}): no wait proposed is shorter than
-their sum, and every interval, wait and lockout is a whole number of the firmware's timer steps
+operate, default ${ms(ATTEMPT_TIMING_DEFAULTS.operateS)}; release, default ${ms(ATTEMPT_TIMING_DEFAULTS.releaseS)}), after the main contactor has opened
+(circuit.contactor.release): no wait proposed is shorter than the longer release plus the
+operate time, and every interval, wait and lockout is a whole number of the firmware's timer steps
 (firmware.timerResolution, default ${ms(ATTEMPT_TIMING_DEFAULTS.timerResolutionS)}), rounded up and checked again by simulation.
 ${verdictHelp("Here the verdict is that of the profile's own retry policy: its burst from a cold part and burst + lockout repeated while the fault persists, in every corner (pass: safe; an attempt that would start before the previous one ends fails).")}
 See README, "Reading the retry plan" and "Verdicts and exit status".`,

@@ -42,11 +42,13 @@ ${SUPERVISE_DEFAULTS.autoCheckFractions.join(", ")} of the slowest healthy compl
 margin of ${SUPERVISE_DEFAULTS.checkMarginFraction * 100} % (checkMargin) and are usable down to ${SUPERVISE_DEFAULTS.minCheckVoltageFraction * 100} % of the lowest bus voltage
 (minCheckVoltage).
 Attempts "back to back" are as close as the relay allows: its release plus operate time
-(circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms), rounded up to the firmware's timer
+(circuit.relay, defaults ${ATTEMPT_TIMING_DEFAULTS.releaseS * 1000} ms and ${ATTEMPT_TIMING_DEFAULTS.operateS * 1000} ms; the main contactor's release,
+circuit.contactor.release, when longer than the relay's), rounded up to the firmware's timer
 (firmware.timerResolution, default ${ATTEMPT_TIMING_DEFAULTS.timerResolutionS * 1000} ms).
 ${verdictHelp("Here the verdict judges the profile's own timeout: attempts into a short at that timeout, through the profile's retry policy (burst and burst + lockout repeated), worst part and bus voltage; pass when it is inside the window. A timeout shorter than the slowest healthy charge fails (healthy units would be stopped).")}
 Example: heatledger supervise profiles/electric-boat-72v-supervision.yaml --checks checks.yaml
-writes the recommended early-abort and rise-too-fast checks as circuit.protection keys; pasted
+writes the recommended early-abort and rise-too-fast checks, and a firmware I²t limit and a
+maximum on-time when they help, as circuit.protection keys; pasted
 under circuit:, simulate, retries, replay and size end each attempt where a check fires.
 See README, "Reading the supervision answers" and "Verdicts and exit status".`,
     );
