@@ -22,8 +22,8 @@ export interface LimitCheck {
   readonly status: RatingStatus;
   /** the worst value found, in `unit` */
   readonly found: number;
-  /** the value allowed in that case, in `unit` (derated where the limit derates) */
-  readonly allowed: number;
+  /** the value allowed in that case, in `unit` (derated where the limit derates); undefined where the rule does not cover the case */
+  readonly allowed: number | undefined;
   /** "V", "W", "K", "J" */
   readonly unit: string;
   /** index of the event of the worst case; undefined for a whole-run limit (continuous power) */
@@ -42,9 +42,10 @@ export interface LimitCheck {
  * Margin of a limit check, allowed − found in its unit, and as a share of the allowance
  * (undefined when nothing is allowed). Cost O(1).
  * @example
- * limitMargin({ found: 400, allowed: 300 }) // => { margin: -100, share: -0.3333333333333333 }
+ * limitMargin({ found: 400, allowed: 300 }).margin // => -100
  */
-export function limitMargin(check: Pick<LimitCheck, "found" | "allowed">): { margin: number; share: number | undefined } {
+export function limitMargin(check: Pick<LimitCheck, "found" | "allowed">): { margin: number | undefined; share: number | undefined } {
+  if (check.allowed === undefined) return { margin: undefined, share: undefined };
   const margin = check.allowed - check.found;
   return { margin, share: check.allowed > 0 ? margin / check.allowed : undefined };
 }
