@@ -1,3 +1,4 @@
+import { wrapText } from "../text/cautions.js";
 import type { FosterFit } from "../thermal/fitFosterNetwork.js";
 import type { ZthPoint } from "../thermal/fitZthPoints.js";
 import { fosterToModal } from "../thermal/fosterNetwork.js";
@@ -67,6 +68,6 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       { logX: true, yUnit: "K/W", width },
     ),
   );
-  for (const warning of fit.warnings) out.push(`Warning: ${warning}.`);
+  for (const warning of fit.warnings) out.push(wrapText(`Warning: ${warning}.`, Math.min(width, 100)));
   return `${out.join("\n")}\n`;
 }
