@@ -85,6 +85,8 @@ export { PartLimits } from "./stress/PartLimits.js";
 export type { LimitEvent, PartLimitContext } from "./stress/PartLimits.js";
 export type { PulseRatingForm } from "./stress/resolveStressConfig.js";
 export { formatLimitLines } from "./report/formatLimitLines.js";
+export { ADIABATIC_ESTIMATE_MATERIALS, adiabaticMassEstimates } from "./size/adiabaticMassEstimates.js";
+export type { AdiabaticMassEstimate } from "./size/adiabaticMassEstimates.js";
 export { STRESS_SECTION_MAX_EVENTS, STRESS_SECTION_WIDTH, PROFILE_HISTORY_WORDS } from "./report/formatStressSection.js";
 export { profileSchema, partSchema, circuitSchema, loadSchema, supervisionSchema } from "./profile/profileSchema.js";
 export type { CircuitRole, ProfileCircuit, ProfilePart, FaultSpec, ProfileEvent, DutyProfile, QuantityRange, SupervisionSpec } from "./profile/DutyProfile.js";

@@ -3,6 +3,7 @@ import {
   MATERIALS,
   ProfileStress,
   adiabaticMass,
+  adiabaticMassEstimates,
   allowedContinuousPowerW,
   checkAdiabatic,
   defaultCircuitModels,
@@ -157,5 +158,14 @@ describe("the quick adiabatic mass m = E/(c·ΔT)", () => {
     expectClose(energyJ, 7.35, { rel: 1e-12 });
     // m = 7.35/(1000·50) = 1.47e-4 kg = 0.147 g (Q = m·c·ΔT, Incropera et al., 7th ed. (2011), §1.3.1)
     expectClose(adiabaticMass(energyJ, 1000, 50), 1.47e-4, { rel: 1e-12 });
+  });
+
+  test("per common element and body material, each mass E/(c·ΔT) with its preset's specific heat", () => {
+    // 7.35 J, 50 K: ceramic 850 → 0.1729 g, alumina 765 → 0.1922 g, nichrome 420 → 0.35 g,
+    // steatite 900 → 0.1633 g (specific heats from memory: Incropera et al., 7th ed. (2011),
+    // Tables A.1, A.2 for alumina and nichrome; typical values for ceramic and steatite)
+    const estimates = adiabaticMassEstimates(7.35, 50);
+    expect(estimates.map((e) => e.materialId)).toEqual(["ceramic", "alumina", "nichrome", "steatite"]);
+    [1.7294e-4, 1.9216e-4, 3.5e-4, 1.6333e-4].forEach((m, i) => expectClose(estimates[i]!.massKg, m, { rel: 1e-4 }));
   });
 });
