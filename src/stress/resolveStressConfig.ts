@@ -182,6 +182,13 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
  * A pulse-energy table is always derated for the part's temperature at each event start
  * (`pulseEnergyDerating`): from `reference` (default {@link PULSE_ENERGY_DERATING_DEFAULTS})
  * to nothing at `maxTemperature` (default: the part's limit, `options.limitC`).
+ * The single-pulse rating may be given in one of three forms, each converted to that table:
+ * `pulseEnergy`, `pulsePower` (E = P·t per row) or `energyPerOhm` of a series read log-log at the
+ * part's `resistance`; two forms at once are refused. `repetitive` (by period or by duty cycle),
+ * `voltage`, `continuousPower` and `adiabatic` (capacity from a mass and a material preset or as
+ * given, spreading time d²/α or as given) are resolved for the limits beside temperature
+ * (PartLimits). A `series` key left in is refused: the profile loader reads a family file and
+ * replaces it with the series' keys.
  * Cost O(table sizes).
  * @param raw the part object (or just its stress keys) as read from the profile
  * @param options field prefix for messages (such as `parts[1]`), the part's kind and its
