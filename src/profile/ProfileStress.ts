@@ -6,6 +6,8 @@ import type { RatingStatus } from "../stress/pulseEnergyRating.js";
 import { pulseFromTrace } from "../stress/pulseFromTrace.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
 import { checkSoa, soaDeratingFactor } from "../stress/soaTable.js";
+import { PartLimits } from "../stress/PartLimits.js";
+import { partResistance } from "./partResistance.js";
 import type { DutyProfile } from "./DutyProfile.js";
 import type { TimelineEvent } from "./expandTimeline.js";
 import { mosfetOperatingPoints } from "./mosfetOperatingPoints.js";
@@ -46,6 +48,8 @@ interface PartState {
   readonly assessment: StressAssessment;
   readonly isMosfet: boolean;
   readonly checks: EventRatingCheck[];
+  /** the limits beside temperature (voltage, continuous power, adiabatic, repetitive pulses) */
+  readonly limits: PartLimits;
   omitted: number;
   status: RatingStatus;
   eventsWithoutPoints: number;
@@ -101,7 +105,8 @@ export class ProfileStress {
       });
       // the history starts at time 0 with every part at its ambient (the simulator's initial state)
       assessment.addTemperature(0, p.ambientC);
-      return { config, assessment, isMosfet: partKind === "mosfet", checks: [], omitted: 0, status: "pass" as RatingStatus, eventsWithoutPoints: 0 };
+      const limits = new PartLimits(config, { ...partResistance(p, config, profile.circuit), ambientC: p.ambientC });
+      return { config, assessment, isMosfet: partKind === "mosfet", checks: [], limits, omitted: 0, status: "pass" as RatingStatus, eventsWithoutPoints: 0 };
     });
     this.lastStepEndC = profile.parts.map((p) => p.ambientC);
     this.startTemperatureC = this.lastStepEndC.slice();
@@ -133,14 +138,14 @@ export class ProfileStress {
       if (trace === undefined || !(event.energyJ[i]! > 0)) return;
       const { pulseEnergy, pulseEnergyDerating, soa, soaDerating } = part.config;
       // an SOA table is only read for the circuit's MOSFET (the note in finish says so for other parts)
-      if (pulseEnergy === undefined && (soa === undefined || !part.isMosfet)) return;
+      if (pulseEnergy === undefined && (soa === undefined || !part.isMosfet) && !part.limits.wantsEvents) return;
       const pulse = pulseFromTrace(trace);
       const field = `events[${event.index}]`;
       const startC = start[i]!;
-      const energy =
-        pulseEnergy === undefined
-          ? undefined
-          : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field, pulseEnergyDerating === undefined ? 1 : pulseEnergyDeratingFactor(pulseEnergyDerating, startC));
+      const deratingFactor = pulseEnergyDerating === undefined ? 1 : pulseEnergyDeratingFactor(pulseEnergyDerating, startC);
+      part.limits.addEvent({ index: event.index, startS: event.startS, energyJ: pulse.energyJ, peakPowerW: pulse.peakPowerW, startTemperatureC: startC, deratingFactor, trace });
+      if (pulseEnergy === undefined && (soa === undefined || !part.isMosfet)) return;
+      const energy = pulseEnergy === undefined ? undefined : checkPulseEnergy(pulseEnergy, pulse.energyJ, pulse.peakPowerW, field, deratingFactor);
       let soaCheck: EventRatingCheck["soa"];
       if (soa !== undefined && part.isMosfet) {
         const points = event.samples === undefined ? [] : mosfetOperatingPoints(event.samples, trace, this.profile.circuit?.busVoltageV ?? 0);
@@ -167,7 +172,10 @@ export class ProfileStress {
         notes.push("An SOA table was given for a part that is not the circuit's linear-mode MOSFET (role mosfet): it was not checked.");
       if (state.omitted > 0) notes.push(`Rating checks of ${state.omitted} later event(s) are counted in the status but not listed.`);
       if (!(endTimeS > 0)) notes.push("The profile takes no time: no temperature cycles.");
-      return { id: p.id, report: { ...base, ratingStatus: state.status, events: state.checks, notes }, checksOmitted: state.omitted };
+      const limits = state.limits.finish(endTimeS);
+      notes.push(...state.limits.notes);
+      state.status = limits.reduce<RatingStatus>((s, l) => worseStatus(s, l.status), state.status);
+      return { id: p.id, report: { ...base, ratingStatus: state.status, events: state.checks, limits, notes }, checksOmitted: state.omitted };
     });
     return { parts, ratingStatus: this.parts.reduce<RatingStatus>((s, p) => worseStatus(s, p.status), "pass") };
   }

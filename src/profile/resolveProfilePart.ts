@@ -10,6 +10,7 @@ import type { CircuitRole, ProfilePart } from "./DutyProfile.js";
 import { type CircuitInput, type PartInput, ROLE_NAMES } from "./profileSchema.js";
 import { type StressConfig, resolveStressConfig } from "../stress/resolveStressConfig.js";
 import { stressPartKind } from "./stressPartKind.js";
+import { resolveRatingSeries } from "./resolveRatingSeries.js";
 import { PROFILE_DEFAULTS } from "./profileDefaults.js";
 import type { ReadNamedFile } from "./ReadNamedFile.js";
 import { TOPOLOGY_ROLES } from "./resolveProfileCircuit.js";
@@ -46,7 +47,7 @@ export function resolvePart(
   networks.set(networkKey, resolved);
   let stress: StressConfig | undefined;
   try {
-    stress = resolveStressConfig(part, { field, partKind: stressPartKind(role), limitC: part.limits.maxTemperature });
+    stress = resolveStressConfig(resolveRatingSeries(part, field, readFile), { field, partKind: stressPartKind(role), limitC: part.limits.maxTemperature });
   } catch (error) {
     reader.absorb(error);
   }

@@ -1,10 +1,10 @@
+import { wrapText } from "../text/cautions.js";
 import type { FosterFit } from "../thermal/fitFosterNetwork.js";
 import type { ZthPoint } from "../thermal/fitZthPoints.js";
 import { fosterToModal } from "../thermal/fosterNetwork.js";
 import { logSpacedTimes, zth } from "../thermal/zth.js";
 import { formatDuration, formatNumber, formatTable } from "../text/formatTable.js";
 import { lineChart } from "./lineChart.js";
-import { wrapText } from "../text/cautions.js";
 
 /** Points of the fitted curve drawn in the chart (resampled to the width by lineChart). */
 const CURVE_POINTS = 400;
@@ -71,6 +71,6 @@ export function formatFosterFit(fit: FosterFit, points: readonly ZthPoint[], wid
       { logX: true, yUnit: "K/W", width },
     ),
   );
-  for (const warning of fit.warnings) out.push(`Warning: ${warning}.`);
+  for (const warning of fit.warnings) out.push(wrapText(`Warning: ${warning}.`, Math.min(width, 100)));
   return `${out.join("\n")}\n`;
 }

@@ -4,9 +4,9 @@ import { STRESS_SECTION_WIDTH, type StressHistoryWords, formatStressSection } fr
 import { LINEAR_MOSFET_CAUTION, wrapText } from "../text/cautions.js";
 
 const RATING_WORDS = {
-  pass: "every checked event is within its rating tables",
+  pass: "every checked event is within its rating tables and limits",
   "outside-table": "some events fall outside the rating tables and were not checked (verdict warn)",
-  fail: "an event exceeds a rating table (verdict fail)",
+  fail: "an event exceeds a rating table or a limit (verdict fail)",
 } as const;
 
 /** Options of {@link formatProfileStress}, for a command whose history is not one profile repetition (`replay`). */
@@ -39,9 +39,9 @@ export function formatProfileStress(profile: DutyProfile, stress: ProfileStressR
     const notAssessed = report.damage === undefined ? "  damage: cycling damage was not assessed (no lifetime model for this part).\n" : "";
     return formatStressSection(part.id, report, options.history) + notAssessed;
   });
-  const anyTable = profile.parts.some((p) => p.stress?.pulseEnergy !== undefined || (p.stress?.soa !== undefined && p.role === "mosfet"));
+  const anyTable = profile.parts.some((p) => p.stress?.pulseEnergy !== undefined || (p.stress?.soa !== undefined && p.role === "mosfet")) || stress.parts.some((p) => p.report.limits.length > 0);
   const closing = [
-    `Rating checks (secondary to the temperature verdict): ${anyTable ? RATING_WORDS[stress.ratingStatus] : "no part has a rating table (ratings: pulseEnergy, soa), so no event was checked"}.`,
+    `Rating checks (secondary to the temperature verdict): ${anyTable ? RATING_WORDS[stress.ratingStatus] : "no part has a rating table or a limit (ratings: pulseEnergy, pulsePower, energyPerOhm, soa, voltage, ...), so no event was checked"}.`,
   ];
   if (stress.parts.some((p) => p.report.damage !== undefined))
     closing.push(

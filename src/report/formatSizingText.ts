@@ -1,6 +1,7 @@
 import type { SizingReport } from "../size/sizeProfile.js";
 import { formatCautions, wrapText } from "../text/cautions.js";
 import { verdictLine } from "../stress/Verdict.js";
+import { ADIABATIC_ESTIMATE_MATERIALS, adiabaticMassEstimates } from "../size/adiabaticMassEstimates.js";
 import { formatDuration, formatNumber } from "../text/formatTable.js";
 import { fitTable } from "../text/fitTable.js";
 
@@ -66,6 +67,30 @@ export function formatSizingText(report: SizingReport, width = 100): string {
       ]),
     ),
   );
+  const quick = report.parts.filter((p) => p.worstEvent !== undefined && p.worstEvent.energyJ > 0 && p.adiabatic !== undefined && p.adiabatic.riseK > 0);
+  if (quick.length > 0) {
+    out.push(
+      wrapText(
+        "Quick adiabatic mass m = E/(c·ΔT) of the worst event, per material (specific heats from memory: alumina and nichrome from " +
+          "Incropera et al., 7th ed., Tables A.1-A.2; ceramic and steatite typical values); the last column puts the whole-profile C1 beside the adiabatic C:",
+        width,
+      ),
+    );
+    out.push(
+      fitWidth(
+        [
+          { heading: "part" },
+          ...ADIABATIC_ESTIMATE_MATERIALS.map((id) => ({ heading: `${id} [g]`, align: "right" as const })),
+          { heading: "C1 at k / C", align: "right" },
+        ],
+        quick.map((p) => [
+          p.partId,
+          ...adiabaticMassEstimates(p.worstEvent!.energyJ, p.adiabatic!.riseK).map((e) => formatNumber(e.massKg * 1000)),
+          p.inversion.status === "sized" && p.adiabatic!.capacityJPerK > 0 ? formatNumber(p.inversion.capacityJPerK / p.adiabatic!.capacityJPerK) : p.inversion.status,
+        ]),
+      ),
+    );
+  }
   out.push(
     wrapText(
       `Whole profile, ${whole ? "whole body" : "element C1"} × k: the simulation inverted for the smallest k (earlier events' heat included)`,

@@ -1,7 +1,8 @@
 import { wrapText } from "../text/cautions.js";
 import { CYCLE_QUANTITY_WORDS } from "../stress/LifetimeModel.js";
-import type { EventRatingCheck, StressReport } from "../stress/assessStress.js";
-import type { PulseEnergyCheck } from "../stress/pulseEnergyRating.js";
+import { type EventRatingCheck, type StressReport, worseStatus } from "../stress/assessStress.js";
+import type { PulseEnergyCheck, RatingStatus } from "../stress/pulseEnergyRating.js";
+import { formatLimitLines } from "./formatLimitLines.js";
 
 /** Most events with a failing or uncovered rating check the terminal section lists one by one. */
 export const STRESS_SECTION_MAX_EVENTS = 8;
@@ -75,7 +76,9 @@ export function formatStressSection(partId: string, report: StressReport, histor
   const checked = report.events.filter((e) => e.pulseEnergy !== undefined || e.soa !== undefined);
   if (checked.length > 0) {
     const passes = checked.filter((e) => e.status === "pass").length;
-    lines.push(`  ratings: ${STATUS_WORDS[report.ratingStatus]} (${passes} of ${checked.length} events within ratings)`);
+    // the pulse tables' own status: the limits beside temperature print their own lines below
+    const tableStatus = checked.reduce<RatingStatus>((s, e) => worseStatus(s, e.status), "pass");
+    lines.push(`  ratings: ${STATUS_WORDS[tableStatus]} (${passes} of ${checked.length} events within ratings)`);
     const flagged = checked.filter((e) => e.status !== "pass");
     for (const e of flagged.slice(0, STRESS_SECTION_MAX_EVENTS)) {
       const pe = e.pulseEnergy;
@@ -117,7 +120,8 @@ export function formatStressSection(partId: string, report: StressReport, histor
     const worstSoa = Math.max(0, ...checked.map((e) => e.soa?.worst?.utilisation ?? 0));
     if (worstSoa === Number.POSITIVE_INFINITY) lines.push("    highest SOA use: no current allowed (an event starts at or above the maximum junction temperature)");
     else if (worstSoa > 0) lines.push(`    highest SOA use: ${num(worstSoa * 100)} % of the allowed current`);
-  } else lines.push("  ratings: no rating table applies");
+  } else lines.push(report.limits.length > 0 ? "  ratings: no pulse rating table applies" : "  ratings: no rating table applies");
+  lines.push(...formatLimitLines(report.limits, STRESS_SECTION_WIDTH));
   const c = report.cycleSummary;
   lines.push(
     ...paragraph(

@@ -1,3 +1,4 @@
+import { adiabaticMassEstimates } from "../size/adiabaticMassEstimates.js";
 import type { SizingReport } from "../size/sizeProfile.js";
 import { reportCautions } from "../text/cautions.js";
 import { networkToDocument } from "../thermal/formatNetworkFile.js";
@@ -39,7 +40,16 @@ export function sizingJson(report: SizingReport): object {
       sharedWith: p.sharedWith,
       governingPartId: p.governingPartId,
       worstEvent: p.worstEvent ?? null,
-      adiabatic: p.adiabatic === undefined ? null : { riseK: p.adiabatic.riseK, capacityJPerK: p.adiabatic.capacityJPerK, massKg: p.adiabatic.massKg ?? null },
+      adiabatic:
+        p.adiabatic === undefined
+          ? null
+          : {
+              riseK: p.adiabatic.riseK,
+              capacityJPerK: p.adiabatic.capacityJPerK,
+              massKg: p.adiabatic.massKg ?? null,
+              // the quick m = E/(c·ΔT) per common element and body material (empty with no energy)
+              massEstimates: p.worstEvent !== undefined && p.worstEvent.energyJ > 0 && p.adiabatic.riseK > 0 ? adiabaticMassEstimates(p.worstEvent.energyJ, p.adiabatic.riseK) : [],
+            },
       inversion: {
         status: p.inversion.status,
         scope: p.inversion.scope,

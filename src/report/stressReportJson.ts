@@ -1,4 +1,5 @@
 import type { StressReport } from "../stress/assessStress.js";
+import { limitMargin } from "../stress/LimitCheck.js";
 
 /** JSON-safe number: Infinity and NaN become null (JSON has neither). */
 function safe(x: number | undefined): number | null {
@@ -66,6 +67,25 @@ export interface StressJson {
     }[];
     warnings: readonly string[];
   } | null;
+  /** the limits beside temperature, one entry each (voltage, continuous-power, adiabatic, repetitive-pulse) */
+  readonly limits: readonly {
+    limit: string;
+    status: string;
+    /** worst value found, in `unit` */
+    found: number;
+    /** allowed there, in `unit`; null where the rule does not cover the case */
+    allowed: number | null;
+    unit: string;
+    /** allowed − found in `unit`; null without an allowance */
+    margin: number | null;
+    /** margin / allowed; null without a positive allowance */
+    marginShare: number | null;
+    eventIndex: number | null;
+    eventStartS: number | null;
+    basis: string;
+    checked: number;
+    crossed: number;
+  }[];
   readonly notes: readonly string[];
 }
 
@@ -147,6 +167,23 @@ export function stressReportJson(report: StressReport): StressJson {
             })),
             warnings: d.warnings,
           },
+    limits: report.limits.map((l) => {
+      const { margin, share } = limitMargin(l);
+      return {
+        limit: l.limit,
+        status: l.status,
+        found: safe(l.found) ?? 0,
+        allowed: safe(l.allowed),
+        unit: l.unit,
+        margin: safe(margin),
+        marginShare: safe(share),
+        eventIndex: l.eventIndex ?? null,
+        eventStartS: safe(l.eventStartS),
+        basis: l.basis,
+        checked: l.checked,
+        crossed: l.crossed,
+      };
+    }),
     notes: report.notes,
   };
 }

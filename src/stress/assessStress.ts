@@ -1,4 +1,5 @@
 import { describeFound, inputError } from "../errors/InputError.js";
+import type { LimitCheck } from "./LimitCheck.js";
 import { DEFAULT_TOP_CYCLES, MinerAccumulator, type MinerDamage } from "./minerDamage.js";
 import { type PulseEnergyCheck, type PulseEnergyDerating, type RatingStatus, checkPulseEnergy, pulseEnergyDeratingFactor } from "./pulseEnergyRating.js";
 import { type RainflowCycle, RainflowCounter, type RainflowMode } from "./rainflowCounter.js";
@@ -91,6 +92,8 @@ export interface StressReport {
   readonly cycleDamage: readonly number[];
   /** Miner damage; undefined when the part has no cycling model */
   readonly damage: MinerDamage | undefined;
+  /** the limits beside temperature, one entry per limit the part's ratings give (empty when judged by no caller) */
+  readonly limits: readonly LimitCheck[];
   /** conventions used and what was not checked, in words */
   readonly notes: readonly string[];
   /** stress-specific cautions for human-readable reports (lifetime estimate, linear-mode MOSFET); the
@@ -213,6 +216,11 @@ export class StressAssessment {
     if (pulseEnergy !== undefined) {
       notes.push("Pulse-energy check: each event is read at its equivalent rectangular duration E/P_peak (same energy, same peak power; common practice).");
       notes.push(pulseEnergyDeratingNote(pulseEnergyDerating));
+      const form = this.config.pulseEnergyForm;
+      const rows = pulseEnergy.map((r) => `${Number(r.energyJ.toPrecision(4))} J at ${Number(r.durationS.toPrecision(4))} s`).join(", ");
+      if (form === "power") notes.push(`Pulse rating given as peak power against duration, converted row by row to E = P·t: ${rows}.`);
+      else if (form === "energy-per-ohm")
+        notes.push(`Pulse rating given as energy per ohm of a series, interpolated log-log to ${this.config.resistanceOhm} ohm and multiplied by it: ${rows}.`);
     } else notes.push("No pulse-energy rating table given: events are not checked against a single-pulse rating.");
     if (soa !== undefined)
       notes.push("SOA check: every operating point is held to the boundary for the whole event duration (conservative; common practice).");
@@ -249,6 +257,7 @@ export class StressAssessment {
       cycles: this.cycles,
       cycleDamage: this.cycleDamage,
       damage: this.miner?.result(this.options.repetitionsPerYear),
+      limits: [],
       notes,
       cautions,
     };

@@ -9,7 +9,17 @@ import { NORRIS_LANDZBERG_SNPB, norrisLandzbergModel } from "./norrisLandzberg.j
 import { PULSE_ENERGY_DERATING_DEFAULTS, type PulseEnergyDerating, type PulseEnergyPoint, validatePulseEnergyTable } from "./pulseEnergyRating.js";
 import { type SoaDerating, type SoaTable, validateSoaTable } from "./soaTable.js";
 import { type StressKeysInput, stressKeysSchema } from "./stressKeysSchema.js";
+import { materialPreset } from "../thermal/materials.js";
+import { type AdiabaticElement, spreadingTimeS } from "./adiabaticLimit.js";
+import { energyPerOhmTable, validateEnergyPerOhmSeries } from "./energyPerOhmRating.js";
+import { type PowerDerating, validatePowerDerating } from "./powerDerating.js";
+import { pulsePowerToEnergyTable } from "./pulsePowerRating.js";
+import { type RepetitivePulseRule, validateRepetitivePulseRule } from "./repetitivePulseRule.js";
+import type { VoltageRating } from "./voltageRating.js";
 import { DEFAULT_CYCLE_HYSTERESIS_K } from "./turningPoints.js";
+
+/** The forms a single-pulse rating can be given in. */
+export type PulseRatingForm = "energy" | "power" | "energy-per-ohm";
 
 /** What kind of part the stress keys belong to: resistors may only use Coffin-Manson. */
 export type StressPartKind = "resistor" | "mosfet" | "other";
@@ -18,6 +28,24 @@ export type StressPartKind = "resistor" | "mosfet" | "other";
 export interface StressConfig {
   /** single-pulse energy rating, rows in increasing duration; undefined: none given */
   readonly pulseEnergy: readonly PulseEnergyPoint[] | undefined;
+  /**
+   * the form the single-pulse rating was given in, converted to `pulseEnergy`: energy against
+   * duration, peak power against duration (E = P·t), or energy per ohm of a series at the part's
+   * resistance; undefined with no single-pulse rating
+   */
+  readonly pulseEnergyForm: PulseRatingForm | undefined;
+  /** the part's resistance as its ratings state it [ohm] (`ratings.resistance`); undefined: not given */
+  readonly resistanceOhm: number | undefined;
+  /** allowed energy per pulse of a train; undefined: none given */
+  readonly repetitive: RepetitivePulseRule | undefined;
+  /** voltage ratings; undefined: none given */
+  readonly voltage: VoltageRating | undefined;
+  /** continuous power rating and its derating against ambient; undefined: none given */
+  readonly continuousPower: PowerDerating | undefined;
+  /** the element's own heat capacity and spreading time for the adiabatic limit; undefined: none given */
+  readonly adiabatic: AdiabaticElement | undefined;
+  /** temperature the element may reach in the adiabatic limit [°C] (the pulse derating's T_max, else the part's limit); undefined: not known */
+  readonly elementMaxC: number | undefined;
   /**
    * how the pulse-energy rating is derated at a hot start; undefined when there is no table, or
    * when no maximum temperature is known (neither `pulseEnergyDerating.maxTemperature` nor the
@@ -154,6 +182,13 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
  * A pulse-energy table is always derated for the part's temperature at each event start
  * (`pulseEnergyDerating`): from `reference` (default {@link PULSE_ENERGY_DERATING_DEFAULTS})
  * to nothing at `maxTemperature` (default: the part's limit, `options.limitC`).
+ * The single-pulse rating may be given in one of three forms, each converted to that table:
+ * `pulseEnergy`, `pulsePower` (E = P·t per row) or `energyPerOhm` of a series read log-log at the
+ * part's `resistance`; two forms at once are refused. `repetitive` (by period or by duty cycle),
+ * `voltage`, `continuousPower` and `adiabatic` (capacity from a mass and a material preset or as
+ * given, spreading time d²/α or as given) are resolved for the limits beside temperature
+ * (PartLimits). A `series` key left in is refused: the profile loader reads a family file and
+ * replaces it with the series' keys.
  * Cost O(table sizes).
  * @param raw the part object (or just its stress keys) as read from the profile
  * @param options field prefix for messages (such as `parts[1]`), the part's kind and its
@@ -194,7 +229,88 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
     }));
     validatePulseEnergyTable(pulseEnergy, f);
   }
-  const pulseEnergyDerating = pulseEnergy === undefined ? undefined : resolvePulseEnergyDerating(keys, `${ratingsField}.pulseEnergyDerating`, options.limitC);
+  const ratings = keys.ratings;
+  const forms = (["pulseEnergy", "pulsePower", "energyPerOhm"] as const).filter((k) => ratings?.[k] !== undefined);
+  if (forms.length > 1)
+    throw inputError("bad-profile", `${ratingsField}.${forms[1]}`, `one single-pulse rating form per part (this part already has ${forms[0]})`, `both ${forms.join(" and ")}`);
+  if (ratings?.series !== undefined)
+    throw inputError("bad-profile", `${ratingsField}.series`, "a series read in by the profile loader (give the series' tables inline when there is no profile)", describeFound(ratings.series.file));
+  const resistanceOhm = ratings?.resistance === undefined ? undefined : parseQuantity(ratings.resistance, "resistance", `${ratingsField}.resistance`);
+  if (resistanceOhm !== undefined && !(resistanceOhm > 0)) throw inputError("out-of-range", `${ratingsField}.resistance`, "a resistance > 0 ohm", describeFound(ratings?.resistance));
+  let pulseEnergyForm: PulseRatingForm | undefined = pulseEnergy === undefined ? undefined : "energy";
+  if (ratings?.pulsePower !== undefined) {
+    const f = `${ratingsField}.pulsePower`;
+    pulseEnergy = pulsePowerToEnergyTable(
+      ratings.pulsePower.map((row, i) => ({ durationS: parseQuantity(row.duration, "time", `${f}[${i}].duration`), powerW: parseQuantity(row.power, "power", `${f}[${i}].power`) })),
+      f,
+    );
+    validatePulseEnergyTable(pulseEnergy, f);
+    pulseEnergyForm = "power";
+  }
+  if (ratings?.energyPerOhm !== undefined) {
+    const f = `${ratingsField}.energyPerOhm`;
+    const series = {
+      durationsS: ratings.energyPerOhm.durations.map((d, j) => parseQuantity(d, "time", `${f}.durations[${j}]`)),
+      rows: ratings.energyPerOhm.rows.map((row, i) => ({
+        resistanceOhm: parseQuantity(row.resistance, "resistance", `${f}.rows[${i}].resistance`),
+        energyPerOhmJPerOhm: row.energyPerOhm.map((e, j) => parseQuantity(e, "energyPerResistance", `${f}.rows[${i}].energyPerOhm[${j}]`)),
+      })),
+    };
+    validateEnergyPerOhmSeries(series, f);
+    if (resistanceOhm === undefined) throw inputError("bad-profile", `${ratingsField}.resistance`, "the part's resistance value, to read the energy-per-ohm table at", "nothing");
+    pulseEnergy = energyPerOhmTable(series, resistanceOhm, `${ratingsField}.resistance`);
+    validatePulseEnergyTable(pulseEnergy, f);
+    pulseEnergyForm = "energy-per-ohm";
+  }
+  let repetitive: RepetitivePulseRule | undefined;
+  if (ratings?.repetitive !== undefined) {
+    const f = `${ratingsField}.repetitive`;
+    const byPeriod = ratings.repetitive[0]?.period !== undefined;
+    repetitive = {
+      by: byPeriod ? "period" : "duty-cycle",
+      rows: ratings.repetitive.map((row, i) => {
+        const given = byPeriod ? row.period : row.dutyCycle;
+        const other = byPeriod ? row.dutyCycle : row.period;
+        if (given === undefined || other !== undefined)
+          throw inputError(
+            "bad-profile",
+            `${f}[${i}]`,
+            `${byPeriod ? "a period" : "a dutyCycle"} like the first row (one kind of row per rule)`,
+            other !== undefined ? `${byPeriod ? "dutyCycle" : "period"}` : "neither period nor dutyCycle",
+          );
+        return { at: byPeriod ? parseQuantity(given, "time", `${f}[${i}].period`) : (given as number), energyJ: parseQuantity(row.energy, "energy", `${f}[${i}].energy`) };
+      }),
+    };
+    validateRepetitivePulseRule(repetitive, f);
+  }
+  let voltage: VoltageRating | undefined;
+  if (ratings?.voltage !== undefined) {
+    const f = `${ratingsField}.voltage`;
+    const v = ratings.voltage;
+    const read = (raw: unknown, key: string): number | undefined => {
+      if (raw === undefined) return undefined;
+      const x = parseQuantity(raw, "voltage", `${f}.${key}`);
+      if (!(x > 0)) throw inputError("out-of-range", `${f}.${key}`, "a voltage > 0 V", describeFound(raw));
+      return x;
+    };
+    voltage = { limitingElementV: read(v.limitingElement, "limitingElement"), pulseV: read(v.pulse, "pulse") };
+    if (voltage.limitingElementV === undefined && voltage.pulseV === undefined) throw inputError("bad-profile", f, "a limitingElement voltage, a pulse voltage, or both", "neither");
+  }
+  let continuousPower: PowerDerating | undefined;
+  if (ratings?.continuousPower !== undefined) {
+    const f = `${ratingsField}.continuousPower`;
+    const c = ratings.continuousPower;
+    continuousPower = {
+      ratedPowerW: parseQuantity(c.rated, "power", `${f}.rated`),
+      fullPowerUpToC: parseQuantity(c.fullPowerUpTo, "temperature", `${f}.fullPowerUpTo`),
+      zeroPowerAtC: parseQuantity(c.zeroPowerAt, "temperature", `${f}.zeroPowerAt`),
+    };
+    validatePowerDerating(continuousPower, f);
+  }
+  const adiabatic = ratings?.adiabatic === undefined ? undefined : resolveAdiabatic(ratings.adiabatic, `${ratingsField}.adiabatic`);
+  const pulseEnergyDerating =
+    pulseEnergy === undefined && repetitive === undefined ? undefined : resolvePulseEnergyDerating(keys, `${ratingsField}.pulseEnergyDerating`, options.limitC);
+  const elementMaxC = pulseEnergyDerating?.maxTemperatureC ?? options.limitC;
   if (keys.ratings?.soa !== undefined) {
     const f = `${ratingsField}.soa`;
     soa = keys.ratings.soa.map((curve, k) => ({
@@ -233,7 +349,21 @@ export function resolveStressConfig(raw: unknown, options: { field?: string; par
       : parseQuantity(keys.cycleHysteresis, "temperatureDifference", at(prefix, "cycleHysteresis"));
   if (!(cycleHysteresisK >= 0))
     throw inputError("out-of-range", at(prefix, "cycleHysteresis"), "a temperature difference ≥ 0 K", describeFound(keys.cycleHysteresis));
-  return { pulseEnergy, pulseEnergyDerating, soa, soaDerating, lifetime, cycleHysteresisK };
+  return {
+    pulseEnergy,
+    pulseEnergyForm,
+    resistanceOhm,
+    repetitive,
+    voltage,
+    continuousPower,
+    adiabatic,
+    elementMaxC,
+    pulseEnergyDerating,
+    soa,
+    soaDerating,
+    lifetime,
+    cycleHysteresisK,
+  };
 }
 
 /** The pulse-energy derating of a part with a table: profile keys over the defaults; undefined with no maximum temperature known. */
@@ -258,4 +388,36 @@ function resolvePulseEnergyDerating(keys: StressKeysInput, f: string, limitC: nu
     referenceFrom: given?.reference === undefined ? "default" : "profile",
     maxTemperatureFrom: given?.maxTemperature === undefined ? "part limit" : "profile",
   };
+}
+
+/**
+ * The element of the adiabatic limit: its heat capacity (given, or its mass times the material's
+ * specific heat) and its spreading time (given, or thickness²/α with α = k/(ρ·c) of the material).
+ */
+function resolveAdiabatic(raw: NonNullable<NonNullable<StressKeysInput["ratings"]>["adiabatic"]>, f: string): AdiabaticElement {
+  const material = raw.material === undefined ? undefined : materialPreset(raw.material, `${f}.material`);
+  let heatCapacityJPerK: number;
+  let capacityWords: string;
+  if (raw.heatCapacity !== undefined) {
+    heatCapacityJPerK = parseQuantity(raw.heatCapacity, "heatCapacity", `${f}.heatCapacity`);
+    capacityWords = `element heat capacity ${heatCapacityJPerK} J/K`;
+  } else if (raw.mass !== undefined && material !== undefined) {
+    const massKg = parseQuantity(raw.mass, "mass", `${f}.mass`);
+    heatCapacityJPerK = massKg * material.specificHeatJPerKgK;
+    capacityWords = `element of ${Number((massKg * 1000).toPrecision(4))} g of ${material.id} (c ${material.specificHeatJPerKgK} J/(kg K), ${material.provenance})`;
+  } else throw inputError("bad-profile", f, "heatCapacity, or mass with a material preset", raw.mass === undefined ? "neither" : "a mass without a material");
+  if (!(heatCapacityJPerK > 0)) throw inputError("out-of-range", `${f}.${raw.heatCapacity === undefined ? "mass" : "heatCapacity"}`, "a value > 0", describeFound(raw.heatCapacity ?? raw.mass));
+  let spreading: number;
+  let spreadingWords: string;
+  if (raw.spreadingTime !== undefined) {
+    spreading = parseQuantity(raw.spreadingTime, "time", `${f}.spreadingTime`);
+    if (!(spreading > 0)) throw inputError("out-of-range", `${f}.spreadingTime`, "a time > 0 s", describeFound(raw.spreadingTime));
+    spreadingWords = `spreading time ${spreading} s as given`;
+  } else if (raw.thickness !== undefined && material !== undefined) {
+    const thicknessM = parseQuantity(raw.thickness, "length", `${f}.thickness`);
+    const alpha = material.conductivityWPerMK / (material.densityKgPerM3 * material.specificHeatJPerKgK);
+    spreading = spreadingTimeS(thicknessM, alpha, f);
+    spreadingWords = `spreading time d²/α = ${Number(spreading.toPrecision(3))} s (d ${Number((thicknessM * 1e6).toPrecision(4))} um of ${material.id})`;
+  } else throw inputError("bad-profile", f, "spreadingTime, or thickness with a material preset", raw.thickness === undefined ? "neither" : "a thickness without a material");
+  return { spreadingTimeS: spreading, heatCapacityJPerK, basis: `${capacityWords}; ${spreadingWords}` };
 }

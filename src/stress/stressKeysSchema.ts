@@ -74,8 +74,11 @@ export const LIFETIME_MODEL_NAMES = ["coffin-manson", "norris-landzberg", "lesit
 
 /**
  * zod 4 schema of the part keys the stress layer owns, to be merged into the profile's part
- * schema (`partSchema.extend(stressKeysSchema.shape)`): `ratings` (pulse-energy and SOA tables
- * and how each is derated for a hot part),
+ * schema (`partSchema.extend(stressKeysSchema.shape)`): `ratings` (a single-pulse rating in one
+ * of three forms: `pulseEnergy`, `pulsePower` or `energyPerOhm` of a series with the part's
+ * `resistance`, or a `series` entry of a family file the profile loader reads in; a
+ * `repetitive` rule; SOA tables; how each is derated for a hot part; the limits beside
+ * temperature: `voltage`, `continuousPower`, `adiabatic`),
  * `lifetime` (a cycling model and its parameters) and `cycleHysteresis`. Quantities stay raw
  * here (number in SI or string with a unit); {@link resolveStressConfig} parses them with
  * parseQuantity and checks the tables, with field paths in every error.
@@ -96,6 +99,31 @@ export const stressKeysSchema = z.object({
         .optional(),
       soaDerating: z.object({ reference: quantity, maxJunction: quantity }).strict().optional(),
       pulseEnergyDerating: z.object({ reference: quantity.optional(), maxTemperature: quantity.optional() }).strict().optional(),
+      // the other forms of a single-pulse rating, each turned into a pulse-energy table
+      pulsePower: z.array(z.object({ duration: quantity, power: quantity }).strict()).optional(),
+      energyPerOhm: z
+        .object({
+          durations: z.array(quantity),
+          rows: z.array(z.object({ resistance: quantity, energyPerOhm: z.array(quantity) }).strict()),
+        })
+        .strict()
+        .optional(),
+      resistance: quantity.optional(),
+      series: z.object({ file: z.string(), id: z.string() }).strict().optional(),
+      repetitive: z.array(z.object({ period: quantity.optional(), dutyCycle: count.optional(), energy: quantity }).strict()).optional(),
+      // limits beside temperature
+      voltage: z.object({ limitingElement: quantity.optional(), pulse: quantity.optional() }).strict().optional(),
+      continuousPower: z.object({ rated: quantity, fullPowerUpTo: quantity, zeroPowerAt: quantity }).strict().optional(),
+      adiabatic: z
+        .object({
+          spreadingTime: quantity.optional(),
+          thickness: quantity.optional(),
+          material: z.string().optional(),
+          heatCapacity: quantity.optional(),
+          mass: quantity.optional(),
+        })
+        .strict()
+        .optional(),
     })
     .strict()
     .optional(),

@@ -56,6 +56,27 @@ export const MATERIALS: readonly MaterialPreset[] = [
   { id: "alumina", name: "aluminum oxide, polycrystalline", densityKgPerM3: 3970, specificHeatJPerKgK: 765, conductivityWPerMK: 36, source: INCROPERA_A2, provenance: "from memory" },
   // Table A.2, "Silicon carbide": rho 3160, cp 675, k 490 (from memory)
   { id: "silicon-carbide", name: "silicon carbide", densityKgPerM3: 3160, specificHeatJPerKgK: 675, conductivityWPerMK: 490, source: INCROPERA_A2, provenance: "from memory" },
+  // Steatite (a magnesium-silicate ceramic, the core and body of many wire-wound resistors) and a
+  // generic technical ceramic body are not in the tables above: typical values, from memory and
+  // common practice (they spread by about ±15 % between grades).
+  {
+    id: "steatite",
+    name: "steatite ceramic (typical)",
+    densityKgPerM3: 2700,
+    specificHeatJPerKgK: 900,
+    conductivityWPerMK: 2.5,
+    source: "no handbook table: typical steatite values (common practice), spread about ±15 % between grades",
+    provenance: "from memory",
+  },
+  {
+    id: "ceramic",
+    name: "technical ceramic body (typical)",
+    densityKgPerM3: 2500,
+    specificHeatJPerKgK: 850,
+    conductivityWPerMK: 1.5,
+    source: "no handbook table: typical ceramic-body values (common practice), spread about ±15 % between bodies",
+    provenance: "from memory",
+  },
   // FR-4 glass-epoxy laminate is not in the tables above. Typical laminate values, from memory and
   // common practice (they vary with resin and glass content by ±15 %): rho 1850, cp 1100, k 0.3 through the plane.
   {

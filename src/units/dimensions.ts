@@ -23,6 +23,7 @@ export const DIMENSIONS = {
   inductance: { si: "H", words: "an inductance", example: "2 uH" },
   voltageRate: { si: "V/s", words: "a voltage rise rate", example: "200 V/s" },
   currentSquaredTime: { si: "A^2 s", words: "a current-squared time (I²t)", example: "5 A^2 s" },
+  energyPerResistance: { si: "J/ohm", words: "an energy per ohm", example: "0.5 J/ohm" },
   dimensionless: { si: "", words: "a plain number", example: "0.95" },
 } as const;
 

@@ -41,6 +41,7 @@ const PROBE: Record<Exclude<Dimension, "dimensionless">, string> = {
   inductance: "H",
   voltageRate: "V/s",
   currentSquaredTime: "A^2 s",
+  energyPerResistance: "J/ohm",
 };
 
 /** Names mathjs gives to base dimensions, turned into words for "found 4.7 mV (a voltage)". */

@@ -29,6 +29,7 @@ export const QUANTITY_RANGES: Readonly<Record<Exclude<Dimension, "dimensionless"
   inductance: { max: 1e3, minNonZero: 1e-15 },
   voltageRate: { max: 1e12, minNonZero: 1e-12 },
   currentSquaredTime: { max: 1e15, minNonZero: 1e-15 },
+  energyPerResistance: { max: 1e12, minNonZero: 1e-15 },
 };
 
 /** 1e12 rather than 1000000000000 in a message. */

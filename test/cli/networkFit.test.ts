@@ -192,8 +192,8 @@ describe("heatledger network lumped", () => {
   });
 
   test.each([
-    [["--mass", "3 g", "--r-ambient", "40 K/W"], "heatledger: --material: expected a material preset (copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, fr4) or --specific-heat, found nothing\n"],
-    [["--mass", "3 g", "--material", "kryptonite", "--r-ambient", "40 K/W"], 'heatledger: --material: expected one of the material presets copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, fr4, found "kryptonite"\n'],
+    [["--mass", "3 g", "--r-ambient", "40 K/W"], "heatledger: --material: expected a material preset (copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, steatite, ceramic, fr4) or --specific-heat, found nothing\n"],
+    [["--mass", "3 g", "--material", "kryptonite", "--r-ambient", "40 K/W"], 'heatledger: --material: expected one of the material presets copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, steatite, ceramic, fr4, found "kryptonite"\n'],
     [["--mass", "3 V", "--material", "copper", "--r-ambient", "40 K/W"], 'heatledger: --mass: expected a mass such as "8 g" (or a number in kg), found "3 V" (a voltage)\n'],
     [["--mass", "3 g", "--material", "copper", "--r-ambient", "40 K/W", "--body-mass", "5 g", "--body-material", "steel"], 'heatledger: --r-body: expected the resistance from the element to the body, such as "2 K/W", found nothing\n'],
   ])("network lumped %j exits 2 with one clear line", async (flags, message) => {

@@ -310,7 +310,7 @@ describe("bad stress keys in a profile: file:line, field, expected, found", () =
     [
       "a misspelt rating key",
       "    ratings: { pulseEnergies: [] }",
-      'dir/p.yaml:8: parts[0].ratings.pulseEnergies: expected one of the keys pulseEnergy, soa, soaDerating, pulseEnergyDerating (did you mean "pulseEnergy"?), found an unknown key',
+      'dir/p.yaml:8: parts[0].ratings.pulseEnergies: expected one of the keys pulseEnergy, soa, soaDerating, pulseEnergyDerating, pulsePower, energyPerOhm, resistance, series, repetitive, voltage, continuousPower, adiabatic (did you mean "pulseEnergy"?), found an unknown key',
     ],
     [
       "a hysteresis in the wrong unit",

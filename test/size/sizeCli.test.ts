@@ -156,7 +156,7 @@ events:
     {
       args: ["--material", "unobtainium"],
       message:
-        'heatledger: --material: expected one of the material presets copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, fr4, found "unobtainium"\n',
+        'heatledger: --material: expected one of the material presets copper, aluminium, aluminium-2024, brass, steel, stainless-304, nichrome, constantan, nickel, silicon, alumina, silicon-carbide, steatite, ceramic, fr4, found "unobtainium"\n',
     },
     { args: ["--margin", "5 degC"], message: 'heatledger: --margin: expected a temperature difference such as "10 K" (or a number in K); write differences in K, found "5 degC" (an absolute temperature)\n' },
     { args: ["--margin=-3"], message: "heatledger: --margin: expected a margin ≥ 0 K, found -3\n" },

@@ -180,7 +180,7 @@ describe("stress formatters", () => {
     const json = stressReportJson(report);
     const text = JSON.stringify(json);
     expect(text).not.toMatch(/Infinity|NaN/);
-    expect(Object.keys(json)).toEqual(["ratingStatus", "ratingChecks", "cycles", "damage", "notes"]);
+    expect(Object.keys(json)).toEqual(["ratingStatus", "ratingChecks", "cycles", "damage", "limits", "notes"]);
     expect(json.damage!.yearsToEndOfLife).toBeNull(); // no rate given
     expect(json.cycles.fullCycles).toBe(pulses);
   });

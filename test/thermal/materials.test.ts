@@ -4,7 +4,7 @@ import { InputError, MATERIALS, materialPreset } from "../../src/internal.js";
 // The handbook values each preset must carry, written out again beside their table so a changed
 // digit in src/ fails here. All from Incropera, DeWitt, Bergman & Lavine, Fundamentals of Heat and
 // Mass Transfer, 7th ed. (2011), at 300 K; recalled, not re-read ("from memory"): check them
-// against a printed copy when one is at hand. FR-4 has no handbook row: typical laminate values,
+// against a printed copy when one is at hand. FR-4, steatite and a ceramic body have no handbook row: typical values,
 // common practice, from memory. Exact equality: these are copied values, not computations.
 describe("MATERIALS", () => {
   test.each([
@@ -21,6 +21,8 @@ describe("MATERIALS", () => {
     ["silicon", "A.1", 2330, 712, 148], // Table A.1 "Silicon" (from memory)
     ["alumina", "A.2", 3970, 765, 36], // Table A.2 "Aluminum oxide, polycrystalline" (from memory)
     ["silicon-carbide", "A.2", 3160, 675, 490], // Table A.2 "Silicon carbide" (from memory)
+    ["steatite", "none", 2700, 900, 2.5], // typical steatite ceramic (common practice, from memory)
+    ["ceramic", "none", 2500, 850, 1.5], // typical technical ceramic body (common practice, from memory)
     ["fr4", "none", 1850, 1100, 0.3], // typical FR-4 laminate (common practice, from memory)
   ] as const)("preset %s equals Incropera Table %s values", (id, table, density, specificHeat, conductivity) => {
     const m = materialPreset(id);
@@ -30,7 +32,7 @@ describe("MATERIALS", () => {
   });
 
   test("every preset is covered by the table above", () => {
-    expect(MATERIALS.length).toBe(13);
+    expect(MATERIALS.length).toBe(15);
   });
 
   test("materialPreset accepts the US spelling and any case", () => {
