@@ -1,5 +1,7 @@
 import { existsSync } from "node:fs";
+import type { TextSource } from "../replay/EventLogScanner.js";
 import { outputPathProblem, readBoundedTextFile, writeFileAtomically } from "./fileSystemIo.js";
+import { fileTextSource } from "./fileTextSource.js";
 
 /** Everything the CLI does to the outside world, so commands can be tested in process. */
 export interface CliIo {
@@ -9,6 +11,8 @@ export interface CliIo {
   readonly err: (text: string) => void;
   /** read a UTF-8 text file (the process's: bounded in size, regular files only, strict UTF-8) */
   readonly readFile: (path: string) => string;
+  /** open a text file to be read piece by piece (a long log); absent (in-process tests): readFile serves it whole */
+  readonly openText?: (path: string, what: string) => TextSource & { readonly close: () => void };
   /** write a UTF-8 text file (the process's: atomically, through a temporary file renamed over it) */
   readonly writeFile: (path: string, text: string) => void;
   /** whether a path exists (commands refuse to overwrite without --force) */
@@ -66,6 +70,7 @@ export function processIo(): CliIo {
     out: (text) => process.stdout.write(text),
     err: (text) => process.stderr.write(text),
     readFile: readBoundedTextFile,
+    openText: fileTextSource,
     writeFile: writeFileAtomically,
     exists: (path) => existsSync(path),
     outputProblem: outputPathProblem,
