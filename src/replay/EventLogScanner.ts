@@ -206,7 +206,9 @@ export class EventLogScanner {
 
   /** Make sure the buffer holds a whole line from `position` (or the rest of the file); false at the end of the file. */
   private fill(): boolean {
-    while (this.buffer.indexOf("\n", this.position) < 0 && !this.ended) {
+    // where the search for a line break goes on (the text before it has none)
+    let from = this.position;
+    while (this.buffer.indexOf("\n", from) < 0 && !this.ended) {
       const piece = this.source();
       if (piece === undefined) {
         this.ended = true;
@@ -215,6 +217,7 @@ export class EventLogScanner {
       if (this.buffer.length - this.position > MAX_LOG_LINE_CHARS)
         throw this.fail(this.physical + 1, "", `lines of at most ${MAX_LOG_LINE_CHARS} characters (a CSV text file)`, "a longer line");
       const rest = this.position < this.buffer.length ? this.buffer.slice(this.position) : "";
+      from = rest.length;
       // a byte-order mark at the very start is dropped
       this.buffer = this.physical === 0 && rest === "" && this.position === 0 && piece.charCodeAt(0) === 0xfeff ? piece.slice(1) : rest + piece;
       this.position = 0;
@@ -233,32 +236,33 @@ export class EventLogScanner {
       const start = this.position;
       let end = buffer.indexOf("\n", start);
       if (end < 0) end = buffer.length;
-      let stop = end > start && buffer.charCodeAt(end - 1) === 13 ? end - 1 : end;
-      const quote = buffer.indexOf('"', start);
-      if (quote >= 0 && quote < stop) {
-        const hash = buffer.indexOf("#", start);
-        if (hash < 0 || hash > quote) {
-          if (this.readQuoted()) return true;
-          continue;
-        }
-      }
-      this.position = end + 1;
-      this.physical++;
-      const hash = buffer.indexOf("#", start);
-      if (hash >= 0 && hash < stop) stop = hash;
-      // the cells, split at commas and trimmed
+      const stop = end > start && buffer.charCodeAt(end - 1) === 13 ? end - 1 : end;
+      // one pass over the line: cells split at commas and trimmed, up to a "#" (a comment); a
+      // quote before any "#" sends the record to the slow path
       let count = 0;
       let from = start;
       let any = false;
-      for (;;) {
-        const comma = buffer.indexOf(",", from);
-        const cellEnd = comma < 0 || comma >= stop ? stop : comma;
-        const cell = from === cellEnd ? "" : trimmed(buffer, from, cellEnd);
-        if (cell !== "") any = true;
-        this.cells[count++] = cell;
-        if (cellEnd === stop) break;
-        from = cellEnd + 1;
+      let quoted = false;
+      for (let i = start; ; i++) {
+        const c = i < stop ? buffer.charCodeAt(i) : -1;
+        if (c === 34) {
+          quoted = true;
+          break;
+        }
+        if (c === 44 || c === 35 || c === -1) {
+          const cell = from === i ? "" : trimmed(buffer, from, i);
+          if (cell !== "") any = true;
+          this.cells[count++] = cell;
+          if (c !== 44) break;
+          from = i + 1;
+        }
       }
+      if (quoted) {
+        if (this.readQuoted()) return true;
+        continue;
+      }
+      this.position = end + 1;
+      this.physical++;
       this.cellCount = count;
       this.line = this.physical;
       if (any) return true;

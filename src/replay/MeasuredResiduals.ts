@@ -32,8 +32,7 @@ export interface MeasuredComparison {
  * the count, the sum and the sum of squares of the residual r = replayed − measured, and the
  * largest |r| with its line. Mean = Σr/n, RMS = √(Σr²/n) (the usual definitions; a fit is good
  * when the mean is near 0 and the RMS near the sensor's own error).
- * Source: residual statistics as any least-squares text defines them (e.g. Press et al.,
- * Numerical Recipes, 3rd ed. (2007), §15.1).
+ * Source: the usual definitions of mean and root mean square (common practice).
  * Cost O(1) per measurement.
  */
 export class MeasuredResiduals {

@@ -68,6 +68,8 @@ const RECENT_LINES = 8;
  * parts, circuit and limits, with no events (the log's are pulled as they are read) and without
  * `occursPerYear` (it describes the profile's own events, not the log).
  * Cost O(1).
+ * @example
+ * replayShell(profile("irrigation-pump-decade.yaml")).events.length // => 0
  */
 export function replayShell(profile: DutyProfile): DutyProfile {
   const { occursPerYear: _dropped, ...rest } = profile;
