@@ -141,9 +141,10 @@ function formatMeasured(m: MeasuredComparison): string[] {
   const kelvin = (k: number): string => `${k >= 0 ? "+" : "−"}${formatNumber(Math.abs(k), 3)} K`;
   const out = [
     m.ambient === "measured"
-      ? "measured temperatures against the replay, on the log's measured ambient (the run itself keeps the profile's):"
-      : "measured temperatures against the replay (on the profile's ambient):",
+      ? "measured temperatures against the replay, on the log's measured ambient"
+      : "measured temperatures against the replay, on the profile's ambient",
   ];
+  if (m.ambient === "measured") out.push("  (the replay's peaks, limits and damage keep the profile's ambient)");
   if (m.measuredAmbient !== null) {
     const a = m.measuredAmbient;
     out.push(`  ambient measured on ${a.count} line${a.count === 1 ? "" : "s"}: mean ${formatNumber(a.meanC, 4)} °C, from ${formatNumber(a.minC, 4)} to ${formatNumber(a.maxC, 4)} °C`);
