@@ -9,25 +9,13 @@ import { closeSync, mkdtempSync, openSync, readFileSync, rmSync, writeFileSync, 
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { projectRoot } from "./projectRoot.js";
+import { CART_PARTS } from "../helpers/cartParts.js";
 
 const GNU_TIME = "/usr/bin/time";
 
 /** An invented 48 V cart: one resistor with a cycling model, no rating table. */
 const PARTS = `ambient: 30 degC
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 0.2 s }, { r: 1.5 K/W, tau: 8 s }, { r: 3 K/W, tau: 120 s }] }
-    limits: { maxTemperature: 150 degC, margin: 10 K }
-    lifetime: { model: coffin-manson, referenceCycles: 20000, referenceRange: 80 K, exponent: 3 }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 4.7 mF
-  resistance: 15 ohm
-  completion: { fraction: 0.92, timeout: 800 ms }
-  discharge: { kind: bleeder, resistance: 2.2 kohm }
-`;
+${CART_PARTS}`;
 
 /** The log's cycle: a start, a status line, a switch-off and a pause (seconds to the next line). */
 const CYCLE = [

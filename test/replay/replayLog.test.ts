@@ -16,6 +16,7 @@ import { replayProfile } from "../../src/replay/replayEventLog.js";
 import { replayLog, replayShell } from "../../src/replay/replayLog.js";
 import { textPieces } from "../../src/replay/textPieces.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { CART_PARTS } from "../helpers/cartParts.js";
 
 const PROFILES = new URL("../../profiles/", import.meta.url);
 const LOGS = new URL("logs/", PROFILES);
@@ -24,20 +25,7 @@ const pump = (): DutyProfile => loadProfile(readFileSync(new URL("irrigation-pum
 /** An invented one-part 48 V cart (the same kind of circuit as the other replay tests). */
 const CART = `name: invented 48 V cart
 ambient: 30 degC
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 0.2 s }, { r: 1.5 K/W, tau: 8 s }, { r: 3 K/W, tau: 120 s }] }
-    limits: { maxTemperature: 150 degC, margin: 10 K }
-    lifetime: { model: coffin-manson, referenceCycles: 20000, referenceRange: 80 K, exponent: 3 }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 4.7 mF
-  resistance: 15 ohm
-  completion: { fraction: 0.92, timeout: 800 ms }
-  discharge: { kind: bleeder, resistance: 2.2 kohm }
-events:
+${CART_PARTS}events:
   - power-up: {}
   - fault: { type: overloaded-bus, load: { kind: resistive, resistance: 10 ohm } }
 `;
