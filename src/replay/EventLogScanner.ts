@@ -113,7 +113,7 @@ export class EventLogScanner {
       const name = isMeasured ? `${MEASURED_PREFIX}${raw.slice(MEASURED_PREFIX.length).trim()}` : lower;
       if (!isMeasured && !FIXED_COLUMNS.includes(name)) {
         const guess = nearestKey(name, [...FIXED_COLUMNS, MEASURED_PREFIX.slice(0, -1)]);
-        throw this.fail(this.headerLine, `column ${i + 1}`, `one of the columns ${COLUMN_WORDS}${guess === undefined ? "" : ` (did you mean "${guess}"?)`}`, describeFound(raw));
+        throw this.fail(this.headerLine, `column ${i + 1}`, `one of the columns ${COLUMN_WORDS}${guess === undefined ? "" : ` (did you mean "${guess}"?)`}`, describeCell(raw));
       }
       if (index.has(name)) throw this.fail(this.headerLine, `column ${i + 1}`, "each column once", `a second "${name}" column`);
       index.set(name, i);
@@ -123,7 +123,7 @@ export class EventLogScanner {
       }
     });
     if (!index.has("time") || !index.has("event"))
-      throw this.fail(this.headerLine, "", `a header line naming the columns ${COLUMN_WORDS} (time and event required)`, describeFound(header.join(",")));
+      throw this.fail(this.headerLine, "", `a header line naming the columns ${COLUMN_WORDS} (time and event required)`, describeCell(header.join(",")));
     this.timeAt = index.get("time")!;
     this.eventAt = index.get("event")!;
     this.noteAt = index.get("note") ?? -1;
@@ -152,10 +152,10 @@ export class EventLogScanner {
     if (SECONDS.test(timeText)) {
       kind = "seconds";
       value = Number(timeText);
-      if (!Number.isFinite(value)) throw this.fail(line, "time", TIME_EXPECTED, describeFound(timeText));
+      if (!Number.isFinite(value)) throw this.fail(line, "time", TIME_EXPECTED, describeCell(timeText));
     } else {
       const ms = timestampMs(timeText);
-      if (ms === undefined) throw this.fail(line, "time", TIME_EXPECTED, describeFound(timeText));
+      if (ms === undefined) throw this.fail(line, "time", TIME_EXPECTED, describeCell(timeText));
       kind = "timestamp";
       value = ms;
     }
@@ -165,15 +165,15 @@ export class EventLogScanner {
       this.firstLine = line;
       if (kind === "timestamp") this.startEpochMs = value;
     } else if (kind !== this.timeKind)
-      throw this.fail(line, "time", `${this.timeKind === "seconds" ? "seconds (a number)" : "an ISO 8601 timestamp"} like the first line (line ${this.firstLine})`, describeFound(timeText));
+      throw this.fail(line, "time", `${this.timeKind === "seconds" ? "seconds (a number)" : "an ISO 8601 timestamp"} like the first line (line ${this.firstLine})`, describeCell(timeText));
     const timeS = kind === "seconds" ? value - this.first : (value - this.first) / 1000;
     if (this.count > 0 && timeS < this.timeS)
-      throw this.fail(line, "time", `a time at or after the previous line's (line ${this.previousLine}: ${JSON.stringify(this.previousTimeText)})`, describeFound(timeText));
+      throw this.fail(line, "time", `a time at or after the previous line's (line ${this.previousLine}: ${JSON.stringify(this.previousTimeText)})`, describeCell(timeText));
     const wordText = this.cell(this.eventAt);
     const word = WORDS.get(wordText) ?? WORDS.get(wordText.toLowerCase());
     if (word === undefined) {
       const guess = wordText === "" ? undefined : nearestKey(wordText.toLowerCase(), LOG_WORD_LIST);
-      throw this.fail(line, "event", `one of the event words ${LOG_WORD_LIST.join(", ")}${guess === undefined ? "" : ` (did you mean "${guess}"?)`}`, wordText === "" ? "nothing" : describeFound(wordText));
+      throw this.fail(line, "event", `one of the event words ${LOG_WORD_LIST.join(", ")}${guess === undefined ? "" : ` (did you mean "${guess}"?)`}`, wordText === "" ? "nothing" : describeCell(wordText));
     }
     for (let k = 0; k < this.measuredAt.length; k++) this.measuredC[k] = this.number(this.measuredAt[k]!, header(this.measuredParts[k]!));
     if (this.ambientAt >= 0) this.ambientC = this.number(this.ambientAt, "ambient");
@@ -196,7 +196,7 @@ export class EventLogScanner {
     const text = this.cell(i);
     if (text === "") return Number.NaN;
     const value = NUMBER.test(text) ? Number(text) : Number.NaN;
-    if (!Number.isFinite(value)) throw this.fail(this.line, field, "a temperature in °C (a plain number such as 41.5), or nothing when not measured", describeFound(text));
+    if (!Number.isFinite(value)) throw this.fail(this.line, field, "a temperature in °C (a plain number such as 41.5), or nothing when not measured", describeCell(text));
     return value;
   }
 
@@ -360,6 +360,14 @@ export class EventLogScanner {
       return any;
     }
   }
+}
+
+/** Longest cell quoted whole in a message [characters]: a longer one (a line of garbage) is cut. */
+const QUOTED_CELL_CHARS = 60;
+
+/** A cell as a message's "found": quoted, cut after QUOTED_CELL_CHARS with its length given. */
+function describeCell(text: string): string {
+  return text.length <= QUOTED_CELL_CHARS ? describeFound(text) : `${describeFound(text.slice(0, QUOTED_CELL_CHARS - 3))}... (${text.length} characters)`;
 }
 
 /** The field name of a measured column in messages. */

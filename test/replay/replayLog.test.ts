@@ -193,6 +193,11 @@ describe("replayLog refuses a bad log on its line", () => {
     ],
     ["mixed time formats", `time,event,note\n${good(10)}\n2026-06-01T06:00:00Z,note\n`, 'logs/unit9.csv:12: time: expected seconds (a number) like the first line (line 2), found "2026-06-01T06:00:00Z"'],
     ["garbage with no line break", "x".repeat(3_000_000), "logs/unit9.csv:1: expected lines of at most 1048576 characters (a CSV text file), found a longer line"],
+    [
+      "a long line of garbage: the message quotes its start",
+      `time,event\n${"z".repeat(5000)}\n`,
+      `logs/unit9.csv:2: time: expected a time: seconds from the start of the log (a number such as 12.5) or an ISO 8601 timestamp such as 2026-03-02T06:15:00Z, found "${"z".repeat(57)}"... (5000 characters)`,
+    ],
     ["binary garbage", `\u0001\u0002zz\u00ff,\u0000q\n${"\u0003".repeat(100)}\n`, 'logs/unit9.csv:1: column 1: expected one of the columns time, event, note, ambient, measured:<part id>, found "\\u0001\\u0002zz\u00ff"'],
     [
       "a measured column of no part",
