@@ -206,22 +206,25 @@ export class EventLogScanner {
 
   /** Make sure the buffer holds a whole line from `position` (or the rest of the file); false at the end of the file. */
   private fill(): boolean {
-    // where the search for a line break goes on (the text before it has none)
-    let from = this.position;
-    while (this.buffer.indexOf("\n", from) < 0 && !this.ended) {
-      const piece = this.source();
+    if (this.ended || this.buffer.indexOf("\n", this.position) >= 0) return this.position < this.buffer.length;
+    // pieces without a line break are collected and joined once (no growing string copied per piece)
+    const parts = [this.position < this.buffer.length ? this.buffer.slice(this.position) : ""];
+    let length = parts[0]!.length;
+    for (;;) {
+      let piece = this.source();
       if (piece === undefined) {
         this.ended = true;
         break;
       }
-      if (this.buffer.length - this.position > MAX_LOG_LINE_CHARS)
-        throw this.fail(this.physical + 1, "", `lines of at most ${MAX_LOG_LINE_CHARS} characters (a CSV text file)`, "a longer line");
-      const rest = this.position < this.buffer.length ? this.buffer.slice(this.position) : "";
-      from = rest.length;
       // a byte-order mark at the very start is dropped
-      this.buffer = this.physical === 0 && rest === "" && this.position === 0 && piece.charCodeAt(0) === 0xfeff ? piece.slice(1) : rest + piece;
-      this.position = 0;
+      if (this.physical === 0 && length === 0 && piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
+      parts.push(piece);
+      length += piece.length;
+      if (piece.includes("\n")) break;
+      if (length > MAX_LOG_LINE_CHARS) throw this.fail(this.physical + 1, "", `lines of at most ${MAX_LOG_LINE_CHARS} characters (a CSV text file)`, "a longer line");
     }
+    this.buffer = parts.join("");
+    this.position = 0;
     return this.position < this.buffer.length;
   }
 
