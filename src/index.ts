@@ -131,13 +131,18 @@ export type { SimulationJson, JsonPartEvent } from "./report/simulationJson.js";
 export { SimulationCsv } from "./report/SimulationCsv.js";
 export { formatFosterFit } from "./report/formatFosterFit.js";
 // replay (field event logs -> the profile's events -> history, first exceedance, damage to date)
-export { LOG_WORDS, LOG_WORD_LIST, LOG_COLUMNS } from "./replay/logWords.js";
+export { LOG_WORDS, LOG_WORD_LIST, LOG_COLUMNS, MEASURED_PREFIX } from "./replay/logWords.js";
 export type { LogWord, LogColumn } from "./replay/logWords.js";
 export { parseEventLog } from "./replay/parseEventLog.js";
 export { eventLogToEvents } from "./replay/eventLogToEvents.js";
 export { replayEventLog, replayProfile } from "./replay/replayEventLog.js";
 export type { ReplayResult } from "./replay/replayEventLog.js";
-export { replaySummary } from "./report/replaySummary.js";
+export { replayLog, replayShell } from "./replay/replayLog.js";
+export type { LogReplay, ExceedanceLine } from "./replay/replayLog.js";
+export type { TextSource } from "./replay/EventLogScanner.js";
+export { textPieces } from "./replay/textPieces.js";
+export type { MeasuredComparison, PartResiduals } from "./replay/MeasuredResiduals.js";
+export { replaySummary, logReplaySummary } from "./report/replaySummary.js";
 export type { ReplaySummary, ReplayPartSummary } from "./report/replaySummary.js";
 // plan
 export { PLAN_DEFAULTS } from "./retry/planDefaults.js";

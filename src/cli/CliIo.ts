@@ -1,5 +1,7 @@
 import { existsSync } from "node:fs";
+import type { TextSource } from "../replay/EventLogScanner.js";
 import { outputPathProblem, readBoundedStdin, readBoundedTextFile, writeFileAtomically } from "./fileSystemIo.js";
+import { fileTextSource } from "./fileTextSource.js";
 
 /** Everything the CLI does to the outside world, so commands can be tested in process. */
 export interface CliIo {
@@ -11,6 +13,8 @@ export interface CliIo {
   readonly readFile: (path: string) => string;
   /** read standard input to its end as UTF-8 text (the process's: bounded as a file; a terminal is refused); absent: no standard input */
   readonly readStdin?: () => string;
+  /** open a text file to be read piece by piece (a long log); absent (in-process tests): readFile serves it whole */
+  readonly openText?: (path: string, what: string) => TextSource & { readonly close: () => void };
   /** write a UTF-8 text file (the process's: atomically, through a temporary file renamed over it) */
   readonly writeFile: (path: string, text: string) => void;
   /** whether a path exists (commands refuse to overwrite without --force) */
@@ -69,6 +73,7 @@ export function processIo(): CliIo {
     err: (text) => process.stderr.write(text),
     readFile: readBoundedTextFile,
     readStdin: readBoundedStdin,
+    openText: fileTextSource,
     writeFile: writeFileAtomically,
     exists: (path) => existsSync(path),
     outputProblem: outputPathProblem,

@@ -74,6 +74,8 @@ export interface ExpandOptions {
   readonly wantSamples?: boolean;
   /** the parts' thermal context now, read at the start of every charge of a circuit whose values follow temperature */
   readonly thermalOf?: () => ChargeThermalContext;
+  /** the top-level events, pulled one at a time in place of `profile.events` (a log replayed as it is read) */
+  readonly events?: Iterator<ProfileEvent>;
 }
 
 /**
@@ -227,10 +229,19 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
   // One generator walks the whole nest of repeats with an explicit stack of frames (one per
   // repeat body being walked), so every item is yielded once, not passed up through a generator
   // per nesting level.
-  const stack: WalkFrame[] = [{ events: profile.events, index: 0, repeat: undefined, iteration: 0, startS: 0 }];
+  const top: WalkFrame = { events: profile.events, index: 0, repeat: undefined, iteration: 0, startS: 0 };
+  const stack: WalkFrame[] = [options.events === undefined ? top : { ...top, events: [], source: options.events }];
   while (stack.length > 0) {
     const frame = stack[stack.length - 1]!;
-    if (frame.index >= frame.events.length) {
+    let pulled: ProfileEvent | undefined;
+    if (frame.source !== undefined) {
+      const next = frame.source.next();
+      if (next.done === true) {
+        stack.pop();
+        continue;
+      }
+      pulled = next.value;
+    } else if (frame.index >= frame.events.length) {
       const r = frame.repeat;
       if (r === undefined) {
         stack.pop();
@@ -255,7 +266,7 @@ export function* expandTimeline(profile: DutyProfile, models: CircuitModels, opt
       } else stack.pop();
       continue;
     }
-    const e = frame.events[frame.index++]!;
+    const e = pulled ?? frame.events[frame.index++]!;
     switch (e.kind) {
       case "power-up":
         yield charge("power-up", e.field, e.label ?? "power-up", e.load ?? circuit!.load, undefined, e.loadField);
@@ -339,4 +350,6 @@ interface WalkFrame {
   iteration: number;
   /** start of this repetition [s] */
   startS: number;
+  /** the top level's events pulled from an iterator (ExpandOptions.events) instead of `events` */
+  readonly source?: Iterator<ProfileEvent>;
 }

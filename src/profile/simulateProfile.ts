@@ -7,7 +7,7 @@ import { type TimedStep, traceSteps } from "../thermal/traceSteps.js";
 import { SurroundingsDrive } from "./SurroundingsDrive.js";
 import { type Verdict, peakVerdict, worstVerdict } from "../stress/Verdict.js";
 import type { CircuitModels } from "./CircuitModels.js";
-import type { DutyProfile, ProfilePart } from "./DutyProfile.js";
+import type { DutyProfile, ProfileEvent, ProfilePart } from "./DutyProfile.js";
 import { type TimelineEvent, expandTimeline } from "./expandTimeline.js";
 import { memoizeCircuitModels } from "./memoizeCircuitModels.js";
 import { circuitReadsTemperature } from "./circuitReadsTemperature.js";
@@ -76,6 +76,10 @@ export interface SimulateOptions {
   readonly wantSamples?: boolean;
   /** called every {@link PROGRESS_EVENTS} events with the events opened so far and the profile time reached [s] */
   readonly onProgress?: (events: number, timeS: number) => void;
+  /** the top-level events, pulled one at a time in place of `profile.events` (a log replayed as it is read; ExpandOptions.events) */
+  readonly events?: Iterable<ProfileEvent>;
+  /** called once per part when it first goes above its limit, with the exact time [s] (PartResult.firstExceedanceS), as the run finds it */
+  readonly onExceedance?: (partIndex: number, timeS: number) => void;
 }
 
 /** How many events pass between two calls of SimulateOptions.onProgress (a power of two). */
@@ -210,6 +214,7 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
   // The walk is pulled item by item and each item's steps are pushed into the run at once, so a
   // charge reads (temperatureOf) the parts' state after every earlier item.
   const run = new ThermalRun(model, { onPoint, freshPoints: false, crossingRiseK: parts.map((p) => p.limitC - p.ambientC),
+    ...(options.onExceedance === undefined ? {} : { onCrossing: options.onExceedance }),
     ...(onSample === undefined ? {} : { onSample, ...(options.sampling === undefined ? {} : { sampling: options.sampling }) }),
   });
   const pushRun = (step: TimedStep): void => run.push(step);
@@ -218,7 +223,8 @@ export function simulateProfile(profile: DutyProfile, options: SimulateOptions):
     const contextOf = circuitReadsTemperature(profile.circuit) ? thermalContextSource(parts, model) : undefined;
     const thermalOf = contextOf === undefined ? {} : { thermalOf: () => contextOf(run.summary().endState) };
     const push = drive === undefined ? (step: TimedStep): void => run.push(step) : (step: TimedStep): void => drive.split(step, pushRun);
-    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true, ...thermalOf })) {
+    for (const item of expandTimeline(profile, memoizeCircuitModels(options.models), { temperatureOf, wantSamples: options.wantSamples === true, ...thermalOf,
+      ...(options.events === undefined ? {} : { events: options.events[Symbol.iterator]() }) })) {
       if (item.type === "event") openEvent(item);
       const until = item.startS + item.durationS;
       // most items (runs, waits, power-downs, gaps) put no power into any part: one step, no merge

@@ -1,6 +1,6 @@
 import { InputError } from "../errors/InputError.js";
 import type { DutyProfile, FaultSpec, ProfileEvent } from "../profile/DutyProfile.js";
-import type { EventLog, LogLine } from "./EventLog.js";
+import type { EventLog } from "./EventLog.js";
 import type { LogWord } from "./logWords.js";
 
 /** The field of the one-line repeat that pads a charging line out to the next line: `log-line:<n>`. */
@@ -35,31 +35,45 @@ const BORROWED: Partial<Record<LogWord, FaultSpec["type"]>> = { overload: "overl
  * eventLogToEvents(profile("irrigation-pump-decade.yaml"), log).length // => 79
  */
 export function eventLogToEvents(profile: DutyProfile, log: EventLog): ProfileEvent[] {
-  const fail = (line: LogLine, expected: string): InputError =>
-    new InputError({ code: "bad-file", file: log.file, line: line.line, field: "event", expected, found: JSON.stringify(line.word) });
-  const events: ProfileEvent[] = [];
-  log.lines.forEach((line, i) => {
+  const eventOf = logEventMaker(profile, log.file);
+  return log.lines.map((line, i) => {
     const next = log.lines[i + 1];
-    const gapS = next === undefined ? 0 : next.timeS - line.timeS;
-    const label = `line ${line.line}: ${line.word}${line.note === "" ? "" : ` (${line.note})`}`;
-    const field = `${LOG_LINE_FIELD}${line.line}`;
-    if (CHARGING.has(line.word)) {
-      if (profile.circuit === undefined) throw fail(line, `a profile with a circuit for a pre-charge attempt (${profile.file} has none)`);
+    return eventOf(line.line, line.word, line.note, next === undefined ? undefined : next.timeS - line.timeS);
+  });
+}
+
+/**
+ * The mapping of eventLogToEvents for one line at a time, as a replay reads the log: the returned
+ * function turns a line (its file line, word, note, and the time to the next line, undefined on
+ * the last line) into its profile event. The profile's borrowed faults are looked up once.
+ * Cost O(1) per line after the first lookup of each borrowed fault.
+ * @throws InputError (from the returned function, on the line's `event` column) as eventLogToEvents
+ */
+export function logEventMaker(profile: DutyProfile, file: string): (line: number, word: LogWord, note: string, gapS: number | undefined) => ProfileEvent {
+  const borrowed = new Map<FaultSpec["type"], FaultSpec | undefined>();
+  return (line, word, note, gapS) => {
+    const fail = (expected: string): InputError => new InputError({ code: "bad-file", file, line, field: "event", expected, found: JSON.stringify(word) });
+    const label = `line ${line}: ${word}${note === "" ? "" : ` (${note})`}`;
+    const field = `${LOG_LINE_FIELD}${line}`;
+    const span = gapS ?? 0;
+    if (CHARGING.has(word)) {
+      if (profile.circuit === undefined) throw fail(`a profile with a circuit for a pre-charge attempt (${profile.file} has none)`);
       let attempt: ProfileEvent;
-      if (line.word === "power-up") attempt = { kind: "power-up", field, label };
-      else if (line.word === "short") attempt = { kind: "fault", field, label, fault: { type: "shorted-output", load: { kind: "short" } } };
+      if (word === "power-up") attempt = { kind: "power-up", field, label };
+      else if (word === "short") attempt = { kind: "fault", field, label, fault: { type: "shorted-output", load: { kind: "short" } } };
       else {
-        const type = BORROWED[line.word]!;
-        const fault = firstFault(profile.events, type);
-        if (fault === undefined) throw fail(line, `a profile whose events include a fault of type ${type}, to take the "${line.word}" values from (${profile.file} has none)`);
+        const type = BORROWED[word]!;
+        if (!borrowed.has(type)) borrowed.set(type, firstFault(profile.events, type));
+        const fault = borrowed.get(type);
+        if (fault === undefined) throw fail(`a profile whose events include a fault of type ${type}, to take the "${word}" values from (${profile.file} has none)`);
         attempt = { kind: "fault", field, label, fault };
       }
-      events.push(next === undefined ? attempt : { kind: "repeat", field, count: 1, periodS: gapS, events: [attempt] });
-    } else if (line.word === "power-down" || line.word === "trip") events.push({ kind: "power-down", field, label, offS: gapS });
-    else if (line.word === "lockout") events.push({ kind: "lockout", field, label, durationS: gapS });
-    else events.push({ kind: "wait", field, label, durationS: gapS });
-  });
-  return events;
+      return gapS === undefined ? attempt : { kind: "repeat", field, count: 1, periodS: span, events: [attempt] };
+    }
+    if (word === "power-down" || word === "trip") return { kind: "power-down", field, label, offS: span };
+    if (word === "lockout") return { kind: "lockout", field, label, durationS: span };
+    return { kind: "wait", field, label, durationS: span };
+  };
 }
 
 /** The first fault of a type among profile events (depth first, file order), or undefined. */

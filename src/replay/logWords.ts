@@ -21,11 +21,19 @@ export type LogWord = keyof typeof LOG_WORDS;
 /** The words, in the order help and messages list them. */
 export const LOG_WORD_LIST = Object.keys(LOG_WORDS) as readonly LogWord[];
 
-/** The columns of a field event log: `time` and `event` are required, `note` is optional. */
+/** The prefix of a measured-temperature column: `measured:<part id>` (the part id as the profile writes it). */
+export const MEASURED_PREFIX = "measured:";
+
+/**
+ * The columns of a field event log: `time` and `event` are required; `note`, `ambient` and any
+ * number of `measured:<part id>` columns are optional.
+ */
 export const LOG_COLUMNS = {
   time: "seconds from the start of the log (a number), or an ISO 8601 timestamp (2026-03-02T06:15:00Z; no zone means UTC); the first line is time zero; non-decreasing",
   event: `one of ${LOG_WORD_LIST.join(", ")}`,
   note: "optional free text, shown with the event in the report",
+  ambient: "optional measured ambient in °C (a plain number; empty: not measured on that line); the run keeps the profile's ambient, the comparison with measured temperatures uses this one",
+  [`${MEASURED_PREFIX}<part id>`]: "optional measured temperature of that part in °C (empty: not measured on that line); the report compares the replayed temperature with it",
 } as const;
 
 /** A column name of the log. */

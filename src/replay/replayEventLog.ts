@@ -1,8 +1,8 @@
-import { InputError } from "../errors/InputError.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
-import { type SimulateOptions, type SimulationResult, simulateProfile } from "../profile/simulateProfile.js";
+import type { SimulateOptions, SimulationResult } from "../profile/simulateProfile.js";
 import type { EventLog } from "./EventLog.js";
-import { LOG_LINE_FIELD, countProfileEvents, eventLogToEvents } from "./eventLogToEvents.js";
+import { eventLogToEvents } from "./eventLogToEvents.js";
+import { eventLogCursor, replayLogCursor } from "./replayLog.js";
 
 /** What a replay found: the simulation of the log's events and the profile that was run. */
 export interface ReplayResult {
@@ -31,7 +31,8 @@ export function replayProfile(profile: DutyProfile, log: EventLog): DutyProfile 
 /**
  * Replay a field event log on a duty profile's parts, circuit and limits: the log's lines become
  * the profile's events (eventLogToEvents; the profile's own events are ignored) and the profile is
- * simulated exactly as `simulate` runs it (simulateProfile: the capacitor's charge carried from
+ * simulated exactly as `simulate` runs it (through replayLogCursor, the streamed replay, over the
+ * parsed lines) (simulateProfile: the capacitor's charge carried from
  * line to line, every part's temperature, peaks and the first time a part goes above its limit,
  * found exactly inside its step). Pass the same visitors as `simulate` (ProfileStress with
  * `mode: "open"`, built on `replayProfile(profile, log)`, for damage to date) through `options`,
@@ -46,37 +47,6 @@ export function replayProfile(profile: DutyProfile, log: EventLog): DutyProfile 
  * replayEventLog(profile("irrigation-pump-decade.yaml"), log, { models: defaultCircuitModels }).simulation.verdict // => "fail"
  */
 export function replayEventLog(profile: DutyProfile, log: EventLog, options: SimulateOptions, replayed: DutyProfile = replayProfile(profile, log)): ReplayResult {
-  // the end of the last step seen: when the walk throws because an attempt outlasts its line's
-  // period, the attempt's steps have all been pushed, so this is when the attempt ended
-  let lastStepEndS = 0;
-  const onPoint: SimulateOptions["onPoint"] = (timeS, temperatureC, kind, eventIndex) => {
-    if (kind === "step-end") lastStepEndS = timeS;
-    options.onPoint?.(timeS, temperatureC, kind, eventIndex);
-  };
-  try {
-    const simulation = simulateProfile(replayed, { ...options, onPoint });
-    return { profile: replayed, simulation, ignoredProfileEvents: countProfileEvents(profile.events) };
-  } catch (error) {
-    if (!(error instanceof InputError)) throw error;
-    const overrun = error.problems.map((p) => new RegExp(`^${LOG_LINE_FIELD}(\\d+)\\.period$`).exec(p.field)).find((m) => m !== null);
-    if (overrun == null) throw error;
-    const at = log.lines.findIndex((l) => l.line === Number(overrun[1]));
-    const line = log.lines[at]!;
-    const next = log.lines[at + 1]!;
-    throw new InputError({
-      code: "out-of-range",
-      file: log.file,
-      line: next.line,
-      field: "time",
-      expected:
-        `a time at least ${formatSeconds(lastStepEndS)} s from the start of the log: the ${line.word} attempt of line ${line.line} ` +
-        `(at ${formatSeconds(line.timeS)} s) lasts ${formatSeconds(lastStepEndS - line.timeS)} s in the profile's circuit, and the model cannot end it early`,
-      found: JSON.stringify(next.timeText),
-    });
-  }
-}
-
-/** Seconds for a message: up to 6 significant digits, no exponent for ordinary values. */
-function formatSeconds(s: number): string {
-  return String(Number(s.toPrecision(6)));
+  const replay = replayLogCursor(profile, eventLogCursor(log), options);
+  return { profile: replayed, simulation: replay.simulation, ignoredProfileEvents: replay.ignoredProfileEvents };
 }

@@ -33,6 +33,8 @@ export interface HistoryOptions {
    * ends are seen, so a crossing inside a step that ends below the level is missed. Default: none.
    */
   readonly crossingRiseK?: readonly number[];
+  /** called when a node first crosses its crossingRiseK level, with the exact time [s], before the point that showed it is visited */
+  readonly onCrossing?: (observed: number, timeS: number) => void;
   /** extra samples between step ends for plots and time-series files (default: none); see {@link HistorySampling} */
   readonly sampling?: HistorySampling;
   /** called for every extra sample (absolute time [s], rise per observed node [K]; the array is refilled, copy what you keep), in time order with the points */
@@ -125,6 +127,7 @@ export class ThermalRun {
   private readonly onSample: ((timeS: number, riseK: readonly number[]) => void) | undefined;
   private readonly sampleRise: number[];
   private readonly fastestTauS: number;
+  private readonly onCrossing: ((observed: number, timeS: number) => void) | undefined;
 
   constructor(model: ModalModel, options: HistoryOptions = {}) {
     this.model = model;
@@ -145,14 +148,17 @@ export class ThermalRun {
     this.onSample = options.onSample;
     this.sampling = options.onSample === undefined ? undefined : options.sampling;
     this.sampleRise = new Array<number>(this.observed).fill(0);
+    this.onCrossing = options.onCrossing;
     this.fastestTauS = model.tauS.length === 0 ? 1 : Math.min(...model.tauS);
     for (let o = 0; o < this.observed; o++) {
       const r = modalRise(model, this.state, o);
       if (r > this.peakRiseK[o]!) this.peakRiseK[o] = r;
       if (this.levels === undefined) continue;
       // a node already above its level at the start crosses at the start
-      if (r > this.levels[o]!) this.crossings[o] = 0;
-      else this.pending++;
+      if (r > this.levels[o]!) {
+        this.crossings[o] = 0;
+        this.onCrossing?.(o, 0);
+      } else this.pending++;
     }
   }
 
@@ -176,6 +182,7 @@ export class ThermalRun {
     }
     this.crossings[o] = startS + hi;
     this.pending--;
+    this.onCrossing?.(o, startS + hi);
   }
 
   private pointArray(): number[] {

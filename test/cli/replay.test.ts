@@ -74,6 +74,28 @@ describe("heatledger replay (in process)", () => {
     expect(io.files["out.csv"]!.split("\n")[0]).toContain("R1");
   });
 
+  test("measured columns: the header and the JSON give the residuals of the replay against them", async () => {
+    // the part at ambient and a measured ambient 5 K above the profile's: measured on that ambient,
+    // the residuals are what the sensor adds (+1 K on one line, 0 on the others)
+    const log = "time,event,note,ambient,measured:R1\n0,note,,30,30\n100,note,,30,31\n200,note,,,\n300,note,,30,30\n";
+    const io = memoryIo(files(log));
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--no-chart"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain("measured temperatures against the replay, on the log's measured ambient\n  (the replay's peaks, limits and damage keep the profile's ambient)\n");
+    expect(text).toContain("  ambient measured on 3 lines: mean 30.00 °C, from 30.00 to 30.00 °C");
+    expect(text).toContain("  R1: 3 values, replayed − measured: mean −0.333 K, RMS 0.577 K");
+    expect(text).toContain("    largest −1.00 K at line 3 (100 s from the first line: replayed 30.00 °C, measured 31.00 °C)");
+    for (const line of text.split("\n")) expect(line.length).toBeLessThanOrEqual(100);
+    const json = memoryIo(files(log));
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--json"], json)).toBe(0);
+    const measured = (JSON.parse(json.stdout.join("")) as { replay: { measured: { ambient: string; parts: { id: string; count: number; maxAbsK: number; maxAt: { line: number } }[] } } }).replay.measured;
+    expect(measured.ambient).toBe("measured");
+    expect(measured.parts[0]).toMatchObject({ id: "R1", count: 3, maxAbsK: -1, maxAt: { line: 3 } });
+    const plain = memoryIo(files());
+    await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--json"], plain);
+    expect((JSON.parse(plain.stdout.join("")) as { replay: { measured: unknown } }).replay.measured).toBeNull();
+  });
+
   test.each([
     [["replay", "logs/unit.csv"], "heatledger: logs/unit.csv: --profile: expected a duty profile file (--profile FILE) whose parts, circuit and limits replay this log, found nothing\n"],
     [["replay", "logs/none.csv", "--profile", "dir/cart.yaml"], "heatledger: logs/none.csv: expected a readable event log, found no such file\n"],

@@ -9,25 +9,13 @@ import { simulateProfile } from "../../src/profile/simulateProfile.js";
 import { parseEventLog } from "../../src/replay/parseEventLog.js";
 import { replayEventLog, replayProfile } from "../../src/replay/replayEventLog.js";
 import { expectClose } from "../helpers/expectClose.js";
+import { CART_PARTS } from "../helpers/cartParts.js";
 
 /** An invented 48 V series-resistor pre-charge with a one-stage-plus-body resistor and a cycling model. */
 const CART = `name: invented 48 V cart
 ambient: 30 degC
 occursPerYear: 12
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 0.2 s }, { r: 1.5 K/W, tau: 8 s }, { r: 3 K/W, tau: 120 s }] }
-    limits: { maxTemperature: 150 degC, margin: 10 K }
-    lifetime: { model: coffin-manson, referenceCycles: 20000, referenceRange: 80 K, exponent: 3 }
-circuit:
-  topology: series-resistor
-  busVoltage: 48 V
-  capacitance: 4.7 mF
-  resistance: 15 ohm
-  completion: { fraction: 0.92, timeout: 800 ms }
-  discharge: { kind: bleeder, resistance: 2.2 kohm }
-events:
+${CART_PARTS}events:
   - power-up: {}
   - run: 40 s
   - power-down: { off: 30 s }

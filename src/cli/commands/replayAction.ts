@@ -1,10 +1,10 @@
 import { InputError } from "../../errors/InputError.js";
 import { ProfileStress } from "../../profile/ProfileStress.js";
-import { parseEventLog } from "../../replay/parseEventLog.js";
-import { replayEventLog, replayProfile } from "../../replay/replayEventLog.js";
+import { type LogReplay, replayLog, replayShell } from "../../replay/replayLog.js";
+import { textPieces } from "../../replay/textPieces.js";
 import { formatProfileStress } from "../../report/formatProfileStress.js";
 import { formatSimulationText } from "../../report/formatSimulationText.js";
-import { formatReplayHeader, replaySummary } from "../../report/replaySummary.js";
+import { formatReplayHeader, logReplaySummary } from "../../report/replaySummary.js";
 import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { simulationVerdict } from "../../report/simulationVerdict.js";
@@ -12,7 +12,7 @@ import { verdictExitStatus } from "../../stress/Verdict.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
 import { readTextFile, refuseExistingOutput } from "../readInputFile.js";
-import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
+import { type Recorded, recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { ReplayFlags } from "./replay.js";
 import { simulateCorner } from "../../profile/simulateCorner.js";
 import { simulationCorners } from "../simulationCorners.js";
@@ -22,7 +22,7 @@ const REPLAY_HISTORY_WORDS = { perRepetition: "to date (the whole log)", repetit
 
 /**
  * The run of `heatledger replay LOG --profile FILE` (flags and help are in replay.ts, which loads
- * this module only when the command runs): read the log and the profile, replay the log with the
+ * this module only when the command runs): read the profile, stream the log into the replay with the
  * stress checks (the log is a one-off history for the cycle count), write the --csv file and print
  * the report; sets the exit status from the verdict as `simulate` does.
  * @throws InputError for a missing --profile, a bad log or profile, or an output file that exists without --force
@@ -40,14 +40,27 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   refuseExistingOutput(run.io, options.report, options.force === true, "--report");
   refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
-  const log = parseEventLog(readTextFile(run.io, file, "event log"), file);
-  const profile = readProfileFile(run.io, options.profile);
-  const replayed = replayProfile(profile, log);
-  const stress = new ProfileStress(replayed, { mode: "open", keepCycles: options.report !== undefined });
-  const { result: replay, digest, envelope, csv, trace } = recordSimulation(run.io, profile, options, stress, "replaying", (simulate) => replayEventLog(profile, log, simulate, replayed));
+  // the log is streamed: read in blocks as the replay runs, so its length costs no memory
+  const openLog = (): ReturnType<typeof textPieces> & { close?: () => void } => run.io.openText?.(file, "event log") ?? textPieces(readTextFile(run.io, file, "event log"));
+  const source = openLog();
+  const profileFile = options.profile;
+  const replayed = (): { stress: ProfileStress; recorded: Recorded<LogReplay> } => {
+    const loaded = readProfileFile(run.io, profileFile);
+    const stress = new ProfileStress(replayShell(loaded), { mode: "open", keepCycles: options.report !== undefined });
+    return { stress, recorded: recordSimulation(run.io, loaded, options, stress, "replaying", (simulate) => replayLog(loaded, source, file, simulate)) };
+  };
+  let outcome: ReturnType<typeof replayed>;
+  try {
+    outcome = replayed();
+  } finally {
+    source.close?.();
+  }
+  const { stress, recorded } = outcome;
+  const { result: replay, digest, envelope, csv, trace } = recorded;
+  const profile = replay.profile;
   const result = replay.simulation;
   const stressResult = stress.finish(result.endTimeS);
-  const summary = replaySummary(log, replay, stressResult);
+  const summary = logReplaySummary(replay, stressResult);
   const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
   const stressText = formatProfileStress(replay.profile, stressResult, {
     history: REPLAY_HISTORY_WORDS,
@@ -62,8 +75,13 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
   }
   // --corners: the log replayed on the profile at each corner of its corner set
   const corners = simulationCorners(run, profile, options.corners === true, { result, stress: stressResult }, (corner, models) => {
-    const at = replayProfile(corner.profile, log);
-    return simulateCorner(at, models, "open", (simulate) => replayEventLog(corner.profile, log, simulate, at).simulation);
+    // the log read again from its start for each corner
+    const again = openLog();
+    try {
+      return simulateCorner(replayShell(corner.profile), models, "open", (simulate) => replayLog(corner.profile, again, file, simulate).simulation);
+    } finally {
+      again.close?.();
+    }
   }, "replay");
   if (options.json) {
     const json = simulationStressJson(simulationJson(replay.profile, result, digest), stressResult, undefined);
