@@ -1,4 +1,5 @@
 import { existsSync } from "node:fs";
+import { fileTextSource } from "./fileTextSource.js";
 import { InputError } from "../errors/InputError.js";
 import type { FleetUnitRow } from "../fleet/FleetUnitRow.js";
 import { replayFleetUnit } from "../fleet/replayFleetUnit.js";
@@ -31,7 +32,13 @@ export function replayFleetLogs(io: CliIo, profile: DutyProfile, logs: readonly 
   return logs.map((log) => {
     let row: FleetUnitRow;
     try {
-      row = replayFleetUnit(profile, { unit: log.unit, file: log.file, text: readTextFile(io, log.file, "event log") }, options);
+      // the log streamed from its file in blocks (whole through readFile where the io cannot stream)
+      const source = io.openText?.(log.file, "event log");
+      try {
+        row = replayFleetUnit(profile, source === undefined ? { unit: log.unit, file: log.file, text: readTextFile(io, log.file, "event log") } : { unit: log.unit, file: log.file, source }, options);
+      } finally {
+        source?.close();
+      }
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
       row = { unit: log.unit, file: log.file, verdict: "error", error: error.problems[0]! };
@@ -47,6 +54,7 @@ function workerIo(texts: ReadonlyMap<string, string>): CliIo {
     out: () => {},
     err: () => {},
     readFile: (path) => texts.get(path) ?? readBoundedTextFile(path),
+    openText: fileTextSource,
     writeFile: () => {
       throw new Error("a fleet worker writes no file");
     },

@@ -2,19 +2,23 @@ import { InputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import { ProfileStress } from "../profile/ProfileStress.js";
-import { parseEventLog } from "../replay/parseEventLog.js";
-import { replayEventLog, replayProfile } from "../replay/replayEventLog.js";
-import { replaySummary } from "../report/replaySummary.js";
+import type { TextSource } from "../replay/EventLogScanner.js";
+import { replayLog, replayShell } from "../replay/replayLog.js";
+import { textPieces } from "../replay/textPieces.js";
+import { logReplaySummary } from "../report/replaySummary.js";
 import { simulationVerdict } from "../report/simulationVerdict.js";
 import { SECONDS_PER_YEAR } from "../stress/minerDamage.js";
 import { forgetPeakGuess } from "../thermal/segmentPeak.js";
 import type { FleetPartRow, FleetUnitRow } from "./FleetUnitRow.js";
 
-/** One unit of a fleet to replay: its id, its log's name and the log's text. */
+/** One unit of a fleet to replay: its id, its log's name and the log, as text or read piece by piece. */
 export interface FleetLog {
   readonly unit: string;
   readonly file: string;
-  readonly text: string;
+  /** the whole log (used when `source` is absent) */
+  readonly text?: string;
+  /** the log read piece by piece (a file in blocks: memory flat in the log's length) */
+  readonly source?: TextSource;
 }
 
 /** What every unit of a fleet run shares besides the profile. */
@@ -30,12 +34,12 @@ export interface FleetUnitOptions {
 /**
  * Replay one unit's field log on the fleet's profile and reduce it to its summary row: per part
  * the peak, the margin to the limit, the first exceedance (seconds, timestamp, log line: from
- * replaySummary), the damage to date (Miner's rule over the log as a one-off history) and the
+ * logReplaySummary), the damage to date (Miner's rule over the log as a one-off history) and the
  * remaining life at the stated rate,
  *   remaining life [years] = (1 − D) / (D · r),
  * with D the damage to date and r the logs per year (given, else one log per span of the log:
  * r = 365.25 d / span); 0 once D ≥ 1. The verdict is replay's (simulationVerdict).
- * A log the replay refuses (parseEventLog, eventLogToEvents, replayEventLog) becomes a broken
+ * A log the replay refuses (replayLog: a bad line, an unknown word, times out of order) becomes a broken
  * row carrying the first problem (file, line, field, expected, found): one bad log never stops a
  * fleet. The thermal engine's warm start is forgotten first, so the row depends only on this log,
  * bit for bit, whichever units ran before it in the same thread.
@@ -46,18 +50,16 @@ export interface FleetUnitOptions {
 export function replayFleetUnit(profile: DutyProfile, log: FleetLog, options: FleetUnitOptions): FleetUnitRow {
   forgetPeakGuess();
   try {
-    const parsed = parseEventLog(log.text, log.file);
-    const replayed = replayProfile(profile, parsed);
-    const stress = new ProfileStress(replayed, { mode: "open", keepChecks: 0 });
-    const replay = replayEventLog(
-      profile,
-      parsed,
-      { models: options.models, wantSamples: stress.wantsSamples, onEvent: (event) => stress.addEvent(event), onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i) },
-      replayed,
-    );
+    const stress = new ProfileStress(replayShell(profile), { mode: "open", keepChecks: 0 });
+    const replay = replayLog(profile, log.source ?? textPieces(log.text ?? ""), log.file, {
+      models: options.models,
+      wantSamples: stress.wantsSamples,
+      onEvent: (event) => stress.addEvent(event),
+      onPoint: (t, c, k, i) => stress.addPoint(t, c, k, i),
+    });
     const result = replay.simulation;
     const stressResult = stress.finish(result.endTimeS);
-    const summary = replaySummary(parsed, replay, stressResult);
+    const summary = logReplaySummary(replay, stressResult);
     const verdict = simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict);
     const logsPerYear = options.logsPerYear ?? (summary.spanS > 0 ? SECONDS_PER_YEAR / summary.spanS : undefined);
     const parts: FleetPartRow[] = result.parts.map((p, i) => {

@@ -1,25 +1,12 @@
 import { describe, expect, test } from "vitest";
 import { runCli } from "../../src/cli/main.js";
 import { GENERAL_CAUTION } from "../../src/text/cautions.js";
+import { CART_24V_HEAD } from "../helpers/cartParts.js";
 import { memoryIo } from "../helpers/memoryIo.js";
 
 // In-process runs of `heatledger fleet` (one thread: the logs are read through the memory io) on
 // an invented 24 V cart and three invented logs, one of them missing.
-const PROFILE = `name: invented 24 V cart
-ambient: 25 degC
-parts:
-  - id: R1
-    role: resistor
-    network: { form: foster, stages: [{ r: 0.5 K/W, tau: 0.2 s }, { r: 2 K/W, tau: 20 s }] }
-    limits: { maxTemperature: 90 degC, margin: 10 K }
-circuit:
-  topology: series-resistor
-  busVoltage: 24 V
-  capacitance: 2.2 mF
-  resistance: 8.2 ohm
-  completion: { fraction: 0.9, timeout: 500 ms }
-  discharge: { kind: bleeder, resistance: 1 kohm }
-events:
+const PROFILE = `${CART_24V_HEAD}events:
   - power-up: {}
 `;
 const QUIET = "time,event\n0,power-up\n3600,power-down\n3700,power-up\n3760,note\n";
