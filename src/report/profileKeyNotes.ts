@@ -2,11 +2,13 @@ import { DEFAULT_LOOP_GAIN_WARNING } from "../circuits/ElectroThermalSummary.js"
 import { ATTEMPT_TIMING_DEFAULTS } from "../profile/attemptTiming.js";
 import { PROFILE_DEFAULTS } from "../profile/profileDefaults.js";
 import { RESISTANCE_REFERENCE_C } from "../profile/resolveResistanceCurve.js";
+import { DAILY_AMBIENT_PIECES } from "../profile/resolveSurroundings.js";
 import { CIPS2008_PUBLISHED } from "../stress/cips2008.js";
 import { LESIT_PUBLISHED } from "../stress/lesit.js";
 import { NORRIS_LANDZBERG_SNPB } from "../stress/norrisLandzberg.js";
 import { PULSE_ENERGY_DERATING_DEFAULTS } from "../stress/pulseEnergyRating.js";
 import { DEFAULT_CYCLE_HYSTERESIS_K } from "../stress/turningPoints.js";
+import { MATERIALS } from "../thermal/materials.js";
 import { PLAN_DEFAULTS } from "../retry/planDefaults.js";
 import { RETRY_PLAN_DEFAULTS } from "../retry/profileRetrySetup.js";
 import { SUPERVISE_DEFAULTS } from "../supervise/superviseDefaults.js";
@@ -36,7 +38,41 @@ const tempRange = { default: "the model's published range, if any", meaning: "th
 export const PROFILE_KEY_NOTES: Readonly<Record<string, ProfileKeyNote>> = {
   name: { meaning: "the profile's name, printed at the top of every report", example: "48 V cart drive" },
   description: { meaning: "free text about the scenario", default: "none", example: "daily use with one shorted-output retry" },
-  ambient: { meaning: "ambient temperature of every part that gives none of its own", example: "40 degC" },
+  ambient: {
+    meaning: "ambient temperature of every part that gives none of its own, constant over the run (`ambientProfile` for one that varies)",
+    default: "none: exactly one of `ambient` or `ambientProfile` is required",
+    example: "40 degC",
+  },
+  ambientProfile: {
+    meaning: "the ambient as a time series instead of `ambient`: exactly one of `daily`, `table` or `file`; every part follows it (no part may set its own `ambient`), and rises are counted from its value at profile time 0",
+    default: "none (then `ambient`)",
+  },
+  "ambientProfile.daily": { meaning: `a daily cosine between \`min\` and \`max\`, drawn with ${DAILY_AMBIENT_PIECES} straight pieces a day`, example: "{ min: 21 degC, max: 41 degC, maxAt: 15 h }" },
+  "ambientProfile.daily.min": { meaning: "the day's lowest ambient", example: "21 degC" },
+  "ambientProfile.daily.max": { meaning: "the day's highest ambient, at least `min`", example: "41 degC" },
+  "ambientProfile.daily.maxAt": { meaning: "the time of day of the maximum (the minimum comes 12 h later)", example: "15 h" },
+  "ambientProfile.table": {
+    meaning: "[time of day, temperature] pairs, straight between them and repeating every day; each time of day once (0 h and 24 h are the same)",
+    default: "none (then `daily` or `file`)",
+    example: "[[0 h, 22 degC], [6 h, 20 degC], [15 h, 41 degC]]",
+  },
+  "ambientProfile.file": {
+    meaning: "a CSV of profile time and ambient with units in the header (`time [h], ambient [degC]`), relative to the profile's folder; straight between rows, the first value before the first row and the last after the last",
+    default: "none (then `daily` or `table`)",
+    example: "logs/cabinet-air.csv",
+  },
+  "ambientProfile.startAt": { meaning: "daily, table: the time of day at profile time 0 (not with `file`, whose times are profile times)", default: "0 h (the profile starts at midnight)", example: "6 h" },
+  heatSources: { meaning: "extra heat on a node of a part's graph or Cauer network (not Foster), constant or a CSV trace from time 0; every part on that network feels it", default: "none" },
+  "heatSources[].part": { meaning: "the `id` of a part whose network holds the node", example: "precharge-resistor" },
+  "heatSources[].node": { meaning: "a node of that network: a graph node id or a Cauer ladder's node name", example: "sink" },
+  "heatSources[].power": { meaning: "a constant power from time 0; exactly one of `power` or `file`", default: "none (then `file`)", example: "150 W" },
+  "heatSources[].file": {
+    meaning: "a CSV of time [s], power [W] (as `power-trace`), relative to the profile's folder; straight between rows, the first value before the first row and the last after the last",
+    default: "none (then `power`)",
+    example: "logs/inverter-losses.csv",
+  },
+  "heatSources[].scale": { meaning: "every power of the source is multiplied by this", default: "1", example: "1" },
+  "heatSources[].label": { meaning: "the input's name in reports", default: "`heatSources[i]:node`, such as heatSources[0]:sink", example: "inverter losses" },
   parts: { meaning: "the parts whose temperature is tracked, at least one" },
   "parts[].id": { meaning: "the part's name in reports and in `power-trace` events", example: "precharge-resistor" },
   "parts[].role": {
@@ -69,6 +105,70 @@ export const PROFILE_KEY_NOTES: Readonly<Record<string, ProfileKeyNote>> = {
   "parts[].ratings.pulseEnergyDerating": { meaning: "derate the pulse-energy rating linearly from `reference` to zero at `maxTemperature`, at the part's temperature at the event start" },
   "parts[].ratings.pulseEnergyDerating.reference": { meaning: "the temperature the rating is given at", unit: "degC", default: `${PULSE_ENERGY_DERATING_DEFAULTS.referenceC} °C`, example: '"25 degC"' },
   "parts[].ratings.pulseEnergyDerating.maxTemperature": { meaning: "the temperature where the allowance reaches zero", unit: "degC", default: "the part's `limits.maxTemperature`", example: '"350 degC"' },
+  "parts[].ratings.pulsePower": {
+    meaning: "single-pulse rating as peak power of one rectangular pulse against its duration (thick-film, SMD): each row becomes E = P·t; powers must not rise with the duration; one single-pulse form per part",
+    example: '[{ duration: "1 ms", power: "250 W" }, { duration: "100 ms", power: "10 W" }]',
+  },
+  "parts[].ratings.pulsePower[].duration": { meaning: "pulse duration of the row", unit: "s", example: '"1 ms"' },
+  "parts[].ratings.pulsePower[].power": { meaning: "peak power of a rectangular pulse of that duration", unit: "W", example: '"250 W"' },
+  "parts[].ratings.energyPerOhm": {
+    meaning: "single-pulse rating of one series as energy over resistance against the value (wire-wound): each duration column is read log-log at the part's `resistance` and multiplied by it; a value outside the series is refused",
+    example: '{ durations: ["10 ms", "1 s"], rows: [{ resistance: "10 ohm", energyPerOhm: [110, 310] }, { resistance: "100 ohm", energyPerOhm: [7.2, 21] }] }',
+  },
+  "parts[].ratings.energyPerOhm.durations": { meaning: "the pulse durations of the columns, rising (plain numbers in s)", example: '["10 ms", "1 s"]' },
+  "parts[].ratings.energyPerOhm.rows": { meaning: "one row per resistance value of the series, values rising", example: '[{ resistance: "10 ohm", energyPerOhm: [110, 310] }]' },
+  "parts[].ratings.energyPerOhm.rows[].resistance": { meaning: "the row's resistance value", unit: "ohm", example: '"10 ohm"' },
+  "parts[].ratings.energyPerOhm.rows[].energyPerOhm": { meaning: "allowed energy over resistance, one per duration (plain numbers in J/ohm)", example: "[110, 310]" },
+  "parts[].ratings.resistance": {
+    meaning: "the part's own resistance value: where an `energyPerOhm` series is read (needed there), and the R of the voltage limit V = √(P_peak·R)",
+    unit: "ohm",
+    default: "none: the voltage limit takes the circuit's value for the part's role (`circuit.resistance`, `circuit.mosfet.sourceResistor`), else it is not checked",
+    example: '"68 ohm"',
+  },
+  "parts[].ratings.series": {
+    meaning: "take the rating keys of one series of a resistor family file (docs/stress.md, \"Resistor families\"); the part's own rating keys lie over them",
+    example: "{ file: parts/resistor-families.yaml, id: ww-housed-100w }",
+  },
+  "parts[].ratings.series.file": { meaning: "the family file, relative to the profile's folder", example: "parts/resistor-families.yaml" },
+  "parts[].ratings.series.id": { meaning: "the `id` of the series in that file", example: "ww-housed-100w" },
+  "parts[].ratings.repetitive": {
+    meaning: "energy each pulse of a train may carry, against the repetition period or the duty cycle (all rows one kind), log-log between rows; derated like the single-pulse rating",
+    example: '[{ period: "1 s", energy: "60 J" }, { period: "10 s", energy: "250 J" }]',
+  },
+  "parts[].ratings.repetitive[].period": {
+    meaning: "time from one pulse's start to the next, rising down the rows; a longer period than the last row leaves the pulse to the single-pulse rating",
+    unit: "s",
+    default: "none (then `dutyCycle`)",
+    example: '"1 s"',
+  },
+  "parts[].ratings.repetitive[].dutyCycle": { meaning: "equivalent pulse duration over the period, above 0 and at most 1, rising down the rows", default: "none (then `period`)", example: "0.01" },
+  "parts[].ratings.repetitive[].energy": { meaning: "energy each pulse of the train may carry", unit: "J", example: '"60 J"' },
+  "parts[].ratings.voltage": {
+    meaning: "voltage ratings of a resistor: the peak V = √(P_peak·R) of each event is held to `pulse`, else to `limitingElement`; at least one of the two",
+    example: '{ limitingElement: "600 V", pulse: "1.2 kV" }',
+  },
+  "parts[].ratings.voltage.limitingElement": { meaning: "the limiting-element voltage (IEC 60115-1): the highest voltage that may stand continuously across the element", unit: "V", default: "none (then `pulse` alone)", example: '"600 V"' },
+  "parts[].ratings.voltage.pulse": { meaning: "the highest voltage allowed across the element for a short pulse", unit: "V", default: "the limiting-element voltage", example: '"1.2 kV"' },
+  "parts[].ratings.continuousPower": {
+    meaning: "the run's mean power against the rated power derated at the part's ambient: full up to `fullPowerUpTo`, falling in a straight line to nothing at `zeroPowerAt`",
+    example: '{ rated: "100 W", fullPowerUpTo: "25 degC", zeroPowerAt: "250 degC" }',
+  },
+  "parts[].ratings.continuousPower.rated": { meaning: "the rated continuous power", unit: "W", example: '"100 W"' },
+  "parts[].ratings.continuousPower.fullPowerUpTo": { meaning: "the ambient up to which the full rating holds", unit: "degC", example: '"70 degC"' },
+  "parts[].ratings.continuousPower.zeroPowerAt": { meaning: "the ambient where the allowed power reaches zero, above `fullPowerUpTo`", unit: "degC", example: '"155 degC"' },
+  "parts[].ratings.adiabatic": {
+    meaning: "the element's own heat capacity and heat-spreading time: the most energy in any window of the spreading time may raise it by no more than T_max − T_start (T_max of `pulseEnergyDerating`, else the part's limit)",
+    example: '{ mass: "8 g", thickness: "0.5 mm", material: nichrome }',
+  },
+  "parts[].ratings.adiabatic.spreadingTime": { meaning: "the element's heat-spreading time t_s", unit: "s", default: "`thickness`²/α of `material`", example: '"70 ms"' },
+  "parts[].ratings.adiabatic.thickness": { meaning: "the element's thickness d, for t_s ≈ d²/α (needs `material`)", unit: "m", default: "none (then `spreadingTime`)", example: '"0.5 mm"' },
+  "parts[].ratings.adiabatic.material": {
+    meaning: `a material preset (${MATERIALS.map((m) => m.id).join(", ")}): its specific heat c, and α = k/(ρ·c)`,
+    default: "none (needed with `mass` or `thickness`)",
+    example: "nichrome",
+  },
+  "parts[].ratings.adiabatic.heatCapacity": { meaning: "the element's heat capacity", unit: "J/K", default: "`mass` × the specific heat of `material`", example: '"3.4 J/K"' },
+  "parts[].ratings.adiabatic.mass": { meaning: "the element's mass (needs `material`)", unit: "kg", default: "none (then `heatCapacity`)", example: '"8 g"' },
   "parts[].lifetime": { meaning: "a thermal-cycling lifetime model, for Miner damage of the rainflow cycles (docs/stress.md); resistors take only coffin-manson", default: "none (damage not assessed)" },
   "parts[].lifetime[coffin-manson].referenceCycles": { meaning: "cycles to failure at the reference range (your own test data)", example: "20000" },
   "parts[].lifetime[coffin-manson].referenceRange": { meaning: "the temperature swing of the reference test", unit: "K", example: '"80 K"' },
@@ -172,6 +272,16 @@ export const PROFILE_KEY_NOTES: Readonly<Record<string, ProfileKeyNote>> = {
   "circuit.contactor.makingCurrent": { meaning: "the contactor's making-current rating", example: "250 A" },
   "circuit.contactor.loopResistance": { meaning: "resistance of the loop the contactor closes", example: "20 mohm" },
   "circuit.contactor.loopInductance": { meaning: "inductance of that loop (series RLC peak)", default: "0 H (RC peak)", example: "2 uH" },
+  "circuit.contactor.operate": {
+    meaning: "the contactor's operate time: a charge that completes and then trips (`trip-after-close`) lasts this much longer, its `after` counting from the contacts closing",
+    default: "0 s",
+    example: "30 ms",
+  },
+  "circuit.contactor.release": {
+    meaning: "the contactor's release time: the next attempt waits for it, so the dead time between attempts is max(`circuit.relay.release`, this) + `circuit.relay.operate`",
+    default: "0 s (the relay's times alone)",
+    example: "15 ms",
+  },
   events: { meaning: "what happens, in order; each item has exactly one key" },
   "events[].power-up": { meaning: "one pre-charge attempt from the capacitor's present voltage; `{}` for the circuit's own load", example: "{}" },
   "events[].power-up.load": { meaning: "the bus load during this attempt", default: "`circuit.load`" },
