@@ -95,7 +95,7 @@ describe("heatledger simulate (in process)", () => {
     const io = memoryIo({ ...FILES(40), "dir/p.yaml": PULSES(40).replace("ambient: 25 degC", "ambiant: 25 degC") });
     expect(await runCli(["simulate", "dir/p.yaml"], io)).toBe(2);
     const err = io.stderr.join("");
-    expect(err).toContain('dir/p.yaml:2: ambiant: expected one of the keys name, description, ambient, parts, circuit, events, retryPlan, supervision, firmware, occursPerYear (did you mean "ambient"?), found an unknown key');
+    expect(err).toContain('dir/p.yaml:2: ambiant: expected one of the keys name, description, ambient, ambientProfile, heatSources, parts, circuit, events, retryPlan, supervision, firmware, occursPerYear (did you mean "ambient"?), found an unknown key');
     expect(err).not.toMatch(/\n\s+at /);
   });
 });
