@@ -24,7 +24,7 @@ export function createProgram(run: CliRun): Command {
       "Thermal history of DC-link pre-charge parts under repeated power-up, fault and retry events:\n" +
         "exact superposition on Foster/Cauer networks, peak temperatures, margins and verdicts.",
     )
-    .version("0.1.0", "--version", "print the version")
+    .version("0.1.0", "-V, --version", "print the version")
     .exitOverride()
     .configureOutput({ writeOut: (t) => run.io.out(t), writeErr: (t) => run.io.err(t), outputError: (t, write) => write(t) })
     .showHelpAfterError("(run with --help for usage)")
