@@ -261,5 +261,6 @@ export type { ProfileKeyRow } from "./profile/profileKeyRows.js";
 export { PROFILE_KEY_NOTES } from "./report/profileKeyNotes.js";
 export type { ProfileKeyNote } from "./report/profileKeyNotes.js";
 export { PROFILE_REFERENCE_COMMAND, profileKeyExample, profileKeyNote, profileReferenceMarkdown } from "./report/profileReferenceMarkdown.js";
+export { profileJsonSchemaText } from "./report/profileJsonSchema.js";
 export { STARTER_CIRCUITS, starterProfileText } from "./profile/starterProfile.js";
 export type { StarterCircuit } from "./profile/starterProfile.js";
