@@ -53,6 +53,21 @@ describe("heatledger replay (in process)", () => {
     expect(10 + (first.firstExceedanceLine.line - 4)).toBe(Math.floor(first.firstExceedanceS));
   });
 
+  test("--cycles writes the rainflow cycles of the log, one row per cycle class, and refuses the --csv path", async () => {
+    // twenty shorts 1 s apart heat R1 in steps: the cycles are those of the JSON's own count
+    const burst = Array.from({ length: 20 }, (_, k) => `${10 + k},short,`).join("\n");
+    const io = memoryIo(files(`time,event,note\n0,power-up,\n5,power-down,\n${burst}\n600,note,\n`));
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--cycles", "cycles.csv"], io)).toBe(1);
+    const csv = io.files["cycles.csv"]!.trimEnd().split("\n");
+    const rows = Number(/Cycles: (\d+) rows written to cycles\.csv/.exec(io.stdout.join(""))![1]);
+    expect(rows).toBeGreaterThan(0);
+    expect(csv.length).toBe(rows + 1);
+    expect(csv[0]).toContain("range");
+    const shared = memoryIo(files());
+    expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--csv", "same.csv", "--cycles", "same.csv"], shared)).toBe(2);
+    expect(shared.files["same.csv"]).toBeUndefined();
+  });
+
   test("--csv refuses to overwrite without --force", async () => {
     const io = memoryIo({ ...files(), "out.csv": "old" });
     expect(await runCli(["replay", "logs/unit.csv", "--profile", "dir/cart.yaml", "--csv", "out.csv"], io)).toBe(2);

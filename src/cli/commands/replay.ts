@@ -1,7 +1,7 @@
 import type { Command } from "commander";
 import type { CliRun } from "../main.js";
 import { LOG_COLUMNS, LOG_WORDS } from "../../replay/logWords.js";
-import { CORNERS_HELP, CORNERS_OPTION, CSV_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
+import { CORNERS_HELP, CORNERS_OPTION, CSV_OPTION, CYCLES_OPTION, NO_CHART_OPTION, SIMULATION_VERDICT_COVERS } from "./simulate.js";
 import { REPORT_OPTION, SAMPLE_RATIO_OPTION, SAMPLE_STEP_OPTION, SVG_OPTION } from "./chartOptions.js";
 import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 
@@ -14,7 +14,8 @@ export const REPLAY_OPTIONS = [
   SAMPLE_RATIO_OPTION,
   REPORT_OPTION,
   SVG_OPTION,
-  { flags: "--force", help: "overwrite the --csv, --report or --svg file if it exists" },
+  CYCLES_OPTION,
+  { flags: "--force", help: "overwrite the --csv, --cycles, --report or --svg file if it exists" },
   NO_CHART_OPTION,
   CORNERS_OPTION,
   STRICT_OPTION,
@@ -29,6 +30,7 @@ export interface ReplayFlags {
   readonly sampleRatio?: string;
   readonly report?: string;
   readonly svg?: string;
+  readonly cycles?: string;
   readonly force?: boolean;
   readonly chart: boolean;
   readonly corners?: boolean;

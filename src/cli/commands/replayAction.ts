@@ -11,10 +11,11 @@ import { simulationVerdict } from "../../report/simulationVerdict.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
-import { readTextFile, refuseExistingOutput } from "../readInputFile.js";
+import { readTextFile, refuseExistingOutput, refuseSharedOutputs } from "../readInputFile.js";
 import { type Recorded, recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { ReplayFlags } from "./replay.js";
 import { simulateCorner } from "../../profile/simulateCorner.js";
+import { writeCyclesFile } from "../writeCyclesFile.js";
 import { simulationCorners } from "../simulationCorners.js";
 
 /** The damage lines of a replay: one pass of the history is the whole log. */
@@ -37,16 +38,18 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
       expected: "a duty profile file (--profile FILE) whose parts, circuit and limits replay this log",
       found: "nothing",
     });
+  refuseSharedOutputs([["--csv", options.csv], ["--cycles", options.cycles], ["--report", options.report], ["--svg", options.svg]]);
   refuseExistingOutput(run.io, options.csv, options.force === true, "--csv");
   refuseExistingOutput(run.io, options.report, options.force === true, "--report");
   refuseExistingOutput(run.io, options.svg, options.force === true, "--svg");
+  refuseExistingOutput(run.io, options.cycles, options.force === true, "--cycles");
   // the log is streamed: read in blocks as the replay runs, so its length costs no memory
   const openLog = (): ReturnType<typeof textPieces> & { close?: () => void } => run.io.openText?.(file, "event log") ?? textPieces(readTextFile(run.io, file, "event log"));
   const source = openLog();
   const profileFile = options.profile;
   const replayed = (): { stress: ProfileStress; recorded: Recorded<LogReplay> } => {
     const loaded = readProfileFile(run.io, profileFile);
-    const stress = new ProfileStress(replayShell(loaded), { mode: "open", keepCycles: options.report !== undefined });
+    const stress = new ProfileStress(replayShell(loaded), { mode: "open", keepCycles: options.report !== undefined || options.cycles !== undefined });
     return { stress, recorded: recordSimulation(run.io, loaded, options, stress, "replaying", (simulate) => replayLog(loaded, source, file, simulate)) };
   };
   let outcome: ReturnType<typeof replayed>;
@@ -62,6 +65,7 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
   const stressResult = stress.finish(result.endTimeS);
   const summary = logReplaySummary(replay, stressResult);
   const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
+  const cyclesNote = writeCyclesFile(run.io, options.cycles, stressResult, options.force === true);
   const stressText = formatProfileStress(replay.profile, stressResult, {
     history: REPLAY_HISTORY_WORDS,
     damageNote: "Damage to date is Miner's rule over the whole log, counted as a one-off history (ASTM E1049 §5.4.4: half cycles from the residue); the cycling life left depends on what the unit did outside the log.",
@@ -88,7 +92,7 @@ export async function replayAction(run: CliRun, file: string, options: ReplayFla
     run.io.out(`${JSON.stringify({ ...json, replay: summary, ...(corners.json === undefined ? {} : { corners: corners.json }) }, null, 2)}\n`);
   } else {
     run.io.out(
-      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}${chartNote}${corners.text}`,
+      `${formatSimulationText(replay.profile, result, digest, envelope, run.io.columns, stressText, { command: "replay", lines: header }, stressResult.ratingStatus)}\n${csvNote}${cyclesNote}${chartNote}${corners.text}`,
     );
   }
   run.status = verdictExitStatus(corners.verdict ?? simulationVerdict(result.verdict, stressResult.ratingStatus, result.contactor?.verdict).verdict, options.strict === true);

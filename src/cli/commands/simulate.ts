@@ -6,6 +6,8 @@ import { STRICT_OPTION, verdictHelp } from "./verdictHelp.js";
 /** The time-series flag, shared by the commands that simulate a history (simulate, replay). */
 export const CSV_OPTION = { flags: "--csv <file>", help: "write the time series (every step end and local peak, °C per part) to a CSV file" } as const;
 /** The flag that drops the charts, shared as CSV_OPTION. */
+/** The `--cycles <file>` flag of simulate and replay (writeCyclesFile). */
+export const CYCLES_OPTION = { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" } as const;
 export const NO_CHART_OPTION = { flags: "--no-chart", help: "leave the temperature charts out of the text report" } as const;
 
 /** The flag that runs a command at every corner of the profile's corner set (simulate, size, replay). */
@@ -30,7 +32,7 @@ export const SIMULATE_OPTIONS = [
   SAMPLE_RATIO_OPTION,
   REPORT_OPTION,
   SVG_OPTION,
-  { flags: "--cycles <file>", help: "write the rainflow-counted temperature cycles of every part (with their damage) to a CSV file" },
+  CYCLES_OPTION,
   { flags: "--force", help: "overwrite the --csv, --cycles, --report or --svg file if it exists" },
   NO_CHART_OPTION,
   CORNERS_OPTION,

@@ -6,10 +6,10 @@ import { simulationJson } from "../../report/simulationJson.js";
 import { simulationStressJson } from "../../report/simulationStressJson.js";
 import { simulationVerdict } from "../../report/simulationVerdict.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
-import { formatCyclesCsv } from "../../report/formatCyclesCsv.js";
 import type { CliRun } from "../main.js";
 import { readProfileFile } from "../readProfileFile.js";
-import { refuseExistingOutput, refuseSharedOutputs, writeOutputFile } from "../readInputFile.js";
+import { refuseExistingOutput, refuseSharedOutputs } from "../readInputFile.js";
+import { writeCyclesFile } from "../writeCyclesFile.js";
 import { recordSimulation, writeTimeSeries } from "../recordSimulation.js";
 import type { SimulateFlags } from "./simulate.js";
 import { simulateCorner } from "../../profile/simulateCorner.js";
@@ -32,12 +32,7 @@ export async function simulateAction(run: CliRun, file: string, options: Simulat
   const { result, digest, envelope, csv, trace } = recordSimulation(run.io, profile, options, stress, "simulating", (simulate) => simulateProfile(profile, simulate));
   const stressResult = stress.finish(result.endTimeS);
   const csvNote = writeTimeSeries(run.io, csv, options.csv, options.force === true);
-  let cyclesNote = "";
-  if (options.cycles !== undefined) {
-    const parts = stressResult.parts.map((p) => ({ id: p.id, cycles: p.report.cycles, damage: p.report.damage === undefined ? undefined : p.report.cycleDamage }));
-    writeOutputFile(run.io, options.cycles, formatCyclesCsv(parts), options.force === true, "--cycles");
-    cyclesNote = `Cycles: ${parts.reduce((n, p) => n + p.cycles.length, 0)} rows written to ${options.cycles}\n`;
-  }
+  const cyclesNote = writeCyclesFile(run.io, options.cycles, stressResult, options.force === true);
   let chartNote = "";
   if (trace !== undefined) {
     const { writeSimulationReport } = await import("../simulationReport.js");
