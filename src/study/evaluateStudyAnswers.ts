@@ -12,7 +12,7 @@ import type { TimelineEvent } from "../profile/expandTimeline.js";
 
 /** The answers of one profile: a number (SI; °C for peak) or null where the command has none. */
 export interface StudyAnswers {
-  /** the part the part answers follow */
+  /** the part whose peak, margin and damage the answers report */
   readonly partId: string;
   /** the verdict of simulate (the temperature verdict) when a simulate answer was asked, else of the first command run */
   readonly verdict: Verdict;

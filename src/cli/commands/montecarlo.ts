@@ -30,7 +30,7 @@ export function registerMonteCarlo(program: Command, run: CliRun): void {
     .option("--seed <n>", `random seed: the same seed gives the same numbers on any number of workers (default ${STUDY_DEFAULTS.seed})`)
     .option("--workers <n>", "worker threads (default: the CPU cores, one per 500 samples at most; never more than one per 16)")
     .option("--answer <names>", `answers, comma separated (default ${STUDY_DEFAULTS.monteCarloAnswers.join(",")}; margin is always worked out)`)
-    .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
+    .option("--part <id>", "the part whose peak, margin and damage the answers report (default: the part with the least margin)")
     .option("--worst <file>", "write the worst sample as a profile that reproduces it (an edited network file beside it)")
     .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a histogram per answer`)
     .option("--force", "overwrite the --worst or --report file if it exists")

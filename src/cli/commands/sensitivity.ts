@@ -24,7 +24,7 @@ export function registerSensitivity(program: Command, run: CliRun): void {
     .description("normalised sensitivities d ln(answer)/d ln(p) of the peak rise and the retry-for-ever interval, ranked (tornado)")
     .option("--vary <path>", "a quantity to study (repeat; default every quantity the profile's circuit writes)", collect)
     .option("--answer <names>", `answers, comma separated (default ${STUDY_DEFAULTS.sensitivityAnswers.join(",")}; forever only when the profile has a retry block with a fault)`)
-    .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
+    .option("--part <id>", "the part whose peak, margin and damage the answers report (default: the part with the least margin)")
     .option("--step <fraction>", `relative step h of the central difference (default ${STUDY_DEFAULTS.sensitivityStep})`)
     .option("--json", "print one JSON object instead of the tables")
     .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a tornado chart per answer`)

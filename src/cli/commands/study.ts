@@ -34,7 +34,7 @@ design, in version control, and runs again to the same numbers. The profile (and
   profile      the duty profile (required)
   description  words of your own (not read)
   answers      list of answer names (see "heatledger sweep --help")
-  part         the part the part answers follow
+  part         the part whose peak, margin and damage the answers report
   vary         list of { path, ... }: sweep { values: [...] } or { from, to, points, scale: log };
                montecarlo { distribution: "normal 5 %" }; sensitivity { path } alone
   samples, seed, workers   montecarlo;  step   sensitivity

@@ -39,7 +39,7 @@ export function registerSweep(program: Command, run: CliRun): void {
     .description("sweep one or two quantities of a profile and tabulate the answers of simulate, retries, supervise or size")
     .option("--vary <path=values>", "a quantity and its values: PATH=v1,v2,... or PATH=A..B:N (linear) or PATH=A..B:N:log; once or twice (grid)", collect)
     .option("--answer <names>", `answers to report, comma separated (default ${STUDY_DEFAULTS.sweepAnswers.join(",")})`)
-    .option("--part <id>", "the part the part answers follow (default: the part with the least margin)")
+    .option("--part <id>", "the part whose peak, margin and damage the answers report (default: the part with the least margin)")
     .option("--json", "print one JSON object (parameters, answers, points) instead of the table")
     .option("--csv <file>", "also write the points to a CSV file")
     .option(REPORT_OPTION.flags, `${REPORT_OPTION.help}: a line chart per answer (1-D), a heat map (2-D)`)
