@@ -11,15 +11,11 @@ import { SECONDS_PER_YEAR } from "../stress/minerDamage.js";
 import { forgetPeakGuess } from "../thermal/segmentPeak.js";
 import type { FleetPartRow, FleetUnitRow } from "./FleetUnitRow.js";
 
-/** One unit of a fleet to replay: its id, its log's name and the log, as text or read piece by piece. */
-export interface FleetLog {
-  readonly unit: string;
-  readonly file: string;
-  /** the whole log (used when `source` is absent) */
-  readonly text?: string;
-  /** the log read piece by piece (a file in blocks: memory flat in the log's length) */
-  readonly source?: TextSource;
-}
+/**
+ * One unit of a fleet to replay: its id, its log's name and the log, either as its whole text or
+ * read piece by piece (`source`: a file in blocks, memory flat in the log's length).
+ */
+export type FleetLog = { readonly unit: string; readonly file: string } & ({ readonly text: string; readonly source?: undefined } | { readonly source: TextSource; readonly text?: undefined });
 
 /** What every unit of a fleet run shares besides the profile. */
 export interface FleetUnitOptions {
@@ -51,7 +47,7 @@ export function replayFleetUnit(profile: DutyProfile, log: FleetLog, options: Fl
   forgetPeakGuess();
   try {
     const stress = new ProfileStress(replayShell(profile), { mode: "open", keepChecks: 0 });
-    const replay = replayLog(profile, log.source ?? textPieces(log.text ?? ""), log.file, {
+    const replay = replayLog(profile, log.source ?? textPieces(log.text), log.file, {
       models: options.models,
       wantSamples: stress.wantsSamples,
       onEvent: (event) => stress.addEvent(event),
