@@ -13,14 +13,23 @@
 // from its own import.meta.url (the worker scripts, "../NAMEWorker.js") names the bundled worker.
 // Packages that are loaded lazily and heavy (mathjs, the fitting, ODE, chart and worker-pool
 // libraries) stay outside the bundle and load from node_modules as before.
-import { readdirSync } from "node:fs";
+import { mkdirSync, readdirSync, rmSync, writeFileSync } from "node:fs";
+import { dirname } from "node:path";
 import { build } from "esbuild";
+
+// The CommonJS packages inside the bundle (commander, yaml) call require for Node's own modules,
+// through esbuild's __require shim, which reads a free `require`: a chunk that names it gets this
+// line. Only those (the shim's chunk): each createRequire and import.meta costs start-up time
+// in every one of the fifty-odd chunks simulate loads.
+const REQUIRE_LINE = 'import { createRequire as __heatledgerRequire } from "node:module"; const require = __heatledgerRequire(import.meta.url);\n';
 
 const workers = readdirSync("dist/cli")
   .filter((file) => file.endsWith("Worker.js"))
   .map((file) => `dist/cli/${file}`);
 
-await build({
+// a clean folder: chunk names change with their content, and stale chunks would only mislead
+rmSync("dist/bundle", { recursive: true, force: true });
+const result = await build({
   entryPoints: ["dist/cli/main.js", ...workers],
   outbase: "dist",
   outdir: "dist/bundle",
@@ -32,7 +41,10 @@ await build({
   platform: "node",
   target: "node20",
   external: ["mathjs", "vega", "vega-lite", "puppeteer-core", "piscina", "odex", "ml-fcnnls", "ml-levenberg-marquardt"],
-  // the CommonJS packages inside the bundle (commander, yaml) call require for Node's own modules
-  banner: { js: 'import { createRequire as __heatledgerRequire } from "node:module"; const require = __heatledgerRequire(import.meta.url);' },
+  write: false,
   logLevel: "warning",
 });
+for (const file of result.outputFiles) {
+  mkdirSync(dirname(file.path), { recursive: true });
+  writeFileSync(file.path, /\brequire\b/.test(file.text) ? REQUIRE_LINE + file.text : file.text);
+}

@@ -201,7 +201,8 @@ function buildLifetime(raw: NonNullable<StressKeysInput["lifetime"]>, field: str
  */
 export function resolveStressConfig(raw: unknown, options: { field?: string; partKind?: StressPartKind; limitC?: number } = {}): StressConfig {
   const prefix = options.field ?? "";
-  const parsed = stressKeysSchema.safeParse(raw);
+  // jitless: as in loadProfile, compiling zod's fast path costs more than a few parses save
+  const parsed = stressKeysSchema.safeParse(raw, { jitless: true });
   if (!parsed.success) {
     const problems: InputProblem[] = parsed.error.issues.map((issue) => {
       const found = valueAt(raw, issue.path);

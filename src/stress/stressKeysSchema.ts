@@ -1,4 +1,6 @@
-import { z } from "zod";
+// a namespace import, as in profileSchema.ts: the bundler keeps only the parts of zod in use
+// (`import { z }` keeps all of zod, every message locale with it)
+import * as z from "zod";
 
 /** A quantity as written in a profile: a number in SI units or a string with a unit. */
 const quantity = z.union([z.number(), z.string()], { error: 'a number in SI units or a string with a unit (such as "10 ms")' });

@@ -1,5 +1,5 @@
 import { spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
@@ -26,6 +26,15 @@ describe("the bundled bin and the unbundled CLI are the same program", () => {
   test("the bundle was built beside dist/", () => {
     expect(existsSync(`${root}dist/bundle/cli/main.js`)).toBe(true);
     expect(existsSync(`${root}dist/bundle/cli/monteCarloWorker.js`)).toBe(true);
+  });
+
+  test("zod is tree-shaken: only its English messages are in the bundle, no other locale", () => {
+    // `import { z } from "zod"` (a namespace re-exported as a value) keeps all of zod, its 60-odd
+    // message locales with it, some 550 KB more for simulate to compile; `import * as z` does not
+    const folder = `${root}dist/bundle/cli/commands`;
+    const text = readdirSync(folder).map((file) => readFileSync(join(folder, file), "utf8")).join("\n");
+    const locales = [...new Set(text.match(/zod\/v4\/locales\/[\w-]+\.js/g) ?? [])];
+    expect(locales).toEqual(["zod/v4/locales/en.js"]);
   });
 
   test.each([
