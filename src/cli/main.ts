@@ -16,9 +16,12 @@ export const WIDTH_RANGE = { min: 60, max: 400 } as const;
 
 /**
  * Build the heatledger command tree (a factory, so tests run it in process). Commander's own
- * errors are turned into exceptions (exitOverride) and its output goes through io.
+ * errors are turned into exceptions (exitOverride) and its output goes through io. When the
+ * first of `argv` names a command, only that command is registered (a run parses only its own
+ * flags, and building every command's options and help costs start-up time); else all are, for
+ * `--help`, `help CMD` and commander's "did you mean" suggestions.
  */
-export function createProgram(run: CliRun): Command {
+export function createProgram(run: CliRun, argv: readonly string[] = []): Command {
   const program = new Command("heatledger")
     .description(
       "Thermal history of DC-link pre-charge parts under repeated power-up, fault and retry events:\n" +
@@ -37,7 +40,8 @@ export function createProgram(run: CliRun): Command {
         throw inputError("bad-option", "--width", `a whole number of columns from ${WIDTH_RANGE.min} to ${WIDTH_RANGE.max}`, describeFound(text));
       run.io = { ...run.io, columns };
     });
-  for (const register of COMMANDS) register(program, run);
+  const named = COMMANDS.filter(([name]) => name === argv[0]);
+  for (const [, register] of named.length > 0 ? named : COMMANDS) register(program, run);
   return program;
 }
 
@@ -49,7 +53,7 @@ export function createProgram(run: CliRun): Command {
 export async function runCli(argv: readonly string[], rawIo: CliIo = processIo()): Promise<number> {
   const io = terminalSafeIo(rawIo);
   const run: CliRun = { io, status: 0 };
-  const program = createProgram(run);
+  const program = createProgram(run, argv);
   try {
     await program.parseAsync(argv as string[], { from: "user" });
     return run.status;

@@ -23,5 +23,13 @@ import type { CliRun } from "../main.js";
  */
 export type RegisterCommand = (program: Command, run: CliRun) => void;
 
-/** Every command of the CLI, in the order `--help` lists them. */
-export const COMMANDS: readonly RegisterCommand[] = [registerSimulate, registerReplay, registerFleet, registerRetries, registerSupervise, registerSize, registerGuard, registerNetwork, registerSweep, registerSensitivity, registerMonteCarlo, registerCompare, registerStudy, registerInit];
+/**
+ * Every command of the CLI by its name (the word `register` gives commander), in the order
+ * `--help` lists them. A run whose first argument names a command registers only that one
+ * (`createProgram`): the others' options and help texts are not built.
+ */
+export const COMMANDS: readonly (readonly [name: string, register: RegisterCommand])[] = [
+  ["simulate", registerSimulate], ["replay", registerReplay], ["fleet", registerFleet], ["retries", registerRetries], ["supervise", registerSupervise],
+  ["size", registerSize], ["guard", registerGuard], ["network", registerNetwork], ["sweep", registerSweep], ["sensitivity", registerSensitivity],
+  ["montecarlo", registerMonteCarlo], ["compare", registerCompare], ["study", registerStudy], ["init", registerInit],
+];
