@@ -211,6 +211,7 @@ export { chargeLinearMosfet, THRESHOLD_REFERENCE_TEMPERATURE_C } from "./circuit
 export type { ChargeThermalContext } from "./circuits/ChargeThermalContext.js";
 export { DEFAULT_LOOP_GAIN_WARNING } from "./circuits/ElectroThermalSummary.js";
 export type { ElectroThermalSummary, ThermalRunaway } from "./circuits/ElectroThermalSummary.js";
+export type { SquareLawPoint } from "./circuits/mosfetSquareLaw.js";
 export { resistanceAt, curveResistance, validateResistanceCurve, FULL_CURVE_REFERENCE_C } from "./circuits/ResistanceCurve.js";
 export type { ResistanceCurve } from "./circuits/ResistanceCurve.js";
 export type { LinearMosfetParams } from "./circuits/chargeLinearMosfet.js";

@@ -51,6 +51,7 @@ export { stretchPath } from "./circuits/stretchPath.js";
 export { runCoupledChargeEvent, COUPLED_ACCURACY } from "./circuits/runCoupledChargeEvent.js";
 export type { CoupledChargeModel } from "./circuits/runCoupledChargeEvent.js";
 export { contextZth } from "./circuits/ChargeThermalContext.js";
+export { transconductanceAt, squareLawOverdriveV, squareLawTempcoAPerK, zeroTempcoOverdriveV } from "./circuits/mosfetSquareLaw.js";
 export { circuitReadsTemperature } from "./profile/circuitReadsTemperature.js";
 export { thermalContextSource } from "./profile/thermalContextSource.js";
 export { integrateBusOde, NONLINEAR_ACCURACY, MAX_SPLITS_PER_STEP, SETTLE_TOLERANCE } from "./circuits/integrateBusOde.js";

@@ -1,3 +1,5 @@
+import type { SquareLawPoint } from "./mosfetSquareLaw.js";
+
 /**
  * Loop-gain level above which an event's electro-thermal margin is reported as a warning, when
  * the profile does not set one (`circuit.loopGainWarning`). Our own choice: half the gain at
@@ -42,4 +44,7 @@ export interface ElectroThermalSummary {
   readonly runaway?: ThermalRunaway;
   /** the part's highest temperature in the coupled solution [°C] */
   readonly peakTemperatureC: number;
+  /** a square-law MOSFET (one given a transconductance parameter): its operating point against the
+   *  zero-temperature-coefficient point, at peakTemperatureC */
+  readonly squareLaw?: SquareLawPoint;
 }

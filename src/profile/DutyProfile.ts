@@ -41,6 +41,10 @@ export type ProfileCircuit = {
       readonly saturationCurrentA?: number;
       readonly rdsOnOhm: number;
       readonly thresholdTempcoVPerK?: number;
+      /** square-law K at 25 °C [A/V²] */
+      readonly transconductanceAPerV2?: number;
+      /** mobility exponent m of K(T) */
+      readonly transconductanceExponent?: number;
       /** loop gain above which an event's electro-thermal margin is a warning */
       readonly loopGainWarning?: number;
     }

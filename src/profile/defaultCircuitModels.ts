@@ -58,6 +58,8 @@ export const defaultCircuitModels: CircuitModels = {
               ...(circuit.sourceResistorOhm === undefined ? {} : { sourceResistorOhm: circuit.sourceResistorOhm }),
               ...(circuit.saturationCurrentA === undefined ? {} : { saturationCurrentA: circuit.saturationCurrentA }),
               ...(circuit.thresholdTempcoVPerK === undefined ? {} : { thresholdTempcoVPerK: circuit.thresholdTempcoVPerK }),
+              ...(circuit.transconductanceAPerV2 === undefined ? {} : { transconductanceAPerV2: circuit.transconductanceAPerV2 }),
+              ...(circuit.transconductanceExponent === undefined ? {} : { transconductanceExponent: circuit.transconductanceExponent }),
               ...(circuit.loopGainWarning === undefined ? {} : { loopGainWarning: circuit.loopGainWarning }),
             },
             conditions,

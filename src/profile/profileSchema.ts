@@ -185,6 +185,8 @@ const mosfetSchema = z.strictObject({
   saturationCurrent: quantity("current", { above: 0, words: 'a current > 0 such as "8 A"' }).optional(),
   rdsOn: quantity("resistance", { above: 0, words: 'a resistance > 0 such as "10 mohm"' }),
   thresholdTempco: quantity("voltagePerKelvin", { words: 'a coefficient such as "-5 mV/K"' }).optional(),
+  transconductance: quantity("transconductanceParameter", { above: 0, words: 'a square-law K > 0 such as "12 A/V^2"' }).optional(),
+  transconductanceExponent: quantity("dimensionless", { min: 0, max: 10, words: "a mobility exponent in [0, 10] such as 1.5" }).optional(),
   loopGainWarning: quantity("dimensionless", { above: 0, words: "a loop gain > 0 such as 0.5" }).optional(),
 });
 

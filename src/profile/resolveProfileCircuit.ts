@@ -65,8 +65,10 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         reader.fail("bad-profile", join(field, "mosfet"), "a mosfet section (gateVoltage, thresholdVoltage, sourceResistor or saturationCurrent, rdsOn)", "nothing");
         return undefined;
       }
-      if (m.sourceResistor === undefined && m.saturationCurrent === undefined)
-        reader.fail("bad-profile", join(field, "mosfet"), "a sourceResistor or a saturationCurrent (what limits the current)", "neither");
+      if (m.sourceResistor === undefined && m.saturationCurrent === undefined && m.transconductance === undefined)
+        reader.fail("bad-profile", join(field, "mosfet"), "a sourceResistor, a saturationCurrent or a transconductance (what limits the current)", "none of them");
+      if (m.transconductanceExponent !== undefined && m.transconductanceExponent !== 0 && m.transconductance === undefined)
+        reader.fail("bad-profile", join(field, "mosfet.transconductanceExponent"), "a transconductance beside it (the K whose drift it gives)", "no transconductance");
       if (m.gateVoltage <= m.thresholdVoltage)
         reader.fail("out-of-range", join(field, "mosfet.gateVoltage"), `a gate voltage above the threshold (${m.thresholdVoltage} V)`, `${m.gateVoltage} V`);
       return {
@@ -78,6 +80,8 @@ export function resolveCircuit(reader: FieldReader, c: CircuitInput, field: stri
         ...(m.sourceResistor === undefined ? {} : { sourceResistorOhm: m.sourceResistor }),
         ...(m.saturationCurrent === undefined ? {} : { saturationCurrentA: m.saturationCurrent }),
         ...(m.thresholdTempco === undefined ? {} : { thresholdTempcoVPerK: m.thresholdTempco }),
+        ...(m.transconductance === undefined ? {} : { transconductanceAPerV2: m.transconductance }),
+        ...(m.transconductanceExponent === undefined ? {} : { transconductanceExponent: m.transconductanceExponent }),
         ...(m.loopGainWarning === undefined ? {} : { loopGainWarning: m.loopGainWarning }),
       };
     }

@@ -1,3 +1,4 @@
+import type { SquareLawPoint } from "../circuits/mosfetSquareLaw.js";
 import type { EventRecord } from "../profile/EventDigest.js";
 import type { LoopGainEvent, LoopGainTally } from "../profile/LoopGainTally.js";
 import { wrapText } from "../text/cautions.js";
@@ -16,6 +17,20 @@ export function loopGainCell(event: EventRecord): string {
   if (s === undefined) return "";
   if (s.runaway !== undefined) return "runaway";
   return `${formatNumber(s.maxLoopGain, 2)}${s.maxLoopGain > s.warningLoopGain ? LOOP_GAIN_WARNING_MARK : ""}`;
+}
+
+/**
+ * Where a square-law MOSFET runs against its zero-temperature-coefficient point: "square law at
+ * 87.2 °C (the charge's hottest): gate overdrive 0.62 V, below the zero-temperature-coefficient
+ * overdrive 2.36 V: the current rises as the die heats (+0.0123 A/K)".
+ */
+export function squareLawWords(p: SquareLawPoint): string {
+  const where = `square law at ${formatNumber(p.temperatureC, 4)} °C (the charge's hottest): gate overdrive ${formatNumber(p.overdriveV, 3)} V`;
+  const slope = `${p.tempcoAPerK > 0 ? "+" : ""}${formatNumber(p.tempcoAPerK, 3)} A/K`;
+  if (p.capped) return `${where}; the saturation current caps it, so the current does not follow the temperature`;
+  const ztc = p.zeroTempcoOverdriveV;
+  const against = ztc === undefined ? ", no zero-temperature-coefficient point" : `, ${p.overdriveV < ztc ? "below" : "above"} the zero-temperature-coefficient overdrive ${formatNumber(ztc, 3)} V`;
+  return `${where}${against}: the current ${p.tempcoAPerK > 0 ? "rises" : "falls"} as the die heats (${slope})`;
 }
 
 /** "event 12 (morning start: attempt 1 of 3)" */
@@ -49,6 +64,8 @@ export function formatLoopGainText(tally: LoopGainTally, width: number, ratingA?
         `${tally.warnings} of ${tally.coupled} charges above the warning level ${formatNumber(s.warningLoopGain, 3)}`,
     );
   }
+  const point = w?.summary.squareLaw;
+  if (point !== undefined) lines.push(squareLawWords(point));
   for (const r of tally.runaways) {
     const run = r.summary.runaway!;
     lines.push(

@@ -14,6 +14,15 @@ export interface LoopGainJsonEvent {
   readonly runaway: { readonly timeS: number; readonly temperatureC: number } | null;
   /** the charging element's highest current in the event [A] */
   readonly peakCurrentA: number | null;
+  /** a square-law MOSFET's operating point against its zero-temperature-coefficient point, at the
+   *  charge's hottest (zeroTempcoOverdriveV null: no such point); null for other elements */
+  readonly squareLaw: {
+    readonly temperatureC: number;
+    readonly overdriveV: number;
+    readonly zeroTempcoOverdriveV: number | null;
+    readonly tempcoAPerK: number;
+    readonly capped: boolean;
+  } | null;
 }
 
 /** The `electroThermal` block of `simulate --json`. */
@@ -52,6 +61,7 @@ export function loopGainJson(digest: EventDigest): LoopGainJson | undefined {
           status: s === undefined ? null : ran ? "runaway" : s.maxLoopGain > s.warningLoopGain ? "warn" : "pass",
           runaway: s?.runaway === undefined ? null : { timeS: s.runaway.timeS, temperatureC: s.runaway.temperatureC },
           peakCurrentA: e.peakCurrentA ?? null,
+          squareLaw: s.squareLaw === undefined ? null : { ...s.squareLaw, zeroTempcoOverdriveV: s.squareLaw.zeroTempcoOverdriveV ?? null },
         },
       ];
     }),

@@ -1,5 +1,5 @@
 import type { ContactorSummary } from "../profile/ContactorTally.js";
-import { type SurroundingsJson, surroundingsJson } from "./surroundingsSummary.js";
+import { type SurroundingsJson, surroundingsOf } from "./surroundingsSummary.js";
 import type { DutyProfile } from "../profile/DutyProfile.js";
 import type { SimulationResult } from "../profile/simulateProfile.js";
 import { reportCautions } from "../text/cautions.js";
@@ -103,12 +103,6 @@ export function simulationJson(profile: DutyProfile, result: SimulationResult, d
     ...inrushOf(digest, profile.circuit?.peakCurrentRatingA),
     ...surroundingsOf(profile),
   };
-}
-
-/** The optional `surroundings` key (absent for a constant ambient without heat sources). */
-function surroundingsOf(profile: DutyProfile): { surroundings?: SurroundingsJson } {
-  const surroundings = surroundingsJson(profile);
-  return surroundings === undefined ? {} : { surroundings };
 }
 
 /** The optional `electroThermal` key (absent when no charge followed its parts' temperatures). */

@@ -34,6 +34,15 @@ export function surroundingsJson(profile: DutyProfile): SurroundingsJson | undef
 }
 
 /**
+ * The optional `surroundings` key of a report's JSON (absent for a constant ambient without heat
+ * sources), spread into the report object: `{ ...report, ...surroundingsOf(profile) }`.
+ */
+export function surroundingsOf(profile: DutyProfile): { surroundings?: SurroundingsJson } {
+  const surroundings = surroundingsJson(profile);
+  return surroundings === undefined ? {} : { surroundings };
+}
+
+/**
  * The report lines saying what varies around the parts (none for a constant ambient), each
  * shorter than 100 columns for short names. Cost as surroundingsJson.
  */

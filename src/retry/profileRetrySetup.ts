@@ -2,6 +2,7 @@ import { inputLimit } from "../format/inputLimits.js";
 import { hottestSteadySurroundings, surroundingsBound } from "../profile/hottestSteadySurroundings.js";
 import type { ChargeConditions, CircuitResult } from "../circuits/CircuitResult.js";
 import { loadProblemsAt } from "../profile/loadProblemsAt.js";
+import { circuitReadsTemperature } from "../profile/circuitReadsTemperature.js";
 import { inputError } from "../errors/InputError.js";
 import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, FaultSpec, ProfileCircuit } from "../profile/DutyProfile.js";
@@ -113,9 +114,9 @@ export function profileRetrySetup(given: DutyProfile, models: CircuitModels): Pr
       const sameNetwork = heated.filter((h) => h.networkKey === part.networkKey);
       // The circuit model is the costly step of an attempt and solvers ask for the same start
       // again and again (a shorted bus always starts at 0 V): remember recent outcomes, keyed by
-      // the start voltage, and by the part temperature when the model reads it (MOSFET threshold drift).
+      // the start voltage, and by the part temperature when the model reads it (circuitReadsTemperature).
       const memo = new Map<string, AttemptOutcome>();
-      const readsTemperature = c.topology === "linear-mosfet" && (c.thresholdTempcoVPerK ?? 0) !== 0;
+      const readsTemperature = circuitReadsTemperature(c);
       const attempt = (context: { capacitorVoltageV: number; partTemperatureC: number }): AttemptOutcome => {
         const key = readsTemperature ? `${context.capacitorVoltageV}|${context.partTemperatureC}` : `${context.capacitorVoltageV}`;
         const known = memo.get(key);

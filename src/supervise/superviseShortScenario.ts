@@ -3,6 +3,7 @@ import type { CircuitModels } from "../profile/CircuitModels.js";
 import type { DutyProfile, ProfilePart } from "../profile/DutyProfile.js";
 import type { PowerTrace } from "../thermal/powerTrace.js";
 import { ATTEMPT_TIMING_DEFAULTS, shortestAttemptWaitS } from "../profile/attemptTiming.js";
+import { circuitReadsTemperature } from "../profile/circuitReadsTemperature.js";
 import type { AttemptOutcome, RetryScenario } from "../retry/RetryScenario.js";
 
 /**
@@ -32,8 +33,8 @@ export function shortedScenario(profile: DutyProfile, part: ProfilePart, busVolt
     ...(protection === undefined ? {} : { protection }),
   };
   // A short always starts from 0 V: the attempt is the same every time unless the model reads the
-  // part temperature (a linear MOSFET's threshold drift), so it is computed once.
-  const readsTemperature = circuit.topology === "linear-mosfet" && (circuit.thresholdTempcoVPerK ?? 0) !== 0;
+  // part temperature (circuitReadsTemperature), so it is computed once.
+  const readsTemperature = circuitReadsTemperature(circuit);
   let cached: AttemptOutcome | undefined;
   return {
     name: `${part.id}, short at ${busVoltageV} V`,

@@ -20,6 +20,7 @@ export const DIMENSIONS = {
   heatCapacity: { si: "J/K", words: "a heat capacity", example: "12 J/K" },
   specificHeat: { si: "J/(kg K)", words: "a specific heat", example: "900 J/(kg K)" },
   voltagePerKelvin: { si: "V/K", words: "a voltage temperature coefficient", example: "-5 mV/K" },
+  transconductanceParameter: { si: "A/V^2", words: "a transconductance parameter (square law K)", example: "12 A/V^2" },
   inductance: { si: "H", words: "an inductance", example: "2 uH" },
   voltageRate: { si: "V/s", words: "a voltage rise rate", example: "200 V/s" },
   currentSquaredTime: { si: "A^2 s", words: "a current-squared time (I²t)", example: "5 A^2 s" },

@@ -14,6 +14,7 @@ const SPELLINGS: ReadonlyArray<readonly [RegExp, string]> = [
   [/Ω|Ohm\b|Ohms\b|ohms\b/g, "ohm"],
   [/°C|℃|Celsius\b|celsius\b/g, "degC"],
   [/°F/g, "degF"],
+  [/²/g, "^2"],
 ];
 
 function normalise(text: string): string {
@@ -38,6 +39,7 @@ const PROBE: Record<Exclude<Dimension, "dimensionless">, string> = {
   heatCapacity: "J/K",
   specificHeat: "J/(kg K)",
   voltagePerKelvin: "V/K",
+  transconductanceParameter: "A/V^2",
   inductance: "H",
   voltageRate: "V/s",
   currentSquaredTime: "A^2 s",

@@ -26,6 +26,7 @@ export const QUANTITY_RANGES: Readonly<Record<Exclude<Dimension, "dimensionless"
   heatCapacity: { max: 1e12, minNonZero: 1e-12 },
   specificHeat: { max: 1e9, minNonZero: 1e-9 },
   voltagePerKelvin: { max: 1e3, minNonZero: 0 },
+  transconductanceParameter: { max: 1e6, minNonZero: 1e-9 },
   inductance: { max: 1e3, minNonZero: 1e-15 },
   voltageRate: { max: 1e12, minNonZero: 1e-12 },
   currentSquaredTime: { max: 1e15, minNonZero: 1e-15 },

@@ -100,7 +100,7 @@ describe("chargeLinearMosfet", () => {
   test.each([
     [{ ...base, gateVoltageV: 3 }, {}, "gateVoltageV: expected a gate voltage above the threshold (4 V at 25 °C), found 3"],
     [{ ...base, gateVoltageV: 3.6, thresholdTempcoVPerK: -5e-3 }, { partTemperatureC: { mosfet: 25 } }, "gateVoltageV: expected a gate voltage above the threshold (4 V at 25 °C), found 3.6"],
-    [{ ...base, sourceResistorOhm: undefined }, {}, "sourceResistorOhm: expected a source resistor > 0 Ω or a saturationCurrentA, found neither"],
+    [{ ...base, sourceResistorOhm: undefined }, {}, "sourceResistorOhm: expected a source resistor > 0 Ω, a saturationCurrentA or a transconductanceAPerV2, found none of them"],
     [{ ...base, sourceResistorOhm: 0 }, {}, "sourceResistorOhm: expected a source resistor > 0 Ω, found 0"],
     [{ ...base, rdsOnOhm: -1 }, {}, "rdsOnOhm: expected an on-resistance > 0 Ω, found -1"],
     [{ ...base, capacitanceF: 0 }, {}, "capacitanceF: expected a capacitance > 0 F, found 0"],

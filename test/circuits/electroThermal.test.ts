@@ -1,6 +1,4 @@
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { createRequire } from "node:module";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
@@ -16,31 +14,11 @@ import {
   traceSteps,
 } from "../../src/internal.js";
 import { bundledText, loadAs } from "../helpers/closedLoopFixtures.js";
-import { requireNgspiceRan } from "../helpers/requireNgspice.js";
+import { mosfetChargeAgainstNgspice, odexSolver, singleRc } from "../helpers/electroThermalReferences.js";
 
 // Outside reference: odex (the npm package, Hairer & Wanner's ODEX), called here directly on the
 // equations written out below, with no project thermal or circuit code; and closed forms of a
-// single thermal RC worked in the comments.
-const { Solver } = createRequire(import.meta.url)("odex") as {
-  Solver: new (n: number) => {
-    relativeTolerance: number;
-    absoluteTolerance: number;
-    denseOutput: boolean;
-    maxSteps: number;
-    solve(
-      f: (x: number, y: number[]) => number[],
-      x0: number,
-      y0: number[],
-      xEnd: number,
-      out?: (n: number, xOld: number, x: number, y: number[], dense?: (c: number, x: number) => number) => boolean | void,
-    ): { y: number[] };
-  };
-};
-
-/** One thermal RC seen by the MOSFET alone, starting at ambient. */
-function singleRc(rthKPerW: number, tauS: number, ambientC: number): ChargeThermalContext {
-  return { roles: ["mosfet"], ambientC: [ambientC], tauS: [tauS], gainKPerW: [[[rthKPerW]]], startRiseK: [[0]] };
-}
+// single thermal RC worked in the comments (the helpers: test/helpers/electroThermalReferences.ts).
 
 // A MOSFET current source into a shorted bus (held at 0 V): V_DS = Vs − I·Rs, with
 // I(T) = (Vg − Vth − k·(T − 25 °C))/Rs. Invented values chosen for round numbers.
@@ -58,11 +36,7 @@ const powerAt = (riseK: number) => (VS - currentAt(riseK) * RS) * currentAt(rise
 
 /** odex on C·dx/dt = P(x) − x/Rth (x: rise over 25 °C), C = tau/Rth; x at each requested time. */
 function odexRise(rth: number, tau: number, times: readonly number[]): number[] {
-  const solver = new Solver(1);
-  solver.relativeTolerance = 1e-12;
-  solver.absoluteTolerance = 1e-12;
-  solver.denseOutput = true;
-  solver.maxSteps = 1e6;
+  const solver = odexSolver(1);
   const out: number[] = [];
   let next = 0;
   solver.solve((_t, y) => [(powerAt(y[0]!) * rth - y[0]!) / tau], 0, [0], times.at(-1)!, (_n, xOld, x, y, dense) => {
@@ -175,11 +149,7 @@ describe("linear-mode MOSFET with threshold drift, solved with its thermal netwo
       const p = (vs - y[0]! - i * rs) * i;
       return [i / c, (p - y[1]!) / tau[0]!, (p - y[2]!) / tau[1]!, p];
     };
-    const solver = new Solver(4);
-    solver.relativeTolerance = 1e-12;
-    solver.absoluteTolerance = 1e-12;
-    solver.denseOutput = true;
-    solver.maxSteps = 1e6;
+    const solver = odexSolver(4);
     let doneAt = NaN;
     let energy = NaN;
     let peak = -Infinity;
@@ -264,44 +234,10 @@ describe("MOSFET with threshold drift against ngspice", () => {
 
   test("peak junction temperature rise and MOSFET energy within 0.5 %", () => {
     const { c, vs, vg, vth, rs, k, ambient, tau, rf, r } = twoModeCharge();
-    const tstop = r.durationS;
     const current = `((${vg}-(${vth}+(${k})*(v(j)+${ambient - 25})))/${rs})`;
     const power = `((${vs}-v(bus)-${current}*${rs})*${current})`;
-    const netlist = `* linear-mode MOSFET with threshold drift, Foster network from node j (rise over ambient)
-b1 0 bus i=${current}
-c1 bus 0 ${c} ic=0
-b2 0 j i=${power}
-r1 j n2 ${rf[0]}
-c1t j n2 ${tau[0]! / rf[0]!} ic=0
-r2 n2 0 ${rf[1]}
-c2t n2 0 ${tau[1]! / rf[1]!} ic=0
-b3 0 en i=${power}
-cen en 0 1 ic=0
-.options reltol=1e-6 abstol=1e-12 vntol=1e-9
-.tran 1e-5 ${tstop} 0 1e-4 uic
-.control
-set filetype=ascii
-set wr_singlescale
-set wr_vecnames
-run
-wrdata mosfet.dat v(j) v(en)
-.endc
-.end
-`;
-    writeFileSync(join(work, "mosfet.cir"), netlist);
-    const run = spawnSync("ngspice", ["-b", "mosfet.cir"], { cwd: work, encoding: "utf8" });
-    requireNgspiceRan(run);
-    expect(`${run.stdout}${run.stderr}`).not.toMatch(/error|abort|too small|singular/i);
-    const [header, ...rows] = readFileSync(join(work, "mosfet.dat"), "utf8").trim().split("\n");
-    const names = header!.trim().split(/\s+/);
-    const cols = rows.map((row) => row.trim().split(/\s+/).map(Number));
-    const at = (name: string) => cols.map((row) => row[names.indexOf(name)]!);
-    expect(at("time").at(-1)).toBeCloseTo(tstop, 9);
-    const spicePeak = Math.max(...at("v(j)"));
-    const spiceEnergy = at("v(en)").at(-1)!;
-    const model = { tauS: tau, sources: ["mosfet"], observed: ["mosfet"], gainKPerW: [[rf]] };
-    const ours = runThermalHistory(model, traceSteps([r.traces.mosfet]));
-    expect(Math.abs(ours.peakRiseK[0]! - spicePeak) / spicePeak).toBeLessThan(5e-3);
-    expect(Math.abs(r.energy.partsJ.mosfet! - spiceEnergy) / spiceEnergy).toBeLessThan(5e-3);
+    const spice = mosfetChargeAgainstNgspice(work, r, { title: "linear-mode MOSFET with threshold drift", name: "mosfet", current, power, capacitanceF: c, rf, tauS: tau });
+    expect(Math.abs(spice.peakError)).toBeLessThan(5e-3);
+    expect(Math.abs(spice.energyError)).toBeLessThan(5e-3);
   });
 });

@@ -1,10 +1,9 @@
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
 import { type CircuitResult, chargeLinearMosfet, chargeSeriesResistor, powerAt } from "../../src/internal.js";
-import { requireNgspiceRan } from "../helpers/requireNgspice.js";
+import { runNgspiceBatch } from "../helpers/electroThermalReferences.js";
 
 // Outside reference: ngspice (Debian package `ngspice`, installed by .ci/run), a general-purpose
 // circuit simulator, runs the same circuit as a netlist; we compare the capacitor voltage and the
@@ -18,16 +17,8 @@ afterAll(() => rmSync(work, { recursive: true, force: true }));
 
 /** Run a netlist in batch mode and read its wrdata table: one header line, then numeric rows. */
 function runNgspice(name: string, netlist: string, tstop: number): Record<string, number[]> {
-  writeFileSync(join(work, `${name}.cir`), netlist);
-  const run = spawnSync("ngspice", ["-b", `${name}.cir`], { cwd: work, encoding: "utf8" });
-  // ngspice's exit status says nothing reliable (1 after a good batch run with a .control block,
-  // 0 after some aborts): check that it ran, its log, and that the data reaches tstop
-  requireNgspiceRan(run);
-  expect(`${run.stdout}${run.stderr}`).not.toMatch(/error|abort|too small|singular/i);
-  const [header, ...rows] = readFileSync(join(work, `${name}.dat`), "utf8").trim().split("\n");
-  const names = header!.trim().split(/\s+/);
-  const columns: Record<string, number[]> = Object.fromEntries(names.map((n) => [n, [] as number[]]));
-  for (const row of rows) row.trim().split(/\s+/).forEach((cell, i) => columns[names[i]!]!.push(Number(cell)));
+  // ngspice ran and its log is clean (runNgspiceBatch); the data must reach tstop
+  const columns = runNgspiceBatch(work, name, netlist);
   expect(columns.time!.at(-1)).toBeCloseTo(tstop, 12);
   return columns;
 }

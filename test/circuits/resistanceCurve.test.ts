@@ -1,5 +1,4 @@
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -16,7 +15,7 @@ import {
   simulateProfile,
   traceSteps,
 } from "../../src/internal.js";
-import { requireNgspiceRan } from "../helpers/requireNgspice.js";
+import { runNgspiceBatch } from "../helpers/electroThermalReferences.js";
 
 const work = mkdtempSync(join(tmpdir(), "heatledger-rt-"));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
@@ -143,14 +142,8 @@ wrdata ntc.dat v(th) v(en)
 .endc
 .end
 `;
-    writeFileSync(join(work, "ntc.cir"), netlist);
-    const run = spawnSync("ngspice", ["-b", "ntc.cir"], { cwd: work, encoding: "utf8" });
-    requireNgspiceRan(run);
-    expect(`${run.stdout}${run.stderr}`).not.toMatch(/error|abort|too small|singular/i);
-    const [header, ...rows] = readFileSync(join(work, "ntc.dat"), "utf8").trim().split("\n");
-    const names = header!.trim().split(/\s+/);
-    const cols = rows.map((row) => row.trim().split(/\s+/).map(Number));
-    const at = (name: string) => cols.map((row) => row[names.indexOf(name)]!);
+    const cols = runNgspiceBatch(work, "ntc", netlist);
+    const at = (name: string) => cols[name]!;
     expect(at("time").at(-1)).toBeCloseTo(tstop, 9);
     const spicePeakRise = Math.max(...at("v(th)"));
     const spiceEnergy = at("v(en)").at(-1)!;

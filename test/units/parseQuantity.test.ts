@@ -16,6 +16,13 @@ describe("parseQuantity", () => {
     ["2.2 µF", "capacitance", 2.2e-6],
     ["900 J/(kg K)", "specificHeat", 900],
     ["-5 mV/K", "voltagePerKelvin", -5e-3],
+    // a square-law K: A/V² (siemens per volt, S = A/V: SI brochure §2.3, from memory)
+    ["12 A/V^2", "transconductanceParameter", 12],
+    ["12 A/V²", "transconductanceParameter", 12],
+    ["350 mA/V^2", "transconductanceParameter", 0.35],
+    ["12 A V^-2", "transconductanceParameter", 12],
+    ["12 A/V/V", "transconductanceParameter", 12],
+    ["3 S/V", "transconductanceParameter", 3],
     ["95 %", "dimensionless", 0.95],
     ["1.5 kW", "power", 1500],
     ["3 min", "time", 180],
@@ -29,6 +36,7 @@ describe("parseQuantity", () => {
 
   test.each([
     ["4.7 mV", "capacitance", 'circuit.c: expected a capacitance such as "4.7 mF" (or a number in F), found "4.7 mV" (a voltage)'],
+    ["12 A/V", "transconductanceParameter", 'circuit.c: expected a transconductance parameter (square law K) such as "12 A/V^2" (or a number in A/V^2), found "12 A/V" (another dimension)'],
     ["4.7 mFoo", "capacitance", 'circuit.c: expected a capacitance such as "4.7 mF" (or a number in F), found "4.7 mFoo" (unknown unit "mFoo")'],
     ["1e400 s", "time", 'circuit.c: expected a time such as "350 ms" (or a number in s), a finite number, found "1e400 s"'],
     ["2+3 s", "time", 'circuit.c: expected a time such as "350 ms" (or a number in s), found "2+3 s"'],

@@ -61,6 +61,7 @@ describe("quickSiValue", () => {
     "K/W", "K / W", "mK/W", "K/mW", "J/(kg K)", "J/(kg*K)", "J/kg/K", "J kg^-1 K^-1", "kJ/(kg K)", "J/(g K)", "V/K", "mV/K",
     "W^1", "s^-1", "J/K", "kJ/K", "ohm", "kohm", "Mohm", "mohm", "kiloohm", "uF", "nF", "mF", "ms", "us", "kg", "mg", "um", "mm",
     "W*s", "V*A", "J/s", "A*s/V", "(J)/(K)", "J/(K)", "m^2", "J/kg K",
+    "A/V^2", "mA/V^2", "A V^-2", "A/V/V", "A/(V V)",
   ])("the compound %j reads as mathjs reads it", (unitText) => {
     agrees("-4.7e-3", unitText);
     agrees("350", unitText);

@@ -8,6 +8,7 @@ import { planGuard } from "../../guard/planGuard.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatGuardText } from "../../report/formatGuardText.js";
 import { guardJson } from "../../report/guardJson.js";
+import { surroundingsBoundNote as boundNote, surroundingsOf } from "../../report/surroundingsSummary.js";
 import { verdictExitStatus } from "../../stress/Verdict.js";
 import { parseQuantity } from "../../units/parseQuantity.js";
 import { commandProgress } from "../commandProgress.js";
@@ -66,8 +67,8 @@ export function guardAction(run: CliRun, file: string, options: GuardFlags): voi
     writeOutputFile(run.io, options.vectors, `${JSON.stringify(guardVectorsJson(report, file))}\n`, force, "--vectors");
     written.push(options.vectors);
   }
-  if (options.json) run.io.out(`${JSON.stringify(guardJson(report, file, written), null, 2)}\n`);
-  else run.io.out(formatGuardText(report, file, { paths: written }, Math.min(run.io.columns, 100)));
+  if (options.json) run.io.out(`${JSON.stringify({ ...guardJson(report, file, written), ...surroundingsOf(profile) }, null, 2)}\n`);
+  else run.io.out(`${boundNote(profile, Math.min(run.io.columns, 100))}${formatGuardText(report, file, { paths: written }, Math.min(run.io.columns, 100))}`);
   run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
 

@@ -1,5 +1,5 @@
 import { formatRetryPlanText } from "../../report/formatRetryPlanText.js";
-import { surroundingsBoundNote as boundNote, surroundingsJson } from "../../report/surroundingsSummary.js";
+import { surroundingsBoundNote as boundNote, surroundingsOf } from "../../report/surroundingsSummary.js";
 import { lockoutMapCsv } from "../../report/formatLockoutMap.js";
 import { planRetries } from "../../retry/planRetries.js";
 import { retryPlanJson } from "../../report/retryPlanJson.js";
@@ -38,8 +38,7 @@ export async function retriesAction(run: CliRun, file: string, options: RetriesF
     const page = { title: `heatledger retries: ${profile.name}`, verdict: report.policy.verdict, verdictText: report.policy.reasons.join("; "), cautions: reportCautions(report.setup.linearMosfet), text: formatRetryPlanText(report, 100) };
     chartNote = await writeChartReport(run.io, options, page, retryCharts(profile, report));
   }
-  const surroundings = surroundingsJson(profile);
-  if (options.json) run.io.out(`${JSON.stringify({ ...(retryPlanJson(report) as object), ...(surroundings === undefined ? {} : { surroundings }) }, null, 2)}\n`);
+  if (options.json) run.io.out(`${JSON.stringify({ ...(retryPlanJson(report) as object), ...surroundingsOf(profile) }, null, 2)}\n`);
   else run.io.out(`${boundNote(profile, Math.min(run.io.columns, 100))}${formatRetryPlanText(report, Math.min(run.io.columns, 100))}${options.csv === undefined ? "" : `Lockout map written to ${options.csv}\n`}${chartNote}`);
   run.status = verdictExitStatus(report.policy.verdict, options.strict === true);
 }

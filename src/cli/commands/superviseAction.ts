@@ -1,5 +1,5 @@
 import { supervisePrecharge } from "../../supervise/supervisePrecharge.js";
-import { surroundingsBoundNote as boundNote, surroundingsJson } from "../../report/surroundingsSummary.js";
+import { surroundingsBoundNote as boundNote, surroundingsOf } from "../../report/surroundingsSummary.js";
 import { defaultCircuitModels } from "../../profile/defaultCircuitModels.js";
 import { formatSupervisionText } from "../../report/formatSupervisionText.js";
 import { supervisionJson } from "../../report/supervisionJson.js";
@@ -42,8 +42,7 @@ export async function superviseAction(run: CliRun, file: string, options: Superv
     const page = { title: `heatledger supervise: ${profile.name}`, verdict: report.verdict, verdictText: report.problems.join(" "), cautions: reportCautions(report.linearMosfet), text: formatSupervisionText(report, 100, false) };
     chartNote = await writeChartReport(run.io, options, page, supervisionCharts(profile, report));
   }
-  const surroundings = surroundingsJson(profile);
-  if (options.json) run.io.out(`${JSON.stringify({ ...(supervisionJson(report) as object), ...(surroundings === undefined ? {} : { surroundings }) }, null, 2)}\n`);
+  if (options.json) run.io.out(`${JSON.stringify({ ...(supervisionJson(report) as object), ...surroundingsOf(profile) }, null, 2)}\n`);
   else run.io.out(`${boundNote(profile, Math.min(run.io.columns, 100))}${formatSupervisionText(report, run.io.columns, options.chart)}${chartNote}`);
   run.status = verdictExitStatus(report.verdict, options.strict === true);
 }
