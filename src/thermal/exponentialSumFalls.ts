@@ -1,3 +1,5 @@
+import { exponentialSumZero } from "./exponentialSumZero.js";
+
 /**
  * Whether an exponential sum S(x) = Σ_{i<n} k_i·e^(−r_i·x) (rates ascending, r_0 ≥ 0) goes from
  * positive to zero or below somewhere in (0, h]: for the slope of a rise, whether the step holds
@@ -69,7 +71,7 @@ export function exponentialSumFalls(coefficients: ArrayLike<number>, rates: Arra
     let next = 1;
     nextBreakpoints[0] = 0;
     for (let k = 0; k + 1 < count; k++)
-      if (values[k]! > 0 !== values[k + 1]! > 0) nextBreakpoints[next++] = zeroInside(level, n, rates, breakpoints[k]!, breakpoints[k + 1]!, values[k]!, h);
+      if (values[k]! > 0 !== values[k + 1]! > 0) nextBreakpoints[next++] = exponentialSumZero(levelCoefficients, level * n, rates, level, n, breakpoints[k]!, breakpoints[k + 1]!, 0.5 * (breakpoints[k]! + breakpoints[k + 1]!), values[k]! > 0, h);
     nextBreakpoints[next++] = h;
     const swap = breakpoints;
     breakpoints = nextBreakpoints;
@@ -123,28 +125,4 @@ function levelSize(j: number, n: number, rates: ArrayLike<number>, x: number): n
   let sum = 0;
   for (let i = j; i < n; i++) sum += Math.abs(levelCoefficients[j * n + i]!) * Math.exp(-rates[i]! * x);
   return sum;
-}
-
-/** The one zero of S_j inside (lo, hi), where it is monotone (up to the factor e^(r·x)) and changes sign; safeguarded Newton, to 1e-12·h. */
-function zeroInside(j: number, n: number, rates: ArrayLike<number>, lo: number, hi: number, fLo: number, h: number): number {
-  const rising = fLo < 0;
-  let x = 0.5 * (lo + hi);
-  for (let iteration = 0; iteration < 200; iteration++) {
-    let f = 0;
-    let df = 0;
-    for (let i = j; i < n; i++) {
-      const term = levelCoefficients[j * n + i]! * Math.exp(-rates[i]! * x);
-      f += term;
-      df -= term * rates[i]!;
-    }
-    if (f === 0) return x;
-    if (f < 0 === rising) lo = x;
-    else hi = x;
-    if (hi - lo <= 1e-12 * h) break;
-    let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - x) <= 1e-12 * h) return next;
-    x = next;
-  }
-  return 0.5 * (lo + hi);
 }

@@ -1,6 +1,7 @@
 import type { ModalModel } from "./ModalModel.js";
 import { type ModalState, type SourcePowers, advanceModalState, modalRise } from "./modalStep.js";
 import { exponentialSumFalls } from "./exponentialSumFalls.js";
+import { exponentialSumZero } from "./exponentialSumZero.js";
 import { type PowerTerm, powerAt } from "./powerTrace.js";
 
 /** An interior maximum of a node's rise inside one step. */
@@ -377,24 +378,7 @@ export function forgetPeakGuess(): void {
 
 /** Safeguarded Newton on the scratch sum inside [lo, hi] from x, S(lo) > 0 ≥ S(hi). */
 function turnInside(n: number, h: number, lo: number, hi: number, x: number): number {
-  for (let iteration = 0; iteration < 200; iteration++) {
-    let f = 0;
-    let df = 0;
-    for (let i = 0; i < n; i++) {
-      const term = sumCoefficients[i]! * Math.exp(-sumRates[i]! * x);
-      f += term;
-      df -= term * sumRates[i]!;
-    }
-    if (f === 0) return x;
-    if (f > 0) lo = x;
-    else hi = x;
-    if (hi - lo <= 1e-12 * h) break;
-    let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - x) <= 1e-12 * h) return next;
-    x = next;
-  }
-  return 0.5 * (lo + hi);
+  return exponentialSumZero(sumCoefficients, 0, sumRates, 0, n, lo, hi, x, true, h);
 }
 
 /**
