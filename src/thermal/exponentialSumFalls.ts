@@ -16,9 +16,10 @@ import { exponentialSumZero } from "./exponentialSumZero.js";
  * Newton inside their brackets. S falls to zero or below exactly when, over the breakpoints of S
  * itself, a positive value is followed by one at or below zero. Before all this, bounds from the
  * terms' values at 0 and h settle most steps in O(n): S above zero, or never above it.
- * Source: Pólya & Szegő, Problems and Theorems in Analysis II, Part V, problem 75 (rule of signs
- * for exponential sums, proved by this differentiation; problem number from memory); Rolle's
- * theorem; Newton with bracketing, Press et al., Numerical Recipes, 3rd ed. (2007), §9.4.
+ * Source: the generalised rule of signs for exponential sums (Laguerre) and its proof by this
+ * differentiation, as in Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from
+ * memory); Rolle's theorem; Newton with bracketing, Press et al., Numerical Recipes, 3rd ed.
+ * (2007), §9.4.
  * Validity: a value within `UNSURE` of zero, relative to the sum of the terms' sizes there (a
  * tangency, or a turn exactly at a breakpoint), cannot be told apart from rounding: the answer
  * is then true, so a caller that searches on "true" loses nothing.

@@ -29,7 +29,8 @@ describe("exponentialSumFalls against the closed-form cubic in e^(−x)", () => 
 // Outside reference: dense sampling of the sum with Math.exp (2·10^4 points), where a fall shows
 // as a positive sample followed by one at or below zero. A fall between two samples that rises
 // again before the next one is invisible to the sampler, so only the sampler's "fall" is held
-// against the exact answer, and the exact "fall" against a fine sampling near it.
+// against the exact answer: the exact test must never miss a fall the sampler sees (a missed
+// fall would be a missed peak; a needless "true" only sends the step to the grid search).
 describe("exponentialSumFalls against dense sampling (property)", () => {
   test("random sums of up to six terms with several sign changes", () => {
     fc.assert(
@@ -61,6 +62,7 @@ describe("exponentialSumFalls against dense sampling (property)", () => {
 
   test("a sum that stays positive over the step never falls", () => {
     // coefficients of both signs, but the positive constant outweighs the rest: S > 0 everywhere
+    // (settled by the bounds; the cubic above with h = 0.5 is settled by the isolation)
     expect(exponentialSumFalls([5, -1, 2, -1.5, 1], [0, 1, 10, 50, 100], 5, 3)).toBe(false);
   });
 });
