@@ -219,9 +219,11 @@ export function runCoupledChargeEvent(model: CoupledChargeModel, load: BusLoad, 
   let runaway: ThermalRunaway | undefined;
   let lastGain = 0;
   let lastTempC = peakC;
+  // the temperatures of the forward difference: a scratch array (the point built on it is dropped)
+  const hi = new Float64Array(n);
   const loopGain = (timeS: number, v: number, p: Point): number => {
     if (readIndex < 0) return 0;
-    const hi = Float64Array.from(p.tempC);
+    hi.set(p.tempC);
     hi[readIndex] = hi[readIndex]! + DERIVATIVE_STEP_K;
     const ph = pointAt(v, hi);
     let g = 0;
@@ -291,7 +293,8 @@ export function runCoupledChargeEvent(model: CoupledChargeModel, load: BusLoad, 
         const vm = clamped ? 0 : v + (h * (3 * p0.capA + i1)) / (8 * c);
         const pm = evaluate(t + h / 2, vm, yMid);
         if (pm.regime.key !== p0.regime.key) return undefined;
-        const largest = Math.max(0, ...partScale, ...p1.partW.map(Math.abs));
+        let largest = 0;
+        for (let k = 0; k < keys.length; k++) largest = Math.max(largest, partScale[k]!, Math.abs(p1.partW[k]!));
         let error = Math.abs(pm.capA - 0.5 * (p0.capA + p1.capA)) / (COUPLED_ACCURACY.currentTolerance * Math.max(currentScale, Math.abs(p1.capA), 1e-300));
         for (let k = 0; k < keys.length; k++) {
           const tol = COUPLED_ACCURACY.powerTolerance * Math.max(partScale[k]!, Math.abs(p1.partW[k]!), 1e-6 * largest, 1e-300);
