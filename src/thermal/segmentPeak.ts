@@ -1,5 +1,7 @@
 import type { ModalModel } from "./ModalModel.js";
 import { type ModalState, type SourcePowers, advanceModalState, modalRise } from "./modalStep.js";
+import { exponentialSumFalls } from "./exponentialSumFalls.js";
+import { exponentialSumZero } from "./exponentialSumZero.js";
 import { type PowerTerm, powerAt } from "./powerTrace.js";
 
 /** An interior maximum of a node's rise inside one step. */
@@ -185,9 +187,9 @@ function signChanges(n: number): number {
  * is an exponential sum S(s) = C + Σ_m k_m·e^(−s/tau_m) with C = Σ_src b·Σ_m gain and
  * k_m = Σ_src gain·(u_m(0) − b·tau_m)/tau_m. By the rule of signs for exponential sums, S has no
  * more zeros than its coefficients, ordered by rate (C first, then slower to faster modes), have
- * sign changes. Leaves the sum in the scratch and returns its length when there is at most one
- * change (then at most one turn, bracketed by the step ends), else −1 (also when a term is not
- * linear). Source: generalised Descartes rule of signs for exponential sums (Laguerre), as in
+ * sign changes. Leaves the sum in the scratch and returns its length (the caller counts the
+ * changes: with at most one there is at most one turn, bracketed by the step ends), or −1 when a
+ * term is not linear. Source: generalised Descartes rule of signs for exponential sums (Laguerre), as in
  * Pólya & Szegő, Problems and Theorems in Analysis II, Part V (from memory).
  */
 function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowers, o: number): number {
@@ -222,7 +224,7 @@ function linearSlopeSum(model: ModalModel, state: ModalState, powers: SourcePowe
       sumCoefficients[p]! += g * (a - state[base + m]!) * rates[p]! - g * b;
     }
   }
-  return signChanges(n) <= 1 ? n : -1;
+  return n;
 }
 
 
@@ -376,24 +378,7 @@ export function forgetPeakGuess(): void {
 
 /** Safeguarded Newton on the scratch sum inside [lo, hi] from x, S(lo) > 0 ≥ S(hi). */
 function turnInside(n: number, h: number, lo: number, hi: number, x: number): number {
-  for (let iteration = 0; iteration < 200; iteration++) {
-    let f = 0;
-    let df = 0;
-    for (let i = 0; i < n; i++) {
-      const term = sumCoefficients[i]! * Math.exp(-sumRates[i]! * x);
-      f += term;
-      df -= term * sumRates[i]!;
-    }
-    if (f === 0) return x;
-    if (f > 0) lo = x;
-    else hi = x;
-    if (hi - lo <= 1e-12 * h) break;
-    let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - x) <= 1e-12 * h) return next;
-    x = next;
-  }
-  return 0.5 * (lo + hi);
+  return exponentialSumZero(sumCoefficients, 0, sumRates, 0, n, lo, hi, x, true, h);
 }
 
 /**
@@ -401,7 +386,8 @@ function turnInside(n: number, h: number, lo: number, hi: number, x: number): nu
  *
  * Steps whose rise is provably monotone skip the search. Steps with linear power and at most one
  * turn (see linearSlopeSum) are bracketed by their ends and solved by safeguarded Newton on the
- * closed-form slope. Otherwise the slope d(rise)/ds is evaluated
+ * closed-form slope; with more turns possible, an exact test (exponentialSumFalls) proves most of
+ * them free of any maximum, and only the rest are searched. Otherwise the slope d(rise)/ds is evaluated
  * on a grid of {@link PEAK_GRID_POINTS} points (linear plus log-spaced near the start, where fast
  * modes turn) and each change of sign from + to − brackets a maximum. Each bracket is refined by
  * the Illinois variant of regula falsi on the sign of the slope until it is below 1e-12·h (far
@@ -417,6 +403,12 @@ function turnInside(n: number, h: number, lo: number, hi: number, x: number): nu
 export function interiorPeaks(model: ModalModel, state: ModalState, h: number, powers: SourcePowers, o = 0): InteriorPeak[] {
   if (!(h > 0) || provablyMonotone(model, state, powers, o)) return NO_PEAKS;
   let n = linearSlopeSum(model, state, powers, o);
+  // linear power with several sign changes: an exact test first (most such steps have no
+  // maximum); the grid below searches the few that have one
+  if (n >= 0 && signChanges(n) > 1) {
+    if (!exponentialSumFalls(sumCoefficients, sumRates, n, h)) return NO_PEAKS;
+    n = -1;
+  }
   if (n < 0) n = exponentialSlopeSum(model, state, powers, o);
   if (n >= 0) {
     const at = singleTurnOfRates(n, h);
